@@ -1,0 +1,185 @@
+/**
+ * Command line: `npm run --silent solve -- FILE [--json | --csv]`.
+ * Prints a readable summary, the JSON result, or the traces as CSV.
+ * Exit codes: 0 solved, 2 netlist errors (printed as FILE:line:col: message (hint)), 1 anything else.
+ */
+import { readFileSync } from "node:fs";
+import { solveNetlist } from "./index";
+import type { SolveResult, SolveSuccess } from "./types";
+
+const USAGE = "usage: npm run --silent solve -- FILE [--json | --csv]";
+
+type Mode = "summary" | "json" | "csv";
+
+/** Parsed arguments, or a message for exit code 1. */
+export function parseArgs(args: string[]): { file: string; mode: Mode } | { error: string } {
+  const files: string[] = [];
+  const modes: Mode[] = [];
+  for (const a of args) {
+    if (a === "--json") modes.push("json");
+    else if (a === "--csv") modes.push("csv");
+    else if (a.startsWith("-")) return { error: `unknown option ${a}\n${USAGE}` };
+    else files.push(a);
+  }
+  if (files.length !== 1)
+    return {
+      error:
+        files.length === 0
+          ? `no netlist file given\n${USAGE}`
+          : `give one netlist file, not ${files.length}\n${USAGE}`,
+    };
+  if (modes.length > 1) return { error: `choose one of --json and --csv\n${USAGE}` };
+  return { file: files[0]!, mode: modes[0] ?? "summary" };
+}
+
+const PREFIXES: [number, string][] = [
+  [1e12, "T"],
+  [1e9, "G"],
+  [1e6, "M"],
+  [1e3, "k"],
+  [1, ""],
+  [1e-3, "m"],
+  [1e-6, "µ"],
+  [1e-9, "n"],
+  [1e-12, "p"],
+  [1e-15, "f"],
+];
+
+/** A number with an SI prefix and 6 significant digits: 1591.55 → "1.59155 k". */
+export function formatSi(value: number, unit: string): string {
+  if (!Number.isFinite(value)) return `${value} ${unit}`.trim();
+  if (unit !== "Hz") return `${Number(value.toPrecision(6))}${unit ? ` ${unit}` : ""}`;
+  const abs = Math.abs(value);
+  const [scale, prefix] = PREFIXES.find(([s]) => abs >= s) ?? [1, ""];
+  return `${Number((value / scale).toPrecision(6))} ${prefix}${unit}`;
+}
+
+function csvField(text: string): string {
+  return /[",\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+}
+
+/** The traces as CSV: frequency, then re, im, dB, deg of each trace. */
+export function toCsv(result: SolveSuccess): string {
+  const header = ["frequency_Hz"];
+  for (const t of result.traces)
+    header.push(...["re", "im", "dB", "deg"].map((c) => csvField(`${t.name} ${c}`)));
+  const rows = [header.join(",")];
+  result.frequencies.forEach((f, i) => {
+    const row = [String(f)];
+    for (const t of result.traces)
+      row.push(String(t.re[i]), String(t.im[i]), String(t.magnitudeDb[i]), String(t.phaseDeg[i]));
+    rows.push(row.join(","));
+  });
+  return `${rows.join("\n")}\n`;
+}
+
+/** The readable summary: title, measures, checks, studies, warnings, stats. */
+export function toSummary(r: SolveSuccess): string {
+  const out: string[] = [r.title ?? "(untitled netlist)"];
+  const width = Math.max(0, ...r.measures.map((m) => m.name.length));
+  if (r.measures.length > 0) out.push("", "Measures");
+  for (const m of r.measures) {
+    out.push(
+      `  ${m.name.padEnd(width)}  ${m.value === null ? `none — ${m.reason ?? "no value"}` : formatSi(m.value, m.unit)}`,
+    );
+  }
+  if (r.checks.length > 0) out.push("", "Checks");
+  for (const c of r.checks)
+    out.push(`  ${c.pass ? "PASS" : "FAIL"}  ${c.expression}${c.reason ? ` — ${c.reason}` : ""}`);
+  if (r.variants?.length) {
+    out.push("", "Variants");
+    for (const v of r.variants) {
+      const ms = v.measures
+        .map((m) => `${m.name}=${m.value === null ? "none" : formatSi(m.value, m.unit)}`)
+        .join(", ");
+      out.push(`  ${v.name} = ${Number(v.value.toPrecision(6))}: ${ms}`);
+    }
+  }
+  if (r.monteCarlo) {
+    const mc = r.monteCarlo;
+    out.push(
+      "",
+      `Monte Carlo: ${mc.samples} samples, seed ${mc.seed}, ${(mc.yield * 100).toFixed(1)} % pass every check`,
+    );
+    for (const m of mc.measures) {
+      const unit = r.measures.find((x) => x.name === m.name)?.unit ?? "";
+      const f = (v: number | null) => (v === null ? "none" : formatSi(v, unit));
+      out.push(`  ${m.name}: mean ${f(m.mean)}, std ${f(m.std)}, min ${f(m.min)}, max ${f(m.max)}`);
+    }
+  }
+  if (r.poles) {
+    out.push("", "Poles");
+    for (const p of r.poles) {
+      const grow = p.growthPerCycle === null ? "" : `, ×${Number(p.growthPerCycle.toPrecision(6))} per cycle`;
+      out.push(
+        `  s = ${Number(p.re.toPrecision(6))} ${p.im < 0 ? "-" : "+"} j${Number(Math.abs(p.im).toPrecision(6))} rad/s (${formatSi(p.frequencyHz, "Hz")}, Q ${p.q === null ? "none" : Number(p.q.toPrecision(4))}${grow})`,
+      );
+    }
+  }
+  if (r.sensitivity?.length) {
+    out.push("", "Sensitivity");
+    for (const s of r.sensitivity)
+      out.push(`  ${s.measure} to ${s.part}: ${s.value === null ? "none" : Number(s.value.toPrecision(4))}`);
+  }
+  if (r.warnings.length > 0) out.push("", "Warnings");
+  for (const w of r.warnings) out.push(`  ${w.line === null ? "" : `line ${w.line}: `}${w.message}`);
+  const s = r.stats;
+  out.push(
+    "",
+    `${s.nodes} nodes, ${s.unknowns} unknowns, ${s.points} points, ${s.solveMs} ms (solver ${r.solverVersion})`,
+  );
+  return `${out.join("\n")}\n`;
+}
+
+/** Run the command; returns the exit code. Output goes through the given writers (for tests). */
+export function run(args: string[], stdout: (s: string) => void, stderr: (s: string) => void): number {
+  const parsed = parseArgs(args);
+  if ("error" in parsed) {
+    stderr(`${parsed.error}\n`);
+    return 1;
+  }
+  let text: string;
+  try {
+    text = readFileSync(parsed.file, "utf8");
+  } catch (error) {
+    stderr(`cannot read ${parsed.file}: ${error instanceof Error ? error.message : String(error)}\n`);
+    return 1;
+  }
+  let result: SolveResult;
+  try {
+    result = solveNetlist(text);
+  } catch (error) {
+    stderr(
+      `internal fault while solving ${parsed.file}: ${error instanceof Error ? error.message : String(error)}\n`,
+    );
+    return 1;
+  }
+  if (!result.ok) {
+    if (parsed.mode === "json") stdout(`${JSON.stringify(result, null, 2)}\n`);
+    else
+      for (const e of result.errors)
+        stderr(`${parsed.file}:${e.line}:${e.column}: ${e.message}${e.hint ? ` (${e.hint})` : ""}\n`);
+    return 2;
+  }
+  stdout(
+    parsed.mode === "json"
+      ? `${JSON.stringify(result, null, 2)}\n`
+      : parsed.mode === "csv"
+        ? toCsv(result)
+        : toSummary(result),
+  );
+  return 0;
+}
+
+if (process.argv[1] && /cli\.[cm]?[tj]s$/.test(process.argv[1])) {
+  // A reader that stops early (`| head`) is not an error.
+  process.stdout.on("error", (error: NodeJS.ErrnoException) => {
+    if (error.code === "EPIPE") process.exit(process.exitCode ?? 0);
+    throw error;
+  });
+  process.exitCode = run(
+    process.argv.slice(2),
+    (s) => process.stdout.write(s),
+    (s) => process.stderr.write(s),
+  );
+}

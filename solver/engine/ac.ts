@@ -1,0 +1,109 @@
+import { floatingNodes } from "./floating";
+import { assemble, type MnaSystem } from "./mna";
+import { SparseComplexLU } from "./sparse-lu";
+
+/** "1.59155 kHz": a frequency with an SI prefix, 6 significant digits. */
+export function formatHz(f: number): string {
+  if (f === 0) return "0 Hz";
+  const prefixes: [number, string][] = [
+    [1e9, "G"],
+    [1e6, "M"],
+    [1e3, "k"],
+    [1, ""],
+    [1e-3, "m"],
+  ];
+  for (const [scale, p] of prefixes) {
+    if (Math.abs(f) >= scale) return `${Number((f / scale).toPrecision(6))} ${p}Hz`;
+  }
+  return `${Number(f.toPrecision(6))} Hz`;
+}
+
+/**
+ * Solves one MNA system at any frequency, reusing a single sparse LU whose ordering is analysed
+ * at the first frequency solved (normally the first point of the sweep) — see SparseComplexLU.
+ * After `solveAt(f)` the solution is in xRe/xIm; `derivative()` then fills dxRe/dxIm with
+ * dx/ds = −A(s)⁻¹·C·x using the same factors (one extra solve, no refactorization).
+ */
+export class AcSolver {
+  readonly sys: MnaSystem;
+  readonly xRe: Float64Array;
+  readonly xIm: Float64Array;
+  readonly dxRe: Float64Array;
+  readonly dxIm: Float64Array;
+  private lu: SparseComplexLU | null = null;
+  /** Angular frequency of the last successful solve. */
+  omega = 0;
+
+  constructor(sys: MnaSystem) {
+    this.sys = sys;
+    this.xRe = new Float64Array(sys.n);
+    this.xIm = new Float64Array(sys.n);
+    this.dxRe = new Float64Array(sys.n);
+    this.dxIm = new Float64Array(sys.n);
+  }
+
+  /** How many frequencies needed their own pivot order. */
+  get repivots(): number {
+    return this.lu?.repivots ?? 0;
+  }
+
+  /** Solve at f (Hz). Returns null, or the reason the equations have no unique solution there. */
+  solveAt(f: number): string | null {
+    const sys = this.sys;
+    if (sys.n === 0) return "the circuit has no nodes besides gnd";
+    assemble(sys, f);
+    let ok: boolean;
+    if (!this.lu) {
+      this.lu = new SparseComplexLU(sys.matrix);
+      ok = !this.lu.isSingular();
+    } else {
+      ok = this.lu.refactor(sys.matrix.re, sys.matrix.im);
+    }
+    if (!ok) return this.singularReason(f);
+    this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);
+    this.omega = 2 * Math.PI * f;
+    for (let i = 0; i < sys.n; i++) {
+      if (!Number.isFinite(this.xRe[i]!) || !Number.isFinite(this.xIm[i]!)) return this.singularReason(f);
+    }
+    return null;
+  }
+
+  /** dx/ds at the last solved frequency (requires a successful solveAt). Cost: one solve. */
+  derivative(): void {
+    const { matrix, c, n } = this.sys;
+    const { rowPtr, colIdx } = matrix;
+    for (let i = 0; i < n; i++) {
+      let r = 0;
+      let im = 0;
+      for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
+        const cv = c[p]!;
+        if (cv === 0) continue;
+        r -= cv * this.xRe[colIdx[p]!]!;
+        im -= cv * this.xIm[colIdx[p]!]!;
+      }
+      this.dxRe[i] = r;
+      this.dxIm[i] = im;
+    }
+    this.lu!.solve(this.dxRe, this.dxIm);
+  }
+
+  private singularReason(f: number): string {
+    const floating = floatingNodes(this.sys, f);
+    if (floating.length > 0) {
+      const list = floating.slice(0, 8).join(", ") + (floating.length > 8 ? ", …" : "");
+      return (
+        `at ${formatHz(f)} the circuit has no unique solution: node${floating.length > 1 ? "s" : ""} ` +
+        `${list} ${floating.length > 1 ? "have" : "has"} no path to gnd through parts that conduct at this frequency`
+      );
+    }
+    const cols = this.lu?.singularColumns ?? [];
+    const names = cols
+      .slice(0, 4)
+      .map((j) => this.sys.unknownLabels[j] ?? `unknown ${j}`)
+      .join(", ");
+    return (
+      `at ${formatHz(f)} the circuit equations are singular (a loop of voltage sources, a cut set of current ` +
+      `sources, or an op-amp without feedback?)${names ? `; undetermined: ${names}` : ""}`
+    );
+  }
+}

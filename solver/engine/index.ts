@@ -1,0 +1,271 @@
+import type {
+  CheckResult,
+  Circuit,
+  MeasureResult,
+  NetlistError,
+  Probe,
+  SolveResult,
+  SourceSpan,
+  TraceResult,
+  Warning,
+} from "../types";
+import { AcSolver } from "./ac";
+import { evaluateChecks } from "./checks";
+import { floatingNodes } from "./floating";
+import { buildLoop, cutNodeName } from "./loops";
+import { computeMeasures } from "./measures";
+import { buildMna, type MnaSystem } from "./mna";
+import { evalProbe, probeProblem } from "./probes";
+import { deg, type TraceSampler } from "./refine";
+import { sweepFrequencies } from "./sweep";
+
+export const ENGINE_VERSION = "1.0.0";
+
+/** Options of one analysis run. */
+export interface AnalyzeOptions {
+  /** Refuse sweeps with more points than this (the service's per-request limit). */
+  maxPoints?: number;
+}
+
+/** |X| below this is reported as this (−600 dB), so the JSON never holds −Infinity. */
+const MAG_FLOOR = 1e-30;
+
+const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
+  line: span?.line ?? 1,
+  column: span?.column ?? 1,
+  endColumn: span?.endColumn ?? 2,
+  message,
+  ...(hint ? { hint } : {}),
+});
+
+/** One solved system (the circuit, or one loop's circuit) and the traces read from it. */
+interface SystemRun {
+  solver: AcSolver;
+  traces: { name: string; kind: "probe" | "loop"; probe: Probe; span: SourceSpan }[];
+}
+
+/** The result of one sweep of one circuit: everything a variant or a sample needs. */
+export interface SweepOutcome {
+  traces: TraceResult[];
+  measures: MeasureResult[];
+  checks: CheckResult[];
+  samplers: Map<string, TraceSampler>;
+  system: MnaSystem;
+}
+
+function sampler(run: SystemRun, name: string, probe: Probe, freqs: number[], re: number[], im: number[]) {
+  const s: TraceSampler = {
+    name,
+    freqs,
+    re,
+    im,
+    at(f, deriv) {
+      const err = run.solver.solveAt(f);
+      if (err) return err;
+      if (deriv) run.solver.derivative();
+      const d = evalProbe(probe, run.solver);
+      return deriv ? d : { ...d, dRe: 0, dIm: 0 };
+    },
+  };
+  return s;
+}
+
+/** The probe with every v(from…) read at node `to` instead. */
+function renameNode(p: Probe, from: string, to: string): Probe {
+  switch (p.op) {
+    case "num":
+    case "i":
+      return p;
+    case "v": {
+      const node = p.node === from ? to : p.node;
+      return p.ref === undefined ? { op: "v", node } : { op: "v", node, ref: p.ref === from ? to : p.ref };
+    }
+    case "neg":
+      return { op: "neg", arg: renameNode(p.arg, from, to) };
+    default:
+      return { op: p.op, left: renameNode(p.left, from, to), right: renameNode(p.right, from, to) };
+  }
+}
+
+function firstPartOn(sys: MnaSystem, node: string): SourceSpan | undefined {
+  return sys.parts.find((p) => p.nodes.includes(node))?.span;
+}
+
+/**
+ * Sweep one circuit: build the MNA systems (the circuit and one per loop), solve every frequency,
+ * read the traces, then the measures and checks. Never throws on user input.
+ */
+export function sweepCircuit(
+  circuit: Circuit,
+  freqs: number[],
+  warnings: Warning[],
+): { ok: true; outcome: SweepOutcome } | { ok: false; errors: NetlistError[] } {
+  const main = buildMna(circuit.parts, circuit.nodes);
+  if (!main.ok) return main;
+  const errors: NetlistError[] = [];
+  const runs: SystemRun[] = [{ solver: new AcSolver(main.system), traces: [] }];
+  for (const loop of circuit.loops) {
+    const lb = buildLoop(circuit, loop);
+    if (!lb.ok) {
+      errors.push(spanError(loop.span, lb.message));
+      continue;
+    }
+    const sys = buildMna(lb.parts, lb.nodes);
+    if (!sys.ok) {
+      errors.push(...sys.errors);
+      continue;
+    }
+    if (lb.warning) warnings.push(lb.warning);
+    runs.push({
+      solver: new AcSolver(sys.system),
+      traces: [{ name: loop.name, kind: "loop", probe: lb.probe, span: loop.span }],
+    });
+  }
+  // A circuit without an independent source (an oscillator) has only the zero response; its
+  // shows are read with the first loop's test signal as the excitation (see README.md).
+  const excited = circuit.parts.some((p) => (p.kind === "vsource" || p.kind === "isource") && p.value !== 0);
+  const firstLoop = circuit.loops[0];
+  let showRun = runs[0]!;
+  let rename = (p: Probe) => p;
+  if (!excited && circuit.shows.length > 0) {
+    if (!firstLoop || runs.length < 2) {
+      errors.push(
+        spanError(
+          circuit.shows[0]!.span,
+          "the circuit has no independent source, so every voltage and current is zero",
+          "add a vsource or isource, or a loop cut whose test signal excites the circuit",
+        ),
+      );
+    } else {
+      showRun = runs[1]!;
+      rename = (p) => renameNode(p, firstLoop.node, cutNodeName(firstLoop.node));
+      warnings.push({
+        line: firstLoop.span.line,
+        message:
+          `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s test signal ` +
+          `as the excitation (the loop opened at ${firstLoop.node}, v(${firstLoop.node}) being the injected side)`,
+      });
+    }
+  }
+  for (const show of circuit.shows) {
+    const probe = rename(show.probe);
+    const problem = probeProblem(probe, showRun.solver.sys);
+    if (problem) errors.push(spanError(show.span, `show ${show.name}: ${problem}`));
+    else showRun.traces.push({ name: show.name, kind: "probe", probe, span: show.span });
+  }
+  if (errors.length > 0) return { ok: false, errors };
+
+  const traces: TraceResult[] = [];
+  const samplers = new Map<string, TraceSampler>();
+  for (const [r, run] of runs.entries()) {
+    if (r > 0 && run.traces.length === 0) continue;
+    const n = freqs.length;
+    const cols = run.traces.map(() => ({ re: new Array<number>(n), im: new Array<number>(n) }));
+    for (let k = 0; k < n; k++) {
+      const f = freqs[k]!;
+      const err = run.solver.solveAt(f);
+      if (err) {
+        const fl = floatingNodes(run.solver.sys, f);
+        const span = r > 0 ? run.traces[0]!.span : fl[0] ? firstPartOn(run.solver.sys, fl[0]) : undefined;
+        const msg = r > 0 ? `loop ${run.traces[0]!.name}: ${err}` : err;
+        return { ok: false, errors: [spanError(span, msg)] };
+      }
+      for (const [t, tr] of run.traces.entries()) {
+        const v = evalProbe(tr.probe, run.solver);
+        cols[t]!.re[k] = v.re;
+        cols[t]!.im[k] = v.im;
+      }
+    }
+    for (const [t, tr] of run.traces.entries()) {
+      const { re, im } = cols[t]!;
+      if (re.some((x, k) => !Number.isFinite(x) || !Number.isFinite(im[k]!))) {
+        return {
+          ok: false,
+          errors: [spanError(tr.span, `${tr.name}: the probe divides by zero somewhere in the sweep`)],
+        };
+      }
+      traces.push({
+        name: tr.name,
+        kind: tr.kind,
+        re,
+        im,
+        magnitudeDb: re.map((x, k) => 20 * Math.log10(Math.max(Math.hypot(x, im[k]!), MAG_FLOOR))),
+        phaseDeg: re.map((x, k) => deg(x, im[k]!)),
+      });
+      samplers.set(tr.name, sampler(run, tr.name, tr.probe, freqs, re, im));
+    }
+  }
+  // Shows first, then loops, each in netlist order (the runs are grouped by system).
+  const order = new Map(
+    [...circuit.shows.map((s) => s.name), ...circuit.loops.map((l) => l.name)].map((n, i) => [n, i]),
+  );
+  traces.sort((a, b) => (order.get(a.name) ?? 0) - (order.get(b.name) ?? 0));
+  const measures = computeMeasures(circuit.measures, samplers);
+  const checks = evaluateChecks(circuit.checks, measures);
+  return { ok: true, outcome: { traces, measures, checks, samplers, system: main.system } };
+}
+
+/**
+ * Analyse an elaborated circuit: sweep, traces, loop gains, measures and checks (NETLIST.md).
+ * `warnings` (from the language) are carried into the result; engine warnings are appended.
+ * Never throws on user input: failures come back as `{ok: false, errors}`.
+ */
+export function analyze(
+  circuit: Circuit,
+  warnings: Warning[] = [],
+  options: AnalyzeOptions = {},
+): SolveResult {
+  try {
+    return analyzeUnguarded(circuit, warnings, options);
+  } catch (error) {
+    return { ok: false, errors: [internalError(error)], warnings };
+  }
+}
+
+/** An unexpected fault as a netlist error at line 1 (the solver never throws on user input). */
+export function internalError(error: unknown): NetlistError {
+  const detail = error instanceof Error ? error.message : String(error);
+  return spanError(undefined, "the circuit could not be solved (an internal fault)", detail);
+}
+
+function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: AnalyzeOptions): SolveResult {
+  const t0 = performance.now();
+  const warn = [...warnings];
+  if (circuit.defaultSweep) {
+    warn.push({ line: null, message: "no sweep statement: used 10 Hz to 10 MHz, 100 points per decade" });
+  }
+  const freqs = sweepFrequencies(circuit.sweep);
+  if (typeof freqs === "string") return { ok: false, errors: [spanError(undefined, freqs)], warnings: warn };
+  if (options.maxPoints !== undefined && freqs.length > options.maxPoints) {
+    return {
+      ok: false,
+      errors: [
+        spanError(
+          undefined,
+          `the sweep has ${freqs.length} points; this service allows at most ${options.maxPoints}`,
+          "use fewer points per decade or a narrower range",
+        ),
+      ],
+      warnings: warn,
+    };
+  }
+  const run = sweepCircuit(circuit, freqs, warn);
+  if (!run.ok) return { ok: false, errors: run.errors, warnings: warn };
+  const { outcome } = run;
+  return {
+    ok: true,
+    title: circuit.title,
+    solverVersion: ENGINE_VERSION,
+    frequencies: freqs,
+    traces: outcome.traces,
+    measures: outcome.measures,
+    checks: outcome.checks,
+    warnings: warn,
+    stats: {
+      nodes: circuit.nodes.length,
+      unknowns: outcome.system.n,
+      points: freqs.length,
+      solveMs: Math.round((performance.now() - t0) * 1000) / 1000,
+    },
+  };
+}

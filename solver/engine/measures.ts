@@ -1,0 +1,138 @@
+import type { MeasureDef, MeasureResult } from "../types";
+import { formatHz } from "./ac";
+import {
+  at,
+  bandwidth,
+  deg,
+  extremum,
+  mag,
+  magnitudeCrossing,
+  type Outcome,
+  phaseCrossing,
+  range,
+  SolveFailed,
+  type TraceSampler,
+  wrapDeg,
+} from "./refine";
+
+const UNITS: Record<MeasureDef["fn"], string> = {
+  "zero-phase": "Hz",
+  crossing: "Hz",
+  peak: "Hz",
+  dip: "Hz",
+  bandwidth: "Hz",
+  q: "",
+  unity: "Hz",
+  "phase-margin": "deg",
+  "gain-margin": "dB",
+  mag: "",
+  db: "dB",
+  phase: "deg",
+};
+
+/** The function of one measure (no `at` resolution); F is the resolved frequency if any. */
+function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outcome {
+  switch (def.fn) {
+    case "zero-phase": {
+      const f = phaseCrossing(tr, 0);
+      return f === null ? { reason: `∠${tr.name} does not cross 0° ${range(tr)}` } : { value: f };
+    }
+    case "crossing": {
+      const lv = def.level;
+      if (!lv) return { reason: "crossing needs a level" };
+      if (lv.kind === "deg") {
+        const f = phaseCrossing(tr, lv.value);
+        return f === null ? { reason: `∠${tr.name} does not cross ${lv.value}° ${range(tr)}` } : { value: f };
+      }
+      const target = lv.kind === "db" ? 10 ** (lv.value / 20) : lv.kind === "mag" ? lv.value : Math.SQRT1_2;
+      if (!(target > 0)) return { reason: "a magnitude level must be positive" };
+      const f = magnitudeCrossing(tr, target);
+      const text = lv.kind === "db" ? `${lv.value} dB` : lv.kind === "mag" ? `${lv.value}` : "half power";
+      return f === null ? { reason: `|${tr.name}| does not cross ${text} ${range(tr)}` } : { value: f };
+    }
+    case "peak":
+      return { value: extremum(tr, 1).f };
+    case "dip":
+      return { value: extremum(tr, -1).f };
+    case "bandwidth":
+      return bandwidth(tr, def.level);
+    case "q": {
+      const bw = bandwidth(tr, def.level);
+      if ("reason" in bw) return bw;
+      return { value: extremum(tr, 1).f / bw.value };
+    }
+    case "unity": {
+      const f = magnitudeCrossing(tr, 1);
+      return f === null ? { reason: `|${tr.name}| does not cross 1 ${range(tr)}` } : { value: f };
+    }
+    case "phase-margin": {
+      const f = magnitudeCrossing(tr, 1);
+      if (f === null)
+        return { reason: `|${tr.name}| does not cross 1 ${range(tr)}, so there is no phase margin` };
+      const x = at(tr, f);
+      return { value: Math.abs(wrapDeg(deg(x.re, x.im))) };
+    }
+    case "gain-margin": {
+      const f = phaseCrossing(tr, 0);
+      if (f === null)
+        return { reason: `∠${tr.name} does not cross 0° ${range(tr)}, so there is no gain margin` };
+      const x = at(tr, f);
+      return { value: -20 * Math.log10(mag(x.re, x.im)) };
+    }
+    case "mag":
+    case "db":
+    case "phase": {
+      if (atHz === null) return { reason: `${def.fn}(${tr.name}) needs "at" and a frequency` };
+      if (!(atHz > 0) || !Number.isFinite(atHz))
+        return { reason: `${formatHz(atHz)} is not a positive frequency` };
+      const x = at(tr, atHz);
+      if (def.fn === "mag") return { value: mag(x.re, x.im) };
+      if (def.fn === "db") return { value: 20 * Math.log10(mag(x.re, x.im)) };
+      return { value: deg(x.re, x.im) };
+    }
+  }
+}
+
+/**
+ * Every measure in order (a measure may name an earlier one as its frequency). Never throws:
+ * a measure without an answer gets value null and a reason.
+ */
+export function computeMeasures(defs: MeasureDef[], traces: Map<string, TraceSampler>): MeasureResult[] {
+  const out: MeasureResult[] = [];
+  const byName = new Map<string, MeasureResult>();
+  for (const def of defs) {
+    const unit = UNITS[def.fn];
+    let res: MeasureResult;
+    const tr = traces.get(def.target);
+    if (!tr) {
+      res = { name: def.name, value: null, unit, reason: `no trace or loop named ${def.target}` };
+    } else {
+      let atHz: number | null = null;
+      let reason: string | null = null;
+      if (def.at && "hz" in def.at) atHz = def.at.hz;
+      else if (def.at) {
+        const ref = byName.get(def.at.measure);
+        if (!ref) reason = `no earlier measure named ${def.at.measure}`;
+        else if (ref.value === null) reason = `${ref.name} has no value (${ref.reason})`;
+        else atHz = ref.value;
+      }
+      if (reason !== null) res = { name: def.name, value: null, unit, reason };
+      else {
+        let o: Outcome;
+        try {
+          o = evaluate(def, tr, atHz);
+        } catch (e) {
+          if (!(e instanceof SolveFailed)) throw e;
+          o = { reason: e.message };
+        }
+        res =
+          "value" in o && Number.isFinite(o.value)
+            ? { name: def.name, value: o.value, unit, reason: null }
+            : { name: def.name, value: null, unit, reason: "reason" in o ? o.reason : "no finite value" };
+      }
+    }
+    out.push(res);
+    byName.set(def.name, res);
+  }
+  return out;
+}

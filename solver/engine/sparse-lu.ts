@@ -1,0 +1,315 @@
+import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
+import type { SparseComplexMatrix } from "./sparse-matrix";
+
+export interface SparseLUOptions {
+  /** Threshold τ of threshold pivoting (Duff, Erisman & Reid recommend 0.1). */
+  pivotThreshold?: number;
+  /** A pivot counts as zero below this multiple of the largest |entry| of the matrix. */
+  singularTolerance?: number;
+}
+
+/**
+ * Sparse complex LU factorization for a sweep of matrices with one sparsity pattern.
+ *
+ * Invariant after a successful (re)factorization: P·A·Q = L·U, where P takes row rowPerm[k] to
+ * row k, Q takes column colPerm[k] to column k, L is unit lower triangular and U upper triangular
+ * with the pivots on its diagonal. Storage: L and U in CSR over the permuted indices with split
+ * re/im Float64Arrays; the pivots' reciprocals are kept so the solves multiply only.
+ *
+ * Use: the constructor analyses A once (Markowitz ordering with threshold pivoting, fill pattern —
+ * see `markowitzOrder`) and factors it. For each further matrix of the same pattern (the next
+ * frequency of a sweep) `refactor(re, im)` recomputes only the numbers, row by row with a dense
+ * scatter vector ("up-looking" elimination over the fixed pattern), checking every pivot against
+ * the same threshold. If a pivot fails at some frequency, that frequency is re-pivoted (its order
+ * is kept as an alternate for later frequencies that fail too); every `refactor` tries the sweep's
+ * ordering first.
+ *
+ * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern, solve O(nnz(L)+nnz(U)).
+ * Assumes: A square, values given in A's CSR order. A pivot is zero when |pivot| ≤
+ * singularTolerance·max|a_ij|; then `isSingular()` is true and `solve` must not be called.
+ */
+export class SparseComplexLU {
+  readonly n: number;
+  private readonly a: SparseComplexMatrix;
+  private readonly opt: OrderingOptions;
+  private base: Symbolic | null = null;
+  private sym: Symbolic | null = null;
+  private aPos: Int32Array = new Int32Array(0);
+  private lRe = new Float64Array(0);
+  private lIm = new Float64Array(0);
+  private uRe = new Float64Array(0);
+  private uIm = new Float64Array(0);
+  private readonly invRe: Float64Array;
+  private readonly invIm: Float64Array;
+  private readonly wRe: Float64Array;
+  private readonly wIm: Float64Array;
+  private singular = false;
+  private failedStep = -1;
+  private failedCols: number[] = [];
+  /** Orders analysed for frequencies where the sweep's order failed the threshold (at most 8 kept). */
+  private alternates: Symbolic[] = [];
+  /** How many times a new pivot order had to be analysed after the first. */
+  repivots = 0;
+
+  constructor(a: SparseComplexMatrix, options: SparseLUOptions = {}) {
+    if (a.rowPtr.length !== a.n + 1) throw new RangeError("matrix is not square: row pointer length ≠ n+1");
+    if (a.re.length !== a.colIdx.length || a.im.length !== a.colIdx.length) {
+      throw new RangeError("dimension mismatch: values and pattern differ in length");
+    }
+    this.n = a.n;
+    this.a = a;
+    this.opt = {
+      pivotThreshold: options.pivotThreshold ?? 0.1,
+      absTolerance: 0,
+      searchRows: 4,
+    };
+    this.singularRel = options.singularTolerance ?? 1e-14;
+    this.invRe = new Float64Array(a.n);
+    this.invIm = new Float64Array(a.n);
+    this.wRe = new Float64Array(a.n);
+    this.wIm = new Float64Array(a.n);
+    this.analyse(a.re, a.im, true);
+  }
+
+  private readonly singularRel: number;
+
+  /** True when the last (re)factorization met a zero pivot. */
+  isSingular(): boolean {
+    return this.singular;
+  }
+
+  /** Original column indices left unpivoted when the factorization failed (diagnostics). */
+  get singularColumns(): readonly number[] {
+    return this.failedCols;
+  }
+
+  /** Step at which the last factorization failed, or −1. */
+  get singularStep(): number {
+    return this.failedStep;
+  }
+
+  /** Nonzeros of L plus U (without the unit diagonal of L, with U's diagonal). */
+  get factorNonzeros(): number {
+    return this.lRe.length + this.uRe.length + this.n;
+  }
+
+  /** Row order P (rowPerm[k] = original row at step k) of the current factors. */
+  get rowPermutation(): Int32Array {
+    return this.sym?.rowPerm ?? new Int32Array(0);
+  }
+
+  /** Column order Q (colPerm[k] = original column at step k) of the current factors. */
+  get columnPermutation(): Int32Array {
+    return this.sym?.colPerm ?? new Int32Array(0);
+  }
+
+  /**
+   * The factors as dense re/im arrays (tests only; O(n²) memory): L unit lower, U upper.
+   */
+  denseFactors(): { lRe: number[][]; lIm: number[][]; uRe: number[][]; uIm: number[][] } {
+    const n = this.n;
+    const z = () => Array.from({ length: n }, () => new Array<number>(n).fill(0));
+    const out = { lRe: z(), lIm: z(), uRe: z(), uIm: z() };
+    const s = this.sym;
+    if (!s) return out;
+    for (let k = 0; k < n; k++) {
+      out.lRe[k]![k] = 1;
+      for (let q = s.lPtr[k]!; q < s.lPtr[k + 1]!; q++) {
+        out.lRe[k]![s.lIdx[q]!] = this.lRe[q]!;
+        out.lIm[k]![s.lIdx[q]!] = this.lIm[q]!;
+      }
+      const d = this.invRe[k]! ** 2 + this.invIm[k]! ** 2;
+      out.uRe[k]![k] = this.invRe[k]! / d;
+      out.uIm[k]![k] = -this.invIm[k]! / d;
+      for (let t = s.uPtr[k]!; t < s.uPtr[k + 1]!; t++) {
+        out.uRe[k]![s.uIdx[t]!] = this.uRe[t]!;
+        out.uIm[k]![s.uIdx[t]!] = this.uIm[t]!;
+      }
+    }
+    return out;
+  }
+
+  /**
+   * Refactor with new values in A's pattern (same CSR order). Keeps the sweep's pivot order when
+   * every pivot passes the threshold; otherwise re-pivots for these values only.
+   * Returns false when the matrix is singular.
+   */
+  refactor(re: Float64Array, im: Float64Array): boolean {
+    if (re.length !== this.a.colIdx.length || im.length !== this.a.colIdx.length) {
+      throw new RangeError("dimension mismatch: values and pattern differ in length");
+    }
+    if (!this.base) return this.analyse(re, im, true);
+    if (this.base !== this.sym) this.use(this.base);
+    if (this.numeric(re, im)) return true;
+    // The sweep's order failed here: try the orders earlier frequencies needed (newest first),
+    // so a band of frequencies that needs another order analyses it once, not at every point.
+    for (let k = this.alternates.length - 1; k >= 0; k--) {
+      this.use(this.alternates[k]!);
+      if (this.numeric(re, im)) return true;
+    }
+    this.repivots++;
+    const ok = this.analyse(re, im, false);
+    if (ok && this.sym) {
+      this.alternates.push(this.sym);
+      if (this.alternates.length > 8) this.alternates.shift();
+    }
+    return ok;
+  }
+
+  private analyse(re: Float64Array, im: Float64Array, asBase: boolean): boolean {
+    const tol = this.singularRel * maxAbs(re, im);
+    const res = markowitzOrder(this.a, re, im, { ...this.opt, absTolerance: tol });
+    if (!res.ok) {
+      this.singular = true;
+      this.failedStep = res.step;
+      this.failedCols = res.cols;
+      return false;
+    }
+    this.use(res.symbolic);
+    if (asBase) this.base = res.symbolic;
+    // Same numbers as the ordering pass, so the threshold checks pass (up to rounding ties).
+    if (!this.numeric(re, im, true)) return false;
+    return true;
+  }
+
+  private use(s: Symbolic): void {
+    this.sym = s;
+    const a = this.a;
+    this.aPos = new Int32Array(a.colIdx.length);
+    for (let p = 0; p < a.colIdx.length; p++) this.aPos[p] = s.colPos[a.colIdx[p]!]!;
+    if (this.lRe.length !== s.lIdx.length) {
+      this.lRe = new Float64Array(s.lIdx.length);
+      this.lIm = new Float64Array(s.lIdx.length);
+    }
+    if (this.uRe.length !== s.uIdx.length) {
+      this.uRe = new Float64Array(s.uIdx.length);
+      this.uIm = new Float64Array(s.uIdx.length);
+    }
+  }
+
+  /** Numeric factorization over the current pattern; false on a failed pivot. */
+  private numeric(re: Float64Array, im: Float64Array, lenient = false): boolean {
+    const s = this.sym!;
+    const { rowPtr } = this.a;
+    const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
+    const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = this;
+    const tau = lenient ? 0 : this.opt.pivotThreshold;
+    const absTol = this.singularRel * maxAbs(re, im);
+    this.singular = false;
+    this.failedStep = -1;
+    this.failedCols = [];
+    for (let k = 0; k < this.n; k++) {
+      const l0 = lPtr[k]!;
+      const l1 = lPtr[k + 1]!;
+      const u0 = uPtr[k]!;
+      const u1 = uPtr[k + 1]!;
+      // Clear the scatter vector over this row's pattern, then scatter row rowPerm[k] of A.
+      for (let q = l0; q < l1; q++) {
+        wRe[lIdx[q]!] = 0;
+        wIm[lIdx[q]!] = 0;
+      }
+      for (let t = u0; t < u1; t++) {
+        wRe[uIdx[t]!] = 0;
+        wIm[uIdx[t]!] = 0;
+      }
+      wRe[k] = 0;
+      wIm[k] = 0;
+      const r = rowPerm[k]!;
+      for (let p = rowPtr[r]!; p < rowPtr[r + 1]!; p++) {
+        const j = aPos[p]!;
+        wRe[j] = wRe[j]! + re[p]!;
+        wIm[j] = wIm[j]! + im[p]!;
+      }
+      // Eliminate with earlier rows, in ascending order of the L pattern.
+      for (let q = l0; q < l1; q++) {
+        const j = lIdx[q]!;
+        const xr = wRe[j]!;
+        const xi = wIm[j]!;
+        const lr = xr * invRe[j]! - xi * invIm[j]!;
+        const li = xr * invIm[j]! + xi * invRe[j]!;
+        lRe[q] = lr;
+        lIm[q] = li;
+        if (lr === 0 && li === 0) continue;
+        for (let t = uPtr[j]!; t < uPtr[j + 1]!; t++) {
+          const c = uIdx[t]!;
+          const ur = uRe[t]!;
+          const ui = uIm[t]!;
+          wRe[c] = wRe[c]! - (lr * ur - li * ui);
+          wIm[c] = wIm[c]! - (lr * ui + li * ur);
+        }
+      }
+      // Gather U's row and check the pivot against the row's largest entry.
+      let rowMax = 0;
+      for (let t = u0; t < u1; t++) {
+        const c = uIdx[t]!;
+        uRe[t] = wRe[c]!;
+        uIm[t] = wIm[c]!;
+        const m = Math.abs(wRe[c]!) + Math.abs(wIm[c]!);
+        if (m > rowMax) rowMax = m;
+      }
+      const pr = wRe[k]!;
+      const pi = wIm[k]!;
+      const pm = Math.hypot(pr, pi);
+      // |x|₁/√2 ≤ |x|₂: a cheap lower bound keeps the comparison conservative.
+      if (pm <= absTol || pm < tau * rowMax * Math.SQRT1_2) {
+        this.singular = pm <= absTol;
+        this.failedStep = k;
+        this.failedCols = Array.from(s.colPerm.subarray(k));
+        return false;
+      }
+      const d = pr * pr + pi * pi;
+      invRe[k] = pr / d;
+      invIm[k] = -pi / d;
+    }
+    return true;
+  }
+
+  /**
+   * Solve A·x = b with the current factors. x may alias b. Cost O(nnz(L)+nnz(U)+n).
+   * Throws if the last factorization was singular (a programming error, never user input).
+   */
+  solve(bRe: Float64Array, bIm: Float64Array, xRe: Float64Array = bRe, xIm: Float64Array = bIm): void {
+    if (this.singular || !this.sym) throw new Error("matrix is singular: cannot solve");
+    const n = this.n;
+    if (bRe.length !== n || bIm.length !== n || xRe.length !== n || xIm.length !== n) {
+      throw new RangeError("dimension mismatch: right-hand side length ≠ n");
+    }
+    const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = this.sym;
+    const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = this;
+    for (let k = 0; k < n; k++) {
+      let yr = bRe[rowPerm[k]!]!;
+      let yi = bIm[rowPerm[k]!]!;
+      for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
+        const j = lIdx[q]!;
+        yr -= lRe[q]! * wRe[j]! - lIm[q]! * wIm[j]!;
+        yi -= lRe[q]! * wIm[j]! + lIm[q]! * wRe[j]!;
+      }
+      wRe[k] = yr;
+      wIm[k] = yi;
+    }
+    for (let k = n - 1; k >= 0; k--) {
+      let yr = wRe[k]!;
+      let yi = wIm[k]!;
+      for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) {
+        const j = uIdx[t]!;
+        yr -= uRe[t]! * wRe[j]! - uIm[t]! * wIm[j]!;
+        yi -= uRe[t]! * wIm[j]! + uIm[t]! * wRe[j]!;
+      }
+      wRe[k] = yr * invRe[k]! - yi * invIm[k]!;
+      wIm[k] = yr * invIm[k]! + yi * invRe[k]!;
+    }
+    for (let k = 0; k < n; k++) {
+      xRe[colPerm[k]!] = wRe[k]!;
+      xIm[colPerm[k]!] = wIm[k]!;
+    }
+  }
+}
+
+function maxAbs(re: Float64Array, im: Float64Array): number {
+  let m = 0;
+  for (let p = 0; p < re.length; p++) {
+    const v = Math.abs(re[p]!) + Math.abs(im[p]!);
+    if (v > m) m = v;
+  }
+  return m;
+}

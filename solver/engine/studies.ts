@@ -1,0 +1,138 @@
+import { compile } from "../lang";
+import type {
+  Circuit,
+  MeasureResult,
+  Part,
+  SensitivityResult,
+  SolveResult,
+  SolveSuccess,
+  VariantResult,
+  Warning,
+} from "../types";
+import { buildMna } from "./mna";
+import { monteCarlo } from "./monte-carlo";
+import { computePoles, MAX_POLE_UNKNOWNS } from "./poles";
+import { rerun, withValues } from "./rerun";
+
+/** Options of the analyses beyond one sweep. */
+export interface StudyOptions {
+  /** Most Monte Carlo samples (the service's limit); more are an error. */
+  maxSamples?: number;
+}
+
+/** Relative step of the central differences of `sensitivity`. */
+export const SENSITIVITY_STEP = 1e-4;
+
+const SWEPT_KINDS = new Set<Part["kind"]>([
+  "resistor",
+  "capacitor",
+  "inductor",
+  "vcvs",
+  "vccs",
+  "ccvs",
+  "cccs",
+]);
+
+/**
+ * Add the analyses beyond one sweep (NETLIST.md) to a successful result: `vary` (a `let` is
+ * re-compiled with an override, a part's value is replaced), `monte-carlo`, `poles` and
+ * `sensitivity`. Problems of a single variant or sample become warnings; never throws.
+ */
+export function addStudies(
+  text: string,
+  circuit: Circuit,
+  result: SolveSuccess,
+  options: StudyOptions,
+): SolveResult {
+  const freqs = result.frequencies;
+  const warnings = result.warnings;
+  const out: SolveSuccess = { ...result };
+  if (circuit.vary) {
+    const vd = circuit.vary;
+    const variants: VariantResult[] = [];
+    for (const value of vd.values) {
+      let c: Circuit | null = circuit;
+      if (vd.targetKind === "let") {
+        const compiled = compile(text, { lets: { [vd.target]: value } });
+        c = compiled.ok ? compiled.circuit : null;
+        if (!compiled.ok) {
+          warnings.push({
+            line: vd.span.line,
+            message: `vary ${vd.target} = ${value}: ${compiled.errors[0]?.message}`,
+          });
+        }
+      } else {
+        c = withValues(circuit, new Map([[vd.target, value]]));
+      }
+      if (!c) continue;
+      const o = rerun(c, freqs);
+      if (typeof o === "string") {
+        warnings.push({ line: vd.span.line, message: `vary ${vd.target} = ${value}: ${o}` });
+        continue;
+      }
+      variants.push({ name: vd.target, value, traces: o.traces, measures: o.measures, checks: o.checks });
+    }
+    out.variants = variants;
+  }
+  if (circuit.monteCarlo) {
+    const mc = monteCarlo(circuit, freqs, result, warnings, options);
+    if (typeof mc === "string") {
+      return { ok: false, errors: [{ ...circuit.monteCarlo.span, message: mc }], warnings };
+    }
+    out.monteCarlo = mc;
+  }
+  if (circuit.poles) {
+    const built = buildMna(circuit.parts, circuit.nodes);
+    if (built.ok && built.system.n <= MAX_POLE_UNKNOWNS) {
+      const mid = Math.sqrt((freqs[0] || 1) * (freqs[freqs.length - 1] || 1));
+      const poles = computePoles(built.system, mid);
+      if (poles) out.poles = poles;
+      else
+        warnings.push({ line: null, message: "poles: no regular shift found; the network may be singular" });
+    } else if (built.ok) {
+      warnings.push({
+        line: null,
+        message: `poles: the circuit has ${built.system.n} unknowns; poles are computed for up to ${MAX_POLE_UNKNOWNS}`,
+      });
+    }
+  }
+  if (circuit.sensitivity.length > 0)
+    out.sensitivity = sensitivity(circuit, freqs, result.measures, warnings);
+  return out;
+}
+
+/**
+ * Normalized sensitivity (∂M/M)/(∂x/x) by central differences with relative step
+ * SENSITIVITY_STEP (error O(step²) plus the measures' refinement noise divided by the step).
+ */
+function sensitivity(circuit: Circuit, freqs: number[], nominal: MeasureResult[], warnings: Warning[]) {
+  const out: SensitivityResult[] = [];
+  const targets = circuit.parts.filter((p) => SWEPT_KINDS.has(p.kind) && p.value !== 0);
+  const runs = new Map<string, [MeasureResult[] | string, MeasureResult[] | string]>();
+  for (const p of targets) {
+    const side = (k: number) => {
+      const o = rerun(withValues(circuit, new Map([[p.name, p.value * (1 + k * SENSITIVITY_STEP)]])), freqs);
+      return typeof o === "string" ? o : o.measures;
+    };
+    runs.set(p.name, [side(1), side(-1)]);
+  }
+  for (const s of circuit.sensitivity) {
+    const m0 = nominal.find((m) => m.name === s.measure);
+    if (!m0) {
+      warnings.push({ line: s.span.line, message: `sensitivity: no measure named ${s.measure}` });
+      continue;
+    }
+    for (const p of targets) {
+      const [up, down] = runs.get(p.name)!;
+      const vu = typeof up === "string" ? null : up.find((m) => m.name === s.measure)?.value;
+      const vd = typeof down === "string" ? null : down.find((m) => m.name === s.measure)?.value;
+      const ok = m0.value !== null && m0.value !== 0 && typeof vu === "number" && typeof vd === "number";
+      out.push({
+        measure: s.measure,
+        part: p.name,
+        value: ok ? (vu - vd) / (2 * SENSITIVITY_STEP * m0.value!) : null,
+      });
+    }
+  }
+  return out;
+}

@@ -1,0 +1,161 @@
+/** A cursor over one logical line's tokens, collecting errors with line and column. */
+import type { NetlistError, SourceSpan } from "../types";
+import type { Named, ValueNode } from "./ast";
+import { type Place, parseNumberText, unitMismatch } from "./numbers";
+import type { LogicalLine, Token } from "./tokens";
+
+export function spanOf(token: Token): SourceSpan {
+  return { line: token.line, column: token.column, endColumn: token.endColumn };
+}
+
+/** From `a` to `b`; when they sit on different physical lines the span stays on `a`'s line. */
+export function spanBetween(a: SourceSpan, b: SourceSpan): SourceSpan {
+  return { line: a.line, column: a.column, endColumn: a.line === b.line ? b.endColumn : a.endColumn };
+}
+
+export class Cursor {
+  i = 0;
+  readonly tokens: Token[];
+
+  constructor(
+    readonly logical: LogicalLine,
+    readonly errors: NetlistError[],
+  ) {
+    this.tokens = logical.tokens;
+  }
+
+  peek(k = 0): Token | undefined {
+    return this.tokens[this.i + k];
+  }
+
+  next(): Token | undefined {
+    const t = this.tokens[this.i];
+    if (t !== undefined) this.i++;
+    return t;
+  }
+
+  atEnd(): boolean {
+    return this.i >= this.tokens.length;
+  }
+
+  isOp(text: string, k = 0): boolean {
+    const t = this.peek(k);
+    return t?.kind === "op" && t.text === text;
+  }
+
+  isWord(text?: string, k = 0): boolean {
+    const t = this.peek(k);
+    return t?.kind === "word" && (text === undefined || t.text === text);
+  }
+
+  /** Span of the whole statement on its first line. */
+  get span(): SourceSpan {
+    const first = this.tokens[0]!;
+    return spanBetween(spanOf(first), spanOf(this.tokens[this.tokens.length - 1] ?? first));
+  }
+
+  /** Where "something is missing" errors point: just past the last token. */
+  endSpan(): SourceSpan {
+    const last = this.tokens[this.tokens.length - 1]!;
+    return { line: last.line, column: last.endColumn, endColumn: last.endColumn + 1 };
+  }
+
+  /** Record an error at `at` (a token or span) or at the end of the line; returns null for chaining. */
+  fail(at: SourceSpan | undefined, message: string, hint?: string): null {
+    const span =
+      at === undefined ? this.endSpan() : { line: at.line, column: at.column, endColumn: at.endColumn };
+    this.errors.push(hint === undefined ? { ...span, message } : { ...span, message, hint });
+    return null;
+  }
+
+  expectOp(text: string, message: string, hint?: string): Token | null {
+    if (this.isOp(text)) return this.next()!;
+    return this.fail(this.peek(), message, hint);
+  }
+
+  /** A name token (letters, digits, `_`; dots only when `dotted`). */
+  expectName(what: string, dotted = false, hint?: string): Named | null {
+    const t = this.peek();
+    if (t?.kind === "word" && (dotted || !t.text.includes("."))) {
+      this.i++;
+      return { name: t.text, span: spanOf(t) };
+    }
+    if (t === undefined) return this.fail(undefined, `${what} is missing`, hint);
+    return this.fail(t, `expected ${what}, found \`${t.text}\``, hint);
+  }
+
+  /** A node name: a word (dots allowed) or digits only. */
+  expectNode(what: string, hint?: string): Named | null {
+    const t = this.peek();
+    if (t?.kind === "number" && /^[0-9]+$/.test(t.text)) {
+      this.i++;
+      return { name: t.text, span: spanOf(t) };
+    }
+    return this.expectName(what, true, hint);
+  }
+
+  expectEnd(hint?: string): boolean {
+    const t = this.peek();
+    if (t === undefined) return true;
+    this.fail(t, `unexpected \`${t.text}\` at the end of the statement`, hint);
+    return false;
+  }
+
+  /**
+   * A value: `[-]number`, a name, or `(expr)`. Numbers are checked against `place` here; names and
+   * expressions are checked when they are evaluated.
+   */
+  value(place: Place, what: string): ValueNode | null {
+    const t = this.peek();
+    if (t === undefined) return this.fail(undefined, `${what} is missing`);
+    if (t.kind === "op" && (t.text === "-" || t.text === "+") && this.peek(1)?.kind === "number") {
+      this.i++;
+      const n = this.value(place, what);
+      if (n === null || n.kind !== "number") return n;
+      return { ...n, value: t.text === "-" ? -n.value : n.value, span: spanBetween(spanOf(t), n.span) };
+    }
+    if (t.kind === "number") {
+      this.i++;
+      const parsed = parseNumberText(t.text);
+      if (!parsed.ok) return this.fail(t, parsed.message, parsed.hint);
+      const mismatch = unitMismatch(parsed.unit, place);
+      if (mismatch) return this.fail(t, mismatch.message, mismatch.hint);
+      return { kind: "number", value: parsed.value, unit: parsed.unit, span: spanOf(t) };
+    }
+    if (t.kind === "word") {
+      this.i++;
+      if (t.text.includes("."))
+        return this.fail(t, `\`${t.text}\` is not a value`, "values are numbers, lets or (expressions)");
+      return { kind: "name", name: t.text, span: spanOf(t) };
+    }
+    if (t.kind === "op" && t.text === "(") {
+      const open = this.next()!;
+      const inner: Token[] = [];
+      let depth = 1;
+      while (!this.atEnd()) {
+        const u = this.next()!;
+        if (u.kind === "op" && u.text === "(") depth++;
+        if (u.kind === "op" && u.text === ")" && --depth === 0) {
+          if (inner.length === 0) return this.fail(spanBetween(spanOf(open), spanOf(u)), "empty parentheses");
+          return { kind: "expr", tokens: inner, span: spanBetween(spanOf(open), spanOf(u)) };
+        }
+        inner.push(u);
+      }
+      return this.fail(spanOf(open), "this `(` is never closed", "add the matching `)`");
+    }
+    return this.fail(t, `expected ${what}, found \`${t.text}\``);
+  }
+
+  /** The text as written from token `from` to the end of the logical line, blanks collapsed. */
+  rawFrom(from: Token): string {
+    const parts: string[] = [];
+    for (const seg of this.logical.segments) {
+      if (seg.line < from.line) continue;
+      parts.push(seg.line === from.line ? seg.text.slice(from.column - 1) : seg.text);
+    }
+    return parts
+      .join(" ")
+      .replace(/[ \t]+/g, " ")
+      .trim();
+  }
+}

@@ -1,0 +1,148 @@
+/** What each part kind takes: terminals, value place, options, and a usage line for hints. */
+import type { MeasureFunction, PartKind } from "../types";
+import type { Place } from "./numbers";
+
+export interface KindInfo {
+  terminals: string[];
+  /** Whether a value is required, optional (with a default) or not allowed. */
+  value: "required" | "optional" | "none";
+  defaultValue: number;
+  options: Partial<Record<string, Place>>;
+  usage: string;
+}
+
+const TOL = { tol: "tol" } as const;
+const PHASE = { phase: "phase" } as const;
+
+export const KINDS: Record<PartKind, KindInfo> = {
+  resistor: {
+    terminals: ["a", "b"],
+    value: "required",
+    defaultValue: 0,
+    options: TOL,
+    usage: "R1: resistor a b 10k",
+  },
+  capacitor: {
+    terminals: ["a", "b"],
+    value: "required",
+    defaultValue: 0,
+    options: TOL,
+    usage: "C1: capacitor a b 10n",
+  },
+  inductor: {
+    terminals: ["a", "b"],
+    value: "required",
+    defaultValue: 0,
+    options: TOL,
+    usage: "L1: inductor a b 1m",
+  },
+  vsource: {
+    terminals: ["p", "n"],
+    value: "optional",
+    defaultValue: 1,
+    options: PHASE,
+    usage: "Vin: vsource in gnd 1",
+  },
+  isource: {
+    terminals: ["p", "n"],
+    value: "optional",
+    defaultValue: 1,
+    options: PHASE,
+    usage: "I1: isource a gnd 1m",
+  },
+  vcvs: {
+    terminals: ["p", "n", "cp", "cn"],
+    value: "required",
+    defaultValue: 0,
+    options: {},
+    usage: "Buf: vcvs out gnd a b 10",
+  },
+  vccs: {
+    terminals: ["p", "n", "cp", "cn"],
+    value: "required",
+    defaultValue: 0,
+    options: {},
+    usage: "Gm: vccs out gnd a b 1m",
+  },
+  ccvs: {
+    terminals: ["p", "n", "sense"],
+    value: "required",
+    defaultValue: 0,
+    options: {},
+    usage: "Zt: ccvs out gnd Vsense 1k",
+  },
+  cccs: {
+    terminals: ["p", "n", "sense"],
+    value: "required",
+    defaultValue: 0,
+    options: {},
+    usage: "Mirror: cccs out gnd Vsense 2",
+  },
+  opamp: {
+    terminals: ["in+", "in-", "out"],
+    value: "none",
+    defaultValue: 0,
+    options: { gain: "gain", gbw: "gbw", rout: "rout" },
+    usage: "U1: opamp pos neg out gbw=1M",
+  },
+};
+
+export const KIND_NAMES = Object.keys(KINDS) as PartKind[];
+
+export function isPartKind(word: string): word is PartKind {
+  return Object.hasOwn(KINDS, word);
+}
+
+export const KEYWORDS = [
+  "title",
+  "let",
+  "block",
+  "end",
+  "preset",
+  "sweep",
+  "show",
+  "loop",
+  "measure",
+  "check",
+  "vary",
+  "monte-carlo",
+  "poles",
+  "sensitivity",
+];
+
+export const MEASURE_FUNCTIONS: MeasureFunction[] = [
+  "zero-phase",
+  "crossing",
+  "peak",
+  "dip",
+  "bandwidth",
+  "q",
+  "unity",
+  "phase-margin",
+  "gain-margin",
+  "mag",
+  "db",
+  "phase",
+];
+
+/** The unit of each measure's result ("" for plain numbers). */
+export function measureUnit(fn: MeasureFunction): "Hz" | "dB" | "deg" | "" {
+  switch (fn) {
+    case "q":
+    case "mag":
+      return "";
+    case "db":
+    case "gain-margin":
+      return "dB";
+    case "phase":
+    case "phase-margin":
+      return "deg";
+    default:
+      return "Hz";
+  }
+}
+
+/** Largest number of sweep points (NETLIST.md "Sweep"). */
+export const MAX_POINTS = 100_000;
+/** Deepest nesting of block instances (NETLIST.md "Statements"). */
+export const MAX_BLOCK_DEPTH = 16;

@@ -1,0 +1,166 @@
+/** Resolution of measure, check, vary and monte-carlo statements: names, units, limits, order. */
+import type { CheckDef, MeasureDef, MonteCarloDef, SourceSpan, VaryDef } from "../types";
+import type { ValueNode } from "./ast";
+import { evaluate } from "./expr";
+import { didYouMean } from "./hints";
+import { measureUnit } from "./kinds";
+import { type Place, UNIT_NAMES } from "./numbers";
+import { claim, count, type DirectiveContext, err, frequency, num, type Of } from "./resolve";
+
+export function resolveMeasures(
+  list: Of<"measure">[],
+  ctx: DirectiveContext,
+  traces: Map<string, SourceSpan>,
+): MeasureDef[] {
+  const out: MeasureDef[] = [];
+  const all = new Map(list.map((m) => [m.name.name, m]));
+  const names = new Map<string, SourceSpan>();
+  for (const m of list) {
+    if (!claim(ctx, names, m.name, "measure")) continue;
+    if (!traces.has(m.target.name)) {
+      err(
+        ctx,
+        m.target.span,
+        `no trace or loop named \`${m.target.name}\``,
+        didYouMean(m.target.name, traces.keys()) ?? "name a trace with `show NAME = …` or `loop NAME cut …`",
+      );
+      continue;
+    }
+    const def: MeasureDef = { name: m.name.name, fn: m.fn, target: m.target.name, span: m.span };
+    if (m.level) def.level = m.level.level;
+    if (m.at) {
+      const at = m.at;
+      if (at.kind === "name" && all.has(at.name)) {
+        const ref = all.get(at.name)!;
+        if (ref === m || ref.span.line >= m.span.line) {
+          err(
+            ctx,
+            at.span,
+            `measure \`${at.name}\` is defined on line ${ref.span.line}, after this one`,
+            `move \`measure ${at.name}\` above line ${m.span.line}`,
+          );
+          continue;
+        }
+        if (measureUnit(ref.fn) !== "Hz") {
+          err(
+            ctx,
+            at.span,
+            `measure \`${at.name}\` is not a frequency`,
+            "at takes a frequency or a measure that is one",
+          );
+          continue;
+        }
+        def.at = { measure: at.name };
+      } else if (at.kind === "name" && !ctx.lets.has(at.name)) {
+        err(
+          ctx,
+          at.span,
+          `no measure or let named \`${at.name}\``,
+          didYouMean(at.name, [...all.keys(), ...ctx.lets]),
+        );
+        continue;
+      } else {
+        const hz = frequency(ctx, at);
+        if (hz === null) continue;
+        def.at = { hz };
+      }
+    }
+    out.push(def);
+  }
+  return out;
+}
+
+export function resolveChecks(
+  list: Of<"check">[],
+  ctx: DirectiveContext,
+  measures: Of<"measure">[],
+): CheckDef[] {
+  const out: CheckDef[] = [];
+  for (const c of list) {
+    const m = measures.find((x) => x.name.name === c.measure.name);
+    if (m === undefined) {
+      err(
+        ctx,
+        c.measure.span,
+        `no measure named \`${c.measure.name}\``,
+        didYouMean(
+          c.measure.name,
+          measures.map((x) => x.name.name),
+        ),
+      );
+      continue;
+    }
+    const unit = measureUnit(m.fn);
+    const limit = (v: ValueNode): number | null => {
+      if (v.kind === "number" && v.unit !== null && v.unit !== unit) {
+        const measured = unit === "" ? "a plain number" : `in ${UNIT_NAMES[unit]}`;
+        return err(
+          ctx,
+          v.span,
+          `\`${m.name.name}\` is ${measured}; this limit is in ${UNIT_NAMES[v.unit]}`,
+          unit === "" ? "write the limit without a unit" : `write it in ${unit} or without a unit`,
+        );
+      }
+      return evaluate(v, ctx.global, ctx.errors);
+    };
+    const value = limit(c.value);
+    const value2 = c.value2 ? limit(c.value2) : undefined;
+    if (value === null || value2 === null) continue;
+    const def: CheckDef = { measure: m.name.name, op: c.op, value, expression: c.expression, span: c.span };
+    if (value2 !== undefined) {
+      if (!(value2 > value)) {
+        err(ctx, c.value2!.span, "the upper limit must be above the lower one");
+        continue;
+      }
+      def.value2 = value2;
+    }
+    out.push(def);
+  }
+  return out;
+}
+
+export function resolveVary(s: Of<"vary">, ctx: DirectiveContext): VaryDef | null {
+  const isLet = ctx.lets.has(s.target.name);
+  const target = isLet ? null : ctx.parts.find((p) => p.name === s.target.name);
+  if (!isLet && !target) {
+    return err(
+      ctx,
+      s.target.span,
+      `no let or part named \`${s.target.name}\``,
+      didYouMean(s.target.name, [...ctx.lets, ...ctx.parts.map((p) => p.name)]),
+    );
+  }
+  const place: Place = target ? target.kind : "any";
+  let values: number[];
+  if (Array.isArray(s.values)) {
+    const list = s.values.map((v) => num(ctx, v, place));
+    if (list.some((v) => v === null)) return null;
+    values = list as number[];
+  } else {
+    const r = s.values;
+    const a = num(ctx, r.from, place);
+    const b = num(ctx, r.to, place);
+    const n = count(ctx, r.count, "the number of values", 2, 10_000);
+    if (a === null || b === null || n === null) return null;
+    if (r.mode === "log" && !(a > 0 && b > 0))
+      return err(ctx, r.from.span, "a log range needs values above zero");
+    values = Array.from({ length: n }, (_, i) =>
+      r.mode === "log" ? a * (b / a) ** (i / (n - 1)) : a + ((b - a) * i) / (n - 1),
+    ).map((v) => Number(v.toPrecision(12)));
+  }
+  return { target: s.target.name, targetKind: isLet ? "let" : "part", values, span: s.span };
+}
+
+export function resolveMonteCarlo(s: Of<"monte-carlo">, ctx: DirectiveContext): MonteCarloDef | null {
+  const samples = count(ctx, s.samples, "the number of samples", 1, 100_000);
+  const seed = s.seed ? count(ctx, s.seed, "the seed", 0, 2 ** 32 - 1) : 1;
+  if (samples === null || seed === null) return null;
+  if (!ctx.parts.some((p) => p.tol !== undefined)) {
+    ctx.warnings.push({
+      line: s.span.line,
+      message: "monte-carlo: no part has a tolerance (tol=…), so every sample is the same",
+    });
+  }
+  const dist = s.dist?.name === "normal" ? "normal" : "uniform";
+  return { samples, seed, dist, span: s.span };
+}

@@ -1,0 +1,242 @@
+/**
+ * Number literals: `12`, `1.5e-3`, SI prefixes (f p n u µ m k M G T), units, IEC 60062 codes
+ * (`4k7`, `2R2`, `1n5`, `R47`), and the places where each unit fits.
+ */
+import { nearest } from "./hints";
+
+export type Unit = "ohm" | "F" | "H" | "V" | "A" | "S" | "Hz" | "%" | "dB" | "deg";
+
+/** A value with its scale applied (`%` already divided by 100); `unit` is null when none was written. */
+export interface NumberValue {
+  value: number;
+  unit: Unit | null;
+}
+
+export type NumberResult = ({ ok: true } & NumberValue) | { ok: false; message: string; hint?: string };
+
+const PREFIXES: Record<string, number> = {
+  f: 1e-15,
+  p: 1e-12,
+  n: 1e-9,
+  u: 1e-6,
+  "\u00B5": 1e-6, // micro sign
+  "\u03BC": 1e-6, // Greek small mu
+  m: 1e-3,
+  k: 1e3,
+  M: 1e6,
+  G: 1e9,
+  T: 1e12,
+};
+
+const UNITS: Record<string, Unit> = {
+  "\u03A9": "ohm", // Greek capital omega
+  "\u2126": "ohm", // ohm sign
+  ohm: "ohm",
+  ohms: "ohm",
+  Ohm: "ohm",
+  F: "F",
+  H: "H",
+  V: "V",
+  A: "A",
+  S: "S",
+  Hz: "Hz",
+  "%": "%",
+  dB: "dB",
+  deg: "deg",
+  "°": "deg",
+};
+
+/** Written units that are not accepted, with what to write instead. */
+const MISSPELLED: Record<string, string> = {
+  hz: "write Hz",
+  HZ: "write Hz",
+  db: "write dB",
+  DB: "write dB",
+  Db: "write dB",
+  K: "write k for kilo; M is mega, m is milli",
+  U: "write u or µ for micro",
+  N: "write n for nano",
+  P: "write p for pico",
+  sec: "time values have no place in a netlist: give frequencies in Hz",
+  s: "time values have no place in a netlist: give frequencies in Hz",
+};
+
+/** Human names of units, for messages. */
+export const UNIT_NAMES: Record<Unit, string> = {
+  ohm: "ohms",
+  F: "farads",
+  H: "henries",
+  V: "volts",
+  A: "amperes",
+  S: "siemens",
+  Hz: "hertz",
+  "%": "percent",
+  dB: "decibels",
+  deg: "degrees",
+};
+
+/** How each unit is written. */
+export const UNIT_SYMBOLS: Record<Unit, string> = {
+  ohm: "Ω",
+  F: "F",
+  H: "H",
+  V: "V",
+  A: "A",
+  S: "S",
+  Hz: "Hz",
+  "%": "%",
+  dB: "dB",
+  deg: "deg",
+};
+
+const IEC = /^([0-9]*)([fpnu\u00B5\u03BCmkMGTR])([0-9]*)(.*)$/;
+
+/** Read a number token's text (no sign). Never throws. */
+export function parseNumberText(text: string): NumberResult {
+  const match = /^([0-9]*\.?[0-9]*(?:[eE][+-]?[0-9]+)?)(.*)$/.exec(text);
+  const mantissa = match?.[1] ?? "";
+  const suffix = match?.[2] ?? text;
+  // IEC 60062: the prefix letter (or R) stands for the decimal point: 4k7, 2R2, 1n5, R47, 10R.
+  if (/^[0-9]*$/.test(mantissa)) {
+    const iec = IEC.exec(text);
+    const [, whole = "", letter = "", fraction = "", unitText = ""] = iec ?? [];
+    if (
+      iec &&
+      (fraction !== "" || letter === "R") &&
+      (whole !== "" || letter === "R") &&
+      whole + fraction !== ""
+    ) {
+      const scale = letter === "R" ? 1 : (PREFIXES[letter] ?? 1);
+      const unit = readUnit(unitText);
+      if (!unit.ok) return unit;
+      if (unit.unit === "%" || unit.unit === "dB" || unit.unit === "deg") {
+        return { ok: false, message: `a letter-for-decimal-point code can't carry ${UNIT_NAMES[unit.unit]}` };
+      }
+      const value = Number(`${whole || "0"}.${fraction || "0"}`) * scale;
+      return { ok: true, value: Number(value.toPrecision(15)), unit: unit.unit };
+    }
+  }
+  const base = Number(mantissa);
+  if (mantissa === "" || !Number.isFinite(base)) {
+    return { ok: false, message: `\`${text}\` is not a number` };
+  }
+  if (suffix === "") return { ok: true, value: base, unit: null };
+  const whole = readUnit(suffix);
+  if (whole.ok) return { ok: true, value: scaleUnit(base, whole.unit), unit: whole.unit };
+  const prefix = PREFIXES[suffix[0] ?? ""];
+  if (prefix !== undefined) {
+    const rest = readUnit(suffix.slice(1));
+    if (rest.ok) {
+      if (rest.unit === "%" || rest.unit === "dB" || rest.unit === "deg") {
+        return { ok: false, message: `no prefix may stand before ${UNIT_NAMES[rest.unit]}` };
+      }
+      return { ok: true, value: Number((base * prefix).toPrecision(15)), unit: rest.unit };
+    }
+  }
+  return badSuffix(text, suffix);
+}
+
+function scaleUnit(value: number, unit: Unit | null): number {
+  return unit === "%" ? Number((value / 100).toPrecision(15)) : value;
+}
+
+function readUnit(
+  text: string,
+): { ok: true; unit: Unit | null } | { ok: false; message: string; hint?: string } {
+  if (text === "") return { ok: true, unit: null };
+  const unit = UNITS[text];
+  return unit === undefined ? { ok: false, message: `unknown unit \`${text}\`` } : { ok: true, unit };
+}
+
+function badSuffix(text: string, suffix: string): NumberResult {
+  const lower = suffix.toLowerCase();
+  if (lower.startsWith("meg")) {
+    return {
+      ok: false,
+      message: `\`${text}\`: "meg" is not a prefix here`,
+      hint: "write 1M for mega; M is mega, m is milli",
+    };
+  }
+  if (lower.startsWith("mil")) {
+    return {
+      ok: false,
+      message: `\`${text}\`: "mil" is not a prefix here`,
+      hint: "write m for milli (1m = 0.001); lengths have no place in a netlist",
+    };
+  }
+  const known = MISSPELLED[suffix] ?? MISSPELLED[suffix.slice(1)] ?? MISSPELLED[suffix[0] ?? ""];
+  if (known !== undefined)
+    return { ok: false, message: `\`${text}\`: unknown prefix or unit \`${suffix}\``, hint: known };
+  const spellings = [...Object.keys(UNITS)];
+  for (const p of Object.keys(PREFIXES))
+    for (const u of ["Ω", "ohm", "F", "H", "V", "A", "S", "Hz"]) spellings.push(p + u);
+  const guess = nearest(suffix, spellings);
+  return {
+    ok: false,
+    message: `\`${text}\`: unknown prefix or unit \`${suffix}\``,
+    hint: guess
+      ? `did you mean \`${guess}\`?`
+      : "prefixes are f p n u µ m k M G T; units Ω F H V A S Hz % dB deg",
+  };
+}
+
+/** What a place accepts: the units allowed besides none. */
+export type Place = keyof typeof PLACES;
+
+export const PLACES = {
+  resistor: ["ohm"],
+  capacitor: ["F"],
+  inductor: ["H"],
+  vsource: ["V"],
+  isource: ["A"],
+  vcvs: [],
+  vccs: ["S"],
+  ccvs: ["ohm"],
+  cccs: [],
+  opamp: [],
+  tol: ["%"],
+  phase: ["deg"],
+  gain: ["dB"],
+  gbw: ["Hz"],
+  rout: ["ohm"],
+  frequency: ["Hz"],
+  level: ["dB", "deg"],
+  count: [],
+  any: ["ohm", "F", "H", "V", "A", "S", "Hz", "%", "deg"],
+  limit: ["Hz", "dB", "deg"],
+} as const satisfies Record<string, readonly Unit[]>;
+
+/** Plain words for a place, used in "… takes …" messages. */
+export const PLACE_WORDS: Record<Place, string> = {
+  resistor: "a resistor's value is in ohms",
+  capacitor: "a capacitor's value is in farads",
+  inductor: "an inductor's value is in henries",
+  vsource: "a voltage source's amplitude is in volts",
+  isource: "a current source's amplitude is in amperes",
+  vcvs: "a voltage-controlled voltage source's gain has no unit",
+  vccs: "a transconductance is in siemens",
+  ccvs: "a transresistance is in ohms",
+  cccs: "a current gain has no unit",
+  opamp: "an opamp takes no value",
+  tol: "a tolerance is a percentage or a fraction",
+  phase: "a phase is in degrees",
+  gain: "a gain is a plain number or in dB",
+  gbw: "a gain-bandwidth product is in hertz",
+  rout: "an output resistance is in ohms",
+  frequency: "a frequency is in hertz",
+  level: "a level is a magnitude, a dB value or a phase in degrees",
+  count: "a count is a plain whole number",
+  any: "this value",
+  limit: "a limit is in Hz, dB, degrees or a plain number",
+};
+
+/** Null when `unit` fits `place`, else a message and a hint. */
+export function unitMismatch(unit: Unit | null, place: Place): { message: string; hint: string } | null {
+  if (unit === null || (PLACES[place] as readonly Unit[]).includes(unit)) return null;
+  const allowed = PLACES[place] as readonly Unit[];
+  const hint =
+    allowed.length === 0
+      ? "write the number without a unit"
+      : `write it without a unit or in ${allowed.map((u) => UNIT_SYMBOLS[u]).join(" or ")}`;
+  return { message: `${PLACE_WORDS[place]}, not in ${UNIT_NAMES[unit]}`, hint };
+}

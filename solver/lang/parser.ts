@@ -1,0 +1,137 @@
+/**
+ * Parser: logical lines → statements. One statement per logical line; block bodies are gathered
+ * between `block …` and `end`. Each line stops at its first error, and every line is tried, so a
+ * netlist reports all its errors at once.
+ */
+import type { NetlistError, PartKind } from "../types";
+import type { BlockStatement, ParseTree, Statement } from "./ast";
+import { Cursor, spanOf } from "./cursor";
+import { type KindTable, parseBlockHeader, parseLet, parsePart, parsePreset } from "./definitions";
+import { didYouMean } from "./hints";
+import { isPartKind, KEYWORDS, KINDS } from "./kinds";
+import { parseAnalysis } from "./statements";
+import { type LogicalLine, lex } from "./tokens";
+
+/** Lex and parse `text`. Never throws. */
+export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistError[] } {
+  const { lines, errors } = lex(text);
+  const kinds = prescan(lines);
+  const statements: Statement[] = [];
+  let open: BlockStatement | null = null;
+  for (const logical of lines) {
+    const c = new Cursor(logical, errors);
+    const head = c.peek()!;
+    if (head.kind === "word" && head.text === "end") {
+      if (open === null) c.fail(spanOf(head), "`end` without a `block` to close");
+      else if (c.next() && c.expectEnd("`end` stands alone on its line")) {
+        statements.push(open);
+        open = null;
+      }
+      continue;
+    }
+    if (head.kind === "word" && head.text === "block") {
+      if (open !== null) {
+        c.fail(
+          spanOf(head),
+          `block \`${open.name.name}\` is still open`,
+          "close it with `end` first; blocks are defined one after another and may use each other",
+        );
+        continue;
+      }
+      open = parseBlockHeader(c);
+      continue;
+    }
+    const isPart = c.isOp(":", 1);
+    if (open !== null) {
+      if (isPart) {
+        const part = parsePart(c, kinds);
+        if (part) open.body.push(part);
+      } else if (head.kind === "word" && head.text === "let") {
+        const l = parseLet(c);
+        if (l) open.body.push(l);
+      } else {
+        c.fail(
+          spanOf(head),
+          "only parts and lets go inside a block",
+          `close block \`${open.name.name}\` with \`end\` first`,
+        );
+      }
+      continue;
+    }
+    const statement = isPart ? parsePart(c, kinds) : parseTopLevel(c, kinds);
+    if (statement) statements.push(statement);
+  }
+  if (open !== null) {
+    errors.push({
+      ...open.name.span,
+      message: `block \`${open.name.name}\` has no \`end\``,
+      hint: "add a line `end` after its last part",
+    });
+    statements.push(open);
+  }
+  return { tree: { statements }, errors };
+}
+
+function prescan(lines: LogicalLine[]): KindTable {
+  const presets = new Map<string, PartKind | null>();
+  const blocks = new Map<string, number>();
+  for (const { tokens } of lines) {
+    const [a, b, c, d] = tokens;
+    if (a?.text === "block" && b?.kind === "word" && c?.text === "(") {
+      const close = tokens.findIndex((t) => t.text === ")");
+      const inside = tokens.slice(3, close < 0 ? tokens.length : close);
+      blocks.set(b.text, inside.filter((t) => t.kind !== "op").length);
+    }
+    if (a?.text === "preset" && b?.kind === "word" && c?.text === "=" && d?.kind === "word") {
+      presets.set(b.text, isPartKind(d.text) ? d.text : null);
+    }
+  }
+  return { presets, blocks };
+}
+
+function parseTopLevel(c: Cursor, kinds: KindTable): Statement | null {
+  const head = c.peek()!;
+  if (head.kind === "word") {
+    switch (head.text) {
+      case "let":
+        return parseLet(c);
+      case "preset":
+        return parsePreset(c);
+      case "title": {
+        c.next();
+        const first = c.peek();
+        if (first === undefined)
+          return c.fail(undefined, "the title is missing", "title Bench sweep source, 1 kHz");
+        return { type: "title", text: c.rawFrom(first), span: c.span };
+      }
+    }
+    if (KEYWORDS.includes(head.text)) return parseAnalysis(c);
+    const second = c.peek(1);
+    const kindLike = (w: string) => isPartKind(w) || kinds.presets.has(w) || kinds.blocks.has(w);
+    if (second?.kind === "word" && kindLike(second.text)) {
+      return c.fail(
+        spanOf(head),
+        `a part name needs a colon after it`,
+        `write \`${head.text}: ${second.text} …\``,
+      );
+    }
+    if (isPartKind(head.text)) {
+      return c.fail(
+        spanOf(head),
+        "a part line starts with the part's name",
+        `e.g. \`${KINDS[head.text].usage}\``,
+      );
+    }
+    return c.fail(
+      spanOf(head),
+      `unknown statement \`${head.text}\``,
+      didYouMean(head.text, KEYWORDS) ??
+        "a line starts with a keyword (title, let, sweep, show, …) or a part name and `:`",
+    );
+  }
+  return c.fail(
+    spanOf(head),
+    `a line can't start with \`${head.text}\``,
+    "a line starts with a keyword or a part name and `:`",
+  );
+}

@@ -1,0 +1,258 @@
+/**
+ * Flattening: part statements (with presets and block instances) → flat `Part`s with full dotted
+ * names, global node names and evaluated values.
+ */
+import type { NetlistError, Part, PartKind, SourceSpan, Warning } from "../types";
+import type {
+  BlockStatement,
+  LetStatement,
+  OptionNode,
+  PartStatement,
+  PresetStatement,
+  ValueNode,
+} from "./ast";
+import { evaluate, type Scope } from "./expr";
+import { didYouMean } from "./hints";
+import { isPartKind, KINDS, MAX_BLOCK_DEPTH } from "./kinds";
+import { LetScope } from "./scope";
+
+export interface FlattenContext {
+  blocks: Map<string, BlockStatement>;
+  presets: Map<string, PresetStatement>;
+  global: Scope;
+  partOverrides: Record<string, number>;
+  errors: NetlistError[];
+  warnings: Warning[];
+  /** Filled in: a block terminal's dotted name ("X1.out") → the node it is connected to. */
+  aliases: Map<string, string>;
+}
+
+/** A ccvs/cccs whose sensing part is resolved once every part exists. */
+interface PendingSense {
+  part: Part;
+  written: string;
+  prefix: string;
+  span: SourceSpan;
+}
+
+interface Instance {
+  prefix: string;
+  nodeMap: Map<string, string>;
+  scope: Scope;
+  stack: string[];
+}
+
+const SENSED = new Set<PartKind>(["ccvs", "cccs"]);
+const POSITIVE = new Set<PartKind>(["resistor", "capacitor", "inductor"]);
+
+/** Flatten `statements`; returns the parts in order (duplicates and parts of unknown kind left out). */
+export function flatten(statements: PartStatement[], ctx: FlattenContext): Part[] {
+  const parts: Part[] = [];
+  const seen = new Map<string, SourceSpan>();
+  const pending: PendingSense[] = [];
+  const used = new Set<string>();
+  const top: Instance = { prefix: "", nodeMap: new Map(), scope: ctx.global, stack: [] };
+  const visit = (list: PartStatement[], inst: Instance) => {
+    for (const st of list) {
+      const fullName = inst.prefix + st.name.name;
+      const earlier = seen.get(fullName);
+      if (earlier !== undefined) {
+        ctx.errors.push({
+          ...st.name.span,
+          message: `a part named \`${fullName}\` already exists (line ${earlier.line})`,
+          hint: "give each part its own name",
+        });
+        continue;
+      }
+      seen.set(fullName, st.name.span);
+      const block = ctx.blocks.get(st.kind.name);
+      if (block !== undefined) {
+        used.add(block.name.name);
+        const child = enterBlock(st, block, inst, ctx);
+        if (child !== null)
+          visit(
+            block.body.filter((s): s is PartStatement => s.type === "part"),
+            child,
+          );
+        continue;
+      }
+      const part = primitive(st, fullName, inst, ctx);
+      if (part === null) continue;
+      parts.push(part);
+      if (SENSED.has(part.kind))
+        pending.push({
+          part,
+          written: st.terminals[2]!.name,
+          prefix: inst.prefix,
+          span: st.terminals[2]!.span,
+        });
+    }
+  };
+  visit(statements, top);
+  resolveSenses(parts, pending, ctx.errors);
+  for (const [name, block] of ctx.blocks) {
+    if (!used.has(name))
+      ctx.warnings.push({ line: block.span.line, message: `block \`${name}\` is defined but never used` });
+  }
+  return parts;
+}
+
+function resolveNode(name: string, inst: Instance): string {
+  if (name === "gnd" || name === "0") return "gnd";
+  return inst.nodeMap.get(name) ?? inst.prefix + name;
+}
+
+function enterBlock(
+  st: PartStatement,
+  block: BlockStatement,
+  inst: Instance,
+  ctx: FlattenContext,
+): Instance | null {
+  const name = block.name.name;
+  if (inst.stack.includes(name)) {
+    const cycle = [...inst.stack.slice(inst.stack.indexOf(name)), name].join(" → ");
+    ctx.errors.push({ ...st.kind.span, message: `block \`${name}\` uses itself`, hint: cycle });
+    return null;
+  }
+  if (inst.stack.length >= MAX_BLOCK_DEPTH) {
+    ctx.errors.push({
+      ...st.kind.span,
+      message: `blocks are nested more than ${MAX_BLOCK_DEPTH} deep here`,
+      hint: inst.stack.join(" → "),
+    });
+    return null;
+  }
+  if (st.terminals.length !== block.terminals.length) {
+    ctx.errors.push({
+      ...st.span,
+      message: `block \`${name}\` has ${block.terminals.length} terminals, found ${st.terminals.length}`,
+    });
+    return null;
+  }
+  const nodeMap = new Map<string, string>();
+  block.terminals.forEach((t, i) => {
+    const outer = resolveNode(st.terminals[i]!.name, inst);
+    nodeMap.set(t.name, outer);
+    ctx.aliases.set(`${inst.prefix}${st.name.name}.${t.name}`, outer);
+  });
+  const values = new Map<string, number>();
+  for (const p of block.params) {
+    const v = evaluate(p.value, ctx.global, ctx.errors);
+    if (v !== null) values.set(p.key, v);
+  }
+  const known = block.params.map((p) => p.key);
+  for (const o of st.options) {
+    if (!known.includes(o.key)) {
+      ctx.errors.push({
+        ...o.keySpan,
+        message: `block \`${name}\` has no parameter \`${o.key}\``,
+        hint:
+          didYouMean(o.key, known) ??
+          (known.length ? `parameters: ${known.join(", ")}` : "this block takes no parameters"),
+      });
+      continue;
+    }
+    const v = evaluate(o.value, inst.scope, ctx.errors);
+    if (v !== null) values.set(o.key, v);
+  }
+  const lets = block.body.filter((s): s is LetStatement => s.type === "let");
+  const scope = new LetScope(lets, values, ctx.global, ctx.errors);
+  scope.evaluateAll();
+  return { prefix: `${inst.prefix}${st.name.name}.`, nodeMap, scope, stack: [...inst.stack, name] };
+}
+
+function primitive(st: PartStatement, fullName: string, inst: Instance, ctx: FlattenContext): Part | null {
+  const preset = isPartKind(st.kind.name) ? undefined : ctx.presets.get(st.kind.name);
+  const kind: PartKind | null = isPartKind(st.kind.name) ? st.kind.name : (preset?.kind.base ?? null);
+  if (kind === null) {
+    ctx.errors.push({ ...st.kind.span, message: `unknown part kind \`${st.kind.name}\`` });
+    return null;
+  }
+  const info = KINDS[kind];
+  const nodeCount = SENSED.has(kind) ? 2 : info.terminals.length;
+  const nodes = st.terminals.slice(0, nodeCount).map((t) => resolveNode(t.name, inst));
+  const written = st.value === null ? info.defaultValue : evaluate(st.value, inst.scope, ctx.errors);
+  const value = ctx.partOverrides[fullName] ?? written ?? Number.NaN;
+  if (POSITIVE.has(kind) && written !== null && !(value > 0)) {
+    ctx.errors.push({
+      ...(st.value?.span ?? st.span),
+      message: `a ${kind}'s value must be above zero, got ${value}`,
+    });
+  }
+  const part: Part = { name: fullName, kind, nodes, value, span: st.span };
+  // Preset options first, the line's own options override them.
+  const options: [OptionNode, Scope][] = [
+    ...(preset?.options ?? []).map((o): [OptionNode, Scope] => [o, ctx.global]),
+    ...st.options.map((o): [OptionNode, Scope] => [o, inst.scope]),
+  ];
+  for (const [o, scope] of options) {
+    const v = evaluate(o.value, scope, ctx.errors);
+    if (v !== null) applyOption(part, o.key, v, o.value, ctx.errors);
+  }
+  // A part whose value or options failed still takes part in the structure checks; its errors fail the compile.
+  return part;
+}
+
+function applyOption(part: Part, key: string, v: number, node: ValueNode, errors: NetlistError[]): boolean {
+  const fail = (message: string, hint?: string) => {
+    errors.push(hint === undefined ? { ...node.span, message } : { ...node.span, message, hint });
+    return false;
+  };
+  const unit = node.kind === "number" ? node.unit : null;
+  switch (key) {
+    case "tol":
+      if (v < 0) return fail("a tolerance can't be negative");
+      if (unit !== "%" && v >= 1)
+        return fail(
+          `tol=${v} would be ${v * 100} %`,
+          `write tol=${v}% for ${v} percent, or a fraction such as tol=0.01`,
+        );
+      if (v >= 1) return fail("a tolerance must stay below 100 %");
+      part.tol = v;
+      return true;
+    case "phase":
+      part.phaseDeg = v;
+      return true;
+    case "gain": {
+      const gain = unit === "dB" ? 10 ** (v / 20) : v;
+      if (!(gain > 0)) return fail("an opamp's gain must be above zero");
+      part.opamp = { ...part.opamp, gain };
+      return true;
+    }
+    case "gbw":
+      if (!(v > 0)) return fail("a gain-bandwidth product must be above zero");
+      part.opamp = { ...part.opamp, gbw: v };
+      return true;
+    case "rout":
+      if (v < 0) return fail("an output resistance can't be negative");
+      part.opamp = { ...part.opamp, rout: v };
+      return true;
+  }
+  return fail(`unknown option \`${key}\``);
+}
+
+function resolveSenses(parts: Part[], pending: PendingSense[], errors: NetlistError[]): void {
+  const byName = new Map(parts.map((p) => [p.name, p]));
+  for (const p of pending) {
+    const target = byName.get(p.prefix + p.written) ?? byName.get(p.written);
+    if (target === undefined) {
+      errors.push({
+        ...p.span,
+        message: `no part named \`${p.written}\` to sense`,
+        hint:
+          didYouMean(p.written, [...byName.keys()]) ??
+          `a ${p.part.kind} senses the current of a vsource or an inductor`,
+      });
+      continue;
+    }
+    if (target.kind !== "vsource" && target.kind !== "inductor") {
+      errors.push({
+        ...p.span,
+        message: `a ${p.part.kind} senses the current of a vsource or an inductor; \`${target.name}\` is a ${target.kind}`,
+        hint: "add a 0 V vsource in series with the branch and sense that",
+      });
+      continue;
+    }
+    p.part.sense = target.name;
+  }
+}

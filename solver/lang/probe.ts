@@ -1,0 +1,87 @@
+/**
+ * Probe expressions: `+ - * /`, parentheses, numbers, `v(NODE)`, `v(NODE1, NODE2)` and `i(PART)`.
+ * Recursive descent, usual precedence, left-associative.
+ */
+import type { Named, ProbeNode } from "./ast";
+import { type Cursor, spanBetween, spanOf } from "./cursor";
+
+const PROBE_HINT = "a probe reads v(NODE), v(NODE1, NODE2) or i(PART), combined with + - * / and numbers";
+
+/** Parse a whole probe; null (with an error recorded) when it is malformed. */
+export function parseProbe(c: Cursor): ProbeNode | null {
+  const probe = sum(c);
+  if (probe === null) return null;
+  if (!c.atEnd()) return c.fail(c.peek(), `unexpected \`${c.peek()!.text}\` in the probe`, PROBE_HINT);
+  return probe;
+}
+
+function sum(c: Cursor): ProbeNode | null {
+  let left = product(c);
+  while (left !== null && (c.isOp("+") || c.isOp("-"))) {
+    const op = c.next()!.text as "+" | "-";
+    const right = product(c);
+    if (right === null) return null;
+    left = { op, left, right, span: spanBetween(left.span, right.span) };
+  }
+  return left;
+}
+
+function product(c: Cursor): ProbeNode | null {
+  let left = unary(c);
+  while (left !== null && (c.isOp("*") || c.isOp("/"))) {
+    const op = c.next()!.text as "*" | "/";
+    const right = unary(c);
+    if (right === null) return null;
+    left = { op, left, right, span: spanBetween(left.span, right.span) };
+  }
+  return left;
+}
+
+function unary(c: Cursor): ProbeNode | null {
+  if (c.isOp("-")) {
+    const minus = c.next()!;
+    const arg = unary(c);
+    return arg === null ? null : { op: "neg", arg, span: spanBetween(spanOf(minus), arg.span) };
+  }
+  return primary(c);
+}
+
+function primary(c: Cursor): ProbeNode | null {
+  const t = c.peek();
+  if (t === undefined) return c.fail(undefined, "the probe ends too early", PROBE_HINT);
+  if (t.kind === "number") {
+    const n = c.value("any", "a number");
+    return n === null || n.kind !== "number" ? null : { op: "num", value: n.value, span: n.span };
+  }
+  if (t.kind === "op" && t.text === "(") {
+    c.next();
+    const inner = sum(c);
+    if (inner === null) return null;
+    if (c.expectOp(")", "expected `)` to close the parenthesis") === null) return null;
+    return inner;
+  }
+  if (t.kind === "word" && (t.text === "v" || t.text === "i") && c.isOp("(", 1)) {
+    c.next();
+    c.next();
+    if (t.text === "i") {
+      const part = c.expectName("a part name", true, "i(PART) reads the current through a part");
+      if (part === null) return null;
+      const close = c.expectOp(")", "expected `)` after the part name", "i(PART) takes one part");
+      return close === null ? null : { op: "i", part, span: spanBetween(spanOf(t), spanOf(close)) };
+    }
+    const node = c.expectNode("a node name");
+    if (node === null) return null;
+    let ref: Named | undefined;
+    if (c.isOp(",")) {
+      c.next();
+      const second = c.expectNode("a second node name");
+      if (second === null) return null;
+      ref = second;
+    }
+    const close = c.expectOp(")", "expected `)` after the node name", "v(NODE) or v(NODE1, NODE2)");
+    if (close === null) return null;
+    const span = spanBetween(spanOf(t), spanOf(close));
+    return ref === undefined ? { op: "v", node, span } : { op: "v", node, ref, span };
+  }
+  return c.fail(t, `\`${t.text}\` can't be read in a probe`, PROBE_HINT);
+}

@@ -1,0 +1,321 @@
+/** Parsers of the analysis statements: sweep, show, loop, measure, check, vary, monte-carlo, poles, sensitivity. */
+import type { MeasureFunction } from "../types";
+import type { LevelNode, Named, Statement, SweepNode, ValueNode } from "./ast";
+import { type Cursor, spanBetween, spanOf } from "./cursor";
+import { didYouMean } from "./hints";
+import { MEASURE_FUNCTIONS } from "./kinds";
+import { parseProbe } from "./probe";
+
+/** Dispatch on the statement keyword at the cursor. */
+export function parseAnalysis(c: Cursor): Statement | null {
+  const keyword = c.next()!;
+  switch (keyword.text) {
+    case "sweep":
+      return parseSweep(c);
+    case "show":
+      return parseShow(c);
+    case "loop":
+      return parseLoop(c);
+    case "measure":
+      return parseMeasure(c);
+    case "check":
+      return parseCheck(c);
+    case "vary":
+      return parseVary(c);
+    case "monte-carlo":
+      return parseMonteCarlo(c);
+    case "poles":
+      return c.expectEnd("`poles` takes nothing after it") ? { type: "poles", span: c.span } : null;
+    case "sensitivity": {
+      const measure = c.expectName("a measure name", false, "sensitivity f0");
+      return measure && c.expectEnd("`sensitivity` takes one measure")
+        ? { type: "sensitivity", measure, span: c.span }
+        : null;
+    }
+    default:
+      return c.fail(spanOf(keyword), `\`${keyword.text}\` can't be used here`);
+  }
+}
+
+const SWEEP_FORMS =
+  "sweep 10Hz to 1MHz log 100 per decade | sweep 1kHz to 20kHz linear 500 points | sweep at 50Hz, 1kHz";
+
+function words(c: Cursor, expected: string[], hint: string): boolean {
+  for (const w of expected) {
+    if (!c.isWord(w)) {
+      const t = c.peek();
+      c.fail(
+        t,
+        t ? `expected \`${w}\`, found \`${t.text}\`` : `expected \`${w}\``,
+        t?.kind === "word" ? (didYouMean(t.text, [w]) ?? hint) : hint,
+      );
+      return false;
+    }
+    c.next();
+  }
+  return true;
+}
+
+function parseSweep(c: Cursor): Statement | null {
+  if (c.isWord("at")) {
+    c.next();
+    const points = list(c, "frequency", "a frequency");
+    return points && c.expectEnd() ? { type: "sweep", sweep: { kind: "list", points }, span: c.span } : null;
+  }
+  const start = c.value("frequency", "the start frequency");
+  if (start === null || !words(c, ["to"], SWEEP_FORMS)) return null;
+  const stop = c.value("frequency", "the stop frequency");
+  if (stop === null) return null;
+  const mode = c.peek();
+  let sweep: SweepNode;
+  if (mode?.text === "log") {
+    c.next();
+    const perDecade = c.value("count", "the points per decade");
+    if (perDecade === null || !words(c, ["per", "decade"], SWEEP_FORMS)) return null;
+    sweep = { kind: "log", start, stop, perDecade };
+  } else if (mode?.text === "linear") {
+    c.next();
+    const points = c.value("count", "the number of points");
+    if (points === null || !words(c, ["points"], SWEEP_FORMS)) return null;
+    sweep = { kind: "linear", start, stop, points };
+  } else {
+    const hint =
+      mode?.kind === "word" ? (didYouMean(mode.text, ["log", "linear"]) ?? SWEEP_FORMS) : SWEEP_FORMS;
+    return c.fail(
+      mode,
+      mode ? `expected \`log\` or \`linear\`, found \`${mode.text}\`` : "expected `log` or `linear`",
+      hint,
+    );
+  }
+  return c.expectEnd(SWEEP_FORMS) ? { type: "sweep", sweep, span: c.span } : null;
+}
+
+/** `V1, V2, …` — values separated by commas. */
+function list(c: Cursor, place: "frequency" | "any", what: string): ValueNode[] | null {
+  const values: ValueNode[] = [];
+  for (;;) {
+    const v = c.value(place, what);
+    if (v === null) return null;
+    values.push(v);
+    if (!c.isOp(",")) return values;
+    c.next();
+  }
+}
+
+function parseShow(c: Cursor): Statement | null {
+  let name: Named | null = null;
+  if (c.isWord() && c.isOp("=", 1)) {
+    name = c.expectName("a trace name");
+    if (name === null) return null;
+    c.next();
+  }
+  const first = c.peek();
+  if (first === undefined) return c.fail(undefined, "the probe is missing", "show gain = v(out) / v(in)");
+  const text = c.rawFrom(first);
+  const probe = parseProbe(c);
+  if (probe === null) return null;
+  return { type: "show", name: name ?? { name: text, span: probe.span }, probe, text, span: c.span };
+}
+
+function parseLoop(c: Cursor): Statement | null {
+  const hint = "loop T cut out before R1";
+  const name = c.expectName("a loop name", false, hint);
+  if (name === null || !words(c, ["cut"], hint)) return null;
+  const node = c.expectNode("the node to cut", hint);
+  if (node === null || !words(c, ["before"], hint)) return null;
+  const before: Named[] = [];
+  for (;;) {
+    const part = c.expectName("a part name", true, hint);
+    if (part === null) return null;
+    before.push(part);
+    if (!c.isOp(",")) break;
+    c.next();
+  }
+  return c.expectEnd("list parts separated by commas: before R1,R2")
+    ? { type: "loop", name, node, before, span: c.span }
+    : null;
+}
+
+const AT_FUNCTIONS = new Set<MeasureFunction>(["mag", "db", "phase"]);
+
+function parseMeasure(c: Cursor): Statement | null {
+  const name = c.expectName("a measure name", false, "measure f0 = zero-phase(T)");
+  if (
+    name === null ||
+    c.expectOp("=", "expected `=` after the measure name", "measure f0 = zero-phase(T)") === null
+  )
+    return null;
+  const fnTok = c.peek();
+  const fnName = c.expectName("a measure function", false, `functions: ${MEASURE_FUNCTIONS.join(", ")}`);
+  if (fnName === null || fnTok === undefined) return null;
+  const fn = MEASURE_FUNCTIONS.find((f) => f === fnName.name);
+  if (fn === undefined) {
+    return c.fail(
+      fnName.span,
+      `unknown measure function \`${fnName.name}\``,
+      didYouMean(fnName.name, MEASURE_FUNCTIONS) ?? `functions: ${MEASURE_FUNCTIONS.join(", ")}`,
+    );
+  }
+  const usage =
+    fn === "crossing" ? "crossing(T, -3dB)" : AT_FUNCTIONS.has(fn) ? `${fn}(T) at 1kHz` : `${fn}(T)`;
+  if (c.expectOp("(", `expected \`(\` after ${fn}`, usage) === null) return null;
+  const target = c.expectName("a trace or loop name", false, usage);
+  if (target === null) return null;
+  let level: LevelNode | undefined;
+  if (c.isOp(",")) {
+    c.next();
+    if (fn !== "crossing" && fn !== "bandwidth") return c.fail(c.peek(), `${fn} takes one trace`, usage);
+    const parsed = parseLevel(c);
+    if (parsed === null) return null;
+    level = parsed;
+  } else if (fn === "crossing") {
+    return c.fail(
+      c.peek(),
+      "crossing needs a level",
+      "crossing(T, -3dB), crossing(T, 0.5), crossing(T, -45deg) or crossing(T, half-power)",
+    );
+  }
+  if (c.expectOp(")", "expected `)`", usage) === null) return null;
+  let at: ValueNode | undefined;
+  if (c.isWord("at")) {
+    const atTok = c.next()!;
+    if (!AT_FUNCTIONS.has(fn))
+      return c.fail(spanOf(atTok), `${fn} takes no \`at\``, "only mag, db and phase are read at a frequency");
+    const v = c.value("frequency", "a frequency or a measure name");
+    if (v === null) return null;
+    at = v;
+  } else if (AT_FUNCTIONS.has(fn)) {
+    return c.fail(undefined, `${fn} needs a frequency`, usage);
+  }
+  if (!c.expectEnd()) return null;
+  const s: Statement = { type: "measure", name, fn, target, span: c.span };
+  if (level) s.level = level;
+  if (at) s.at = at;
+  return s;
+}
+
+function parseLevel(c: Cursor): LevelNode | null {
+  const t = c.peek();
+  if (t?.kind === "word" && t.text === "half-power") {
+    c.next();
+    return { level: { kind: "half-power" }, span: spanOf(t) };
+  }
+  const v = c.value("level", "a level");
+  if (v === null) return null;
+  if (v.kind !== "number")
+    return c.fail(v.span, "a level is written literally", "e.g. -3dB, 0.5, -45deg or half-power");
+  const kind = v.unit === "dB" ? "db" : v.unit === "deg" ? "deg" : "mag";
+  if (kind === "mag" && v.value <= 0)
+    return c.fail(v.span, "a magnitude level must be above zero", "for decibels write the unit: -3dB");
+  return { level: { kind, value: v.value }, span: v.span };
+}
+
+function parseCheck(c: Cursor): Statement | null {
+  const first = c.peek();
+  const usage = "check gain >= 1 | check f0 between 950Hz and 1.05kHz";
+  const measure = c.expectName("a measure name", false, usage);
+  if (measure === null || first === undefined) return null;
+  const expression = c.rawFrom(first);
+  const opTok = c.peek();
+  if (opTok?.kind === "word" && opTok.text === "between") {
+    c.next();
+    const value = c.value("limit", "the lower limit");
+    if (value === null || !words(c, ["and"], usage)) return null;
+    const value2 = c.value("limit", "the upper limit");
+    if (value2 === null || !c.expectEnd(usage)) return null;
+    return { type: "check", measure, op: "between", value, value2, expression, span: c.span };
+  }
+  if (opTok?.kind !== "op" || !["<", "<=", ">", ">="].includes(opTok.text)) {
+    return c.fail(
+      opTok,
+      opTok ? `expected <, <=, >, >= or between, found \`${opTok.text}\`` : "the comparison is missing",
+      usage,
+    );
+  }
+  c.next();
+  const value = c.value("limit", "a limit");
+  if (value === null || !c.expectEnd(usage)) return null;
+  return {
+    type: "check",
+    measure,
+    op: opTok.text as "<" | "<=" | ">" | ">=",
+    value,
+    expression,
+    span: c.span,
+  };
+}
+
+function parseVary(c: Cursor): Statement | null {
+  const usage = "vary Rf over 20k, 22k, 24k | vary C from 1n to 100n log 9 points";
+  const target = c.expectName("a let or part name", true, usage);
+  if (target === null) return null;
+  const mode = c.peek();
+  if (mode?.text === "over") {
+    c.next();
+    const values = list(c, "any", "a value");
+    return values && c.expectEnd(usage) ? { type: "vary", target, values, span: c.span } : null;
+  }
+  if (mode?.text !== "from") {
+    return c.fail(
+      mode,
+      mode ? `expected \`over\` or \`from\`, found \`${mode.text}\`` : "expected `over` or `from`",
+      usage,
+    );
+  }
+  c.next();
+  const from = c.value("any", "the first value");
+  if (from === null || !words(c, ["to"], usage)) return null;
+  const to = c.value("any", "the last value");
+  if (to === null) return null;
+  const spacing = c.peek();
+  if (spacing?.text !== "log" && spacing?.text !== "linear") {
+    return c.fail(spacing, "expected `log` or `linear`", usage);
+  }
+  c.next();
+  const count = c.value("count", "the number of values");
+  if (count === null || !words(c, ["points"], usage) || !c.expectEnd(usage)) return null;
+  return {
+    type: "vary",
+    target,
+    values: { mode: spacing.text as "log" | "linear", from, to, count },
+    span: c.span,
+  };
+}
+
+function parseMonteCarlo(c: Cursor): Statement | null {
+  const usage = "monte-carlo 500 seed=7 dist=normal";
+  const samples = c.value("count", "the number of samples");
+  if (samples === null) return null;
+  const s: Statement = { type: "monte-carlo", samples, span: c.span };
+  while (!c.atEnd()) {
+    const key = c.peek()!;
+    if (!(key.kind === "word" && c.isOp("=", 1)))
+      return c.fail(spanOf(key), `unexpected \`${key.text}\``, usage);
+    c.next();
+    c.next();
+    if (key.text === "seed") {
+      const seed = c.value("count", "the seed");
+      if (seed === null) return null;
+      s.seed = seed;
+    } else if (key.text === "dist") {
+      const dist = c.expectName("uniform or normal", false, usage);
+      if (dist === null) return null;
+      if (dist.name !== "uniform" && dist.name !== "normal") {
+        return c.fail(
+          dist.span,
+          `unknown distribution \`${dist.name}\``,
+          didYouMean(dist.name, ["uniform", "normal"]) ?? "dist=uniform or dist=normal",
+        );
+      }
+      s.dist = dist;
+    } else {
+      return c.fail(
+        spanOf(key),
+        `unknown option \`${key.text}\``,
+        didYouMean(key.text, ["seed", "dist"]) ?? usage,
+      );
+    }
+  }
+  s.span = spanBetween(s.span, c.span);
+  return s;
+}

@@ -1,0 +1,150 @@
+/**
+ * Lexer: netlist text → logical lines of tokens. Comments (`#`) are dropped, a trailing `\` joins the
+ * next physical line, LF/CRLF/CR all end a line. Every token keeps its own physical line and columns
+ * (1-based, endColumn exclusive), so errors point into continued lines correctly.
+ */
+import type { NetlistError, SourceSpan } from "../types";
+
+export type TokenKind = "word" | "number" | "op";
+
+export interface Token extends SourceSpan {
+  kind: TokenKind;
+  text: string;
+  /** True when blank space (or a line join) separates this token from the previous one. */
+  spaceBefore: boolean;
+}
+
+/** One statement's worth of text: a physical line plus any lines joined to it with `\`. */
+export interface LogicalLine {
+  /** Physical line where the statement starts. */
+  line: number;
+  tokens: Token[];
+  /** The raw text pieces (comment removed), for statements that keep text as written. */
+  segments: { line: number; column: number; text: string }[];
+}
+
+/** Hyphenated keywords are single words; the lexer joins `head-tail` when head is one of these. */
+const HYPHEN_HEADS = new Set(["zero", "phase", "gain", "half", "monte"]);
+const OPERATORS = ["<=", ">=", "<", ">", "=", ":", ",", "(", ")", "+", "-", "*", "/", "^"];
+// Character classes by code point: the lexer runs once per keystroke in the editor.
+const isLetterCode = (k: number) => (k >= 65 && k <= 90) || (k >= 97 && k <= 122) || k === 95;
+const isDigitCode = (k: number) => k >= 48 && k <= 57;
+const isLetter = (c: string | undefined) => c !== undefined && isLetterCode(c.charCodeAt(0));
+const isDigit = (c: string | undefined) => c !== undefined && isDigitCode(c.charCodeAt(0));
+const isWordChar = (c: string | undefined) =>
+  c !== undefined && (isLetterCode(c.charCodeAt(0)) || isDigit(c));
+/** Characters that may follow a number: prefixes, units (micro, ohm and degree signs, %), IEC codes. */
+const SUFFIX_EXTRA = new Set(["\u00B5", "\u03BC", "\u03A9", "\u2126", "\u00B0", "%"]);
+const isSuffixChar = (c: string | undefined) => c !== undefined && (isWordChar(c) || SUFFIX_EXTRA.has(c));
+
+/** Split `text` into logical lines and tokens. Never throws; bad characters become errors. */
+export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[] } {
+  const errors: NetlistError[] = [];
+  const lines: LogicalLine[] = [];
+  const physical = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
+  let current: LogicalLine | null = null;
+  physical.forEach((raw, index) => {
+    const lineNo = index + 1;
+    const hash = raw.indexOf("#");
+    let body = (hash >= 0 ? raw.slice(0, hash) : raw).replace(/[ \t]+$/, "");
+    const continues = body.endsWith("\\");
+    if (continues) body = body.slice(0, -1);
+    if (current === null) current = { line: lineNo, tokens: [], segments: [] };
+    current.segments.push({ line: lineNo, column: 1, text: body });
+    lexSegment(body, lineNo, current.tokens, errors);
+    if (!continues) {
+      if (current.tokens.length > 0) lines.push(current);
+      current = null;
+    }
+  });
+  const last = current as LogicalLine | null;
+  if (last !== null && last.tokens.length > 0) lines.push(last);
+  return { lines, errors };
+}
+
+function lexSegment(body: string, line: number, out: Token[], errors: NetlistError[]): void {
+  let i = 0;
+  let spaceBefore = true;
+  const push = (kind: TokenKind, start: number, end: number) => {
+    out.push({
+      kind,
+      text: body.slice(start, end),
+      line,
+      column: start + 1,
+      endColumn: end + 1,
+      spaceBefore,
+    });
+    spaceBefore = false;
+  };
+  while (i < body.length) {
+    const c = body[i];
+    if (c === " " || c === "\t") {
+      spaceBefore = true;
+      i++;
+    } else if (isLetter(c)) {
+      const start = i;
+      i = scanWord(body, i);
+      const head = body.slice(start, i);
+      if (HYPHEN_HEADS.has(head) && body[i] === "-" && isLetter(body[i + 1])) {
+        i += 1;
+        while (isLetter(body[i])) i++;
+      }
+      push("word", start, i);
+    } else if (isDigit(c) || (c === "." && isDigit(body[i + 1]))) {
+      const start = i;
+      i = scanNumber(body, i);
+      push("number", start, i);
+    } else {
+      const op = OPERATORS.find((o) => body.startsWith(o, i));
+      if (op !== undefined) {
+        push("op", i, i + op.length);
+        i += op.length;
+      } else {
+        errors.push(strayCharacter(body, i, line));
+        spaceBefore = true;
+        i++;
+      }
+    }
+  }
+}
+
+function scanWord(body: string, start: number): number {
+  let i = start;
+  while (isWordChar(body[i]) || (body[i] === "." && isWordChar(body[i + 1]))) i++;
+  return i;
+}
+
+function scanNumber(body: string, start: number): number {
+  let i = start;
+  while (isDigit(body[i])) i++;
+  if (body[i] === "." && isDigit(body[i + 1])) {
+    i++;
+    while (isDigit(body[i])) i++;
+  }
+  const sign = body[i + 1] === "+" || body[i + 1] === "-";
+  if ((body[i] === "e" || body[i] === "E") && isDigit(body[i + (sign ? 2 : 1)])) {
+    i += sign ? 2 : 1;
+    while (isDigit(body[i])) i++;
+  }
+  while (isSuffixChar(body[i])) i++;
+  return i;
+}
+
+function strayCharacter(body: string, i: number, line: number): NetlistError {
+  const c = body[i] ?? "";
+  const base = { line, column: i + 1, endColumn: i + 2 };
+  if (c === "\\") {
+    return { ...base, message: "a `\\` joins lines only at the very end of a line", hint: "remove it" };
+  }
+  if (/[\u00B5\u03BC\u03A9\u2126\u00B0%]/.test(c)) {
+    return {
+      ...base,
+      message: `\`${c}\` must follow its number directly`,
+      hint: "write the number and its unit together, e.g. 10kΩ or 5%",
+    };
+  }
+  if (c === ".") {
+    return { ...base, message: "unexpected `.`", hint: "statements start with a keyword or a part name" };
+  }
+  return { ...base, message: `unexpected character \`${c}\`` };
+}

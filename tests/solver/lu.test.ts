@@ -1,0 +1,185 @@
+import { complex, lusolve, matrix } from "mathjs";
+import { describe, expect, it } from "vitest";
+import { SparseComplexLU } from "@/solver/engine/sparse-lu";
+import { sparseFromDense } from "@/solver/engine/sparse-matrix";
+import { mulberry32 } from "./engine-circuits";
+import { relClose } from "./engine-tolerance";
+
+type Dense = { re: number[][]; im: number[][] };
+
+/** A random sparse complex matrix with a strong diagonal (well conditioned), seeded. */
+function randomSystem(n: number, density: number, seed: number, dominant = true): Dense {
+  const rnd = mulberry32(seed);
+  const re = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  const im = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      if (i === j || rnd() < density) {
+        re[i]![j] = rnd() * 2 - 1;
+        im[i]![j] = rnd() * 2 - 1;
+      }
+    }
+    if (dominant) re[i]![i] = re[i]![i]! + n * density + 2;
+  }
+  return { re, im };
+}
+
+function permutedProduct(lu: SparseComplexLU, a: Dense) {
+  const n = lu.n;
+  const { lRe, lIm, uRe, uIm } = lu.denseFactors();
+  const P = lu.rowPermutation;
+  const Q = lu.columnPermutation;
+  let worst = 0;
+  let scale = 0;
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < n; j++) {
+      let sr = 0;
+      let si = 0;
+      for (let k = 0; k < n; k++) {
+        sr += lRe[i]![k]! * uRe[k]![j]! - lIm[i]![k]! * uIm[k]![j]!;
+        si += lRe[i]![k]! * uIm[k]![j]! + lIm[i]![k]! * uRe[k]![j]!;
+      }
+      const ar = a.re[P[i]!]![Q[j]!]!;
+      const ai = a.im[P[i]!]![Q[j]!]!;
+      worst = Math.max(worst, Math.hypot(sr - ar, si - ai));
+      scale = Math.max(scale, Math.hypot(ar, ai));
+    }
+  }
+  return worst / scale;
+}
+
+describe("SparseComplexLU", () => {
+  it("satisfies P·A·Q = L·U with L unit lower and U upper", () => {
+    const a = randomSystem(30, 0.12, 7);
+    const lu = new SparseComplexLU(sparseFromDense(a.re, a.im));
+    expect(lu.isSingular()).toBe(false);
+    expect(permutedProduct(lu, a)).toBeLessThan(1e-13);
+    const f = lu.denseFactors();
+    for (let i = 0; i < lu.n; i++) {
+      expect(f.lRe[i]![i]).toBe(1);
+      for (let j = i + 1; j < lu.n; j++) expect(f.lRe[i]![j]).toBe(0);
+      for (let j = 0; j < i; j++) expect(f.uRe[i]![j]).toBe(0);
+    }
+  });
+
+  it("pivots off a zero diagonal (a voltage-source-like row) and still factors exactly", () => {
+    // Saddle-point structure as in modified nodal analysis: zero diagonal in the constraint rows.
+    const re = [
+      [1e-3, -1e-3, 1],
+      [-1e-3, 2e-3, 0],
+      [1, 0, 0],
+    ];
+    const a = { re, im: re.map((r) => r.map(() => 0)) };
+    const lu = new SparseComplexLU(sparseFromDense(a.re, a.im));
+    expect(lu.isSingular()).toBe(false);
+    expect(permutedProduct(lu, a)).toBeLessThan(1e-15);
+  });
+
+  it("solves random complex systems like mathjs lusolve (seeded, 10 cases)", () => {
+    for (let seed = 1; seed <= 10; seed++) {
+      const n = 5 + seed * 3;
+      const a = randomSystem(n, 0.2, seed, seed % 2 === 0);
+      const rnd = mulberry32(seed + 100);
+      const bRe = Float64Array.from({ length: n }, () => rnd() - 0.5);
+      const bIm = Float64Array.from({ length: n }, () => rnd() - 0.5);
+      const lu = new SparseComplexLU(sparseFromDense(a.re, a.im));
+      const xRe = new Float64Array(n);
+      const xIm = new Float64Array(n);
+      lu.solve(bRe, bIm, xRe, xIm);
+      const A = matrix(a.re.map((row, i) => row.map((x, j) => complex(x, a.im[i]![j]!))));
+      const b = matrix(Array.from(bRe, (x, i) => [complex(x, bIm[i]!)]));
+      const ref = lusolve(A, b).toArray() as unknown as { re: number; im: number }[][];
+      for (let i = 0; i < n; i++) {
+        const r = ref[i]![0]!;
+        const scale = Math.max(...ref.map((row) => Math.hypot(row[0]!.re, row[0]!.im)));
+        expect(Math.hypot(xRe[i]! - r.re, xIm[i]! - r.im) / scale).toBeLessThan(1e-11);
+      }
+    }
+  });
+
+  it("reports a singular matrix instead of solving it", () => {
+    const a = sparseFromDense([
+      [1, 2, 0],
+      [2, 4, 0],
+      [0, 0, 1],
+    ]);
+    const lu = new SparseComplexLU(a);
+    expect(lu.isSingular()).toBe(true);
+    expect(() => lu.solve(new Float64Array(3), new Float64Array(3))).toThrow(
+      "matrix is singular: cannot solve",
+    );
+  });
+
+  it("rejects values that do not fit the pattern", () => {
+    const lu = new SparseComplexLU(sparseFromDense([[2]]));
+    expect(() => lu.refactor(new Float64Array(2), new Float64Array(2))).toThrow(
+      "dimension mismatch: values and pattern differ in length",
+    );
+  });
+
+  it("refactors new values in the same pattern without re-pivoting, and re-pivots one frequency when needed", () => {
+    const a = randomSystem(25, 0.15, 3);
+    const m = sparseFromDense(a.re, a.im);
+    const lu = new SparseComplexLU(m);
+    const order = Array.from(lu.rowPermutation);
+    // Scale the imaginary parts (as a frequency step does) and refactor.
+    const re2 = Float64Array.from(m.re);
+    const im2 = m.im.map((x) => x * 1.7);
+    expect(lu.refactor(re2, im2)).toBe(true);
+    expect(lu.repivots).toBe(0);
+    expect(Array.from(lu.rowPermutation)).toEqual(order);
+    const a2 = { re: a.re, im: a.im.map((row) => row.map((x) => x * 1.7)) };
+    expect(permutedProduct(lu, a2)).toBeLessThan(1e-13);
+    // Now make a pivot tiny (one whose row has no L part but U entries, so the pivot is a
+    // matrix entry itself): the refactorization must re-pivot for these values only.
+    const f = lu.denseFactors();
+    const k = order.findIndex(
+      (_, i) => f.lRe[i]!.every((x, j) => j === i || x === 0) && f.uRe[i]!.some((x, j) => j > i && x !== 0),
+    );
+    expect(k).toBeGreaterThanOrEqual(0);
+    const p0 = order[k]!;
+    const c0 = lu.columnPermutation[k]!;
+    const re3 = Float64Array.from(m.re);
+    const im3 = Float64Array.from(m.im);
+    for (let p = m.rowPtr[p0]!; p < m.rowPtr[p0 + 1]!; p++) {
+      if (m.colIdx[p] === c0) {
+        re3[p] = 1e-9;
+        im3[p] = 0;
+      }
+    }
+    const a3 = sparseDense(m.rowPtr, m.colIdx, re3, im3, m.n);
+    expect(lu.refactor(re3, im3)).toBe(true);
+    expect(lu.repivots).toBe(1);
+    expect(permutedProduct(lu, a3)).toBeLessThan(1e-12);
+    // The next refactor goes back to the sweep's order.
+    expect(lu.refactor(re2, im2)).toBe(true);
+    expect(Array.from(lu.rowPermutation)).toEqual(order);
+  });
+});
+
+function sparseDense(
+  rowPtr: Int32Array,
+  colIdx: Int32Array,
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+): Dense {
+  const out = { re: Array.from({ length: n }, () => new Array<number>(n).fill(0)), im: [] as number[][] };
+  out.im = Array.from({ length: n }, () => new Array<number>(n).fill(0));
+  for (let i = 0; i < n; i++) {
+    for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
+      out.re[i]![colIdx[p]!] = re[p]!;
+      out.im[i]![colIdx[p]!] = im[p]!;
+    }
+  }
+  return out;
+}
+
+it("relClose treats 0 and NaN deliberately", () => {
+  expect(relClose(0, 0)).toBe(true);
+  expect(relClose(0, 1e-300)).toBe(false);
+  expect(relClose(0, 1e-300, 1e-9, 1e-200)).toBe(true);
+  expect(relClose(Number.NaN, Number.NaN)).toBe(true);
+  expect(relClose(Number.NaN, 1)).toBe(false);
+  expect(relClose(1, 1 + 1e-10)).toBe(true);
+});
