@@ -4,6 +4,7 @@
  * Exit codes: 0 solved, 2 netlist errors (printed as FILE:line:col: message (hint)), 1 anything else.
  */
 import { readFileSync } from "node:fs";
+import path from "node:path";
 import { solveNetlist } from "./index";
 import type { SolveResult, SolveSuccess } from "./types";
 
@@ -140,7 +141,8 @@ export function run(args: string[], stdout: (s: string) => void, stderr: (s: str
   }
   let text: string;
   try {
-    text = readFileSync(parsed.file, "utf8");
+    // `npm run` starts scripts in the package folder; INIT_CWD is where the user typed the command.
+    text = readFileSync(path.resolve(process.env.INIT_CWD ?? process.cwd(), parsed.file), "utf8");
   } catch (error) {
     stderr(`cannot read ${parsed.file}: ${error instanceof Error ? error.message : String(error)}\n`);
     return 1;

@@ -25,7 +25,7 @@ export function formatHz(f: number): string {
  * dx/ds = −A(s)⁻¹·C·x using the same factors (one extra solve, no refactorization).
  */
 export class AcSolver {
-  readonly sys: MnaSystem;
+  sys: MnaSystem;
   readonly xRe: Float64Array;
   readonly xIm: Float64Array;
   readonly dxRe: Float64Array;
@@ -40,6 +40,22 @@ export class AcSolver {
     this.xIm = new Float64Array(sys.n);
     this.dxRe = new Float64Array(sys.n);
     this.dxIm = new Float64Array(sys.n);
+  }
+
+  /**
+   * Take a system with new values but the same sparsity pattern (a Monte Carlo sample of the
+   * same netlist): the pivot order analysed so far is kept, so the next solves only refactor
+   * numbers. Returns false (and changes nothing) when the pattern differs.
+   */
+  rebind(sys: MnaSystem): boolean {
+    const a = this.sys.matrix;
+    const b = sys.matrix;
+    if (sys.n !== this.sys.n || b.colIdx.length !== a.colIdx.length) return false;
+    for (let i = 0; i <= sys.n; i++) if (a.rowPtr[i] !== b.rowPtr[i]) return false;
+    for (let p = 0; p < a.colIdx.length; p++) if (a.colIdx[p] !== b.colIdx[p]) return false;
+    // The LU holds a reference to the first system's matrix (pattern + value scratch): keep it.
+    this.sys = { ...sys, matrix: a };
+    return true;
   }
 
   /** How many frequencies needed their own pivot order. */

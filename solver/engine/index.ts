@@ -3,6 +3,7 @@ import type {
   Circuit,
   MeasureResult,
   NetlistError,
+  Part,
   Probe,
   SolveResult,
   SourceSpan,
@@ -39,9 +40,12 @@ const spanError = (span: SourceSpan | undefined, message: string, hint?: string)
 });
 
 /** One solved system (the circuit, or one loop's circuit) and the traces read from it. */
-interface SystemRun {
+export interface SystemRun {
   solver: AcSolver;
   traces: { name: string; kind: "probe" | "loop"; probe: Probe; span: SourceSpan }[];
+  /** The parts and nodes the system was built from (a Monte Carlo sample rebuilds it with new values). */
+  parts: Part[];
+  nodes: string[];
 }
 
 /** The result of one sweep of one circuit: everything a variant or a sample needs. */
@@ -53,7 +57,14 @@ export interface SweepOutcome {
   system: MnaSystem;
 }
 
-function sampler(run: SystemRun, name: string, probe: Probe, freqs: number[], re: number[], im: number[]) {
+export function sampler(
+  run: SystemRun,
+  name: string,
+  probe: Probe,
+  freqs: number[],
+  re: number[],
+  im: number[],
+) {
   const s: TraceSampler = {
     name,
     freqs,
@@ -91,19 +102,26 @@ function firstPartOn(sys: MnaSystem, node: string): SourceSpan | undefined {
   return sys.parts.find((p) => p.nodes.includes(node))?.span;
 }
 
+/** The systems of a circuit (the circuit, then one per loop) and the traces each one is read for. */
+export interface SystemPlan {
+  runs: SystemRun[];
+  main: MnaSystem;
+}
+
 /**
- * Sweep one circuit: build the MNA systems (the circuit and one per loop), solve every frequency,
- * read the traces, then the measures and checks. Never throws on user input.
+ * Build the MNA systems of a circuit (the circuit and one per loop) and decide which system each
+ * trace is read from. Never throws on user input.
  */
-export function sweepCircuit(
+export function planSystems(
   circuit: Circuit,
-  freqs: number[],
   warnings: Warning[],
-): { ok: true; outcome: SweepOutcome } | { ok: false; errors: NetlistError[] } {
+): { ok: true; plan: SystemPlan } | { ok: false; errors: NetlistError[] } {
   const main = buildMna(circuit.parts, circuit.nodes);
   if (!main.ok) return main;
   const errors: NetlistError[] = [];
-  const runs: SystemRun[] = [{ solver: new AcSolver(main.system), traces: [] }];
+  const runs: SystemRun[] = [
+    { solver: new AcSolver(main.system), traces: [], parts: circuit.parts, nodes: circuit.nodes },
+  ];
   for (const loop of circuit.loops) {
     const lb = buildLoop(circuit, loop);
     if (!lb.ok) {
@@ -119,6 +137,8 @@ export function sweepCircuit(
     runs.push({
       solver: new AcSolver(sys.system),
       traces: [{ name: loop.name, kind: "loop", probe: lb.probe, span: loop.span }],
+      parts: lb.parts,
+      nodes: lb.nodes,
     });
   }
   // A circuit without an independent source (an oscillator) has only the zero response; its
@@ -154,7 +174,21 @@ export function sweepCircuit(
     else showRun.traces.push({ name: show.name, kind: "probe", probe, span: show.span });
   }
   if (errors.length > 0) return { ok: false, errors };
+  return { ok: true, plan: { runs, main: main.system } };
+}
 
+/**
+ * Sweep one circuit: build the MNA systems (the circuit and one per loop), solve every frequency,
+ * read the traces, then the measures and checks. Never throws on user input.
+ */
+export function sweepCircuit(
+  circuit: Circuit,
+  freqs: number[],
+  warnings: Warning[],
+): { ok: true; outcome: SweepOutcome } | { ok: false; errors: NetlistError[] } {
+  const planned = planSystems(circuit, warnings);
+  if (!planned.ok) return planned;
+  const { runs, main } = planned.plan;
   const traces: TraceResult[] = [];
   const samplers = new Map<string, TraceSampler>();
   for (const [r, run] of runs.entries()) {
@@ -202,7 +236,7 @@ export function sweepCircuit(
   traces.sort((a, b) => (order.get(a.name) ?? 0) - (order.get(b.name) ?? 0));
   const measures = computeMeasures(circuit.measures, samplers);
   const checks = evaluateChecks(circuit.checks, measures);
-  return { ok: true, outcome: { traces, measures, checks, samplers, system: main.system } };
+  return { ok: true, outcome: { traces, measures, checks, samplers, system: main } };
 }
 
 /**

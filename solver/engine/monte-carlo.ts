@@ -1,5 +1,5 @@
-import type { Circuit, MeasureStats, MonteCarloResult, SolveSuccess, Warning } from "../types";
-import { rerun, withValues } from "./rerun";
+import type { Circuit, MeasureStats, MonteCarloDef, MonteCarloResult, SolveSuccess, Warning } from "../types";
+import { type SampleBatch, SampleKernel, solveSampleRange } from "./samples";
 import type { StudyOptions } from "./studies";
 
 /** Seeded 32-bit PRNG (mulberry32): the same seed gives the same samples on every platform. */
@@ -14,49 +14,82 @@ export function mulberry32(seed: number): () => number {
   };
 }
 
-export function monteCarlo(
-  circuit: Circuit,
-  freqs: number[],
-  nominal: SolveSuccess,
-  warnings: Warning[],
-  options: StudyOptions,
-): MonteCarloResult | string {
-  const def = circuit.monteCarlo!;
-  if (options.maxSamples !== undefined && def.samples > options.maxSamples) {
-    return `monte-carlo asks for ${def.samples} samples; this service allows at most ${options.maxSamples}`;
-  }
+/** Every sample's values of the toleranced parts, drawn up front (so any thread split gives the same result). */
+export interface SampleDraws {
+  /** Toleranced part names, in circuit order: the columns of `values`. */
+  names: string[];
+  samples: number;
+  /** values[s·names.length + j]: part names[j] in sample s. */
+  values: Float64Array;
+}
+
+/**
+ * Draw all samples from one mulberry32 stream seeded with `seed`: sample by sample, part by part
+ * in netlist order; uniform in ±tol, or normal with σ = tol/3 by Box–Muller (G. E. P. Box &
+ * M. E. Muller, Ann. Math. Statist. 29, 1958).
+ */
+export function drawSamples(circuit: Circuit, def: MonteCarloDef): SampleDraws {
   const rnd = mulberry32(def.seed);
-  // Box–Muller (G. E. P. Box & M. E. Muller, Ann. Math. Statist. 29, 1958) for the normal case.
   const gauss = () => {
     const u = 1 - rnd();
     const v = rnd();
     return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
   };
   const toleranced = circuit.parts.filter((p) => p.tol !== undefined && p.tol > 0);
-  if (toleranced.length === 0) {
+  const w = toleranced.length;
+  const values = new Float64Array(def.samples * w);
+  for (let s = 0; s < def.samples; s++) {
+    for (let j = 0; j < w; j++) {
+      const p = toleranced[j]!;
+      const t = p.tol!;
+      const d = def.dist === "normal" ? (gauss() * t) / 3 : (2 * rnd() - 1) * t;
+      values[s * w + j] = p.value * (1 + d);
+    }
+  }
+  return { names: toleranced.map((p) => p.name), samples: def.samples, values };
+}
+
+/** Why the run may not start (too many samples), or null. Warns when no part has a tol. */
+export function monteCarloPreflight(
+  circuit: Circuit,
+  warnings: Warning[],
+  options: StudyOptions,
+): string | null {
+  const def = circuit.monteCarlo!;
+  if (options.maxSamples !== undefined && def.samples > options.maxSamples) {
+    return `monte-carlo asks for ${def.samples} samples; this service allows at most ${options.maxSamples}`;
+  }
+  if (!circuit.parts.some((p) => p.tol !== undefined && p.tol > 0)) {
     warnings.push({
       line: def.span.line,
       message: "monte-carlo: no part has a tol, so every sample is the nominal circuit",
     });
   }
-  const values = new Map<string, (number | null)[]>(nominal.measures.map((m) => [m.name, []]));
+  return null;
+}
+
+/** Statistics and yield from the solved batches (in any order; they must cover every sample). */
+export function summarizeSamples(
+  circuit: Circuit,
+  nominal: SolveSuccess,
+  batches: SampleBatch[],
+  warnings: Warning[],
+): MonteCarloResult {
+  const def = circuit.monteCarlo!;
+  const m = circuit.measures.length;
+  const ordered = [...batches].sort((a, b) => a.from - b.from);
+  const columns: (number | null)[][] = Array.from({ length: m }, () => []);
   let passed = 0;
   let failedRuns = 0;
-  for (let s = 0; s < def.samples; s++) {
-    const vals = new Map<string, number>();
-    for (const p of toleranced) {
-      const t = p.tol!;
-      const d = def.dist === "normal" ? (gauss() * t) / 3 : (2 * rnd() - 1) * t;
-      vals.set(p.name, p.value * (1 + d));
+  for (const b of ordered) {
+    for (let r = 0; r < b.to - b.from; r++) {
+      if (b.failed[r]) failedRuns++;
+      if (b.passed[r]) passed++;
+      for (let i = 0; i < m; i++) {
+        const v = b.values[r * m + i]!;
+        columns[i]!.push(Number.isNaN(v) ? null : v);
+      }
     }
-    const o = rerun(withValues(circuit, vals), freqs);
-    if (typeof o === "string") {
-      failedRuns++;
-      for (const list of values.values()) list.push(null);
-      continue;
-    }
-    for (const m of o.measures) values.get(m.name)?.push(m.value);
-    if (o.checks.every((c) => c.pass)) passed++;
   }
   if (failedRuns > 0) {
     warnings.push({
@@ -64,12 +97,32 @@ export function monteCarlo(
       message: `monte-carlo: ${failedRuns} of ${def.samples} samples could not be solved`,
     });
   }
+  const names = nominal.measures.map((x) => x.name);
   return {
     samples: def.samples,
     seed: def.seed,
     yield: def.samples > 0 ? passed / def.samples : 0,
-    measures: [...values.entries()].map(([name, list]) => stats(name, list)),
+    measures: names.map((name, i) => stats(name, columns[i] ?? [])),
   };
+}
+
+/**
+ * Monte Carlo in this thread (the synchronous path of `solveNetlist`). The same draws and the same
+ * per-sample kernel as the worker-thread path (solver/parallel.ts), so both give identical JSON.
+ */
+export function monteCarlo(
+  circuit: Circuit,
+  freqs: number[],
+  nominal: SolveSuccess,
+  warnings: Warning[],
+  options: StudyOptions,
+): MonteCarloResult | string {
+  const problem = monteCarloPreflight(circuit, warnings, options);
+  if (problem) return problem;
+  const draws = drawSamples(circuit, circuit.monteCarlo!);
+  const kernel = new SampleKernel(circuit, freqs, draws.names);
+  const batch = solveSampleRange(kernel, draws.values, draws.names.length, 0, draws.samples);
+  return summarizeSamples(circuit, nominal, [batch], warnings);
 }
 
 /** Percentile by linear interpolation between order statistics (sorted input). */

@@ -2,6 +2,7 @@ import { compile } from "../lang";
 import type {
   Circuit,
   MeasureResult,
+  MonteCarloResult,
   Part,
   SensitivityResult,
   SolveResult,
@@ -18,6 +19,11 @@ import { rerun, withValues } from "./rerun";
 export interface StudyOptions {
   /** Most Monte Carlo samples (the service's limit); more are an error. */
   maxSamples?: number;
+  /**
+   * A Monte Carlo result computed elsewhere (worker threads, solver/parallel.ts) with the
+   * warnings it raised; used in place of the in-thread run so the JSON is the same either way.
+   */
+  monteCarlo?: { result: MonteCarloResult | string; warnings: Warning[] };
 }
 
 /** Relative step of the central differences of `sensitivity`. */
@@ -75,7 +81,11 @@ export function addStudies(
     out.variants = variants;
   }
   if (circuit.monteCarlo) {
-    const mc = monteCarlo(circuit, freqs, result, warnings, options);
+    let mc: MonteCarloResult | string;
+    if (options.monteCarlo) {
+      mc = options.monteCarlo.result;
+      warnings.push(...options.monteCarlo.warnings);
+    } else mc = monteCarlo(circuit, freqs, result, warnings, options);
     if (typeof mc === "string") {
       return { ok: false, errors: [{ ...circuit.monteCarlo.span, message: mc }], warnings };
     }

@@ -1,6 +1,7 @@
 /** A cursor over one logical line's tokens, collecting errors with line and column. */
 import type { NetlistError, SourceSpan } from "../types";
 import type { Named, ValueNode } from "./ast";
+import { didYouMean } from "./hints";
 import { type Place, parseNumberText, unitMismatch } from "./numbers";
 import type { LogicalLine, Token } from "./tokens";
 
@@ -158,4 +159,21 @@ export class Cursor {
       .replace(/[ \t]+/g, " ")
       .trim();
   }
+}
+
+/** Expect the keywords `expected` in order; on a mismatch record an error (with did-you-mean) and return false. */
+export function words(c: Cursor, expected: string[], hint: string): boolean {
+  for (const w of expected) {
+    if (!c.isWord(w)) {
+      const t = c.peek();
+      c.fail(
+        t,
+        t ? `expected \`${w}\`, found \`${t.text}\`` : `expected \`${w}\``,
+        t?.kind === "word" ? (didYouMean(t.text, [w]) ?? hint) : hint,
+      );
+      return false;
+    }
+    c.next();
+  }
+  return true;
 }

@@ -162,6 +162,7 @@ export function resolveLoops(
     const before: string[] = [];
     for (const b of l.before) {
       const p = part(ctx, b);
+      if (p !== null && before.includes(p.name)) continue; // listed twice: once is enough
       if (p === null || at === null) continue;
       if (!p.nodes.includes(at)) {
         err(ctx, b.span, `\`${p.name}\` does not touch node \`${at}\``, `list parts connected to ${at}`);
@@ -169,7 +170,7 @@ export function resolveLoops(
       }
       before.push(p.name);
     }
-    if (at === null || at === "gnd" || before.length !== l.before.length) continue;
+    if (at === null || at === "gnd" || before.length !== new Set(l.before.map((b) => b.name)).size) continue;
     if (!idealDriver(ctx.parts, at)) {
       ctx.warnings.push({
         line: l.span.line,

@@ -1,9 +1,8 @@
-/** Parsers of the analysis statements: sweep, show, loop, measure, check, vary, monte-carlo, poles, sensitivity. */
-import type { MeasureFunction } from "../types";
-import type { LevelNode, Named, Statement, SweepNode, ValueNode } from "./ast";
-import { type Cursor, spanBetween, spanOf } from "./cursor";
+/** Parsers of the analysis statements: sweep, show, loop, vary, monte-carlo, poles, sensitivity (measure and check in measure-syntax.ts). */
+import type { Named, Statement, SweepNode, ValueNode } from "./ast";
+import { type Cursor, spanBetween, spanOf, words } from "./cursor";
 import { didYouMean } from "./hints";
-import { MEASURE_FUNCTIONS } from "./kinds";
+import { parseCheck, parseMeasure } from "./measure-syntax";
 import { parseProbe } from "./probe";
 
 /** Dispatch on the statement keyword at the cursor. */
@@ -39,22 +38,6 @@ export function parseAnalysis(c: Cursor): Statement | null {
 
 const SWEEP_FORMS =
   "sweep 10Hz to 1MHz log 100 per decade | sweep 1kHz to 20kHz linear 500 points | sweep at 50Hz, 1kHz";
-
-function words(c: Cursor, expected: string[], hint: string): boolean {
-  for (const w of expected) {
-    if (!c.isWord(w)) {
-      const t = c.peek();
-      c.fail(
-        t,
-        t ? `expected \`${w}\`, found \`${t.text}\`` : `expected \`${w}\``,
-        t?.kind === "word" ? (didYouMean(t.text, [w]) ?? hint) : hint,
-      );
-      return false;
-    }
-    c.next();
-  }
-  return true;
-}
 
 function parseSweep(c: Cursor): Statement | null {
   if (c.isWord("at")) {
@@ -134,115 +117,6 @@ function parseLoop(c: Cursor): Statement | null {
   return c.expectEnd("list parts separated by commas: before R1,R2")
     ? { type: "loop", name, node, before, span: c.span }
     : null;
-}
-
-const AT_FUNCTIONS = new Set<MeasureFunction>(["mag", "db", "phase"]);
-
-function parseMeasure(c: Cursor): Statement | null {
-  const name = c.expectName("a measure name", false, "measure f0 = zero-phase(T)");
-  if (
-    name === null ||
-    c.expectOp("=", "expected `=` after the measure name", "measure f0 = zero-phase(T)") === null
-  )
-    return null;
-  const fnTok = c.peek();
-  const fnName = c.expectName("a measure function", false, `functions: ${MEASURE_FUNCTIONS.join(", ")}`);
-  if (fnName === null || fnTok === undefined) return null;
-  const fn = MEASURE_FUNCTIONS.find((f) => f === fnName.name);
-  if (fn === undefined) {
-    return c.fail(
-      fnName.span,
-      `unknown measure function \`${fnName.name}\``,
-      didYouMean(fnName.name, MEASURE_FUNCTIONS) ?? `functions: ${MEASURE_FUNCTIONS.join(", ")}`,
-    );
-  }
-  const usage =
-    fn === "crossing" ? "crossing(T, -3dB)" : AT_FUNCTIONS.has(fn) ? `${fn}(T) at 1kHz` : `${fn}(T)`;
-  if (c.expectOp("(", `expected \`(\` after ${fn}`, usage) === null) return null;
-  const target = c.expectName("a trace or loop name", false, usage);
-  if (target === null) return null;
-  let level: LevelNode | undefined;
-  if (c.isOp(",")) {
-    c.next();
-    if (fn !== "crossing" && fn !== "bandwidth") return c.fail(c.peek(), `${fn} takes one trace`, usage);
-    const parsed = parseLevel(c);
-    if (parsed === null) return null;
-    level = parsed;
-  } else if (fn === "crossing") {
-    return c.fail(
-      c.peek(),
-      "crossing needs a level",
-      "crossing(T, -3dB), crossing(T, 0.5), crossing(T, -45deg) or crossing(T, half-power)",
-    );
-  }
-  if (c.expectOp(")", "expected `)`", usage) === null) return null;
-  let at: ValueNode | undefined;
-  if (c.isWord("at")) {
-    const atTok = c.next()!;
-    if (!AT_FUNCTIONS.has(fn))
-      return c.fail(spanOf(atTok), `${fn} takes no \`at\``, "only mag, db and phase are read at a frequency");
-    const v = c.value("frequency", "a frequency or a measure name");
-    if (v === null) return null;
-    at = v;
-  } else if (AT_FUNCTIONS.has(fn)) {
-    return c.fail(undefined, `${fn} needs a frequency`, usage);
-  }
-  if (!c.expectEnd()) return null;
-  const s: Statement = { type: "measure", name, fn, target, span: c.span };
-  if (level) s.level = level;
-  if (at) s.at = at;
-  return s;
-}
-
-function parseLevel(c: Cursor): LevelNode | null {
-  const t = c.peek();
-  if (t?.kind === "word" && t.text === "half-power") {
-    c.next();
-    return { level: { kind: "half-power" }, span: spanOf(t) };
-  }
-  const v = c.value("level", "a level");
-  if (v === null) return null;
-  if (v.kind !== "number")
-    return c.fail(v.span, "a level is written literally", "e.g. -3dB, 0.5, -45deg or half-power");
-  const kind = v.unit === "dB" ? "db" : v.unit === "deg" ? "deg" : "mag";
-  if (kind === "mag" && v.value <= 0)
-    return c.fail(v.span, "a magnitude level must be above zero", "for decibels write the unit: -3dB");
-  return { level: { kind, value: v.value }, span: v.span };
-}
-
-function parseCheck(c: Cursor): Statement | null {
-  const first = c.peek();
-  const usage = "check gain >= 1 | check f0 between 950Hz and 1.05kHz";
-  const measure = c.expectName("a measure name", false, usage);
-  if (measure === null || first === undefined) return null;
-  const expression = c.rawFrom(first);
-  const opTok = c.peek();
-  if (opTok?.kind === "word" && opTok.text === "between") {
-    c.next();
-    const value = c.value("limit", "the lower limit");
-    if (value === null || !words(c, ["and"], usage)) return null;
-    const value2 = c.value("limit", "the upper limit");
-    if (value2 === null || !c.expectEnd(usage)) return null;
-    return { type: "check", measure, op: "between", value, value2, expression, span: c.span };
-  }
-  if (opTok?.kind !== "op" || !["<", "<=", ">", ">="].includes(opTok.text)) {
-    return c.fail(
-      opTok,
-      opTok ? `expected <, <=, >, >= or between, found \`${opTok.text}\`` : "the comparison is missing",
-      usage,
-    );
-  }
-  c.next();
-  const value = c.value("limit", "a limit");
-  if (value === null || !c.expectEnd(usage)) return null;
-  return {
-    type: "check",
-    measure,
-    op: opTok.text as "<" | "<=" | ">" | ">=",
-    value,
-    expression,
-    span: c.span,
-  };
 }
 
 function parseVary(c: Cursor): Statement | null {

@@ -78,7 +78,8 @@ function lexSegment(body: string, line: number, out: Token[], errors: NetlistErr
   };
   while (i < body.length) {
     const c = body[i];
-    if (c === " " || c === "\t") {
+    if (c === " " || c === "\t" || c === "\u00A0" || c === "\u202F" || c === "\u2009") {
+      // Non-breaking and thin spaces pasted from documents count as blanks.
       spaceBefore = true;
       i++;
     } else if (isLetter(c)) {
@@ -130,6 +131,21 @@ function scanNumber(body: string, start: number): number {
   return i;
 }
 
+/** Characters that arrive by copy and paste, and what to type instead. */
+const LOOKALIKES: Record<string, string> = {
+  "\u2212": "write the minus sign as -",
+  "\u2013": "write the minus sign as -",
+  "\u00D7": "write multiplication as *",
+  "\u00B7": "write multiplication as *",
+  "\u00F7": "write division as /",
+  "\u2264": "write <=",
+  "\u2265": "write >=",
+  "\u201C": "quotes are not used in a netlist",
+  "\u201D": "quotes are not used in a netlist",
+  '"': "quotes are not used in a netlist",
+  ";": "one statement per line; start a comment with #",
+};
+
 function strayCharacter(body: string, i: number, line: number): NetlistError {
   const c = body[i] ?? "";
   const base = { line, column: i + 1, endColumn: i + 2 };
@@ -145,6 +161,17 @@ function strayCharacter(body: string, i: number, line: number): NetlistError {
   }
   if (c === ".") {
     return { ...base, message: "unexpected `.`", hint: "statements start with a keyword or a part name" };
+  }
+  const lookalike = LOOKALIKES[c];
+  if (lookalike !== undefined) return { ...base, message: `unexpected character \`${c}\``, hint: lookalike };
+  const code = c.codePointAt(0) ?? 0;
+  if (code < 32 || (code >= 0x200b && code <= 0x200f) || code === 0xfeff) {
+    const hex = code.toString(16).toUpperCase().padStart(4, "0");
+    return {
+      ...base,
+      message: `unexpected invisible character U+${hex}`,
+      hint: "delete it and type the text again",
+    };
   }
   return { ...base, message: `unexpected character \`${c}\`` };
 }

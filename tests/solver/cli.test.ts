@@ -123,14 +123,15 @@ describe("solved netlists", () => {
   });
 
   it("the npm script runs end to end with the exit codes", () => {
-    const ok = spawnSync("npx", ["tsx", "solver/cli.ts", path.join(EXAMPLES, "phase-shift.pwn")], {
-      cwd: ROOT,
+    // Run from the examples folder with a relative path: the CLI resolves it against INIT_CWD.
+    const ok = spawnSync("npm", ["run", "--silent", "solve", "--", "phase-shift.pwn"], {
+      cwd: EXAMPLES,
       encoding: "utf8",
     });
     expect(ok.status).toBe(0);
     // Series-C/shunt-R network is real at 1/(2π√6·RC) = 649.74733436 Hz (CHECKS.md §7).
     expect(ok.stdout).toMatch(/fosc\s+649\.747 Hz/);
-    const bad = spawnSync("npx", ["tsx", "solver/cli.ts", file("bad2.pwn", "swep 1k\n")], {
+    const bad = spawnSync("npm", ["run", "--silent", "solve", "--", file("bad2.pwn", "swep 1k\n")], {
       cwd: ROOT,
       encoding: "utf8",
     });

@@ -163,4 +163,32 @@ describe("lexer", () => {
       expect.objectContaining({ line: 2, column: 22, message: "`\u03A9` must follow its number directly" }),
     ]);
   });
+
+  it("pasted look-alikes get a hint, invisible characters are named by code point, non-breaking spaces are blanks", () => {
+    const { lines, errors } = lex("R1: resistor a\u00A0b 1k\nx = \u22123 \u00D7 2\u200B");
+    expect(lines[0]!.tokens.map((t) => t.text)).toEqual(["R1", ":", "resistor", "a", "b", "1k"]);
+    expect(errors).toEqual([
+      {
+        line: 2,
+        column: 5,
+        endColumn: 6,
+        message: "unexpected character `\u2212`",
+        hint: "write the minus sign as -",
+      },
+      {
+        line: 2,
+        column: 8,
+        endColumn: 9,
+        message: "unexpected character `\u00D7`",
+        hint: "write multiplication as *",
+      },
+      {
+        line: 2,
+        column: 11,
+        endColumn: 12,
+        message: "unexpected invisible character U+200B",
+        hint: "delete it and type the text again",
+      },
+    ]);
+  });
 });

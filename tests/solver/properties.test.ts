@@ -3,7 +3,7 @@ import path from "node:path";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { solveNetlist } from "@/solver/index";
-import { type CompileResult, compile } from "@/solver/lang";
+import { type CompileResult, compile, parse } from "@/solver/lang";
 import { parseNumberText } from "@/solver/lang/numbers";
 import type { Circuit, Part } from "@/solver/types";
 
@@ -43,6 +43,8 @@ describe("compile never throws", () => {
     fc.assert(
       fc.property(fc.string({ unit: "binary", maxLength: 200 }), (text) => {
         wellFormed(text, compile(text));
+        const parsed = parse(text);
+        for (const e of parsed.errors) expect(e.message).not.toContain("internal fault");
       }),
       { seed: 1, numRuns: 400 },
     );
