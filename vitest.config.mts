@@ -2,7 +2,7 @@ import path from "node:path";
 import { defineConfig } from "vitest/config";
 
 export default defineConfig({
-  resolve: { alias: { "@": path.resolve(__dirname) } },
+  resolve: { alias: { "@": path.resolve(import.meta.dirname) } },
   test: {
     projects: [
       {
@@ -19,6 +19,9 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
+          // Point lib/db at phasewright_test and migrate it (see tests/integration/setup.ts).
+          setupFiles: ["tests/integration/env.ts"],
+          globalSetup: ["tests/integration/global-setup.ts"],
           fileParallelism: false,
           testTimeout: 30000,
           hookTimeout: 60000,

@@ -4,10 +4,14 @@
  * and the same systems through mathjs's dense `lusolve` where that is feasible, as a speed ratio.
  * Add a case by pushing to BENCH_CASES.
  */
+import { readFileSync } from "node:fs";
+import path from "node:path";
 import { complex, lusolve, matrix } from "mathjs";
+import { solveNetlist } from "../solver";
 import { AcSolver } from "../solver/engine/ac";
 import { assemble, buildMna, type MnaSystem } from "../solver/engine/mna";
 import { sweepFrequencies } from "../solver/engine/sweep";
+import { solveNetlistParallel, stopSampleWorkers, workersUnavailableReason } from "../solver/parallel";
 import type { Part } from "../solver/types";
 
 export interface BenchRow {
@@ -22,7 +26,7 @@ export interface BenchRow {
 
 export interface BenchCase {
   name: string;
-  run(): BenchRow;
+  run(): BenchRow | Promise<BenchRow>;
 }
 
 const span = { line: 1, column: 1, endColumn: 2 };
@@ -105,14 +109,54 @@ export const BENCH_CASES: BenchCase[] = [
   ladderCase(10_000, 0),
 ];
 
-function main(): void {
+/**
+ * Monte Carlo of the demo oscillator (solver/examples/wien-bridge.pwn) with its sweep set to 400
+ * points and 1 000 samples: whole-study time in this thread, and on worker threads (the first
+ * parallel run includes starting the workers; the second reuses them). Goal: < 2 s (issue 5).
+ */
+function monteCarloCase(label: string, threads: number): BenchCase {
+  return {
+    name: `Monte Carlo 1000 × 400, bridge oscillator, ${label}`,
+    async run() {
+      const source = readFileSync(
+        path.join(__dirname, "..", "solver", "examples", "wien-bridge.pwn"),
+        "utf8",
+      );
+      const text = source
+        .replace(/^sweep .*$/m, "sweep 100Hz to 20kHz linear 400 points")
+        .replace(/^monte-carlo .*$/m, "monte-carlo 1000 seed=11");
+      const t0 = performance.now();
+      const r = threads > 0 ? await solveNetlistParallel(text, { threads }) : solveNetlist(text);
+      const ms = performance.now() - t0;
+      if (!r.ok) throw new Error(r.errors[0]?.message);
+      if (threads > 0 && workersUnavailableReason()) throw new Error(workersUnavailableReason()!);
+      const points = r.frequencies.length * (r.monteCarlo?.samples ?? 0);
+      return {
+        name: this.name,
+        unknowns: r.stats.unknowns,
+        points,
+        msPerSweep: ms,
+        unknownPointsPerSecond: (r.stats.unknowns * points) / (ms / 1000),
+        vsMathjs: null,
+      };
+    },
+  };
+}
+
+BENCH_CASES.push(
+  monteCarloCase("in-thread", 0),
+  monteCarloCase("2 worker threads, cold (incl. start)", 2),
+  monteCarloCase("2 worker threads, warm", 2),
+);
+
+async function main(): Promise<void> {
   // Warm the JIT so the first row is not a cold-start figure.
   timeEngine(rcLadder(50), logPoints(1001), 3);
   const header = ["case", "unknowns", "points", "ms/sweep", "unknown·points/s", "× mathjs dense"];
   console.log(header.join(" | "));
   console.log(header.map(() => "---").join(" | "));
   for (const c of BENCH_CASES) {
-    const r = c.run();
+    const r = await c.run();
     console.log(
       [
         r.name,
@@ -126,4 +170,11 @@ function main(): void {
   }
 }
 
-if (require.main === module) main();
+if (require.main === module) {
+  main()
+    .then(() => stopSampleWorkers())
+    .catch((error) => {
+      console.error(error);
+      process.exit(1);
+    });
+}

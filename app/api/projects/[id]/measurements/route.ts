@@ -1,0 +1,48 @@
+import { json, readJson, withApi } from "@/lib/api";
+import { BadRequestError, TooLargeError } from "@/lib/errors";
+import { createMeasurement, listMeasurements, MAX_MEASUREMENT_BYTES } from "@/lib/measurements";
+import { requireActor } from "@/lib/session";
+import { measurementUploadSchema } from "@/lib/validations/measurement";
+
+export const runtime = "nodejs";
+export const dynamic = "force-dynamic";
+
+type Ctx = { params: Promise<{ id: string }> };
+
+/** GET /api/projects/:id/measurements → the project's bench data, newest first. */
+export const GET = withApi(async (req: Request, { params }: Ctx) => {
+  const actor = await requireActor(req);
+  const { id } = await params;
+  return json({ measurements: await listMeasurements(actor, id) });
+});
+
+/**
+ * POST /api/projects/:id/measurements — a CSV of frequency (Hz), magnitude (dB), phase (deg), as
+ * multipart form data (`file`, `name`), as JSON `{name, csv}`, or as `text/csv` with `?name=`.
+ * Bad rows → 400 with `details.errors` [{line, message}].
+ */
+export const POST = withApi(async (req: Request, { params }: Ctx) => {
+  const actor = await requireActor(req);
+  const { id } = await params;
+  if (Number(req.headers.get("content-length") ?? "0") > MAX_MEASUREMENT_BYTES + 64_000) {
+    throw new TooLargeError(`The file is larger than ${MAX_MEASUREMENT_BYTES / 1e6} MB.`);
+  }
+  const type = req.headers.get("content-type") ?? "";
+  let input: { name: string; csv: string };
+  if (type.startsWith("multipart/form-data")) {
+    const form = await req.formData().catch(() => {
+      throw new BadRequestError("The form data could not be read.");
+    });
+    const file = form.get("file");
+    if (!(file instanceof Blob)) {
+      throw new BadRequestError("Attach a CSV file.", { fields: { file: ["Choose a CSV file."] } });
+    }
+    const fallback = file instanceof File ? file.name.replace(/\.[^.]+$/, "") : "";
+    input = { name: String(form.get("name") || fallback), csv: await file.text() };
+  } else if (type.startsWith("text/csv") || type.startsWith("text/plain")) {
+    input = { name: new URL(req.url).searchParams.get("name") ?? "", csv: await req.text() };
+  } else {
+    input = await readJson(req, measurementUploadSchema);
+  }
+  return json({ measurement: await createMeasurement(actor, id, input) }, 201);
+});

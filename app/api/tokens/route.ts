@@ -1,0 +1,18 @@
+import { json, readJson, withApi } from "@/lib/api";
+import { requireActor } from "@/lib/session";
+import { createApiToken, listApiTokens } from "@/lib/tokens";
+import { tokenCreateSchema } from "@/lib/validations/project";
+
+/** GET /api/tokens — the caller's tokens (prefix only). */
+export const GET = withApi(async (req: Request) => {
+  const actor = await requireActor(req);
+  return json({ tokens: await listApiTokens(actor.userId) });
+});
+
+/** POST /api/tokens {name} — a new token; its secret is in the answer once. */
+export const POST = withApi(async (req: Request) => {
+  const actor = await requireActor(req);
+  const { name } = await readJson(req, tokenCreateSchema);
+  const { token, summary } = await createApiToken(actor.userId, name);
+  return json({ token, ...summary }, 201);
+});

@@ -1,0 +1,128 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { FlippedChecks } from "@/components/compare/flipped-checks";
+import { MeasuresCompare } from "@/components/compare/measures-compare";
+import { NetlistDiff } from "@/components/compare/netlist-diff";
+import { CompareOverlayPlot } from "@/components/compare/overlay-plot";
+import { PartsChanges } from "@/components/compare/parts-changes";
+import { ReviewStateBadge } from "@/components/review/review-state-badge";
+import { Caution } from "@/components/run/caution";
+import { EmptyState } from "@/components/ui/empty-state";
+import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
+import { NotFoundError } from "@/lib/errors";
+import { type CompareSideView, compareSavedRuns } from "@/lib/runs-compare";
+import { requireUser } from "@/lib/session";
+import { formatDate } from "@/lib/utils";
+import { compareQuerySchema } from "@/lib/validations/run";
+
+export const metadata: Metadata = { title: "Compare runs" };
+
+type Props = { searchParams: Promise<Record<string, string | string[] | undefined>> };
+
+export default async function ComparePage({ searchParams }: Props) {
+  const actor = await requireUser();
+  const sp = await searchParams;
+  const parsed = compareQuerySchema.safeParse({ a: sp.a, b: sp.b });
+  if (!parsed.success) {
+    return (
+      <div className="mx-auto max-w-3xl px-4 py-12 sm:px-6">
+        <PageHeading title="Compare runs" />
+        <EmptyState title="Choose two runs first">
+          Open a project, tick two runs in its table and press “Compare selected”.{" "}
+          <Link href="/projects" className="text-board-700 underline">
+            Go to projects
+          </Link>
+        </EmptyState>
+      </div>
+    );
+  }
+  const { a, b, comparison } = await compareSavedRuns(actor, parsed.data.a, parsed.data.b).catch(
+    (err: unknown) => {
+      if (err instanceof NotFoundError) notFound();
+      throw err;
+    },
+  );
+  const labelA = `A: ${a.title}`;
+  const labelB = `B: ${b.title}`;
+  return (
+    <div className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
+      <PageHeading
+        title="Compare runs"
+        lead="What changed from run A to run B: netlist, parts, measures, checks and response."
+      />
+      <div className="mb-6 grid gap-4 sm:grid-cols-2">
+        <SideCard side={a} letter="A" />
+        <SideCard side={b} letter="B" />
+      </div>
+      <div className="space-y-6">
+        <Panel aria-labelledby="overlay-h">
+          <PanelHeader
+            id="overlay-h"
+            title="Response overlay"
+            description="B solid, A dashed, and the difference B − A."
+          />
+          <div className="p-2 sm:p-4">
+            <CompareOverlayPlot
+              traces={comparison.traces}
+              labelA={labelA}
+              labelB={labelB}
+              exportName="compare"
+            />
+          </div>
+        </Panel>
+        <div className="grid gap-6 lg:grid-cols-2">
+          <Panel aria-labelledby="measures-h">
+            <PanelHeader id="measures-h" title="Measures" description="Side by side with Δ and Δ%." />
+            <div className="overflow-x-auto p-3">
+              <MeasuresCompare measures={comparison.measures} labelA="A" labelB="B" />
+            </div>
+          </Panel>
+          <div className="space-y-6">
+            <Panel aria-labelledby="checks-h">
+              <PanelHeader id="checks-h" title="Checks that flipped" />
+              <div className="p-3">
+                <FlippedChecks checks={comparison.flippedChecks} labelA="A" labelB="B" />
+              </div>
+            </Panel>
+            <Panel aria-labelledby="parts-h">
+              <PanelHeader id="parts-h" title="Parts changed" />
+              <div className="overflow-x-auto p-3">
+                <PartsChanges parts={comparison.parts} errors={comparison.partErrors} />
+              </div>
+            </Panel>
+          </div>
+        </div>
+        <Panel aria-labelledby="diff-h">
+          <PanelHeader
+            id="diff-h"
+            title="Netlist diff"
+            description={`${comparison.diffStats.added} added, ${comparison.diffStats.removed} removed lines`}
+          />
+          <div className="overflow-x-auto p-2 sm:p-4">
+            <NetlistDiff diff={comparison.diff} labelA={labelA} labelB={labelB} />
+          </div>
+        </Panel>
+        <Caution />
+      </div>
+    </div>
+  );
+}
+
+function SideCard({ side, letter }: { side: CompareSideView; letter: "A" | "B" }) {
+  return (
+    <Panel className="p-4">
+      <p className="text-caption text-copper-600 font-mono tracking-widest uppercase">Run {letter}</p>
+      <h2 className="text-ink-900 text-lead mt-1 flex flex-wrap items-center gap-2 font-semibold">
+        <Link href={`/runs/${side.id}`} className="hover:underline">
+          {side.title}
+        </Link>
+        <ReviewStateBadge state={side.reviewState} />
+      </h2>
+      <p className="text-ink-600 mt-1 text-sm">
+        {side.authorName} · {formatDate(side.createdAt)} · {side.project.name}
+        {side.checksTotal ? ` · checks ${side.checksPassed}/${side.checksTotal}` : ""}
+      </p>
+    </Panel>
+  );
+}

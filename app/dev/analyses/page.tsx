@@ -1,0 +1,53 @@
+import { notFound } from "next/navigation";
+import { AnalysesPanel } from "@/components/analyses/analyses-panel";
+import { Panel, PanelHeader } from "@/components/ui/panel";
+import { solveNetlist } from "@/solver";
+
+export const dynamic = "force-dynamic";
+
+// A scratch page for looking at the analyses views with real solver output (development only).
+const NETLIST = `title Bench sweep source, bridge oscillator study
+let R = 10k
+let C = 10n
+Rs: resistor  out  mid  R   tol=1%
+Cs: capacitor mid  pos  C   tol=5%
+Rp: resistor  pos  gnd  R   tol=1%
+Cp: capacitor pos  gnd  C   tol=5%
+U1: opamp     pos  neg  out
+Rf: resistor  neg  out  20.5k tol=1%
+Rg: resistor  neg  gnd  10k   tol=1%
+sweep 100Hz to 20kHz log 100 per decade
+show  network = v(pos) / v(out)
+loop  T cut out before Rs
+measure f0     = zero-phase(T)
+measure margin = mag(T) at f0
+measure beta   = mag(network) at f0
+check margin >= 1
+check f0 between 1.5kHz and 1.7kHz
+vary Rf over 19k, 20k, 21k, 22k
+monte-carlo 200 seed=11
+poles
+sensitivity f0
+`;
+
+export default function AnalysesScratchPage() {
+  if (process.env.NODE_ENV === "production") notFound();
+  const result = solveNetlist(NETLIST);
+  return (
+    <main className="mx-auto max-w-6xl space-y-6 px-4 py-8">
+      <Panel>
+        <PanelHeader
+          title="Analyses (development preview)"
+          description="solveNetlist() of a bridge oscillator study"
+        />
+        <div className="p-5">
+          {result.ok ? (
+            <AnalysesPanel result={result} />
+          ) : (
+            <pre className="text-signal-fault text-sm">{JSON.stringify(result.errors, null, 2)}</pre>
+          )}
+        </div>
+      </Panel>
+    </main>
+  );
+}

@@ -1,0 +1,53 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { NetlistEditor } from "@/components/editor/netlist-editor";
+import { Notice } from "@/components/ui/notice";
+import { authorizeProject } from "@/lib/authz";
+import { ForbiddenError, NotFoundError } from "@/lib/errors";
+import { listExamples } from "@/lib/examples";
+import { requireUser } from "@/lib/session";
+
+export const metadata: Metadata = { title: "New run" };
+
+type Props = { params: Promise<{ projectId: string }> };
+
+export default async function NewRunPage({ params }: Props) {
+  const actor = await requireUser();
+  const { projectId } = await params;
+  const access = await authorizeProject(actor.userId, projectId, "run:create").catch((err: unknown) => {
+    if (err instanceof NotFoundError) notFound();
+    if (err instanceof ForbiddenError) return null;
+    throw err;
+  });
+  if (!access) {
+    return (
+      <div className="mx-auto max-w-3xl px-4 py-12 sm:px-6">
+        <Notice tone="warn" title="Your role in this team cannot create runs.">
+          Ask a team owner for the designer role, or{" "}
+          <Link href={`/projects/${projectId}`} className="underline">
+            go back to the project
+          </Link>
+          .
+        </Notice>
+      </div>
+    );
+  }
+  const examples = await listExamples();
+  const projectName = String(access.project.get("name"));
+  return (
+    <div className="mx-auto max-w-[96rem] px-4 py-6 sm:px-6">
+      <nav aria-label="Breadcrumb" className="text-ink-500 mb-1 text-sm">
+        <Link href="/projects" className="hover:underline">
+          Projects
+        </Link>{" "}
+        /{" "}
+        <Link href={`/projects/${projectId}`} className="hover:underline">
+          {projectName}
+        </Link>
+      </nav>
+      <h1 className="text-ink-950 text-title mb-4 font-semibold">New run</h1>
+      <NetlistEditor projectId={projectId} projectName={projectName} examples={examples} />
+    </div>
+  );
+}

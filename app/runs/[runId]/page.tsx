@@ -1,0 +1,146 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { ReviewActions } from "@/components/review/review-actions";
+import { ReviewHistory } from "@/components/review/review-history";
+import { ReviewStateBadge } from "@/components/review/review-state-badge";
+import { Caution } from "@/components/run/caution";
+import { CheckBadges } from "@/components/run/check-badges";
+import { ExportButtons } from "@/components/run/export-buttons";
+import { NetlistView } from "@/components/run/netlist-view";
+import { WarningsList } from "@/components/run/warnings-list";
+import { RunWorkspace } from "@/components/runs/run-workspace";
+import { Notice } from "@/components/ui/notice";
+import { Panel, PanelHeader } from "@/components/ui/panel";
+import { listComments } from "@/lib/comments";
+import { NotFoundError } from "@/lib/errors";
+import { listMeasurements } from "@/lib/measurements";
+import { getRun } from "@/lib/runs";
+import { requireUser } from "@/lib/session";
+import { formatDate } from "@/lib/utils";
+
+export const metadata: Metadata = { title: "Run" };
+
+export default async function RunPage({ params }: { params: Promise<{ runId: string }> }) {
+  const actor = await requireUser();
+  const { runId } = await params;
+  const [run, comments] = await Promise.all([getRun(actor, runId), listComments(actor, runId)]).catch(
+    (err: unknown) => {
+      if (err instanceof NotFoundError) notFound();
+      throw err;
+    },
+  );
+  const measurements = await listMeasurements(actor, run.projectId);
+  const result = run.result;
+  const plotId = `run-plot-${run.id.slice(0, 8)}`;
+  return (
+    <div className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
+      <nav aria-label="Breadcrumb" className="text-ink-500 mb-2 text-sm">
+        <Link href="/projects" className="hover:underline">
+          Projects
+        </Link>{" "}
+        /{" "}
+        <Link href={`/projects/${run.projectId}`} className="hover:underline">
+          {run.project.name}
+        </Link>
+      </nav>
+      <header className="mb-6 flex flex-wrap items-start justify-between gap-4">
+        <div className="min-w-0">
+          <h1 className="text-headline text-ink-950 flex flex-wrap items-center gap-3 font-semibold">
+            <span className="break-words">{run.title}</span>
+            <ReviewStateBadge state={run.reviewState} />
+          </h1>
+          <p className="text-ink-600 mt-1 text-sm">
+            by <span className="text-ink-800 font-medium">{run.authorName}</span> ·{" "}
+            <time dateTime={run.createdAt}>{formatDate(run.createdAt)}</time> · solver {run.solverVersion}
+            {run.checksTotal ? ` · checks ${run.checksPassed}/${run.checksTotal}` : ""}
+          </p>
+          {run.supersedes ? (
+            <p className="mt-1 text-sm">
+              Revises{" "}
+              <Link href={`/runs/${run.supersedes.id}`} className="text-board-700 underline">
+                {run.supersedes.title}
+              </Link>
+            </p>
+          ) : null}
+          {run.supersededBy.length > 0 ? (
+            <p className="text-signal-warn mt-1 text-sm">
+              Superseded by{" "}
+              {run.supersededBy.map((s, i) => (
+                <span key={s.id}>
+                  {i > 0 ? ", " : ""}
+                  <Link href={`/runs/${s.id}`} className="underline">
+                    {s.title}
+                  </Link>
+                </span>
+              ))}
+            </p>
+          ) : null}
+        </div>
+        {result ? <ExportButtons runId={run.id} plotId={plotId} fileName={run.title} /> : null}
+      </header>
+
+      {result ? (
+        <>
+          <div className="mb-6">
+            <CheckBadges checks={result.checks} />
+          </div>
+          <RunWorkspace
+            runId={run.id}
+            plotId={plotId}
+            exportName={run.title}
+            frequencies={result.frequencies}
+            traces={result.traces}
+            measures={result.measures}
+            measurements={measurements.slice(0, 4).map((m) => ({ name: `bench: ${m.name}`, ...m.data }))}
+            comments={comments}
+            canComment={run.permissions.comment}
+          />
+        </>
+      ) : (
+        <Notice tone="warn" title="This run has no result.">
+          Its status is “{run.status}”.
+        </Notice>
+      )}
+
+      <div className="mt-6 grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+        <div className="min-w-0 space-y-6">
+          {result && result.warnings.length > 0 ? (
+            <Panel aria-labelledby="warn-h">
+              <PanelHeader id="warn-h" title="Warnings" />
+              <div className="p-4">
+                <WarningsList warnings={result.warnings} netlistIdPrefix="netlist" />
+              </div>
+            </Panel>
+          ) : null}
+          <Panel aria-labelledby="netlist-h">
+            <PanelHeader
+              id="netlist-h"
+              title="Netlist"
+              description={`sha256 ${run.netlistHash.slice(0, 12)}…`}
+            />
+            <div className="p-2 sm:p-4">
+              <NetlistView netlist={run.netlist} warnings={result?.warnings ?? []} idPrefix="netlist" />
+            </div>
+          </Panel>
+        </div>
+        <div className="space-y-6">
+          <Panel aria-labelledby="review-h">
+            <PanelHeader id="review-h" title="Review" />
+            <div className="space-y-5 p-4">
+              <ReviewActions
+                runId={run.id}
+                reviewState={run.reviewState}
+                isAuthor={run.authorId === actor.userId}
+                canRequest={run.permissions.requestReview}
+                canReview={run.permissions.review}
+              />
+              <ReviewHistory events={run.reviewEvents} />
+            </div>
+          </Panel>
+          <Caution />
+        </div>
+      </div>
+    </div>
+  );
+}

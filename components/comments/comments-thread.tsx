@@ -1,0 +1,174 @@
+"use client";
+
+import { useState } from "react";
+import { Button } from "@/components/ui/button";
+import { EmptyState } from "@/components/ui/empty-state";
+import type { CommentView } from "@/lib/comments";
+import { cn, formatDate } from "@/lib/utils";
+import { CommentForm, formatPin, type PinDraft } from "./comment-form";
+import { PinIcon } from "./pin-icon";
+
+export type CommentsThreadProps = {
+  runId: string;
+  comments: CommentView[];
+  onChange: (next: CommentView[]) => void;
+  canComment: boolean;
+  pin: PinDraft | null;
+  onClearPin: () => void;
+  /** A pin in the list was chosen: the plot zooms to it. */
+  onFocusPin: (hz: number) => void;
+};
+
+/** Comment threads (a first comment and its replies), with pins, replies and resolve. */
+export function CommentsThread(props: CommentsThreadProps) {
+  const { runId, comments, onChange, canComment, pin, onClearPin, onFocusPin } = props;
+  const roots = comments.filter((c) => !c.parentId);
+  const replies = (id: string) => comments.filter((c) => c.parentId === id);
+  const upsert = (c: CommentView) => {
+    const i = comments.findIndex((x) => x.id === c.id);
+    onChange(i >= 0 ? comments.map((x) => (x.id === c.id ? c : x)) : [...comments, c]);
+  };
+  return (
+    <div className="space-y-5">
+      {roots.length === 0 ? (
+        <EmptyState title="No comments yet">
+          {canComment ? "Start the discussion below." : "Team members who may comment start it."}
+        </EmptyState>
+      ) : (
+        <ul className="space-y-4">
+          {roots.map((c) => (
+            <li key={c.id}>
+              <Thread
+                root={c}
+                replies={replies(c.id)}
+                runId={runId}
+                canComment={canComment}
+                onUpsert={upsert}
+                onFocusPin={onFocusPin}
+              />
+            </li>
+          ))}
+        </ul>
+      )}
+      {canComment ? (
+        <div className="border-paper-200 border-t pt-4">
+          <CommentForm runId={runId} pin={pin} onClearPin={onClearPin} onPosted={upsert} />
+        </div>
+      ) : null}
+    </div>
+  );
+}
+
+function Thread(props: {
+  root: CommentView;
+  replies: CommentView[];
+  runId: string;
+  canComment: boolean;
+  onUpsert: (c: CommentView) => void;
+  onFocusPin: (hz: number) => void;
+}) {
+  const { root, replies, runId, canComment, onUpsert, onFocusPin } = props;
+  const [replying, setReplying] = useState(false);
+  const [error, setError] = useState<string | null>(null);
+  const resolved = Boolean(root.resolvedAt);
+
+  async function setResolved(value: boolean) {
+    setError(null);
+    const res = await fetch(`/api/runs/${runId}/comments/${root.id}`, {
+      method: "PATCH",
+      headers: { "Content-Type": "application/json" },
+      body: JSON.stringify({ resolved: value }),
+    }).catch(() => null);
+    const data = res ? await res.json().catch(() => null) : null;
+    if (!res?.ok) {
+      setError(data?.error?.message ?? "Could not change the thread. Try again.");
+      return;
+    }
+    onUpsert(data.comment as CommentView);
+  }
+
+  return (
+    <article
+      className={cn(
+        "rounded-md border p-3",
+        resolved ? "border-paper-200 bg-paper-50" : "border-paper-300 bg-white",
+      )}
+      aria-label={`Comment by ${root.authorName}`}
+    >
+      <CommentBody c={root} onFocusPin={onFocusPin} />
+      {replies.length > 0 ? (
+        <ul className="border-paper-200 mt-3 space-y-3 border-l-2 pl-3">
+          {replies.map((r) => (
+            <li key={r.id}>
+              <CommentBody c={r} onFocusPin={onFocusPin} />
+            </li>
+          ))}
+        </ul>
+      ) : null}
+      <div className="mt-3 flex flex-wrap items-center gap-2">
+        {resolved ? (
+          <span className="text-caption text-signal-ok">
+            Resolved by {root.resolvedByName} · {formatDate(root.resolvedAt)}
+          </span>
+        ) : null}
+        {canComment ? (
+          <>
+            {!resolved ? (
+              <Button
+                size="sm"
+                variant="ghost"
+                onClick={() => setReplying((v) => !v)}
+                aria-expanded={replying}
+              >
+                Reply
+              </Button>
+            ) : null}
+            <Button size="sm" variant="ghost" onClick={() => setResolved(!resolved)}>
+              {resolved ? "Reopen" : "Resolve"}
+            </Button>
+          </>
+        ) : null}
+      </div>
+      <div aria-live="polite" className="text-signal-fault text-sm">
+        {error}
+      </div>
+      {replying ? (
+        <div className="mt-2">
+          <CommentForm
+            runId={runId}
+            parentId={root.id}
+            compact
+            label={`Reply to ${root.authorName}`}
+            onPosted={(c) => {
+              onUpsert(c);
+              setReplying(false);
+            }}
+          />
+        </div>
+      ) : null}
+    </article>
+  );
+}
+
+function CommentBody({ c, onFocusPin }: { c: CommentView; onFocusPin: (hz: number) => void }) {
+  return (
+    <div>
+      <p className="text-sm">
+        <span className="text-ink-900 font-medium">{c.authorName}</span>
+        <span className="text-ink-500"> · {formatDate(c.createdAt)}</span>
+        {c.frequencyHz !== null ? (
+          <button
+            type="button"
+            onClick={() => onFocusPin(c.frequencyHz as number)}
+            className="bg-copper-50 text-caption text-copper-700 ring-copper-200 hover:bg-copper-100 ml-2 rounded-full px-2 py-0.5 font-mono ring-1 ring-inset"
+            aria-label={`Show ${formatPin(c.frequencyHz)} on the plot`}
+          >
+            <PinIcon /> {formatPin(c.frequencyHz)}
+            {c.trace ? ` · ${c.trace}` : ""}
+          </button>
+        ) : null}
+      </p>
+      <p className="text-ink-800 mt-1 text-sm whitespace-pre-wrap">{c.body}</p>
+    </div>
+  );
+}

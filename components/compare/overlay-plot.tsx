@@ -1,0 +1,95 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import { BodePlot } from "@/components/plot/bode-plot";
+import { plotColors } from "@/components/plot/palette";
+import type { BodeMarker, BodeOverlay, BodeSeries } from "@/components/plot/types";
+import type { TraceComparison } from "@/lib/compare";
+
+/** Legend entries stay short: long run titles are cut. */
+function short(label: string, max = 24): string {
+  return label.length > max ? `${label.slice(0, max - 1).trimEnd()}…` : label;
+}
+
+export interface CompareOverlayPlotProps {
+  /** From `compareRuns(...).traces`: both runs' traces on the second run's grid, with b − a. */
+  traces: TraceComparison[];
+  labelA?: string;
+  labelB?: string;
+  /** Frequency markers (e.g. the second run's zero-phase), optional. */
+  markers?: BodeMarker[];
+  /** Bench measurements to draw as points. */
+  measurements?: BodeSeries[];
+  plotId?: string;
+  exportName?: string;
+}
+
+/** The second run's traces solid, the first run's dashed, and b − a dotted (dB and degrees). */
+export function CompareOverlayPlot({
+  traces,
+  labelA = "before",
+  labelB = "after",
+  markers,
+  measurements,
+  plotId = "compare-overlay",
+  exportName = "phasewright-compare",
+}: CompareOverlayPlotProps) {
+  const [showDiff, setShowDiff] = useState(true);
+  const frequencies = traces[0]?.frequencies ?? [];
+  const main = useMemo(
+    () => traces.map((t) => ({ name: `${t.name} (${short(labelB)})`, magnitudeDb: t.bDb, phaseDeg: t.bDeg })),
+    [traces, labelB],
+  );
+  const overlays = useMemo<BodeOverlay[]>(() => {
+    const out: BodeOverlay[] = traces.map((t) => ({
+      name: `${t.name} (${short(labelA)})`,
+      frequencies: t.frequencies,
+      magnitudeDb: t.aDb,
+      phaseDeg: t.aDeg,
+      dash: "dash",
+      role: "overlay",
+    }));
+    if (showDiff) {
+      traces.forEach((t, i) => {
+        out.push({
+          name: `${t.name} difference`,
+          color: plotColors.differences[i % plotColors.differences.length],
+          frequencies: t.frequencies,
+          magnitudeDb: t.diffDb,
+          phaseDeg: t.diffDeg,
+          role: "difference",
+        });
+      });
+    }
+    return out;
+  }, [traces, labelA, showDiff]);
+
+  if (traces.length === 0) {
+    return (
+      <p className="text-ink-500 text-sm">The runs share no trace name, so there is nothing to overlay.</p>
+    );
+  }
+  return (
+    <div>
+      <label className="text-ink-700 mb-1 flex items-center gap-2 text-sm">
+        <input type="checkbox" checked={showDiff} onChange={(e) => setShowDiff(e.target.checked)} />
+        Show the difference ({labelB} − {labelA}, dB and degrees)
+      </label>
+      <BodePlot
+        frequencies={frequencies}
+        traces={main}
+        overlays={overlays}
+        markers={markers}
+        measurements={measurements}
+        plotId={plotId}
+        exportName={exportName}
+        label={`Bode plot comparing ${labelA} and ${labelB}`}
+      />
+      {traces.some((t) => t.interpolated) ? (
+        <p className="text-caption text-ink-500 mt-1">
+          The sweeps differ: {labelA} is interpolated (in log frequency) onto the frequencies of {labelB}.
+        </p>
+      ) : null}
+    </div>
+  );
+}

@@ -1,0 +1,108 @@
+"use client";
+
+import Editor, { loader, type Monaco } from "@monaco-editor/react";
+import type * as MonacoNs from "monaco-editor";
+import { forwardRef, useEffect, useImperativeHandle, useRef, useState } from "react";
+import { LANGUAGE_ID } from "@/lib/netlist-language";
+import type { NetlistError, Warning } from "@/solver/types";
+import { registerNetlistLanguage, setNetlistMarkers, THEME_ID } from "./monaco-setup";
+
+// The editor is served by the app itself (scripts/copy-monaco.mjs copies it to public/monaco/vs): no CDN.
+loader.config({ paths: { vs: "/monaco/vs" } });
+
+export interface CodeEditorHandle {
+  /** Replaces the whole text as one undoable edit (upload, example, restored draft). */
+  replaceText(text: string): void;
+  /** Moves the cursor to a line (and column) and focuses the editor. */
+  revealLine(line: number, column?: number): void;
+  focus(): void;
+}
+
+export interface CodeEditorProps {
+  /** The text. Monaco owns it while the user types; a different value replaces it as one undoable edit. */
+  value: string;
+  onChange: (value: string) => void;
+  errors: NetlistError[];
+  warnings: Warning[];
+  /** Accessible name of the editing area. */
+  ariaLabel?: string;
+}
+
+/** Monaco with the netlist language: highlighting, completion, hover help and the solver's markers. */
+export const CodeEditor = forwardRef<CodeEditorHandle, CodeEditorProps>(function CodeEditor(
+  { value, onChange, errors, warnings, ariaLabel = "Netlist" },
+  ref,
+) {
+  const monacoRef = useRef<Monaco | null>(null);
+  const editorRef = useRef<MonacoNs.editor.IStandaloneCodeEditor | null>(null);
+  const [mounted, setMounted] = useState(false);
+  const valueRef = useRef(value);
+  valueRef.current = value;
+
+  // Only outside changes are pushed into Monaco. Echoing every keystroke back as a controlled value
+  // would race the user's typing and drop characters.
+  const replaceText = (text: string) => {
+    const editor = editorRef.current;
+    const model = editor?.getModel();
+    if (!editor || !model || model.getValue() === text) return;
+    editor.pushUndoStop();
+    editor.executeEdits("replace", [{ range: model.getFullModelRange(), text }]);
+    editor.pushUndoStop();
+  };
+
+  useImperativeHandle(ref, () => ({
+    replaceText,
+    revealLine(line, column = 1) {
+      const editor = editorRef.current;
+      if (!editor) return;
+      editor.revealLineInCenter(line);
+      editor.setPosition({ lineNumber: line, column });
+      editor.focus();
+    },
+    focus() {
+      editorRef.current?.focus();
+    },
+  }));
+
+  useEffect(() => {
+    const monaco = monacoRef.current;
+    const model = editorRef.current?.getModel();
+    if (mounted && monaco && model) setNetlistMarkers(monaco, model, errors, warnings);
+  }, [errors, warnings, mounted]);
+
+  return (
+    <Editor
+      defaultValue={value}
+      language={LANGUAGE_ID}
+      theme={THEME_ID}
+      beforeMount={(monaco) => registerNetlistLanguage(monaco)}
+      onMount={(editor, monaco) => {
+        editorRef.current = editor;
+        monacoRef.current = monaco;
+        // The text may have changed (a restored draft) while the editor was loading.
+        if (editor.getValue() !== valueRef.current) editor.setValue(valueRef.current);
+        setMounted(true);
+      }}
+      onChange={(v) => onChange(v ?? "")}
+      loading={<div className="text-ink-400 p-4 text-sm">Loading editor…</div>}
+      options={{
+        ariaLabel,
+        fontFamily: '"JetBrains Mono", ui-monospace, monospace',
+        fontSize: 13,
+        lineHeight: 20,
+        minimap: { enabled: false },
+        scrollBeyondLastLine: false,
+        wordWrap: "off",
+        tabSize: 2,
+        renderLineHighlight: "line",
+        automaticLayout: true,
+        fixedOverflowWidgets: true,
+        quickSuggestions: { other: true, comments: false, strings: false },
+        wordBasedSuggestions: "off",
+        // Enter ends a line unless a suggestion would change the text; Tab always accepts.
+        acceptSuggestionOnEnter: "smart",
+        padding: { top: 8, bottom: 8 },
+      }}
+    />
+  );
+});

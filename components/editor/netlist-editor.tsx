@@ -1,0 +1,225 @@
+"use client";
+
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { BodePlot } from "@/components/plot/bode-plot";
+import type { BodeMarker, BodeOverlay } from "@/components/plot/types";
+import { variantOverlays } from "@/components/plot/variants";
+import { MAX_NETLIST_BYTES } from "@/lib/limits";
+import type { NetlistError, SolveSuccess } from "@/solver/types";
+import { CodeEditor, type CodeEditorHandle } from "./code-editor";
+import { ExamplePicker, type NetlistExample } from "./example-picker";
+import { PreviewPanel } from "./preview-panel";
+import { SaveRunForm } from "./save-run-form";
+import { useLiveSolve } from "./use-live-solve";
+
+export interface NetlistEditorProps {
+  projectId: string;
+  projectName: string;
+  examples: NetlistExample[];
+  /** Text to start with when there is no draft (default: the first example). */
+  initialNetlist?: string;
+}
+
+const draftKey = (projectId: string) => `phasewright:draft:${projectId}`;
+
+/** The editor page's interactive part: netlist text, live preview, upload, examples and "Save run". */
+export function NetlistEditor({ projectId, projectName, examples, initialNetlist }: NetlistEditorProps) {
+  const [netlist, setNetlist] = useState(initialNetlist ?? examples[0]?.text ?? "");
+  const [saveErrors, setSaveErrors] = useState<NetlistError[]>([]);
+  const [notice, setNotice] = useState<string | null>(null);
+  const [dragging, setDragging] = useState(false);
+  const [focusHz, setFocusHz] = useState<number | null>(null);
+  const editorRef = useRef<CodeEditorHandle>(null);
+  const fileRef = useRef<HTMLInputElement>(null);
+  const live = useLiveSolve(netlist);
+
+  /** Replaces the text from outside the editor (draft, upload, example); undo brings the old text back. */
+  const replaceNetlist = useCallback((text: string) => {
+    setNetlist(text);
+    setSaveErrors([]);
+    editorRef.current?.replaceText(text);
+  }, []);
+
+  // Keep an unsaved draft per project in this browser, so a reload loses nothing.
+  useEffect(() => {
+    const draft = window.localStorage.getItem(draftKey(projectId));
+    if (draft) replaceNetlist(draft);
+  }, [projectId, replaceNetlist]);
+  useEffect(() => {
+    const t = setTimeout(() => window.localStorage.setItem(draftKey(projectId), netlist), 500);
+    return () => clearTimeout(t);
+  }, [netlist, projectId]);
+
+  const current = live.status === "done" ? live.result : live.status === "idle" ? null : live.last;
+  const errors = saveErrors.length > 0 ? saveErrors : current && !current.ok ? current.errors : [];
+  const warnings = current?.warnings ?? [];
+  const lastGood = useLastGood(current?.ok ? current : null);
+
+  const markers = useMemo<BodeMarker[]>(
+    () =>
+      (lastGood?.measures ?? [])
+        .filter((m) => m.unit === "Hz" && m.value !== null && m.value > 0)
+        .map((m) => ({ frequencyHz: m.value as number, label: m.name })),
+    [lastGood],
+  );
+
+  const overlays = useMemo<BodeOverlay[]>(() => (lastGood ? variantOverlays(lastGood) : []), [lastGood]);
+
+  const onChange = useCallback((text: string) => {
+    setNetlist(text);
+    setSaveErrors([]);
+  }, []);
+
+  async function loadFile(file: File) {
+    setNotice(null);
+    if (file.size > MAX_NETLIST_BYTES) {
+      setNotice(`${file.name} is larger than ${MAX_NETLIST_BYTES / 1000} kB; it was not opened.`);
+      return;
+    }
+    const text = await file.text();
+    if (text.includes("\u0000")) {
+      setNotice(`${file.name} does not look like a text netlist; it was not opened.`);
+      return;
+    }
+    replaceNetlist(text);
+    setNotice(`Opened ${file.name}. Undo (Ctrl+Z) brings back the previous text.`);
+  }
+
+  return (
+    <div className="grid gap-5 lg:grid-cols-[minmax(0,1fr)_minmax(0,1fr)]">
+      <section aria-labelledby="netlist-heading" className="flex min-w-0 flex-col gap-3">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2 id="netlist-heading" className="text-ink-900 text-lead font-semibold">
+            Netlist
+          </h2>
+          <div className="flex flex-wrap items-center gap-2">
+            <ExamplePicker
+              examples={examples}
+              onPick={(ex) => {
+                replaceNetlist(ex.text);
+                setNotice(`Loaded the example “${ex.title}”. Undo (Ctrl+Z) brings back your text.`);
+              }}
+            />
+            <button
+              type="button"
+              onClick={() => fileRef.current?.click()}
+              className="border-paper-300 text-ink-800 hover:bg-paper-100 h-8 rounded-md border bg-white px-3 text-sm font-medium"
+            >
+              Open .pwn file
+            </button>
+            <input
+              ref={fileRef}
+              type="file"
+              accept=".pwn,text/plain"
+              className="sr-only"
+              aria-label="Open a netlist file"
+              data-testid="netlist-file"
+              onChange={(e) => {
+                const file = e.target.files?.[0];
+                if (file) void loadFile(file);
+                e.target.value = "";
+              }}
+            />
+          </div>
+        </div>
+        <section
+          data-testid="editor-drop"
+          aria-label="Netlist editor (drop a .pwn file here to open it)"
+          className={`rounded-panel shadow-panel relative h-[55vh] min-h-72 overflow-hidden border bg-white lg:h-[calc(100dvh-17rem)] ${
+            dragging ? "border-copper-400 ring-copper-200 ring-2" : "border-paper-200"
+          }`}
+          onDragOverCapture={(e) => {
+            if (!e.dataTransfer.types.includes("Files")) return;
+            e.preventDefault();
+            e.stopPropagation();
+            setDragging(true);
+          }}
+          onDragLeave={() => setDragging(false)}
+          onDropCapture={(e) => {
+            if (!e.dataTransfer.types.includes("Files")) return;
+            e.preventDefault();
+            e.stopPropagation();
+            setDragging(false);
+            const file = e.dataTransfer.files[0];
+            if (file) void loadFile(file);
+          }}
+        >
+          <CodeEditor
+            ref={editorRef}
+            value={netlist}
+            onChange={onChange}
+            errors={errors}
+            warnings={warnings}
+            ariaLabel={`Netlist for ${projectName}`}
+          />
+          {dragging ? (
+            <div className="bg-copper-50/80 text-copper-700 pointer-events-none absolute inset-0 flex items-center justify-center font-medium">
+              Drop a .pwn file to open it
+            </div>
+          ) : null}
+        </section>
+        <p role="status" aria-live="polite" className="text-ink-600 text-sm empty:hidden">
+          {notice}
+        </p>
+        <SaveRunForm
+          projectId={projectId}
+          netlist={netlist}
+          onNetlistErrors={setSaveErrors}
+          disabled={netlist.trim() === ""}
+        />
+      </section>
+
+      <section aria-labelledby="preview-heading" className="flex min-w-0 flex-col gap-3">
+        <div className="flex items-center justify-between gap-2">
+          <h2 id="preview-heading" className="text-ink-900 text-lead font-semibold">
+            Preview
+          </h2>
+          {focusHz !== null ? (
+            <button
+              type="button"
+              onClick={() => setFocusHz(null)}
+              className="border-paper-300 text-ink-700 hover:bg-paper-100 h-8 rounded-md border bg-white px-3 text-sm"
+            >
+              Show the whole sweep
+            </button>
+          ) : null}
+        </div>
+        <PreviewPanel
+          state={live}
+          errors={errors}
+          lastGood={lastGood}
+          onGoToLine={(line, column) => editorRef.current?.revealLine(line, column)}
+          onSelectFrequency={(hz) => {
+            setFocusHz(hz);
+            document
+              .getElementById("preview-heading")
+              ?.scrollIntoView({ block: "nearest", behavior: "smooth" });
+          }}
+          plot={
+            lastGood ? (
+              <BodePlot
+                frequencies={lastGood.frequencies}
+                traces={lastGood.traces}
+                markers={markers}
+                overlays={overlays}
+                focusHz={focusHz}
+                plotId="editor-preview"
+                exportName="phasewright-preview"
+                height={440}
+              />
+            ) : null
+          }
+        />
+      </section>
+    </div>
+  );
+}
+
+/** The last successful result, kept on screen (faded) while the netlist has errors. */
+function useLastGood(result: SolveSuccess | null): SolveSuccess | null {
+  const [last, setLast] = useState<SolveSuccess | null>(result);
+  useEffect(() => {
+    if (result) setLast(result);
+  }, [result]);
+  return result ?? last;
+}

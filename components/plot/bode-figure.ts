@@ -1,0 +1,220 @@
+import type { Annotation, Data, Layout, LayoutAxis, Shape } from "plotly.js";
+import { sampleTrace } from "@/lib/trace-math";
+import { plotColors, traceColor } from "./palette";
+import type { BodeMarker, BodeOverlay, BodePin, BodeSeries } from "./types";
+
+/** Above this many points a trace is drawn with WebGL. */
+export const GL_THRESHOLD = 2000;
+
+export interface BodeFigureInput {
+  series: BodeSeries[];
+  overlays: BodeOverlay[];
+  measurements: BodeSeries[];
+  markers: BodeMarker[];
+  pins: BodePin[];
+  focusHz: number | null;
+  compact: boolean;
+}
+
+function lineTrace(
+  s: BodeSeries,
+  row: 1 | 2,
+  opts: {
+    color: string;
+    dash: string;
+    group: string;
+    showLegend: boolean;
+    legendName: string;
+    width: number;
+  },
+): Data {
+  const gl = s.frequencies.length > GL_THRESHOLD;
+  const y = row === 1 ? s.magnitudeDb : s.phaseDeg;
+  return {
+    type: gl ? "scattergl" : "scatter",
+    mode: "lines",
+    name: opts.legendName,
+    legendgroup: opts.group,
+    showlegend: opts.showLegend,
+    meta: [s.name],
+    x: s.frequencies,
+    y,
+    xaxis: row === 1 ? "x" : "x2",
+    yaxis: row === 1 ? "y" : "y2",
+    line: { color: opts.color, width: opts.width, dash: opts.dash },
+    connectgaps: false,
+    hovertemplate:
+      row === 1
+        ? "%{x:.5s}Hz · %{y:.3f} dB<extra>%{meta[0]}</extra>"
+        : "%{x:.5s}Hz · %{y:.2f}°<extra>%{meta[0]}</extra>",
+  } as Data;
+}
+
+/** Data and layout of a two-row Bode plot: magnitude (dB) above phase (deg), one log frequency axis. */
+export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout: Partial<Layout> } {
+  const data: Data[] = [];
+  input.series.forEach((s, i) => {
+    const color = traceColor(i);
+    const common = { color, dash: "solid", group: `t:${s.name}`, legendName: s.name, width: 2 };
+    data.push(lineTrace(s, 1, { ...common, showLegend: true }));
+    data.push(lineTrace(s, 2, { ...common, showLegend: false }));
+  });
+  input.overlays.forEach((s, i) => {
+    const difference = s.role === "difference";
+    const color = s.color ?? (difference ? plotColors.difference : traceColor(i));
+    const dash = s.dash ?? (difference ? "dot" : "dash");
+    const common = { color, dash, group: `o:${s.name}`, legendName: s.name, width: 1.5 };
+    data.push(lineTrace(s, 1, { ...common, showLegend: true }));
+    data.push(lineTrace(s, 2, { ...common, showLegend: false }));
+  });
+  input.measurements.forEach((s) => {
+    for (const row of [1, 2] as const) {
+      data.push({
+        type: s.frequencies.length > GL_THRESHOLD ? "scattergl" : "scatter",
+        mode: "markers",
+        name: s.name,
+        legendgroup: `m:${s.name}`,
+        showlegend: row === 1,
+        meta: [s.name],
+        x: s.frequencies,
+        y: row === 1 ? s.magnitudeDb : s.phaseDeg,
+        xaxis: row === 1 ? "x" : "x2",
+        yaxis: row === 1 ? "y" : "y2",
+        marker: { color: plotColors.measurement, size: 5, symbol: "circle-open" },
+        hovertemplate: "%{x:.5s}Hz · %{y:.3f}<extra>bench: %{meta[0]}</extra>",
+      } as Data);
+    }
+  });
+
+  // Comment pins sit on their trace's magnitude (or the first trace when none is named).
+  const pinX: number[] = [];
+  const pinY: number[] = [];
+  const pinText: string[] = [];
+  for (const pin of input.pins) {
+    const s = input.series.find((t) => t.name === pin.trace) ?? input.series[0];
+    const sample = s
+      ? sampleTrace(s.frequencies, s.magnitudeDb as number[], s.phaseDeg as number[], pin.frequencyHz)
+      : null;
+    if (!sample) continue;
+    pinX.push(pin.frequencyHz);
+    pinY.push(sample.db);
+    pinText.push(pin.label ?? "comment");
+  }
+  if (pinX.length > 0) {
+    data.push({
+      type: "scatter",
+      mode: "markers",
+      name: "comments",
+      legendgroup: "pins",
+      x: pinX,
+      y: pinY,
+      text: pinText,
+      xaxis: "x",
+      yaxis: "y",
+      marker: { color: plotColors.pin, size: 11, symbol: "diamond", line: { color: "#ffffff", width: 1.5 } },
+      hovertemplate: "%{x:.5s}Hz<br>%{text}<extra>pinned</extra>",
+    } as Data);
+  }
+
+  const shapes: Partial<Shape>[] = [];
+  const annotations: Partial<Annotation>[] = [];
+  input.markers.forEach((m, i) => {
+    if (!(m.frequencyHz > 0)) return;
+    shapes.push({
+      type: "line",
+      xref: "x",
+      yref: "paper",
+      x0: m.frequencyHz,
+      x1: m.frequencyHz,
+      y0: 0,
+      y1: 1,
+      line: { color: plotColors.marker, width: 1, dash: "dot" },
+    });
+    annotations.push({
+      xref: "x",
+      yref: "paper",
+      x: Math.log10(m.frequencyHz),
+      y: 1,
+      yshift: 4 + (i % 2) * 14,
+      yanchor: "bottom",
+      showarrow: false,
+      text: m.label,
+      font: { size: 11, color: plotColors.marker },
+    });
+  });
+  if (input.focusHz && input.focusHz > 0) {
+    shapes.push({
+      type: "line",
+      xref: "x",
+      yref: "paper",
+      x0: input.focusHz,
+      x1: input.focusHz,
+      y0: 0,
+      y1: 1,
+      line: { color: plotColors.focus, width: 6 },
+      opacity: 0.35,
+      layer: "below",
+    });
+  }
+
+  const axisFont = { color: plotColors.muted, size: input.compact ? 10 : 11 };
+  const xCommon: Partial<LayoutAxis> = {
+    type: "log",
+    gridcolor: plotColors.grid,
+    linecolor: plotColors.axis,
+    zeroline: false,
+    tickfont: axisFont,
+    // 10, 100, 1k, 10k … rather than 1000 or 1e+3.
+    tickformat: "~s",
+    ...(input.focusHz && input.focusHz > 0
+      ? {
+          autorange: false,
+          range: [Math.log10(input.focusHz) - 0.5, Math.log10(input.focusHz) + 0.5],
+        }
+      : { autorange: true }),
+  };
+  const layout: Partial<Layout> = {
+    autosize: true,
+    margin: { l: input.compact ? 46 : 60, r: 12, t: input.markers.length > 0 ? 44 : 16, b: 44 },
+    paper_bgcolor: "rgba(0,0,0,0)",
+    plot_bgcolor: plotColors.plotBg,
+    font: {
+      family: '"Inter Variable", Inter, ui-sans-serif, system-ui, sans-serif',
+      color: plotColors.text,
+      size: 12,
+    },
+    hovermode: "x",
+    showlegend: true,
+    legend: {
+      orientation: "h",
+      x: 0,
+      // Below the frequency axis title; phones have less height, so the fraction is larger.
+      y: input.compact ? -0.24 : -0.14,
+      yanchor: "top",
+      font: { size: 11 },
+    },
+    // Keep the user's zoom across data updates; a new focus frequency resets it.
+    uirevision: input.focusHz ?? "base",
+    xaxis: { ...xCommon, anchor: "y", showticklabels: false },
+    xaxis2: { ...xCommon, anchor: "y2", matches: "x", title: { text: "frequency (Hz)", font: axisFont } },
+    yaxis: {
+      domain: [0.53, 1],
+      title: { text: "magnitude (dB)", font: axisFont },
+      gridcolor: plotColors.grid,
+      linecolor: plotColors.axis,
+      zerolinecolor: plotColors.axis,
+      tickfont: axisFont,
+    },
+    yaxis2: {
+      domain: [0, 0.45],
+      title: { text: "phase (°)", font: axisFont },
+      gridcolor: plotColors.grid,
+      linecolor: plotColors.axis,
+      zerolinecolor: plotColors.axis,
+      tickfont: axisFont,
+    },
+    shapes,
+    annotations,
+  };
+  return { data, layout };
+}

@@ -1,0 +1,24 @@
+import { formatSiCompact } from "@/components/run/format";
+import type { SolveSuccess } from "@/solver/types";
+import { traceColor } from "./palette";
+import type { BodeOverlay } from "./types";
+
+const DASHES = ["dot", "dash", "dashdot", "longdash"] as const;
+
+/**
+ * The traces of each `vary` value as overlays on the run's grid, named "h (Cl=4.7n)": each keeps its
+ * trace's colour, and the values differ by line pattern.
+ */
+export function variantOverlays(result: Pick<SolveSuccess, "frequencies" | "variants">): BodeOverlay[] {
+  return (result.variants ?? []).flatMap((v, vi) =>
+    v.traces.map((t, ti) => ({
+      name: `${t.name} (${v.name}=${formatSiCompact(v.value)})`,
+      frequencies: result.frequencies,
+      magnitudeDb: t.magnitudeDb,
+      phaseDeg: t.phaseDeg,
+      dash: DASHES[vi % DASHES.length],
+      color: traceColor(ti),
+      role: "overlay" as const,
+    })),
+  );
+}

@@ -1,0 +1,140 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useRef, useState } from "react";
+import { formatQuantity } from "@/components/run/format";
+import { Button } from "@/components/ui/button";
+import { EmptyState } from "@/components/ui/empty-state";
+import { inputClass } from "@/components/ui/field";
+import { Notice } from "@/components/ui/notice";
+import { formatDate } from "@/lib/utils";
+
+export type MeasurementRow = {
+  id: string;
+  name: string;
+  points: number;
+  uploadedByName: string;
+  createdAt: string;
+  fromHz: number | null;
+  toHz: number | null;
+};
+
+type UploadError = { message: string; lines: { line: number; message: string }[] };
+
+/** The project's bench measurements and, for designers and owners, a CSV upload form. */
+export function MeasurementsPanel({
+  projectId,
+  measurements,
+  canUpload,
+}: {
+  projectId: string;
+  measurements: MeasurementRow[];
+  canUpload: boolean;
+}) {
+  const router = useRouter();
+  const form = useRef<HTMLFormElement>(null);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<UploadError | null>(null);
+  const [done, setDone] = useState<string | null>(null);
+
+  async function upload(data: FormData) {
+    setBusy(true);
+    setError(null);
+    setDone(null);
+    try {
+      const res = await fetch(`/api/projects/${projectId}/measurements`, { method: "POST", body: data });
+      const body = await res.json().catch(() => null);
+      if (!res.ok) {
+        setError({
+          message: body?.error?.message ?? `Upload failed (${res.status}).`,
+          lines: body?.error?.details?.errors ?? [],
+        });
+        return;
+      }
+      setDone(`Saved "${body.measurement.name}" with ${body.measurement.points} points.`);
+      form.current?.reset();
+      router.refresh();
+    } catch {
+      setError({ message: "The upload did not reach the server. Try again.", lines: [] });
+    } finally {
+      setBusy(false);
+    }
+  }
+
+  return (
+    <div className="space-y-4">
+      {measurements.length === 0 ? (
+        <EmptyState title="No bench measurements yet">
+          Upload a CSV of frequency (Hz), magnitude (dB) and phase (degrees) to overlay it on run plots.
+        </EmptyState>
+      ) : (
+        <ul className="divide-paper-200 divide-y text-sm">
+          {measurements.map((m) => (
+            <li key={m.id} className="flex flex-wrap items-baseline justify-between gap-2 py-2">
+              <span className="text-ink-800 font-medium">{m.name}</span>
+              <span className="text-ink-500">
+                {m.points} points, {formatQuantity(m.fromHz, "Hz", 3)} – {formatQuantity(m.toHz, "Hz", 3)} ·{" "}
+                {m.uploadedByName}, {formatDate(m.createdAt)}
+              </span>
+            </li>
+          ))}
+        </ul>
+      )}
+      {canUpload ? (
+        <form
+          ref={form}
+          className="border-paper-200 flex flex-wrap items-end gap-3 border-t pt-4"
+          onSubmit={(e) => {
+            e.preventDefault();
+            void upload(new FormData(e.currentTarget));
+          }}
+        >
+          <div className="min-w-40 flex-1">
+            <label htmlFor="m-name" className="text-ink-700 mb-1 block text-sm font-medium">
+              Name
+            </label>
+            <input
+              id="m-name"
+              name="name"
+              className={inputClass}
+              placeholder="Bench sweep, board 3"
+              maxLength={200}
+            />
+          </div>
+          <div className="min-w-40 flex-1">
+            <label htmlFor="m-file" className="text-ink-700 mb-1 block text-sm font-medium">
+              CSV file
+            </label>
+            <input
+              id="m-file"
+              name="file"
+              type="file"
+              accept=".csv,text/csv,text/plain"
+              required
+              className="text-sm"
+            />
+          </div>
+          <Button type="submit" variant="secondary" disabled={busy}>
+            {busy ? "Uploading…" : "Upload"}
+          </Button>
+        </form>
+      ) : null}
+      <div aria-live="polite">
+        {error ? (
+          <Notice tone="fault" title={error.message}>
+            {error.lines.length > 0 ? (
+              <ul className="mt-1 list-disc pl-5">
+                {error.lines.map((l) => (
+                  <li key={`${l.line}-${l.message}`}>
+                    Line {l.line}: {l.message}
+                  </li>
+                ))}
+              </ul>
+            ) : null}
+          </Notice>
+        ) : null}
+        {done ? <Notice tone="ok">{done}</Notice> : null}
+      </div>
+    </div>
+  );
+}

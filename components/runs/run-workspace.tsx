@@ -1,0 +1,108 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import type { PinDraft } from "@/components/comments/comment-form";
+import { CommentsThread } from "@/components/comments/comments-thread";
+import { BodePlot } from "@/components/plot/bode-plot";
+import type { BodeMarker, BodePin, BodeSeries } from "@/components/plot/types";
+import { MeasuresTable } from "@/components/run/measures-table";
+import { Panel, PanelHeader } from "@/components/ui/panel";
+import type { CommentView } from "@/lib/comments";
+import type { MeasureResult, TraceResult } from "@/solver/types";
+
+export type RunWorkspaceProps = {
+  runId: string;
+  plotId: string;
+  exportName: string;
+  frequencies: number[];
+  traces: Pick<TraceResult, "name" | "magnitudeDb" | "phaseDeg">[];
+  measures: MeasureResult[];
+  measurements: BodeSeries[];
+  comments: CommentView[];
+  canComment: boolean;
+};
+
+/**
+ * The interactive middle of the run page: the Bode plot with measure markers and comment pins,
+ * the measures table, and the comments. Clicking the plot starts a pinned comment; clicking a pin
+ * or a frequency measure zooms the plot to it.
+ */
+export function RunWorkspace(props: RunWorkspaceProps) {
+  const { runId, plotId, exportName, frequencies, traces, measures, measurements, canComment } = props;
+  const [comments, setComments] = useState(props.comments);
+  const [pin, setPin] = useState<PinDraft | null>(null);
+  const [focusHz, setFocusHz] = useState<number | null>(null);
+
+  const markers = useMemo<BodeMarker[]>(
+    () =>
+      measures
+        .filter((m) => m.unit === "Hz" && m.value !== null && Number.isFinite(m.value))
+        .map((m) => ({ frequencyHz: m.value as number, label: m.name })),
+    [measures],
+  );
+  const pins = useMemo<BodePin[]>(
+    () => [
+      ...comments
+        .filter((c) => c.frequencyHz !== null && !c.resolvedAt)
+        .map((c) => ({
+          frequencyHz: c.frequencyHz as number,
+          trace: c.trace,
+          label: `${c.authorName}: ${c.body.slice(0, 60)}`,
+        })),
+      ...(pin ? [{ frequencyHz: pin.frequencyHz, trace: pin.trace, label: "New pin" }] : []),
+    ],
+    [comments, pin],
+  );
+
+  const focus = (hz: number) => {
+    setFocusHz(hz);
+    document.getElementById(plotId)?.scrollIntoView({ behavior: "smooth", block: "center" });
+  };
+
+  return (
+    <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
+      <Panel aria-labelledby="plot-h" className="min-w-0 lg:col-start-1">
+        <PanelHeader id="plot-h" title="Response" description="Magnitude and phase against frequency." />
+        <div id={plotId} className="scroll-mt-24 p-2 sm:p-4">
+          <BodePlot
+            plotId={plotId}
+            exportName={exportName}
+            frequencies={frequencies}
+            traces={traces}
+            measurements={measurements}
+            markers={markers}
+            pins={pins}
+            focusHz={focusHz}
+            onPickFrequency={
+              canComment ? (hz, trace) => setPin({ frequencyHz: hz, trace: trace || null }) : undefined
+            }
+          />
+        </div>
+      </Panel>
+      <Panel aria-labelledby="measures-h" className="self-start lg:col-start-2 lg:row-span-2 lg:row-start-1">
+        <PanelHeader id="measures-h" title="Measures" />
+        <div className="p-3">
+          <MeasuresTable measures={measures} onSelectFrequency={focus} />
+        </div>
+      </Panel>
+      <Panel aria-labelledby="comments-h" className="min-w-0 lg:col-start-1">
+        <PanelHeader
+          id="comments-h"
+          title={`Comments (${comments.filter((c) => !c.parentId).length})`}
+          description="Pin a remark to a frequency by clicking the plot first."
+        />
+        <div className="p-4 sm:p-5">
+          <CommentsThread
+            runId={runId}
+            comments={comments}
+            onChange={setComments}
+            canComment={canComment}
+            pin={pin}
+            onClearPin={() => setPin(null)}
+            onFocusPin={focus}
+          />
+        </div>
+      </Panel>
+    </div>
+  );
+}

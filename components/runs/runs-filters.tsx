@@ -1,0 +1,110 @@
+"use client";
+
+import { useRouter } from "next/navigation";
+import { useState } from "react";
+import { buttonClass } from "@/components/ui/button";
+import { inputClass } from "@/components/ui/field";
+
+export type RunsQueryState = {
+  sort: "createdAt" | "title" | "author" | "reviewState" | "checksPassed";
+  dir: "asc" | "desc";
+  q?: string | undefined;
+  review?: string | undefined;
+  author?: string | undefined;
+  page: number;
+  pageSize: number;
+};
+
+const DEFAULTS = { sort: "createdAt", dir: "desc", page: 1, pageSize: 20 } as const;
+
+/** The project page URL for a query; defaults are left out so links stay short. */
+export function runsHref(projectId: string, q: RunsQueryState): string {
+  const p = new URLSearchParams();
+  if (q.sort !== DEFAULTS.sort) p.set("sort", q.sort);
+  if (q.dir !== DEFAULTS.dir) p.set("dir", q.dir);
+  if (q.q) p.set("q", q.q);
+  if (q.review) p.set("review", q.review);
+  if (q.author) p.set("author", q.author);
+  if (q.page !== DEFAULTS.page) p.set("page", String(q.page));
+  if (q.pageSize !== DEFAULTS.pageSize) p.set("pageSize", String(q.pageSize));
+  const s = p.toString();
+  return `/projects/${projectId}${s ? `?${s}` : ""}`;
+}
+
+export function RunsFilters({
+  projectId,
+  query,
+  members,
+}: {
+  projectId: string;
+  query: RunsQueryState;
+  members: { id: string; name: string }[];
+}) {
+  const router = useRouter();
+  const [text, setText] = useState(query.q ?? "");
+  const go = (next: Partial<RunsQueryState>) =>
+    router.push(runsHref(projectId, { ...query, ...next, page: 1 }), { scroll: false });
+  return (
+    <search aria-label="Filter runs">
+      <form
+        className="flex flex-wrap items-end gap-3"
+        onSubmit={(e) => {
+          e.preventDefault();
+          go({ q: text.trim() || undefined });
+        }}
+      >
+        <div className="min-w-48 flex-1">
+          <label htmlFor="runs-q" className="text-ink-700 mb-1 block text-sm font-medium">
+            Title contains
+          </label>
+          <input
+            id="runs-q"
+            type="search"
+            className={inputClass}
+            value={text}
+            onChange={(e) => setText(e.target.value)}
+            placeholder="e.g. Wien"
+          />
+        </div>
+        <div>
+          <label htmlFor="runs-review" className="text-ink-700 mb-1 block text-sm font-medium">
+            Review
+          </label>
+          <select
+            id="runs-review"
+            className={inputClass}
+            value={query.review ?? ""}
+            onChange={(e) => go({ review: e.target.value || undefined })}
+          >
+            <option value="">Any state</option>
+            <option value="draft">Draft</option>
+            <option value="in_review">In review</option>
+            <option value="approved">Approved</option>
+            <option value="changes_requested">Changes requested</option>
+          </select>
+        </div>
+        <div>
+          <label htmlFor="runs-author" className="text-ink-700 mb-1 block text-sm font-medium">
+            Author
+          </label>
+          <select
+            id="runs-author"
+            className={inputClass}
+            value={query.author ?? ""}
+            onChange={(e) => go({ author: e.target.value || undefined })}
+          >
+            <option value="">Anyone</option>
+            {members.map((m) => (
+              <option key={m.id} value={m.id}>
+                {m.name}
+              </option>
+            ))}
+          </select>
+        </div>
+        <button type="submit" className={buttonClass({ variant: "secondary" })}>
+          Apply
+        </button>
+      </form>
+    </search>
+  );
+}

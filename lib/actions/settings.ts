@@ -1,0 +1,53 @@
+"use server";
+
+import { revalidatePath } from "next/cache";
+import { type FormState, failureState, formValues, issuesToFields } from "@/lib/actions/state";
+import { withDb } from "@/lib/errors";
+import { requireUser } from "@/lib/session";
+import { createApiToken, revokeApiToken } from "@/lib/tokens";
+import { profileUpdateSchema } from "@/lib/validations/auth";
+import { tokenCreateSchema } from "@/lib/validations/project";
+
+/** Form action: rename the signed-in user. */
+export async function updateProfileAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const actor = await requireUser();
+  const values = formValues(formData, ["name"]);
+  const parsed = profileUpdateSchema.safeParse({ name: formData.get("name") });
+  if (!parsed.success) return { ok: false, errors: issuesToFields(parsed.error.issues), values };
+  try {
+    const { User } = await import("@/lib/db");
+    await withDb(() => User.update({ name: parsed.data.name }, { where: { id: actor.userId } }));
+  } catch (err) {
+    return { ...failureState(err, "updateProfile"), values };
+  }
+  revalidatePath("/", "layout");
+  return { ok: true, message: "Name saved." };
+}
+
+/** Form action: create an API token; its secret is returned once in `secret`. */
+export async function createTokenAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const actor = await requireUser();
+  const values = formValues(formData, ["name"]);
+  const parsed = tokenCreateSchema.safeParse({ name: formData.get("name") });
+  if (!parsed.success) return { ok: false, errors: issuesToFields(parsed.error.issues), values };
+  let secret: string;
+  try {
+    secret = (await createApiToken(actor.userId, parsed.data.name)).token;
+  } catch (err) {
+    return { ...failureState(err, "createToken"), values };
+  }
+  revalidatePath("/settings");
+  return { ok: true, message: "Token created. Copy it now: it will not be shown again.", secret };
+}
+
+/** Form action: revoke one of the caller's own tokens. */
+export async function revokeTokenAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const actor = await requireUser();
+  try {
+    await revokeApiToken(actor.userId, String(formData.get("tokenId") ?? ""));
+  } catch (err) {
+    return failureState(err, "revokeToken");
+  }
+  revalidatePath("/settings");
+  return { ok: true, message: "Token revoked." };
+}

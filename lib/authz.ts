@@ -1,0 +1,112 @@
+/**
+ * The one authorization module. Every route handler and server action asks here.
+ * A resource of a team the caller is not in answers 404 (NotFoundError), never 403, so ids don't leak.
+ */
+import { ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
+
+export type Role = "owner" | "designer" | "reviewer" | "viewer";
+export type Action =
+  | "team:read"
+  | "team:manage"
+  | "project:create"
+  | "project:delete"
+  | "project:read"
+  | "run:create"
+  | "run:read"
+  | "run:comment"
+  | "run:review"
+  | "run:request_review"
+  | "measurement:upload";
+
+export const ROLES: readonly Role[] = ["owner", "designer", "reviewer", "viewer"];
+export const ACTIONS: readonly Action[] = [
+  "team:read",
+  "team:manage",
+  "project:create",
+  "project:delete",
+  "project:read",
+  "run:create",
+  "run:read",
+  "run:comment",
+  "run:review",
+  "run:request_review",
+  "measurement:upload",
+];
+
+const READ: Action[] = ["team:read", "project:read", "run:read"];
+
+/** The roles table of PRODUCT.md: owner everything; designer builds; reviewer reads, comments, decides; viewer reads. */
+const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
+  owner: new Set(ACTIONS),
+  designer: new Set<Action>([
+    ...READ,
+    "project:create",
+    "run:create",
+    "run:comment",
+    "run:request_review",
+    "measurement:upload",
+  ]),
+  reviewer: new Set<Action>([...READ, "run:comment", "run:review"]),
+  viewer: new Set<Action>(READ),
+};
+
+export function isRole(value: unknown): value is Role {
+  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
+}
+
+/** Whether a member with `role` may perform `action`. Pure; unknown roles may do nothing. */
+export function can(role: Role, action: Action): boolean {
+  return PERMISSIONS[role]?.has(action) ?? false;
+}
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+export function isUuid(value: unknown): value is string {
+  return typeof value === "string" && UUID.test(value);
+}
+
+async function roleIn(userId: string, teamId: string): Promise<Role | null> {
+  if (!isUuid(userId) || !isUuid(teamId)) return null;
+  const { Membership } = await import("@/lib/db");
+  const m = await Membership.findOne({ where: { teamId, userId }, attributes: ["role"] });
+  const role: unknown = m?.get("role");
+  return isRole(role) ? role : null;
+}
+
+function check(role: Role, action: Action): void {
+  if (!can(role, action)) throw new ForbiddenError(`Your role (${role}) does not allow this.`);
+}
+
+/** The caller's role in a team, if it allows `action`. Not a member or bad id → NotFoundError. */
+export async function authorizeTeam(userId: string, teamId: string, action: Action): Promise<{ role: Role }> {
+  const role = await withDb(() => roleIn(userId, teamId));
+  if (!role) throw new NotFoundError("Team not found.");
+  check(role, action);
+  return { role };
+}
+
+/** The project and the caller's role in its team, if it allows `action`. */
+export async function authorizeProject(userId: string, projectId: string, action: Action) {
+  return withDb(async () => {
+    if (!isUuid(projectId)) throw new NotFoundError("Project not found.");
+    const { Project } = await import("@/lib/db");
+    const project = await Project.findByPk(projectId);
+    const role = project ? await roleIn(userId, String(project.get("teamId"))) : null;
+    if (!project || !role) throw new NotFoundError("Project not found.");
+    check(role, action);
+    return { project, role };
+  });
+}
+
+/** The run, its project and the caller's role in the project's team, if it allows `action`. */
+export async function authorizeRun(userId: string, runId: string, action: Action) {
+  return withDb(async () => {
+    if (!isUuid(runId)) throw new NotFoundError("Run not found.");
+    const { Project, Run } = await import("@/lib/db");
+    const run = await Run.findByPk(runId);
+    const project = run ? await Project.findByPk(String(run.get("projectId"))) : null;
+    const role = project ? await roleIn(userId, String(project.get("teamId"))) : null;
+    if (!run || !project || !role) throw new NotFoundError("Run not found.");
+    check(role, action);
+    return { run, project, role };
+  });
+}

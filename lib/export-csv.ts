@@ -1,0 +1,42 @@
+import type { SolveSuccess, TraceResult } from "@/solver/types";
+
+/** Quotes a CSV field when RFC 4180 requires it (comma, double quote, CR or LF inside). */
+export function csvField(value: string): string {
+  if (/[",\r\n]/.test(value)) return `"${value.replaceAll('"', '""')}"`;
+  return value;
+}
+
+/** A number as CSV text: shortest round-trip form; NaN, ±Infinity and missing values become empty. */
+export function csvNumber(value: number | null | undefined): string {
+  return typeof value === "number" && Number.isFinite(value) ? String(value) : "";
+}
+
+/** The CSV header for the given traces: frequency_hz, then re, im, dB and degrees per trace. */
+export function csvHeader(traces: Pick<TraceResult, "name">[]): string {
+  const cells = ["frequency_hz"];
+  for (const t of traces) {
+    for (const suffix of ["re", "im", "db", "deg"]) cells.push(csvField(`${t.name}_${suffix}`));
+  }
+  return cells.join(",");
+}
+
+/**
+ * A solved sweep as RFC 4180 CSV (CRLF line ends): one row per frequency, columns
+ * `frequency_hz,<trace>_re,<trace>_im,<trace>_db,<trace>_deg,…` in the order of `result.traces`.
+ */
+export function resultToCsv(result: Pick<SolveSuccess, "frequencies" | "traces">): string {
+  const rows = [csvHeader(result.traces)];
+  result.frequencies.forEach((f, k) => {
+    const cells = [csvNumber(f)];
+    for (const t of result.traces) {
+      cells.push(
+        csvNumber(t.re[k]),
+        csvNumber(t.im[k]),
+        csvNumber(t.magnitudeDb[k]),
+        csvNumber(t.phaseDeg[k]),
+      );
+    }
+    rows.push(cells.join(","));
+  });
+  return `${rows.join("\r\n")}\r\n`;
+}

@@ -1,0 +1,32 @@
+/**
+ * Size limits of the service, in one place. Routes, the editor and the job queue read them from here.
+ */
+
+/** Largest netlist accepted by the solve and save endpoints, in UTF-8 bytes. */
+export const MAX_NETLIST_BYTES = 200_000;
+
+/** Most frequency points a live preview (`POST /api/solve`) may sweep. */
+export const MAX_PREVIEW_POINTS = 20_000;
+
+/** Most frequency points a saved run may sweep (NETLIST.md allows 100 000 per sweep). */
+export const MAX_SAVED_POINTS = 100_000;
+
+/** Most Monte Carlo samples solved inline in a request; larger runs go to the job queue. */
+export const MAX_MC_INLINE_SAMPLES = 200;
+
+/** Live preview requests allowed per signed-in user per minute. */
+export const SOLVE_RATE_PER_MINUTE = 120;
+
+/**
+ * Solver work of a run in "sweep points": points × (1 + Monte Carlo samples + vary values).
+ * A run above this (or with more than MAX_MC_INLINE_SAMPLES samples) is not solved inside the
+ * request: it is saved as 'queued' and solved by `npm run worker` (lib/jobs.ts). 200 000 is about
+ * 0.3 s of solver time on one core here (a 400-point oscillator with 500 samples).
+ */
+export const MAX_INLINE_WORK = 200_000;
+
+/** Most Monte Carlo samples a queued run may ask for. */
+export const MAX_QUEUED_SAMPLES = 20_000;
+
+/** How long a queued solve may run before the queue gives up on it, in seconds. */
+export const JOB_EXPIRE_SECONDS = 15 * 60;

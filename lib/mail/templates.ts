@@ -1,0 +1,89 @@
+import { env } from "@/lib/env";
+import type { MailMessage } from "@/lib/mail/transport";
+
+/** Absolute links in e-mails point at the app's public origin. */
+export function appUrl(path: string): string {
+  const base = env.NEXTAUTH_URL.replace(/\/+$/, "");
+  return `${base}${path}`;
+}
+
+function formatHz(hz: number): string {
+  const units: [number, string][] = [
+    [1e9, "GHz"],
+    [1e6, "MHz"],
+    [1e3, "kHz"],
+  ];
+  for (const [scale, unit] of units)
+    if (Math.abs(hz) >= scale) return `${Number((hz / scale).toPrecision(5))} ${unit}`;
+  return `${Number(hz.toPrecision(5))} Hz`;
+}
+
+function quote(body: string): string {
+  return body
+    .split("\n")
+    .map((l) => `> ${l}`)
+    .join("\n");
+}
+
+export function commentMail(p: {
+  to: string;
+  commenter: string;
+  runTitle: string;
+  runId: string;
+  body: string;
+  frequencyHz?: number | null;
+  trace?: string | null;
+  isReply: boolean;
+}): MailMessage {
+  const pin = p.frequencyHz != null ? ` at ${formatHz(p.frequencyHz)}${p.trace ? ` on ${p.trace}` : ""}` : "";
+  return {
+    to: p.to,
+    subject: `${p.commenter} ${p.isReply ? "replied" : "commented"} on "${p.runTitle}"`,
+    text: `${p.commenter} ${p.isReply ? "replied in a thread" : "left a comment"}${pin} on the run "${p.runTitle}":\n\n${quote(p.body)}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
+  };
+}
+
+export function reviewRequestMail(p: {
+  to: string;
+  requester: string;
+  runTitle: string;
+  runId: string;
+  note?: string | null;
+}): MailMessage {
+  return {
+    to: p.to,
+    subject: `Review requested: "${p.runTitle}"`,
+    text: `${p.requester} asks you to review the run "${p.runTitle}".${p.note ? `\n\n${quote(p.note)}` : ""}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
+  };
+}
+
+export function verdictMail(p: {
+  to: string;
+  reviewer: string;
+  runTitle: string;
+  runId: string;
+  approved: boolean;
+  note?: string | null;
+}): MailMessage {
+  const verdict = p.approved ? "approved" : "asked for changes to";
+  return {
+    to: p.to,
+    subject: `${p.approved ? "Approved" : "Changes requested"}: "${p.runTitle}"`,
+    text: `${p.reviewer} ${verdict} your run "${p.runTitle}".${p.note ? `\n\n${quote(p.note)}` : ""}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
+  };
+}
+
+export function invitationMail(p: {
+  to: string;
+  inviter: string;
+  teamName: string;
+  role: string;
+  token: string;
+  expiresAt: Date;
+}): MailMessage {
+  return {
+    to: p.to,
+    subject: `${p.inviter} invited you to ${p.teamName} on Phasewright`,
+    text: `${p.inviter} invited you to join the team "${p.teamName}" as ${p.role}.\n\nAccept the invitation: ${appUrl(`/invite/${p.token}`)}\n\nThe link works once and expires on ${p.expiresAt.toUTCString()}.\n`,
+  };
+}

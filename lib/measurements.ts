@@ -1,0 +1,142 @@
+import { authorizeProject } from "@/lib/authz";
+import { Measurement, type MeasurementData, User } from "@/lib/db";
+import { BadRequestError, TooLargeError, withDb } from "@/lib/errors";
+import type { Actor } from "@/lib/session";
+
+/** Bench data limits: 2 MB of CSV, 20 000 rows. */
+export const MAX_MEASUREMENT_BYTES = 2_000_000;
+export const MAX_MEASUREMENT_ROWS = 20_000;
+
+export type CsvLineError = { line: number; message: string };
+export type ParsedMeasurement = { ok: true; data: MeasurementData } | { ok: false; errors: CsvLineError[] };
+
+const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+
+/**
+ * Parses bench data: one row per frequency with three columns — frequency in Hz, magnitude in dB,
+ * phase in degrees — separated by commas, semicolons or tabs. An optional header line (any first
+ * line that isn't numeric), blank lines and `#` comments are skipped. Frequencies must be positive
+ * and rise strictly. Every bad line is reported with its 1-based line number.
+ */
+export function parseMeasurementCsv(text: string): ParsedMeasurement {
+  const errors: CsvLineError[] = [];
+  const data: MeasurementData = { frequencies: [], magnitudeDb: [], phaseDeg: [] };
+  const lines = text.replace(/^\uFEFF/, "").split(/\r?\n/);
+  let sawData = false;
+  lines.forEach((raw, i) => {
+    const line = i + 1;
+    const trimmed = raw.trim();
+    if (trimmed === "" || trimmed.startsWith("#")) return;
+    const cells = trimmed.split(/[,;\t]/).map((c) => c.trim().replace(/^"(.*)"$/, "$1"));
+    const numeric = cells.every((c) => NUMBER.test(c));
+    if (!sawData && !numeric) {
+      sawData = true; // a header line
+      return;
+    }
+    sawData = true;
+    if (cells.length !== 3) {
+      errors.push({
+        line,
+        message: `Expected 3 columns (frequency, magnitude dB, phase deg), found ${cells.length}.`,
+      });
+      return;
+    }
+    const bad = cells.findIndex((c) => !NUMBER.test(c));
+    if (bad >= 0) {
+      errors.push({ line, message: `Column ${bad + 1} is not a number: "${cells[bad]}".` });
+      return;
+    }
+    const [f, db, deg] = cells.map(Number) as [number, number, number];
+    if (!(f > 0)) {
+      errors.push({ line, message: "The frequency must be above 0 Hz." });
+      return;
+    }
+    const prev = data.frequencies[data.frequencies.length - 1];
+    if (prev !== undefined && f <= prev) {
+      errors.push({ line, message: `Frequencies must rise: ${f} Hz follows ${prev} Hz.` });
+      return;
+    }
+    data.frequencies.push(f);
+    data.magnitudeDb.push(db);
+    data.phaseDeg.push(deg);
+  });
+  if (errors.length === 0 && data.frequencies.length < 2) {
+    errors.push({ line: Math.max(1, lines.length), message: "The file needs at least 2 data rows." });
+  }
+  if (data.frequencies.length > MAX_MEASUREMENT_ROWS) {
+    errors.push({ line: 1, message: `At most ${MAX_MEASUREMENT_ROWS} rows are accepted.` });
+  }
+  return errors.length > 0 ? { ok: false, errors: errors.slice(0, 50) } : { ok: true, data };
+}
+
+export type MeasurementSummary = {
+  id: string;
+  name: string;
+  points: number;
+  uploadedByName: string;
+  createdAt: string;
+  fromHz: number | null;
+  toHz: number | null;
+};
+export type MeasurementView = MeasurementSummary & { data: MeasurementData };
+
+function toView(m: Measurement): MeasurementView {
+  const f = m.data.frequencies;
+  return {
+    id: m.id,
+    name: m.name,
+    points: m.points,
+    uploadedByName: m.uploadedBy?.name ?? "",
+    createdAt: m.createdAt.toISOString(),
+    fromHz: f[0] ?? null,
+    toHz: f[f.length - 1] ?? null,
+    data: m.data,
+  };
+}
+
+/** Stores an uploaded CSV for the project (designer/owner); bad lines → 400 with their line numbers. */
+export async function createMeasurement(
+  actor: Actor,
+  projectId: string,
+  input: { name: string; csv: string },
+): Promise<MeasurementSummary> {
+  await authorizeProject(actor.userId, projectId, "measurement:upload");
+  const name = input.name.trim();
+  if (name.length === 0 || name.length > 200) {
+    throw new BadRequestError("Give the measurement a name (up to 200 characters).", {
+      fields: { name: ["Required, up to 200 characters."] },
+    });
+  }
+  if (Buffer.byteLength(input.csv, "utf8") > MAX_MEASUREMENT_BYTES) {
+    throw new TooLargeError(`The file is larger than ${MAX_MEASUREMENT_BYTES / 1e6} MB.`);
+  }
+  const parsed = parseMeasurementCsv(input.csv);
+  if (!parsed.ok) {
+    throw new BadRequestError(`The CSV has ${parsed.errors.length} bad line(s).`, { errors: parsed.errors });
+  }
+  const row = await withDb(() =>
+    Measurement.create({
+      projectId,
+      uploadedById: actor.userId,
+      name,
+      data: parsed.data,
+      points: parsed.data.frequencies.length,
+    }),
+  );
+  const { data: _data, ...summary } = toView(row);
+  return { ...summary, uploadedByName: actor.name };
+}
+
+/** The project's measurements, newest first; `withData` adds the points (for plot overlays). */
+export async function listMeasurements(actor: Actor, projectId: string): Promise<MeasurementView[]> {
+  await authorizeProject(actor.userId, projectId, "project:read");
+  const rows = await withDb(() =>
+    Measurement.findAll({
+      where: { projectId },
+      include: [{ model: User, as: "uploadedBy", attributes: ["id", "name"] }],
+      order: [["createdAt", "DESC"]],
+      limit: 50,
+    }),
+  );
+  return rows.map(toView);
+}

@@ -1,0 +1,142 @@
+import { Op } from "sequelize";
+import { authorizeRun } from "@/lib/authz";
+import { Membership, ReviewEvent, Run, sequelize, User } from "@/lib/db";
+import { AppError, BadRequestError, ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
+import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
+import { reviewRequestMail, verdictMail } from "@/lib/mail/templates";
+import type { ReviewStateName } from "@/lib/runs";
+import type { Actor } from "@/lib/session";
+import type { ReviewActionBody } from "@/lib/validations/review";
+
+/** 409: the run is not in a state where this review step applies. */
+export class ReviewConflictError extends AppError {
+  constructor(message: string, details?: Record<string, unknown>) {
+    super(409, "conflict", message, details);
+  }
+}
+
+/** Which states each step starts from, and where it leads. */
+const TRANSITIONS = {
+  request: { from: ["draft", "changes_requested"], to: "in_review" },
+  approve: { from: ["in_review"], to: "approved" },
+  request_changes: { from: ["in_review"], to: "changes_requested" },
+} as const satisfies Record<string, { from: readonly ReviewStateName[]; to: ReviewStateName }>;
+
+export type ReviewOutcome = {
+  runId: string;
+  reviewState: ReviewStateName;
+  event: { id: string; action: string; note: string | null; createdAt: string };
+  emails: number;
+};
+
+/**
+ * One step of the review flow, in one transaction with its e-mails:
+ * request (designer/owner; draft or changes requested → in review; mails the team's reviewers),
+ * approve / request_changes (reviewer/owner, not the run's author; in review → verdict; mails the author),
+ * supersede (designer/owner; links a later run of the same project as this run's replacement).
+ */
+export async function reviewRun(actor: Actor, runId: string, body: ReviewActionBody): Promise<ReviewOutcome> {
+  const permission =
+    body.action === "approve" || body.action === "request_changes" ? "run:review" : "run:request_review";
+  const { project } = await authorizeRun(actor.userId, runId, permission);
+  const teamId = String(project.get("teamId"));
+  const outcome = await withDb(() =>
+    sequelize.transaction(async (transaction) => {
+      const run = await Run.findByPk(runId, { lock: transaction.LOCK.UPDATE, transaction });
+      if (!run) throw new NotFoundError("Run not found.");
+      const note = body.note && body.note.length > 0 ? body.note : null;
+      const mails = [];
+      if (body.action === "supersede") {
+        const later = await Run.findOne({
+          where: { id: body.supersededBy, projectId: run.projectId },
+          transaction,
+        });
+        if (!later || later.id === run.id) {
+          throw new BadRequestError("The superseding run must be another run of the same project.", {
+            fields: { supersededBy: ["Not a later run of this project."] },
+          });
+        }
+        if (later.createdAt <= run.createdAt) {
+          throw new BadRequestError("A run can only be superseded by a later run.", {
+            fields: { supersededBy: ["This run is older."] },
+          });
+        }
+        if (later.supersedesId && later.supersedesId !== run.id) {
+          throw new ReviewConflictError("That run already supersedes another run.");
+        }
+        if (!later.supersedesId) await later.update({ supersedesId: run.id }, { transaction });
+      } else {
+        const step = TRANSITIONS[body.action];
+        if (!(step.from as readonly string[]).includes(run.reviewState)) {
+          throw new ReviewConflictError(
+            `This run is ${run.reviewState.replace("_", " ")}; it cannot take "${body.action}".`,
+            {
+              reviewState: run.reviewState,
+            },
+          );
+        }
+        if (body.action !== "request" && run.authorId === actor.userId) {
+          throw new ForbiddenError("You cannot give the verdict on your own run.");
+        }
+        await run.update({ reviewState: step.to }, { transaction });
+        if (body.action === "request") {
+          const reviewers = await Membership.findAll({
+            where: { teamId, role: "reviewer", userId: { [Op.ne]: actor.userId } },
+            include: [{ model: User, as: "user", attributes: ["email"] }],
+            transaction,
+          });
+          for (const m of reviewers) {
+            if (m.user) {
+              mails.push(
+                reviewRequestMail({
+                  to: m.user.email,
+                  requester: actor.name || actor.email,
+                  runTitle: run.title,
+                  runId,
+                  note,
+                }),
+              );
+            }
+          }
+        } else if (run.authorId !== actor.userId) {
+          const author = await User.findByPk(run.authorId, { attributes: ["email"], transaction });
+          if (author) {
+            mails.push(
+              verdictMail({
+                to: author.email,
+                reviewer: actor.name || actor.email,
+                runTitle: run.title,
+                runId,
+                approved: body.action === "approve",
+                note,
+              }),
+            );
+          }
+        }
+      }
+      const event = await ReviewEvent.create(
+        {
+          runId,
+          actorId: actor.userId,
+          action: body.action,
+          note: body.action === "supersede" && !note ? `Superseded by run ${body.supersededBy}.` : note,
+        },
+        { transaction },
+      );
+      const emails = await enqueueEmails(mails, transaction);
+      return {
+        runId,
+        reviewState: run.reviewState as ReviewStateName,
+        event: {
+          id: event.id,
+          action: event.action,
+          note: event.note ?? null,
+          createdAt: event.createdAt.toISOString(),
+        },
+        emails,
+      };
+    }),
+  );
+  if (outcome.emails > 0) deliverSoon();
+  return outcome;
+}

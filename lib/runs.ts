@@ -1,0 +1,323 @@
+import { createHash } from "node:crypto";
+import { Op, type Order, type WhereOptions } from "sequelize";
+import { type Action, authorizeProject, authorizeRun, can, type Role } from "@/lib/authz";
+import { Membership, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
+import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
+import type { Actor } from "@/lib/session";
+import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
+import { solveNetlist } from "@/solver";
+import type { CheckResult, MeasureResult, SolveSuccess } from "@/solver/types";
+
+export type ReviewStateName = "draft" | "in_review" | "approved" | "changes_requested";
+
+/** A run as the runs table shows it (no result arrays). */
+export type RunSummary = {
+  id: string;
+  projectId: string;
+  title: string;
+  authorId: string;
+  authorName: string;
+  createdAt: string;
+  status: string;
+  reviewState: ReviewStateName;
+  checksPassed: number | null;
+  checksTotal: number | null;
+  measures: MeasureResult[];
+  supersedesId: string | null;
+};
+
+export type ReviewEventView = {
+  id: string;
+  action: string;
+  note: string | null;
+  actorName: string;
+  createdAt: string;
+};
+
+/** Everything the run page and `GET /api/runs/:id` show. */
+export type RunDetail = RunSummary & {
+  netlist: string;
+  netlistHash: string;
+  solverVersion: string;
+  result: SolveSuccess | null;
+  checks: CheckResult[];
+  timings: Record<string, number> | null;
+  project: { id: string; name: string; teamId: string; teamName: string };
+  role: Role;
+  permissions: { comment: boolean; review: boolean; requestReview: boolean; createRun: boolean };
+  reviewEvents: ReviewEventView[];
+  supersedes: { id: string; title: string } | null;
+  supersededBy: { id: string; title: string }[];
+};
+
+export type RunListPage = {
+  runs: RunSummary[];
+  total: number;
+  page: number;
+  pageSize: number;
+  pages: number;
+};
+
+export function sha256Hex(text: string): string {
+  return createHash("sha256").update(text, "utf8").digest("hex");
+}
+
+function iso(d: unknown): string {
+  return d instanceof Date ? d.toISOString() : String(d);
+}
+
+function asArray<T>(v: unknown): T[] {
+  return Array.isArray(v) ? (v as T[]) : [];
+}
+
+function toSummary(run: Run): RunSummary {
+  return {
+    id: run.id,
+    projectId: run.projectId,
+    title: run.title,
+    authorId: run.authorId,
+    authorName: run.author?.name ?? "",
+    createdAt: iso(run.createdAt),
+    status: run.status,
+    reviewState: run.reviewState,
+    checksPassed: run.checksPassed ?? null,
+    checksTotal: run.checksTotal ?? null,
+    measures: asArray<MeasureResult>(run.measures),
+    supersedesId: run.supersedesId ?? null,
+  };
+}
+
+/**
+ * Solves the netlist and saves it as a new run. The solve happens first; the run (and, when it
+ * supersedes an earlier run, that run's "supersede" review event) are written in one transaction.
+ * A netlist with errors throws NetlistInvalidError (422) with the solver's errors and saves nothing.
+ */
+export async function createRun(actor: Actor, projectId: string, input: RunCreateInput): Promise<RunSummary> {
+  await authorizeProject(actor.userId, projectId, "run:create");
+  const bytes = Buffer.byteLength(input.netlist, "utf8");
+  if (bytes > MAX_NETLIST_BYTES) {
+    throw new TooLargeError(`The netlist is ${bytes} bytes; the limit is ${MAX_NETLIST_BYTES}.`, {
+      limit: MAX_NETLIST_BYTES,
+    });
+  }
+  if (input.supersedesId) {
+    const older = await withDb(() => Run.findOne({ where: { id: input.supersedesId, projectId } }));
+    if (!older) {
+      throw new BadRequestError("The run to supersede is not in this project.", {
+        fields: { supersedesId: ["Not a run of this project."] },
+      });
+    }
+  }
+  const started = performance.now();
+  const result = solveNetlist(input.netlist, { maxPoints: MAX_SAVED_POINTS });
+  const solveMs = performance.now() - started;
+  if (!result.ok) {
+    const n = result.errors.length;
+    throw new NetlistInvalidError(`The netlist has ${n} error${n === 1 ? "" : "s"}; nothing was saved.`, {
+      errors: result.errors,
+    });
+  }
+  if (result.stats.points > MAX_SAVED_POINTS) {
+    throw new TooLargeError(
+      `The sweep has ${result.stats.points} points; a saved run may have ${MAX_SAVED_POINTS}.`,
+      {
+        limit: MAX_SAVED_POINTS,
+      },
+    );
+  }
+  const run = await withDb(() =>
+    sequelize.transaction(async (transaction) => {
+      const created = await Run.create(
+        {
+          projectId,
+          authorId: actor.userId,
+          title: input.title,
+          netlist: input.netlist,
+          netlistHash: sha256Hex(input.netlist),
+          solverVersion: result.solverVersion,
+          status: "ok",
+          reviewState: "draft",
+          result,
+          measures: result.measures,
+          checks: result.checks,
+          checksPassed: result.checks.filter((c) => c.pass).length,
+          checksTotal: result.checks.length,
+          timings: { solveMs: round3(solveMs), engineMs: result.stats.solveMs },
+          supersedesId: input.supersedesId ?? null,
+        },
+        { transaction },
+      );
+      if (input.supersedesId) {
+        await ReviewEvent.create(
+          {
+            runId: input.supersedesId,
+            actorId: actor.userId,
+            action: "supersede",
+            note: `Superseded by "${input.title}".`,
+          },
+          { transaction },
+        );
+      }
+      return created;
+    }),
+  );
+  return { ...toSummary(run), authorName: actor.name };
+}
+
+function round3(x: number): number {
+  return Math.round(x * 1000) / 1000;
+}
+
+const SORT_COLUMNS: Record<RunListQuery["sort"], (dir: "ASC" | "DESC") => Order> = {
+  createdAt: (dir) => [["createdAt", dir]],
+  // Case-insensitive, whatever the database collation is.
+  title: (dir) => [
+    [sequelize.fn("lower", sequelize.col("Run.title")), dir],
+    ["createdAt", "DESC"],
+  ],
+  author: (dir) => [
+    [sequelize.fn("lower", sequelize.col("author.name")), dir],
+    ["createdAt", "DESC"],
+  ],
+  reviewState: (dir) => [
+    ["reviewState", dir],
+    ["createdAt", "DESC"],
+  ],
+  checksPassed: (dir) => [
+    ["checksPassed", dir === "ASC" ? "ASC NULLS FIRST" : "DESC NULLS LAST"],
+    ["createdAt", "DESC"],
+  ],
+};
+
+/** One page of a project's runs, sorted and filtered on the server. */
+export async function listRuns(actor: Actor, projectId: string, query: RunListQuery): Promise<RunListPage> {
+  await authorizeProject(actor.userId, projectId, "project:read");
+  const where: WhereOptions = { projectId };
+  const and: WhereOptions[] = [where];
+  if (query.q) and.push({ title: { [Op.iLike]: `%${query.q.replace(/[\\%_]/g, (c) => `\\${c}`)}%` } });
+  if (query.review) and.push({ reviewState: query.review });
+  if (query.author) and.push({ authorId: query.author });
+  const dir = query.dir === "asc" ? "ASC" : "DESC";
+  const { rows, count } = await withDb(() =>
+    Run.findAndCountAll({
+      where: { [Op.and]: and },
+      attributes: { exclude: ["result", "netlist", "checks", "timings"] },
+      include: [{ model: User, as: "author", attributes: ["id", "name"] }],
+      order: SORT_COLUMNS[query.sort](dir),
+      limit: query.pageSize,
+      offset: (query.page - 1) * query.pageSize,
+    }),
+  );
+  return {
+    runs: rows.map(toSummary),
+    total: count,
+    page: query.page,
+    pageSize: query.pageSize,
+    pages: Math.max(1, Math.ceil(count / query.pageSize)),
+  };
+}
+
+/** Loads a run the caller may act on, with what the run page needs. */
+export async function getRun(actor: Actor, runId: string, action: Action = "run:read"): Promise<RunDetail> {
+  const { role } = await authorizeRun(actor.userId, runId, action);
+  return withDb(async () => {
+    const run = await Run.findByPk(runId, {
+      include: [
+        { model: User, as: "author", attributes: ["id", "name"] },
+        {
+          model: Project,
+          as: "project",
+          attributes: ["id", "name", "teamId"],
+          include: [{ model: Team, as: "team", attributes: ["id", "name"] }],
+        },
+        { model: Run, as: "supersedes", attributes: ["id", "title"] },
+      ],
+    });
+    if (!run?.project) throw new NotFoundError("Run not found.");
+    const [events, later] = await Promise.all([
+      ReviewEvent.findAll({
+        where: { runId },
+        include: [{ model: User, as: "actor", attributes: ["id", "name"] }],
+        order: [["createdAt", "ASC"]],
+      }),
+      Run.findAll({
+        where: { supersedesId: runId },
+        attributes: ["id", "title"],
+        order: [["createdAt", "ASC"]],
+      }),
+    ]);
+    const result = (run.result ?? null) as SolveSuccess | null;
+    return {
+      ...toSummary(run),
+      netlist: run.netlist,
+      netlistHash: run.netlistHash,
+      solverVersion: run.solverVersion,
+      result,
+      checks: asArray<CheckResult>(run.checks),
+      timings: (run.timings ?? null) as Record<string, number> | null,
+      project: {
+        id: run.project.id,
+        name: run.project.name,
+        teamId: run.project.teamId,
+        teamName: run.project.team?.name ?? "",
+      },
+      role,
+      permissions: {
+        comment: can(role, "run:comment"),
+        review: can(role, "run:review"),
+        requestReview: can(role, "run:request_review"),
+        createRun: can(role, "run:create"),
+      },
+      reviewEvents: events.map((e) => ({
+        id: e.id,
+        action: e.action,
+        note: e.note ?? null,
+        actorName: e.actor?.name ?? "",
+        createdAt: iso(e.createdAt),
+      })),
+      supersedes: run.supersedes ? { id: run.supersedes.id, title: run.supersedes.title } : null,
+      supersededBy: later.map((r) => ({ id: r.id, title: r.title })),
+    };
+  });
+}
+
+export type ProjectOverview = {
+  id: string;
+  name: string;
+  description: string | null;
+  teamId: string;
+  teamName: string;
+  role: Role;
+  canCreateRun: boolean;
+  canUpload: boolean;
+  members: { id: string; name: string }[];
+};
+
+/** The project header of the runs page: name, team, the caller's role, members (for the author filter). */
+export async function getProjectOverview(actor: Actor, projectId: string): Promise<ProjectOverview> {
+  const { project, role } = await authorizeProject(actor.userId, projectId, "project:read");
+  const teamId = String(project.get("teamId"));
+  const [team, members] = await withDb(() =>
+    Promise.all([
+      Team.findByPk(teamId, { attributes: ["id", "name"] }),
+      Membership.findAll({
+        where: { teamId },
+        include: [{ model: User, as: "user", attributes: ["id", "name"] }],
+      }),
+    ]),
+  );
+  return {
+    id: String(project.get("id")),
+    name: String(project.get("name")),
+    description: (project.get("description") as string | null) ?? null,
+    teamId,
+    teamName: team?.name ?? "",
+    role,
+    canCreateRun: can(role, "run:create"),
+    canUpload: can(role, "measurement:upload"),
+    members: members
+      .map((m) => ({ id: m.userId, name: m.user?.name ?? "" }))
+      .sort((a, b) => a.name.localeCompare(b.name)),
+  };
+}

@@ -1,0 +1,11 @@
+import { z } from "zod";
+
+/** `POST /api/teams/:id/invitations` (owner only). */
+export const invitationCreateSchema = z.object({
+  email: z
+    .email("Enter an e-mail address.")
+    .max(320)
+    .transform((s) => s.toLowerCase()),
+  role: z.enum(["owner", "designer", "reviewer", "viewer"], "Choose owner, designer, reviewer or viewer."),
+});
+export type InvitationCreateInput = z.infer<typeof invitationCreateSchema>;

@@ -1,0 +1,44 @@
+import {
+  type CreationOptional,
+  DataTypes,
+  type InferAttributes,
+  type InferCreationAttributes,
+  Model,
+  type NonAttribute,
+  type Sequelize,
+} from "sequelize";
+import type { Membership } from "./membership";
+
+/** A person who signs in. The e-mail is stored trimmed and lower-case. */
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<string>;
+  declare email: string;
+  declare name: string;
+  declare passwordHash: string;
+  declare createdAt: CreationOptional<Date>;
+  declare updatedAt: CreationOptional<Date>;
+
+  declare memberships?: NonAttribute<Membership[]>;
+
+  static initModel(sequelize: Sequelize): typeof User {
+    User.init(
+      {
+        id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
+        email: {
+          type: DataTypes.STRING(320),
+          allowNull: false,
+          unique: true,
+          set(value: string) {
+            this.setDataValue("email", String(value).trim().toLowerCase());
+          },
+        },
+        name: { type: DataTypes.STRING(120), allowNull: false },
+        passwordHash: { type: DataTypes.STRING(100), allowNull: false },
+        createdAt: DataTypes.DATE,
+        updatedAt: DataTypes.DATE,
+      },
+      { sequelize, modelName: "User", tableName: "users", underscored: true },
+    );
+    return User;
+  }
+}

@@ -1,0 +1,222 @@
+import { createHash } from "node:crypto";
+import type { Transaction } from "sequelize";
+import { Comment, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { solveNetlist } from "@/solver";
+import { LOWPASS_STAGE2, PILOT_NOTCH, WIEN_1K, WIEN_REV_A, WIEN_REV_B } from "./demo/netlists";
+import type { DemoSeed } from "./seed";
+
+type SeedUsers = Pick<DemoSeed["users"], "owner" | "designer" | "reviewer">;
+
+/** Saves one solved demo run as `author`, `daysAgo` days back. A netlist that fails to solve stops the seed. */
+async function saveRun(
+  t: Transaction,
+  projectId: string,
+  author: User,
+  title: string,
+  netlist: string,
+  daysAgo: number,
+  extra: { reviewState?: Run["reviewState"]; supersedesId?: string } = {},
+): Promise<Run> {
+  const result = solveNetlist(netlist);
+  if (!result.ok) {
+    const first = result.errors[0];
+    throw new Error(`demo netlist "${title}" does not solve: line ${first?.line}: ${first?.message}`);
+  }
+  const run = await Run.create(
+    {
+      projectId,
+      authorId: author.id,
+      title,
+      netlist,
+      netlistHash: createHash("sha256").update(netlist, "utf8").digest("hex"),
+      solverVersion: result.solverVersion,
+      status: "ok",
+      reviewState: extra.reviewState ?? "draft",
+      result,
+      measures: result.measures,
+      checks: result.checks,
+      checksPassed: result.checks.filter((c) => c.pass).length,
+      checksTotal: result.checks.length,
+      timings: { solveMs: result.stats.solveMs },
+      supersedesId: extra.supersedesId ?? null,
+    },
+    { transaction: t },
+  );
+  await backdate(t, "runs", run.id, daysAgo);
+  return run;
+}
+
+async function backdate(t: Transaction, table: string, id: string, daysAgo: number): Promise<void> {
+  await sequelize.query(
+    `UPDATE ${table} SET created_at = now() - (:days * interval '1 day') WHERE id = :id`,
+    {
+      replacements: { id, days: daysAgo },
+      transaction: t,
+    },
+  );
+}
+
+function measure(run: Run, name: string): number | null {
+  const list = run.measures as { name: string; value: number | null }[];
+  return list.find((m) => m.name === name)?.value ?? null;
+}
+
+/**
+ * Demo runs, comments and reviews for the demo team's two projects (idempotent: a project that
+ * already has runs is left alone). Called by scripts/seed.ts inside its transaction.
+ */
+export async function seedRuns(seed: Pick<DemoSeed, "users" | "projects" | "transaction">): Promise<void> {
+  const { users, projects, transaction: t } = seed;
+  await seedOscillator(t, projects.oscillator, users);
+  await seedFilter(t, projects.filter, users);
+}
+
+async function seedOscillator(t: Transaction, project: Project, users: SeedUsers): Promise<void> {
+  if ((await Run.count({ where: { projectId: project.id }, transaction: t })) > 0) return;
+  const { owner, designer, reviewer } = users;
+  const revA = await saveRun(
+    t,
+    project.id,
+    designer,
+    "Bridge oscillator rev A, ideal amplifier",
+    WIEN_REV_A,
+    9,
+    {
+      reviewState: "approved",
+    },
+  );
+  const revB = await saveRun(
+    t,
+    project.id,
+    designer,
+    "Bridge oscillator rev B, 1 MHz amplifier",
+    WIEN_REV_B,
+    4,
+    {
+      reviewState: "in_review",
+      supersedesId: revA.id,
+    },
+  );
+  await saveRun(t, project.id, owner, "Service tone 1 kHz variant", WIEN_1K, 2);
+
+  const events: [Run, User, ReviewEvent["action"], string | null, number][] = [
+    [revA, designer, "request", "First pass with an ideal amplifier.", 8.5],
+    [revA, reviewer, "approve", "Zero-phase point and loop gain as intended.", 7],
+    [revA, designer, "supersede", "Superseded by rev B (real amplifier).", 4],
+    [
+      revB,
+      designer,
+      "request",
+      "Same bridge with the 1 MHz part we stock; the frequency moves down a little.",
+      3.5,
+    ],
+  ];
+  for (const [run, actor, action, note, days] of events) {
+    const e = await ReviewEvent.create(
+      { runId: run.id, actorId: actor.id, action, note },
+      { transaction: t },
+    );
+    await backdate(t, "review_events", e.id, days);
+  }
+
+  const f0 = measure(revA, "f0");
+  const pinned = await Comment.create(
+    {
+      runId: revA.id,
+      authorId: reviewer.id,
+      body: "Phase crosses zero here. With K = 3.05 the loop gain is less than 2 % above one, so the amplitude control has little margin.",
+      frequencyHz: f0,
+      trace: f0 === null ? null : "bridge",
+    },
+    { transaction: t },
+  );
+  await backdate(t, "comments", pinned.id, 7.5);
+  const reply = await Comment.create(
+    {
+      runId: revA.id,
+      authorId: designer.id,
+      parentId: pinned.id,
+      body: "Agreed. The lamp-style limiter on the bench board holds it; rev B checks the real amplifier.",
+    },
+    { transaction: t },
+  );
+  await backdate(t, "comments", reply.id, 7.2);
+  const open = await Comment.create(
+    {
+      runId: revB.id,
+      authorId: owner.id,
+      body: "How far does the oscillation frequency move with the 1 MHz part compared with rev A?",
+    },
+    { transaction: t },
+  );
+  await backdate(t, "comments", open.id, 3);
+}
+
+async function seedFilter(t: Transaction, project: Project, users: SeedUsers): Promise<void> {
+  if ((await Run.count({ where: { projectId: project.id }, transaction: t })) > 0) return;
+  const { designer, reviewer } = users;
+  const lp = await saveRun(
+    t,
+    project.id,
+    designer,
+    "Anti-alias stage 2, unity-gain low-pass",
+    LOWPASS_STAGE2,
+    6,
+    {
+      reviewState: "changes_requested",
+    },
+  );
+  await saveRun(t, project.id, designer, "Pilot-tone notch, twin-T", PILOT_NOTCH, 1);
+  for (const [actor, action, note, days] of [
+    [designer, "request", null, 5.5],
+    [
+      reviewer,
+      "request_changes",
+      "Q is 0.62; the spec sheet asks for a flatter pass band. Try swapping values.",
+      5,
+    ],
+  ] as const) {
+    const e = await ReviewEvent.create({ runId: lp.id, actorId: actor.id, action, note }, { transaction: t });
+    await backdate(t, "review_events", e.id, days);
+  }
+  const fc = measure(lp, "fc");
+  const c = await Comment.create(
+    {
+      runId: lp.id,
+      authorId: reviewer.id,
+      body: "The −3 dB edge sits here; the digitiser needs it above 45 kHz.",
+      frequencyHz: fc,
+      trace: fc === null ? null : "H",
+    },
+    { transaction: t },
+  );
+  await backdate(t, "comments", c.id, 5);
+}
+
+/**
+ * Stand-alone entry: adds the demo runs to an already seeded demo team (e.g. from a test's setup).
+ * Returns false when the demo team is missing.
+ */
+export async function seedDemoRuns(): Promise<boolean> {
+  const team = await Team.findOne({ where: { slug: "corvane-instruments" } });
+  if (!team) return false;
+  const byEmail = async (email: string) => {
+    const u = await User.findOne({ where: { email } });
+    if (!u) throw new Error(`demo user ${email} is missing`);
+    return u;
+  };
+  const users = {
+    owner: await byEmail("owner@demo.test"),
+    designer: await byEmail("designer@demo.test"),
+    reviewer: await byEmail("reviewer@demo.test"),
+  };
+  const projects = await Project.findAll({ where: { teamId: team.id }, order: [["createdAt", "ASC"]] });
+  const oscillator = projects.find((p) => /oscillator/i.test(p.name));
+  const filter = projects.find((p) => /filter/i.test(p.name));
+  if (!oscillator || !filter) return false;
+  await sequelize.transaction(async (transaction) => {
+    await seedOscillator(transaction, oscillator, users);
+    await seedFilter(transaction, filter, users);
+  });
+  return true;
+}

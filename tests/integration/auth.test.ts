@@ -1,0 +1,193 @@
+import bcrypt from "bcryptjs";
+import { encode } from "next-auth/jwt";
+import { describe, expect, it } from "vitest";
+import { registerUser, verifyCredentials } from "@/lib/auth";
+import { authorizeProject, authorizeRun, authorizeTeam } from "@/lib/authz";
+import { Membership, Run, Team, User } from "@/lib/db";
+import { env } from "@/lib/env";
+import {
+  type AppError,
+  BadRequestError,
+  ForbiddenError,
+  NotFoundError,
+  UnauthorizedError,
+} from "@/lib/errors";
+import { throttleSignIn } from "@/lib/rate-limit";
+import { getActor, requireActor } from "@/lib/session";
+import { createFixtures, FIXTURE_PASSWORD, useTestDb } from "./setup";
+
+useTestDb();
+
+async function expectAppError(p: Promise<unknown>, cls: new (...a: never[]) => AppError, status: number) {
+  const err = await p.then(
+    () => null,
+    (e: unknown) => e,
+  );
+  expect(err).toBeInstanceOf(cls);
+  expect((err as AppError).status).toBe(status);
+  return err as AppError;
+}
+
+describe("credentials", () => {
+  it("accepts the right password, in any e-mail case", async () => {
+    const fx = await createFixtures();
+    const user = await verifyCredentials("  Designer@Fixture.TEST ", FIXTURE_PASSWORD);
+    expect(user).toEqual({
+      id: fx.users.designer.id,
+      email: "designer@fixture.test",
+      name: "Fixture designer",
+    });
+  });
+
+  it("answers null alike for a wrong password and an unknown e-mail", async () => {
+    await createFixtures();
+    expect(await verifyCredentials("designer@fixture.test", "not-the-password")).toBeNull();
+    expect(await verifyCredentials("nobody@fixture.test", FIXTURE_PASSWORD)).toBeNull();
+  });
+});
+
+describe("registerUser", () => {
+  it("stores a bcrypt hash and gives the new user a team they own", async () => {
+    const { userId, teamId } = await registerUser({
+      name: "Grace Ohm",
+      email: "grace@lab.test",
+      password: "a long enough secret",
+    });
+    const user = await User.findByPk(userId);
+    expect(user?.email).toBe("grace@lab.test");
+    expect(user?.passwordHash).not.toContain("a long enough secret");
+    expect(user?.passwordHash).toMatch(/^\$2[aby]\$10\$/);
+    expect(await bcrypt.compare("a long enough secret", user!.passwordHash)).toBe(true);
+    const team = await Team.findByPk(teamId);
+    expect(team?.name).toBe("Grace's workbench");
+    expect(team?.slug).toMatch(/^grace-s-workbench-[0-9a-f]{6}$/);
+    const membership = await Membership.findOne({ where: { teamId, userId } });
+    expect(membership?.role).toBe("owner");
+    expect(await verifyCredentials("grace@lab.test", "a long enough secret")).not.toBeNull();
+  });
+
+  it("refuses a taken e-mail on the email field and creates nothing", async () => {
+    await createFixtures();
+    const err = await expectAppError(
+      registerUser({ name: "Copy", email: "owner@fixture.test", password: "another secret 1" }),
+      BadRequestError,
+      400,
+    );
+    expect((err.details?.fields as Record<string, string[]> | undefined)?.email?.[0]).toMatch(
+      /already exists/,
+    );
+    expect(await User.count()).toBe(5);
+    expect(await Team.count()).toBe(2);
+  });
+});
+
+describe("session", () => {
+  async function cookieFor(claims: Record<string, unknown>, secret = env.NEXTAUTH_SECRET) {
+    return encode({ token: claims, secret });
+  }
+
+  it("reads the actor from next-auth's session cookie", async () => {
+    const token = await cookieFor({
+      sub: "6f1c2a4e-0b7d-4c35-9a0e-2d3f4b5c6d7e",
+      email: "a@b.test",
+      name: "Ada",
+    });
+    const req = new Request("http://localhost/api/x", {
+      headers: { cookie: `other=1; next-auth.session-token=${token}` },
+    });
+    expect(await getActor(req)).toEqual({
+      userId: "6f1c2a4e-0b7d-4c35-9a0e-2d3f4b5c6d7e",
+      email: "a@b.test",
+      name: "Ada",
+    });
+  });
+
+  it("joins a chunked cookie", async () => {
+    const token = await cookieFor({ sub: "u-1", email: "c@d.test", name: "Chunk" });
+    const half = Math.floor(token.length / 2);
+    const cookie = `next-auth.session-token.0=${token.slice(0, half)}; next-auth.session-token.1=${token.slice(half)}`;
+    expect((await getActor(new Request("http://localhost/", { headers: { cookie } })))?.userId).toBe("u-1");
+  });
+
+  it("rejects a cookie sealed with another secret, and no cookie at all", async () => {
+    const forged = await cookieFor({ sub: "u-2" }, "some-other-secret-of-enough-length");
+    const req = new Request("http://localhost/", {
+      headers: { cookie: `next-auth.session-token=${forged}` },
+    });
+    expect(await getActor(req)).toBeNull();
+    await expectAppError(requireActor(new Request("http://localhost/")), UnauthorizedError, 401);
+  });
+
+  it("rejects an unknown bearer token", async () => {
+    const req = new Request("http://localhost/", {
+      headers: { authorization: `Bearer pw_${"x".repeat(43)}` },
+    });
+    expect(await getActor(req)).toBeNull();
+  });
+});
+
+describe("sign-in rate limit", () => {
+  it("lets 5 attempts a minute through per e-mail and address, then answers 429", async () => {
+    const h = new Headers({ "x-forwarded-for": "203.0.113.7" });
+    const t0 = 1_000_000;
+    // Attempts 1 s apart: t0, t0+1 s, … t0+4 s.
+    for (let i = 0; i < 5; i++) {
+      expect(throttleSignIn(h, "limit@fixture.test", "http://app.test", t0 + i * 1000)).toBeNull();
+    }
+    const res = throttleSignIn(h, "LIMIT@fixture.test", "http://app.test", t0 + 10_000);
+    expect(res?.status).toBe(429);
+    expect(res?.headers.get("Retry-After")).toBe("50");
+    const body = (await res!.json()) as { error: { code: string }; url: string };
+    expect(body.error.code).toBe("rate_limited");
+    expect(body.url).toBe("http://app.test/signin?error=rate_limited");
+    // Another address for the same e-mail is counted separately.
+    expect(
+      throttleSignIn(new Headers({ "x-forwarded-for": "198.51.100.2" }), "limit@fixture.test", "", t0),
+    ).toBeNull();
+    // Once the first attempt leaves the 60 s window, one more is allowed.
+    expect(throttleSignIn(h, "limit@fixture.test", "", t0 + 60_001)).toBeNull();
+    const again = throttleSignIn(h, "limit@fixture.test", "", t0 + 60_002);
+    expect(again?.status).toBe(429);
+    // The next slot opens when the t0+1 s attempt ages out, 998 ms later: rounded up to 1 s.
+    expect(again?.headers.get("Retry-After")).toBe("1");
+  });
+});
+
+describe("authorization against the database", () => {
+  it("answers 404 across teams, for unknown and non-UUID ids; 403 for a member without the right", async () => {
+    const fx = await createFixtures();
+    const { owner, viewer, reviewer, outsider } = fx.users;
+    const run = await Run.create({
+      projectId: fx.project.id,
+      authorId: fx.users.designer.id,
+      title: "Bridge check",
+      netlist: "title x",
+      netlistHash: "0".repeat(64),
+      solverVersion: "test",
+      status: "ok",
+    });
+
+    expect(await authorizeTeam(owner.id, fx.team.id, "team:manage")).toEqual({ role: "owner" });
+    const p = await authorizeProject(reviewer.id, fx.project.id, "run:review");
+    expect(p.role).toBe("reviewer");
+    expect(p.project.id).toBe(fx.project.id);
+    const r = await authorizeRun(viewer.id, run.id, "run:read");
+    expect([r.role, r.run.id, r.project.id]).toEqual(["viewer", run.id, fx.project.id]);
+
+    await expectAppError(authorizeTeam(outsider.id, fx.team.id, "team:read"), NotFoundError, 404);
+    await expectAppError(authorizeProject(outsider.id, fx.project.id, "project:read"), NotFoundError, 404);
+    await expectAppError(authorizeRun(outsider.id, run.id, "run:read"), NotFoundError, 404);
+    await expectAppError(authorizeProject(owner.id, fx.otherProject.id, "project:read"), NotFoundError, 404);
+    await expectAppError(
+      authorizeRun(owner.id, "9d5e0c2a-1111-4222-8333-444455556666", "run:read"),
+      NotFoundError,
+      404,
+    );
+    await expectAppError(authorizeProject(owner.id, "not-a-uuid", "project:read"), NotFoundError, 404);
+    await expectAppError(authorizeTeam(owner.id, "42", "team:read"), NotFoundError, 404);
+
+    await expectAppError(authorizeProject(viewer.id, fx.project.id, "run:create"), ForbiddenError, 403);
+    await expectAppError(authorizeRun(reviewer.id, run.id, "run:request_review"), ForbiddenError, 403);
+    await expectAppError(authorizeTeam(fx.users.designer.id, fx.team.id, "team:manage"), ForbiddenError, 403);
+  });
+});

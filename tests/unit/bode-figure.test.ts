@@ -1,0 +1,55 @@
+import { describe, expect, it } from "vitest";
+import { buildBodeFigure, GL_THRESHOLD } from "@/components/plot/bode-figure";
+
+function series(name: string, n: number) {
+  const frequencies = Array.from({ length: n }, (_, k) => 10 * 10 ** (k / 100));
+  return { name, frequencies, magnitudeDb: frequencies.map(() => -3), phaseDeg: frequencies.map(() => -45) };
+}
+
+const base = { overlays: [], measurements: [], markers: [], pins: [], focusHz: null, compact: false };
+
+describe("buildBodeFigure", () => {
+  it("draws each trace as magnitude over phase on linked log axes", () => {
+    const { data, layout } = buildBodeFigure({ ...base, series: [series("h", 201)] });
+    expect(data).toHaveLength(2);
+    const [mag, phase] = data as { type: string; xaxis: string; yaxis: string; showlegend: boolean }[];
+    expect([mag!.xaxis, mag!.yaxis, phase!.xaxis, phase!.yaxis]).toEqual(["x", "y", "x2", "y2"]);
+    expect(mag!.type).toBe("scatter");
+    expect(mag!.showlegend).toBe(true);
+    expect(phase!.showlegend).toBe(false);
+    expect(layout.xaxis?.type).toBe("log");
+    expect(layout.xaxis2?.matches).toBe("x");
+  });
+
+  it("switches to WebGL above the point threshold", () => {
+    const { data } = buildBodeFigure({ ...base, series: [series("big", GL_THRESHOLD + 1)] });
+    expect((data[0] as { type: string }).type).toBe("scattergl");
+  });
+
+  it("puts measure markers at their frequency and zooms to a focus frequency", () => {
+    const { layout } = buildBodeFigure({
+      ...base,
+      series: [series("h", 301)],
+      markers: [{ frequencyHz: 1591.549430919, label: "f0" }],
+      focusHz: 1000,
+    });
+    expect(layout.shapes?.[0]?.x0).toBe(1591.549430919);
+    expect(layout.annotations?.[0]?.text).toBe("f0");
+    // Log axes take their range in decades: 1 kHz ± half a decade.
+    expect(layout.xaxis?.range).toEqual([2.5, 3.5]);
+  });
+
+  it("places a comment pin on its trace's magnitude at the pinned frequency", () => {
+    const s = series("h", 301);
+    s.magnitudeDb = s.frequencies.map((f) => -20 * Math.log10(f / 10)); // −20 dB per decade from 0 dB at 10 Hz
+    const { data } = buildBodeFigure({
+      ...base,
+      series: [s],
+      pins: [{ frequencyHz: 1000, trace: "h", label: "why?" }],
+    });
+    const pins = data.at(-1) as { x: number[]; y: number[]; text: string[] };
+    expect(pins.x).toEqual([1000]);
+    expect(pins.y[0]).toBeCloseTo(-40, 9);
+    expect(pins.text).toEqual(["why?"]);
+  });
+});
