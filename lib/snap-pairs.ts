@@ -127,6 +127,9 @@ export function netlistNumber(x: number): string {
 }
 
 /** The `let` lines the editor inserts for a pair. */
-export function pairLets(pair: Pick<SnapPair, "r" | "c">, names: { r: string; c: string } = { r: "R", c: "C" }) {
+export function pairLets(
+  pair: Pick<SnapPair, "r" | "c">,
+  names: { r: string; c: string } = { r: "R", c: "C" },
+) {
   return `let ${names.r} = ${netlistNumber(pair.r)}\nlet ${names.c} = ${netlistNumber(pair.c)}\n`;
 }

@@ -1,12 +1,6 @@
 /** Standard R/C pairs for a target frequency (lib/snap-pairs.ts), checked by hand arithmetic. */
 import { describe, expect, it } from "vitest";
-import {
-  netlistNumber,
-  networkFrequency,
-  pairLets,
-  rankPairs,
-  seriesInRange,
-} from "@/lib/snap-pairs";
+import { netlistNumber, networkFrequency, pairLets, rankPairs, seriesInRange } from "@/lib/snap-pairs";
 
 describe("rankPairs", () => {
   it("1 kHz single RC from E24 R and E12 C: 16 kΩ with 10 nF, −0.528 %", () => {
@@ -39,7 +33,12 @@ describe("rankPairs", () => {
 
   it("phase shift uses f = 1/(2π√6·RC): 10 kΩ, 10 nF → 649.747 Hz (CHECKS.md §7)", () => {
     expect(networkFrequency("phase-shift", 10e3, 10e-9)).toBeCloseTo(649.74733436, 6);
-    const pairs = rankPairs({ targetHz: 649.74733436, network: "phase-shift", rSeries: "E12", cSeries: "E6" });
+    const pairs = rankPairs({
+      targetHz: 649.74733436,
+      network: "phase-shift",
+      rSeries: "E12",
+      cSeries: "E6",
+    });
     expect(Math.abs(pairs[0]!.errorPct)).toBeLessThan(1e-6);
     expect(pairs[0]!.r * pairs[0]!.c).toBeCloseTo(1e-4, 12);
   });
