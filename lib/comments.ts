@@ -57,8 +57,13 @@ function checkPin(result: SolveSuccess | null, input: CommentCreateInput): void 
   const hz = input.frequencyHz ?? null;
   if (input.trace && hz == null) fields.trace = ["A trace pin needs a frequency too."];
   if (hz != null && result && result.frequencies.length > 0) {
-    const lo = Math.min(...result.frequencies);
-    const hi = Math.max(...result.frequencies);
+    // A loop, not Math.min(...f): a sweep may hold 100 000 points.
+    let lo = Number.POSITIVE_INFINITY;
+    let hi = Number.NEGATIVE_INFINITY;
+    for (const f of result.frequencies) {
+      if (f < lo) lo = f;
+      if (f > hi) hi = f;
+    }
     if (hz < lo * (1 - 1e-9) || hz > hi * (1 + 1e-9)) {
       fields.frequencyHz = [`Pick a frequency inside the sweep (${lo} Hz to ${hi} Hz).`];
     }

@@ -5,6 +5,7 @@ import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import type { CommentView } from "@/lib/comments";
 import { PinIcon } from "./pin-icon";
+import { PinPicker } from "./pin-picker";
 
 export type PinDraft = { frequencyHz: number; trace: string | null };
 
@@ -14,6 +15,8 @@ export function CommentForm({
   parentId,
   pin,
   onClearPin,
+  onPin,
+  traces = [],
   onPosted,
   label = "Add a comment",
   compact = false,
@@ -22,6 +25,9 @@ export function CommentForm({
   parentId?: string;
   pin?: PinDraft | null;
   onClearPin?: () => void;
+  /** Offers the typed pin (keyboard alternative to clicking the plot) when given. */
+  onPin?: (pin: PinDraft) => void;
+  traces?: string[];
   onPosted: (c: CommentView) => void;
   label?: string;
   compact?: boolean;
@@ -82,6 +88,8 @@ export function CommentForm({
             Remove pin
           </button>
         </p>
+      ) : onPin ? (
+        <PinPicker traces={traces} onPin={onPin} />
       ) : null}
       <textarea
         id={id}

@@ -15,13 +15,16 @@ export type CommentsThreadProps = {
   canComment: boolean;
   pin: PinDraft | null;
   onClearPin: () => void;
+  /** Sets the pin from the keyboard (a typed frequency and a trace). */
+  onPin: (pin: PinDraft) => void;
+  traces: string[];
   /** A pin in the list was chosen: the plot zooms to it. */
   onFocusPin: (hz: number) => void;
 };
 
 /** Comment threads (a first comment and its replies), with pins, replies and resolve. */
 export function CommentsThread(props: CommentsThreadProps) {
-  const { runId, comments, onChange, canComment, pin, onClearPin, onFocusPin } = props;
+  const { runId, comments, onChange, canComment, pin, onClearPin, onPin, traces, onFocusPin } = props;
   const roots = comments.filter((c) => !c.parentId);
   const replies = (id: string) => comments.filter((c) => c.parentId === id);
   const upsert = (c: CommentView) => {
@@ -52,7 +55,14 @@ export function CommentsThread(props: CommentsThreadProps) {
       )}
       {canComment ? (
         <div className="border-paper-200 border-t pt-4">
-          <CommentForm runId={runId} pin={pin} onClearPin={onClearPin} onPosted={upsert} />
+          <CommentForm
+            runId={runId}
+            pin={pin}
+            onClearPin={onClearPin}
+            onPin={onPin}
+            traces={traces}
+            onPosted={upsert}
+          />
         </div>
       ) : null}
     </div>

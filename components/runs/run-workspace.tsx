@@ -99,6 +99,11 @@ export function RunWorkspace(props: RunWorkspaceProps) {
             canComment={canComment}
             pin={pin}
             onClearPin={() => setPin(null)}
+            onPin={(p) => {
+              setPin(p);
+              setFocusHz(p.frequencyHz);
+            }}
+            traces={traces.map((t) => t.name)}
             onFocusPin={focus}
           />
         </div>

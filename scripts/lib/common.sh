@@ -110,9 +110,10 @@ ensure_database() {
   fi
 }
 
+# (Functions that may run where `set -e` is suspended, e.g. inside `if`, check each step themselves.)
 recreate_database() {
-  psql_admin -d postgres -c "DROP DATABASE IF EXISTS $1 WITH (FORCE)"
-  psql_admin -d postgres -c "CREATE DATABASE $1 OWNER $DB_ROLE"
+  psql_admin -d postgres -c "DROP DATABASE IF EXISTS $1 WITH (FORCE)" || return 1
+  psql_admin -d postgres -c "CREATE DATABASE $1 OWNER $DB_ROLE" || return 1
 }
 
 pg_down() {
@@ -160,7 +161,10 @@ ensure_build() {
   fi
   log "building the app (next build)"
   rm -f "$DATA_DIR/build-fingerprint"
-  (cd "$ROOT" && npm run build --silent </dev/null)
+  if ! (cd "$ROOT" && npm run build --silent </dev/null); then
+    log "next build failed"
+    return 1
+  fi
   source_fingerprint >"$DATA_DIR/build-fingerprint"
 }
 
