@@ -4,7 +4,7 @@ import { Membership, ReviewEvent, Run, sequelize, User } from "@/lib/db";
 import { AppError, BadRequestError, ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
 import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
 import { reviewRequestMail, verdictMail } from "@/lib/mail/templates";
-import type { ReviewStateName } from "@/lib/runs";
+import type { ReviewStateName } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
 import type { ReviewActionBody } from "@/lib/validations/review";
 

@@ -1,63 +1,16 @@
 import { createHash } from "node:crypto";
 import { Op, type Order, type WhereOptions } from "sequelize";
-import { type Action, authorizeProject, authorizeRun, can, type Role } from "@/lib/authz";
-import { Membership, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { type Action, authorizeProject, authorizeRun, can } from "@/lib/authz";
+import { Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
 import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
 import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
+import type { RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
 import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
 import { solveNetlist } from "@/solver";
 import type { CheckResult, MeasureResult, SolveSuccess } from "@/solver/types";
 
-export type ReviewStateName = "draft" | "in_review" | "approved" | "changes_requested";
-
-/** A run as the runs table shows it (no result arrays). */
-export type RunSummary = {
-  id: string;
-  projectId: string;
-  title: string;
-  authorId: string;
-  authorName: string;
-  createdAt: string;
-  status: string;
-  reviewState: ReviewStateName;
-  checksPassed: number | null;
-  checksTotal: number | null;
-  measures: MeasureResult[];
-  supersedesId: string | null;
-};
-
-export type ReviewEventView = {
-  id: string;
-  action: string;
-  note: string | null;
-  actorName: string;
-  createdAt: string;
-};
-
-/** Everything the run page and `GET /api/runs/:id` show. */
-export type RunDetail = RunSummary & {
-  netlist: string;
-  netlistHash: string;
-  solverVersion: string;
-  result: SolveSuccess | null;
-  checks: CheckResult[];
-  timings: Record<string, number> | null;
-  project: { id: string; name: string; teamId: string; teamName: string };
-  role: Role;
-  permissions: { comment: boolean; review: boolean; requestReview: boolean; createRun: boolean };
-  reviewEvents: ReviewEventView[];
-  supersedes: { id: string; title: string } | null;
-  supersededBy: { id: string; title: string }[];
-};
-
-export type RunListPage = {
-  runs: RunSummary[];
-  total: number;
-  page: number;
-  pageSize: number;
-  pages: number;
-};
+export type { ReviewEventView, ReviewStateName, RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 
 export function sha256Hex(text: string): string {
   return createHash("sha256").update(text, "utf8").digest("hex");
@@ -280,44 +233,4 @@ export async function getRun(actor: Actor, runId: string, action: Action = "run:
       supersededBy: later.map((r) => ({ id: r.id, title: r.title })),
     };
   });
-}
-
-export type ProjectOverview = {
-  id: string;
-  name: string;
-  description: string | null;
-  teamId: string;
-  teamName: string;
-  role: Role;
-  canCreateRun: boolean;
-  canUpload: boolean;
-  members: { id: string; name: string }[];
-};
-
-/** The project header of the runs page: name, team, the caller's role, members (for the author filter). */
-export async function getProjectOverview(actor: Actor, projectId: string): Promise<ProjectOverview> {
-  const { project, role } = await authorizeProject(actor.userId, projectId, "project:read");
-  const teamId = String(project.get("teamId"));
-  const [team, members] = await withDb(() =>
-    Promise.all([
-      Team.findByPk(teamId, { attributes: ["id", "name"] }),
-      Membership.findAll({
-        where: { teamId },
-        include: [{ model: User, as: "user", attributes: ["id", "name"] }],
-      }),
-    ]),
-  );
-  return {
-    id: String(project.get("id")),
-    name: String(project.get("name")),
-    description: (project.get("description") as string | null) ?? null,
-    teamId,
-    teamName: team?.name ?? "",
-    role,
-    canCreateRun: can(role, "run:create"),
-    canUpload: can(role, "measurement:upload"),
-    members: members
-      .map((m) => ({ id: m.userId, name: m.user?.name ?? "" }))
-      .sort((a, b) => a.name.localeCompare(b.name)),
-  };
 }

@@ -11,7 +11,7 @@ async function main() {
   const { token } = await createApiToken(user.id, "queue demo");
   const text = readFileSync("solver/examples/wien-bridge.pwn", "utf8")
     .replace(/^sweep .*$/m, "sweep 100Hz to 20kHz linear 400 points")
-    .replace(/^monte-carlo .*$/m, "monte-carlo 4000 seed=11");
+    .replace(/^monte-carlo .*$/m, `monte-carlo ${process.env.SAMPLES ?? "4000"} seed=11`);
   const run = await Run.create({
     projectId: project.id,
     authorId: user.id,

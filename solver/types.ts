@@ -214,7 +214,13 @@ export interface MeasureStats {
   std: number | null;
   min: number | null;
   max: number | null;
-  percentiles: { p1: number | null; p5: number | null; p50: number | null; p95: number | null; p99: number | null };
+  percentiles: {
+    p1: number | null;
+    p5: number | null;
+    p50: number | null;
+    p95: number | null;
+    p99: number | null;
+  };
   histogram: { edges: number[]; counts: number[] };
 }
 

@@ -131,7 +131,9 @@ export function oscillatorVerdict(result: SolveSuccess): OscillatorVerdict | nul
 export function rankSensitivities(rows: SensitivityResult[], measure: string): SensitivityResult[] {
   return rows
     .filter((r) => r.measure === measure)
-    .sort((a, b) => (b.value === null ? -1 : Math.abs(b.value)) - (a.value === null ? -1 : Math.abs(a.value)));
+    .sort(
+      (a, b) => (b.value === null ? -1 : Math.abs(b.value)) - (a.value === null ? -1 : Math.abs(a.value)),
+    );
 }
 
 /** Histogram bars: bin centres, widths and counts from the solver's edges/counts. */

@@ -1,4 +1,4 @@
-import type { ReviewEventView } from "@/lib/runs";
+import type { ReviewEventView } from "@/lib/run-types";
 import { formatDate } from "@/lib/utils";
 
 const VERBS: Record<string, string> = {

@@ -1,6 +1,6 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { type ReactNode, useMemo, useState } from "react";
 import type { PinDraft } from "@/components/comments/comment-form";
 import { CommentsThread } from "@/components/comments/comments-thread";
 import { BodePlot } from "@/components/plot/bode-plot";
@@ -20,6 +20,8 @@ export type RunWorkspaceProps = {
   measurements: BodeSeries[];
   comments: CommentView[];
   canComment: boolean;
+  /** Server-rendered panels for the right column under the measures (e.g. the review panel). */
+  aside?: ReactNode;
 };
 
 /**
@@ -28,7 +30,7 @@ export type RunWorkspaceProps = {
  * or a frequency measure zooms the plot to it.
  */
 export function RunWorkspace(props: RunWorkspaceProps) {
-  const { runId, plotId, exportName, frequencies, traces, measures, measurements, canComment } = props;
+  const { runId, plotId, exportName, frequencies, traces, measures, measurements, canComment, aside } = props;
   const [comments, setComments] = useState(props.comments);
   const [pin, setPin] = useState<PinDraft | null>(null);
   const [focusHz, setFocusHz] = useState<number | null>(null);
@@ -79,12 +81,15 @@ export function RunWorkspace(props: RunWorkspaceProps) {
           />
         </div>
       </Panel>
-      <Panel aria-labelledby="measures-h" className="self-start lg:col-start-2 lg:row-span-2 lg:row-start-1">
-        <PanelHeader id="measures-h" title="Measures" />
-        <div className="p-3">
-          <MeasuresTable measures={measures} onSelectFrequency={focus} />
-        </div>
-      </Panel>
+      <div className="space-y-6 self-start lg:col-start-2 lg:row-span-2 lg:row-start-1">
+        <Panel aria-labelledby="measures-h">
+          <PanelHeader id="measures-h" title="Measures" />
+          <div className="p-3">
+            <MeasuresTable measures={measures} onSelectFrequency={focus} />
+          </div>
+        </Panel>
+        {aside}
+      </div>
       <Panel aria-labelledby="comments-h" className="min-w-0 lg:col-start-1">
         <PanelHeader
           id="comments-h"

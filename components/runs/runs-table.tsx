@@ -13,7 +13,7 @@ import { useMemo, useState, useTransition } from "react";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
 import { formatQuantity } from "@/components/run/format";
 import { buttonClass } from "@/components/ui/button";
-import type { RunSummary } from "@/lib/runs";
+import type { RunSummary } from "@/lib/run-types";
 import { cn, formatDate } from "@/lib/utils";
 import { RunsFilters, type RunsQueryState, runsHref } from "./runs-filters";
 
@@ -58,9 +58,12 @@ export function RunsTable({ projectId, runs, total, pages, query, members }: Run
       col.accessor("title", {
         header: "Title",
         cell: (c) => (
-          <Link href={`/runs/${c.row.original.id}`} className="text-board-700 font-medium hover:underline">
-            {c.getValue()}
-          </Link>
+          <span className="inline-flex flex-wrap items-center gap-2">
+            <Link href={`/runs/${c.row.original.id}`} className="text-board-700 font-medium hover:underline">
+              {c.getValue()}
+            </Link>
+            {c.row.original.status !== "ok" ? <StatusPill status={c.row.original.status} /> : null}
+          </span>
         ),
       }),
       col.accessor("authorName", { id: "author", header: "Author" }),
@@ -195,6 +198,27 @@ export function RunsTable({ projectId, runs, total, pages, query, members }: Run
       </div>
       <Pager page={query.page} pages={pages} pageSize={query.pageSize} onGo={go} />
     </div>
+  );
+}
+
+const STATUS: Record<string, string> = {
+  queued: "bg-paper-100 text-ink-600 ring-paper-300",
+  running: "bg-board-50 text-board-700 ring-board-200",
+  failed: "bg-signal-fault-soft text-signal-fault ring-signal-fault/30",
+  cancelled: "bg-paper-100 text-ink-500 ring-paper-300",
+};
+
+/** A solve that isn't finished (or failed): shown beside the title. */
+function StatusPill({ status }: { status: string }) {
+  return (
+    <span
+      className={cn(
+        "text-caption rounded-full px-2 py-0.5 ring-1 ring-inset",
+        STATUS[status] ?? STATUS.queued,
+      )}
+    >
+      {status}
+    </span>
   );
 }
 

@@ -39,6 +39,8 @@ describe("solveWork = points × (1 + samples + variants)", () => {
     const c = circuit(net(`monte-carlo ${MAX_MC_INLINE_SAMPLES + 1}`, "sweep at 1kHz, 2kHz"));
     expect(solveWork(c)).toBeLessThan(MAX_INLINE_WORK);
     expect(shouldQueue(c)).toBe(true);
-    expect(shouldQueue(circuit(net(`monte-carlo ${MAX_MC_INLINE_SAMPLES}`, "sweep at 1kHz, 2kHz")))).toBe(false);
+    expect(shouldQueue(circuit(net(`monte-carlo ${MAX_MC_INLINE_SAMPLES}`, "sweep at 1kHz, 2kHz")))).toBe(
+      false,
+    );
   });
 });

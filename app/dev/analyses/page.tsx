@@ -2,6 +2,7 @@ import { notFound } from "next/navigation";
 import { AnalysesPanel } from "@/components/analyses/analyses-panel";
 import { Panel, PanelHeader } from "@/components/ui/panel";
 import { solveNetlist } from "@/solver";
+import { SnapDemo } from "./snap-demo";
 
 export const dynamic = "force-dynamic";
 
@@ -30,11 +31,24 @@ poles
 sensitivity f0
 `;
 
-export default function AnalysesScratchPage() {
+export default async function AnalysesScratchPage({
+  searchParams,
+}: {
+  searchParams: Promise<{ job?: string; status?: string }>;
+}) {
   if (process.env.NODE_ENV === "production") notFound();
+  const { job, status } = await searchParams;
   const result = solveNetlist(NETLIST);
   return (
     <main className="mx-auto max-w-6xl space-y-6 px-4 py-8">
+      {job ? (
+        <Panel>
+          <PanelHeader title="A queued run" description={`GET /api/runs/${job}/job, polled every second`} />
+          <div className="p-5">
+            <AnalysesPanel result={null} runId={job} status={status ?? "queued"} />
+          </div>
+        </Panel>
+      ) : null}
       <Panel>
         <PanelHeader
           title="Analyses (development preview)"
@@ -46,6 +60,12 @@ export default function AnalysesScratchPage() {
           ) : (
             <pre className="text-signal-fault text-sm">{JSON.stringify(result.errors, null, 2)}</pre>
           )}
+        </div>
+      </Panel>
+      <Panel>
+        <PanelHeader title="Standard parts helper" description="components/editor/snap-helper.tsx" />
+        <div className="p-5">
+          <SnapDemo />
         </div>
       </Panel>
     </main>

@@ -9,7 +9,8 @@ import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
 import { RoleBadge } from "@/components/ui/role-badge";
 import { NotFoundError } from "@/lib/errors";
 import { listMeasurements } from "@/lib/measurements";
-import { getProjectOverview, listRuns } from "@/lib/runs";
+import { getProjectOverview } from "@/lib/project-overview";
+import { listRuns } from "@/lib/runs";
 import { requireUser } from "@/lib/session";
 import { parseRunListQuery } from "@/lib/validations/run";
 

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { AnalysesPanel } from "@/components/analyses/analyses-panel";
 import { ReviewActions } from "@/components/review/review-actions";
 import { ReviewHistory } from "@/components/review/review-history";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
@@ -33,6 +34,32 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
   const measurements = await listMeasurements(actor, run.projectId);
   const result = run.result;
   const plotId = `run-plot-${run.id.slice(0, 8)}`;
+  const hasAnalyses =
+    run.status === "queued" ||
+    run.status === "running" ||
+    Boolean(
+      result &&
+        (result.poles?.length ||
+          result.variants?.length ||
+          result.monteCarlo ||
+          result.sensitivity?.length ||
+          result.traces.some((t) => t.kind === "loop")),
+    );
+  const reviewPanel = (
+    <Panel aria-labelledby="review-h">
+      <PanelHeader id="review-h" title="Review" />
+      <div className="space-y-5 p-4">
+        <ReviewActions
+          runId={run.id}
+          reviewState={run.reviewState}
+          isAuthor={run.authorId === actor.userId}
+          canRequest={run.permissions.requestReview}
+          canReview={run.permissions.review}
+        />
+        <ReviewHistory events={run.reviewEvents} />
+      </div>
+    </Panel>
+  );
   return (
     <div className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
       <nav aria-label="Breadcrumb" className="text-ink-500 mb-2 text-sm">
@@ -95,13 +122,32 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             measurements={measurements.slice(0, 4).map((m) => ({ name: `bench: ${m.name}`, ...m.data }))}
             comments={comments}
             canComment={run.permissions.comment}
+            aside={reviewPanel}
           />
         </>
-      ) : (
+      ) : run.status === "queued" || run.status === "running" ? null : (
         <Notice tone="warn" title="This run has no result.">
           Its status is “{run.status}”.
         </Notice>
       )}
+
+      {hasAnalyses ? (
+        <Panel aria-labelledby="analyses-h" className="mt-6">
+          <PanelHeader
+            id="analyses-h"
+            title="Analyses"
+            description="Solve progress and the studies beyond one sweep."
+          />
+          <div className="p-4 sm:p-5">
+            <AnalysesPanel
+              result={result}
+              runId={run.id}
+              status={run.status}
+              canCancel={run.permissions.createRun}
+            />
+          </div>
+        </Panel>
+      ) : null}
 
       <div className="mt-6 grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-6">
@@ -125,19 +171,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
           </Panel>
         </div>
         <div className="space-y-6">
-          <Panel aria-labelledby="review-h">
-            <PanelHeader id="review-h" title="Review" />
-            <div className="space-y-5 p-4">
-              <ReviewActions
-                runId={run.id}
-                reviewState={run.reviewState}
-                isAuthor={run.authorId === actor.userId}
-                canRequest={run.permissions.requestReview}
-                canReview={run.permissions.review}
-              />
-              <ReviewHistory events={run.reviewEvents} />
-            </div>
-          </Panel>
+          {result ? null : reviewPanel}
           <Caution />
         </div>
       </div>
