@@ -8,7 +8,7 @@ import type { PgBoss } from "pg-boss";
 import { QueryTypes } from "sequelize";
 import { Run, sequelize } from "@/lib/db";
 import { getBoss, RUN_SOLVE_QUEUE, type RunJobState, type RunSolveJobData } from "@/lib/jobs";
-import { MAX_QUEUED_SAMPLES, MAX_SAVED_POINTS } from "@/lib/limits";
+import { JOB_EXPIRE_SECONDS, MAX_QUEUED_SAMPLES, MAX_SAVED_POINTS } from "@/lib/limits";
 import { solveNetlistParallel } from "@/solver/parallel";
 
 /** Least time between two progress writes of one job, in ms. */
@@ -30,7 +30,8 @@ class Cancelled extends Error {}
  */
 export async function solveQueuedRun(runId: string, options: SolveJobOptions = {}): Promise<RunJobState> {
   const claimed = await sequelize.query<{ run_id: string }>(
-    `UPDATE run_jobs SET state = 'running', started_at = now(), worker = :worker, updated_at = now()
+    `UPDATE run_jobs SET state = 'running', started_at = now(), worker = :worker, updated_at = now(),
+       attempts = attempts + 1
      WHERE run_id = :runId AND state = 'queued' AND NOT cancel_requested RETURNING run_id`,
     { replacements: { runId, worker: `${hostname()}:${process.pid}` }, type: QueryTypes.SELECT },
   );
@@ -104,6 +105,15 @@ export async function solveQueuedRun(runId: string, options: SolveJobOptions = {
     return finish(runId, "ok", null);
   } catch (error) {
     await writing.catch(() => undefined);
+    if (!(error instanceof Cancelled) && options.signal?.aborted) {
+      // The queue stopped this worker (shutdown or expiry): leave the job to recoverStaleJobs,
+      // which puts it back on the queue at once (updated_at in the past).
+      await sequelize.query(
+        "UPDATE run_jobs SET updated_at = 'epoch' WHERE run_id = :runId AND state = 'running'",
+        { replacements: { runId } },
+      );
+      return "running";
+    }
     const cancelled = error instanceof Cancelled;
     await Run.update({ status: cancelled ? "cancelled" : "failed" }, { where: { id: runId } });
     const message = error instanceof Error ? error.message : String(error);
@@ -121,6 +131,56 @@ async function finish(runId: string, state: RunJobState, error: string | null): 
     { replacements: { runId, state, error } },
   );
   return state;
+}
+
+/** A running job with no progress write for this long is taken to have lost its worker. */
+export const STALE_JOB_SECONDS = 5 * 60;
+/** Attempts after which an interrupted solve is failed instead of queued again. */
+export const MAX_JOB_ATTEMPTS = 3;
+
+/**
+ * Put back on the queue the runs whose worker disappeared (a 'running' job with no progress
+ * write for STALE_JOB_SECONDS, or one stopped by the queue); after MAX_JOB_ATTEMPTS they fail.
+ * Every worker calls this at start and every 30 s. Returns the run ids queued again.
+ */
+export async function recoverStaleJobs(staleSeconds = STALE_JOB_SECONDS): Promise<string[]> {
+  const failed = await sequelize.query<{ run_id: string }>(
+    `UPDATE run_jobs SET state = 'failed', finished_at = now(), updated_at = now(),
+       error = 'the solve was interrupted ' || attempts || ' times; save the run again to retry'
+     WHERE state = 'running' AND updated_at < now() - make_interval(secs => :stale)
+       AND attempts >= :max RETURNING run_id`,
+    { replacements: { stale: staleSeconds, max: MAX_JOB_ATTEMPTS }, type: QueryTypes.SELECT },
+  );
+  for (const r of failed)
+    await Run.update({ status: "failed" }, { where: { id: r.run_id, status: "running" } });
+  const stale = await sequelize.query<{ run_id: string }>(
+    `UPDATE run_jobs SET state = 'queued', progress = 0, started_at = NULL, worker = NULL, updated_at = now()
+     WHERE state = 'running' AND updated_at < now() - make_interval(secs => :stale)
+       AND attempts < :max AND NOT cancel_requested RETURNING run_id`,
+    { replacements: { stale: staleSeconds, max: MAX_JOB_ATTEMPTS }, type: QueryTypes.SELECT },
+  );
+  const requeued: string[] = [];
+  for (const r of stale) {
+    await Run.update({ status: "queued" }, { where: { id: r.run_id } });
+    const boss = await getBoss({ worker: true });
+    const jobId = await boss.send(RUN_SOLVE_QUEUE, { runId: r.run_id } satisfies RunSolveJobData, {
+      retryLimit: 0,
+      expireInSeconds: JOB_EXPIRE_SECONDS,
+    });
+    await sequelize.query("UPDATE run_jobs SET job_id = :jobId WHERE run_id = :runId", {
+      replacements: { jobId, runId: r.run_id },
+    });
+    requeued.push(r.run_id);
+  }
+  // A cancel requested while the worker was gone: finish it as cancelled.
+  const cancelled = await sequelize.query<{ run_id: string }>(
+    `UPDATE run_jobs SET state = 'cancelled', finished_at = now(), updated_at = now()
+     WHERE state = 'running' AND cancel_requested AND updated_at < now() - make_interval(secs => :stale)
+     RETURNING run_id`,
+    { replacements: { stale: staleSeconds }, type: QueryTypes.SELECT },
+  );
+  for (const r of cancelled) await Run.update({ status: "cancelled" }, { where: { id: r.run_id } });
+  return requeued;
 }
 
 /**
@@ -141,5 +201,14 @@ export async function startRunSolveWorker(
       }
     },
   );
+  const recover = () =>
+    recoverStaleJobs().then(
+      (ids) => ids.length > 0 && console.log(`[worker] queued again: ${ids.join(", ")}`),
+      (error) => console.error("[worker] recovering stale jobs failed:", error),
+    );
+  await recover();
+  const timer = setInterval(() => void recover(), 30_000);
+  timer.unref();
+  boss.once("stopped", () => clearInterval(timer));
   return { boss, workerId };
 }

@@ -15,9 +15,10 @@ import type { PgBoss } from "pg-boss";
 import { QueryTypes } from "sequelize";
 import { sequelize } from "@/lib/db";
 import { env } from "@/lib/env";
-import { JOB_EXPIRE_SECONDS, MAX_INLINE_WORK, MAX_MC_INLINE_SAMPLES } from "@/lib/limits";
+import { JOB_EXPIRE_SECONDS, MAX_INLINE_WORK, MAX_MC_INLINE_SAMPLES, MAX_QUEUED_SAMPLES } from "@/lib/limits";
+import { analyze, compile, SOLVER_VERSION } from "@/solver";
 import { sweepLength } from "@/solver/engine/sweep";
-import type { Circuit } from "@/solver/types";
+import type { Circuit, NetlistError } from "@/solver/types";
 
 export const RUN_SOLVE_QUEUE = "run-solve";
 export const PGBOSS_SCHEMA = "pgboss";
@@ -130,13 +131,20 @@ export async function enqueueRunSolve(runId: string): Promise<string> {
        error = NULL, started_at = NULL, finished_at = NULL, updated_at = now()`,
     { replacements: { runId } },
   );
-  const boss = await getBoss();
-  const data: RunSolveJobData = { runId };
-  const jobId = await boss.send(RUN_SOLVE_QUEUE, data, {
-    retryLimit: 0,
-    expireInSeconds: JOB_EXPIRE_SECONDS,
-  });
-  if (!jobId) throw new Error(`the queue refused the job of run ${runId}`);
+  let jobId: string | null = null;
+  try {
+    const boss = await getBoss();
+    const data: RunSolveJobData = { runId };
+    jobId = await boss.send(RUN_SOLVE_QUEUE, data, { retryLimit: 0, expireInSeconds: JOB_EXPIRE_SECONDS });
+    if (!jobId) throw new Error(`the queue refused the job of run ${runId}`);
+  } catch (error) {
+    await sequelize.query(
+      `UPDATE run_jobs SET state = 'failed', error = 'the job queue is not reachable', finished_at = now(),
+         updated_at = now() WHERE run_id = :runId`,
+      { replacements: { runId } },
+    );
+    throw error;
+  }
   await sequelize.query("UPDATE run_jobs SET job_id = :jobId, updated_at = now() WHERE run_id = :runId", {
     replacements: { runId, jobId },
   });
@@ -182,4 +190,34 @@ export async function cancelRunJob(runId: string): Promise<RunJobView | null> {
     }
   }
   return getRunJob(runId);
+}
+
+export type RunSolvePlan =
+  | { mode: "inline" }
+  | { mode: "queue"; solverVersion: string }
+  | { mode: "invalid"; errors: NetlistError[] };
+
+/**
+ * How `createRun` (lib/runs.ts) handles a netlist: solved in the request ("inline"), or saved as
+ * 'queued' for the worker ("queue") — then the netlist is compiled and its nominal sweep solved
+ * here (one sweep, no studies), so a netlist with errors still answers 422 at once ("invalid").
+ */
+export function planRunSolve(netlist: string, maxPoints: number): RunSolvePlan {
+  const compiled = compile(netlist);
+  if (!compiled.ok || !shouldQueue(compiled.circuit)) return { mode: "inline" };
+  const mc = compiled.circuit.monteCarlo;
+  if (mc && mc.samples > MAX_QUEUED_SAMPLES) {
+    return {
+      mode: "invalid",
+      errors: [
+        {
+          ...mc.span,
+          message: `monte-carlo asks for ${mc.samples} samples; a saved run may have at most ${MAX_QUEUED_SAMPLES}`,
+        },
+      ],
+    };
+  }
+  const nominal = analyze(compiled.circuit, compiled.warnings, { maxPoints });
+  if (!nominal.ok) return { mode: "invalid", errors: nominal.errors };
+  return { mode: "queue", solverVersion: SOLVER_VERSION };
 }

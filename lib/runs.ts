@@ -3,6 +3,7 @@ import { Op, type Order, type WhereOptions } from "sequelize";
 import { type Action, authorizeProject, authorizeRun, can } from "@/lib/authz";
 import { Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
 import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
+import { enqueueRunSolve, planRunSolve } from "@/lib/jobs";
 import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
 import type { RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
@@ -62,6 +63,16 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
       });
     }
   }
+  // Job queue (issue 5, lib/jobs.ts): a large study (over MAX_INLINE_WORK in lib/limits.ts) is
+  // checked here, saved as 'queued' without a result and solved by `npm run worker`.
+  const plan = planRunSolve(input.netlist, MAX_SAVED_POINTS);
+  if (plan.mode === "invalid") {
+    const n = plan.errors.length;
+    throw new NetlistInvalidError(`The netlist has ${n} error${n === 1 ? "" : "s"}; nothing was saved.`, {
+      errors: plan.errors,
+    });
+  }
+  if (plan.mode === "queue") return createQueuedRun(actor, projectId, input, plan.solverVersion);
   const started = performance.now();
   const result = solveNetlist(input.netlist, { maxPoints: MAX_SAVED_POINTS });
   const solveMs = performance.now() - started;
@@ -115,6 +126,57 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
       return created;
     }),
   );
+  return { ...toSummary(run), authorName: actor.name };
+}
+
+/**
+ * Job queue (issue 5): save a run as 'queued' (no result yet) with its supersede event, then put
+ * it on the queue (lib/jobs.ts). If the queue cannot take it, the run is marked 'failed'.
+ */
+async function createQueuedRun(
+  actor: Actor,
+  projectId: string,
+  input: RunCreateInput,
+  solverVersion: string,
+): Promise<RunSummary> {
+  const run = await withDb(() =>
+    sequelize.transaction(async (transaction) => {
+      const created = await Run.create(
+        {
+          projectId,
+          authorId: actor.userId,
+          title: input.title,
+          netlist: input.netlist,
+          netlistHash: sha256Hex(input.netlist),
+          solverVersion,
+          status: "queued",
+          reviewState: "draft",
+          result: null,
+          supersedesId: input.supersedesId ?? null,
+        },
+        { transaction },
+      );
+      if (input.supersedesId) {
+        await ReviewEvent.create(
+          {
+            runId: input.supersedesId,
+            actorId: actor.userId,
+            action: "supersede",
+            note: `Superseded by "${input.title}".`,
+          },
+          { transaction },
+        );
+      }
+      return created;
+    }),
+  );
+  try {
+    await enqueueRunSolve(run.id);
+  } catch (error) {
+    console.error("[runs] the job queue did not take run", run.id, error);
+    await withDb(() => Run.update({ status: "failed" }, { where: { id: run.id } }));
+    run.status = "failed";
+  }
   return { ...toSummary(run), authorName: actor.name };
 }
 

@@ -20,6 +20,7 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
         },
         progress: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
         cancel_requested: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
+        attempts: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         error: { type: DataTypes.TEXT, allowNull: true },
         worker: { type: DataTypes.STRING(200), allowNull: true },
         started_at: { type: DataTypes.DATE, allowNull: true },
@@ -28,7 +29,10 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
       },
       { transaction },
     );
-    await qi.addIndex("run_jobs", ["state"], { name: "run_jobs_state", transaction });
+    await qi.addIndex("run_jobs", ["state", "updated_at"], {
+      name: "run_jobs_state_updated_at",
+      transaction,
+    });
   });
 };
 

@@ -1,6 +1,6 @@
 import { createHash } from "node:crypto";
 import type { Transaction } from "sequelize";
-import { Comment, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
 import { solveNetlist } from "@/solver";
 import { LOWPASS_STAGE2, PILOT_NOTCH, WIEN_1K, WIEN_REV_A, WIEN_REV_B } from "./demo/netlists";
 import type { DemoSeed } from "./seed";
@@ -119,6 +119,8 @@ async function seedOscillator(t: Transaction, project: Project, users: SeedUsers
     await backdate(t, "review_events", e.id, days);
   }
 
+  await seedBenchSweep(t, project, designer, revA);
+
   const f0 = measure(revA, "f0");
   const pinned = await Comment.create(
     {
@@ -150,6 +152,38 @@ async function seedOscillator(t: Transaction, project: Project, users: SeedUsers
     { transaction: t },
   );
   await backdate(t, "comments", open.id, 3);
+}
+
+/**
+ * Invented bench data for the demo: the rev A bridge response read every fourth point, as if measured
+ * on a board whose parts sit 1.5 % high (so the curve lands a little below the simulated one), with a
+ * small fixed ripple standing in for measurement noise.
+ */
+async function seedBenchSweep(t: Transaction, project: Project, uploader: User, run: Run): Promise<void> {
+  const result = run.result as {
+    frequencies: number[];
+    traces: { name: string; magnitudeDb: number[]; phaseDeg: number[] }[];
+  };
+  const bridge = result.traces.find((tr) => tr.name === "bridge");
+  if (!bridge) return;
+  const data = { frequencies: [] as number[], magnitudeDb: [] as number[], phaseDeg: [] as number[] };
+  for (let k = 0; k < result.frequencies.length; k += 4) {
+    const ripple = 0.05 * Math.sin(k * 1.7);
+    data.frequencies.push(Number(((result.frequencies[k] ?? 0) * 1.015).toPrecision(6)));
+    data.magnitudeDb.push(Number(((bridge.magnitudeDb[k] ?? 0) + ripple).toFixed(3)));
+    data.phaseDeg.push(Number(((bridge.phaseDeg[k] ?? 0) + 4 * ripple).toFixed(2)));
+  }
+  const m = await Measurement.create(
+    {
+      projectId: project.id,
+      uploadedById: uploader.id,
+      name: "Board 2 bench sweep",
+      data,
+      points: data.frequencies.length,
+    },
+    { transaction: t },
+  );
+  await backdate(t, "measurements", m.id, 8);
 }
 
 async function seedFilter(t: Transaction, project: Project, users: SeedUsers): Promise<void> {

@@ -1,6 +1,7 @@
 "use client";
 
 import { useId, useMemo, useState } from "react";
+import { formatQuantity } from "@/components/run/format";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import {
@@ -218,7 +219,9 @@ export function SnapHelper({
                 <tr key={`${p.r}|${p.c}`} className="border-paper-100 border-b last:border-0">
                   <td className="py-1 pr-2 font-mono">{netlistNumber(p.r)}</td>
                   <td className="py-1 pr-2 font-mono">{netlistNumber(p.c)}</td>
-                  <td className="py-1 pr-2 text-right tabular-nums">{netlistNumber(p.frequencyHz)}Hz</td>
+                  <td className="py-1 pr-2 text-right tabular-nums">
+                    {formatQuantity(p.frequencyHz, "Hz", 5)}
+                  </td>
                   <td
                     className={`py-1 pr-2 text-right tabular-nums ${
                       Math.abs(p.errorPct) < 1

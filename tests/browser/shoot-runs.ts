@@ -14,9 +14,8 @@ async function main(): Promise<void> {
     const projectId = await openProject(page, "Reference oscillator board");
     await page.getByRole("heading", { name: "Runs" }).waitFor();
     await page.screenshot({ path: `${out}/project-${size}.png`, fullPage: true });
-    const runs = await page
-      .locator('a[href^="/runs/"]')
-      .evaluateAll((as) => as.map((a) => a.getAttribute("href")));
+    const hrefOf = (name: RegExp) => page.getByRole("link", { name }).first().getAttribute("href");
+    const [hrefA, hrefB] = [await hrefOf(/rev A/), await hrefOf(/rev B/)];
     const revA = page.getByRole("link", { name: /rev A/ }).first();
     await revA.click();
     await page.waitForURL(/\/runs\//);
@@ -24,8 +23,7 @@ async function main(): Promise<void> {
     await page.waitForTimeout(1200);
     await page.screenshot({ path: `${out}/run-${size}.png`, fullPage: true });
     await page.screenshot({ path: `${out}/run-top-${size}.png` });
-    const [a, b] = runs.filter(Boolean).slice(0, 2);
-    compareUrl ||= `/compare?a=${b}&b=${a}`.replaceAll("/runs/", "");
+    compareUrl ||= `/compare?a=${hrefA}&b=${hrefB}`.replaceAll("/runs/", "");
     await page.goto(compareUrl);
     await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
     await page.waitForTimeout(1200);

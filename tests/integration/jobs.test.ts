@@ -5,9 +5,10 @@
  */
 import { createHash } from "node:crypto";
 import { afterAll, beforeEach, describe, expect, it } from "vitest";
+import { POST as createRunRoute } from "@/app/api/projects/[id]/runs/route";
 import { DELETE as cancelRoute, GET as jobRoute } from "@/app/api/runs/[id]/job/route";
-import { Run } from "@/lib/db";
-import { solveQueuedRun, startRunSolveWorker } from "@/lib/job-runner";
+import { Run, sequelize } from "@/lib/db";
+import { recoverStaleJobs, solveQueuedRun, startRunSolveWorker } from "@/lib/job-runner";
 import {
   cancelRunJob,
   enqueueRunSolve,
@@ -17,6 +18,7 @@ import {
   shouldQueue,
   stopBoss,
 } from "@/lib/jobs";
+import { MAX_QUEUED_SAMPLES } from "@/lib/limits";
 import { compile, type SolveSuccess } from "@/solver";
 import { stopSampleWorkers } from "@/solver/parallel";
 import { call, tokensFor, type Who } from "./runs-fixtures";
@@ -158,6 +160,77 @@ describe("a queued run", () => {
     expect(job?.error).toMatch(/^line 2, column \d+: /);
     await run.reload();
     expect(run.status).toBe("failed");
+  });
+});
+
+describe("recoverStaleJobs", () => {
+  it("queues again a running job whose worker stopped writing progress; fails it after 3 attempts", async () => {
+    const a = await queuedRun(mcNetlist(1000));
+    const b = await queuedRun(mcNetlist(1000));
+    const firstJob = await enqueueRunSolve(a.id);
+    await enqueueRunSolve(b.id);
+    await sequelize.query(
+      `UPDATE run_jobs SET state = 'running', attempts = CASE WHEN run_id = :b THEN 3 ELSE 1 END,
+         updated_at = now() - interval '10 minutes'`,
+      { replacements: { b: b.id } },
+    );
+    await Run.update({ status: "running" }, { where: {} });
+    expect(await recoverStaleJobs()).toEqual([a.id]);
+    const ja = await getRunJob(a.id);
+    expect(ja).toMatchObject({ state: "queued", progress: 0 });
+    expect(ja!.jobId).not.toBe(firstJob);
+    expect((await Run.findByPk(a.id))!.status).toBe("queued");
+    const jb = await getRunJob(b.id);
+    expect(jb?.state).toBe("failed");
+    expect(jb?.error).toBe("the solve was interrupted 3 times; save the run again to retry");
+    expect((await Run.findByPk(b.id))!.status).toBe("failed");
+    // A fresh running job is left alone.
+    expect(await recoverStaleJobs()).toEqual([]);
+  });
+});
+
+describe("POST /api/projects/:id/runs with a large study", () => {
+  it("saves the run as 'queued' without a result and puts it on the queue", async () => {
+    const res = await call(createRunRoute, {
+      token: tokens.designer,
+      params: { id: fx.project.id },
+      body: { title: "big spread", netlist: mcNetlist(1000) },
+    });
+    expect(res.status).toBe(201);
+    expect(res.body.run).toMatchObject({ status: "queued", title: "big spread" });
+    const run = await Run.findByPk(res.body.run.id);
+    expect(run?.result).toBeNull();
+    const job = await getRunJob(res.body.run.id);
+    expect(job).toMatchObject({ state: "queued", progress: 0 });
+    expect(job?.jobId).toBeTruthy();
+    // Solved by a worker afterwards: the nominal fc is the closed form (CHECKS.md §1).
+    expect(await solveQueuedRun(res.body.run.id, { threads: 0 })).toBe("ok");
+    await run!.reload();
+    expect((run!.measures as { value: number }[])[0]!.value).toBeCloseTo(F0, 4);
+  }, 60_000);
+
+  it("a large study with errors answers 422 at once and saves nothing", async () => {
+    const res = await call(createRunRoute, {
+      token: tokens.designer,
+      params: { id: fx.project.id },
+      body: {
+        title: "bad",
+        netlist: mcNetlist(1000).replace("R1: resistor  in  out 10k", "R1: resistor  in  out 10q"),
+      },
+    });
+    expect(res.status).toBe(422);
+    expect(res.body.error.details.errors[0]).toMatchObject({ line: 3 });
+    expect(await Run.count()).toBe(0);
+  });
+
+  it("more samples than MAX_QUEUED_SAMPLES is a 422 on the monte-carlo line", async () => {
+    const res = await call(createRunRoute, {
+      token: tokens.designer,
+      params: { id: fx.project.id },
+      body: { title: "too many", netlist: mcNetlist(MAX_QUEUED_SAMPLES + 1) },
+    });
+    expect(res.status).toBe(422);
+    expect(res.body.error.details.errors[0]).toMatchObject({ line: 9 });
   });
 });
 

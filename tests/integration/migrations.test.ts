@@ -43,6 +43,7 @@ const ALL_TABLES = [
   "outbox_emails",
   "projects",
   "review_events",
+  "run_jobs",
   "runs",
   "teams",
   "users",
@@ -64,6 +65,7 @@ describe("migrations", () => {
       "202612021045-create-accounts",
       "202612021046-create-projects-runs",
       "202612021047-create-outbox-emails",
+      "202612021130-create-run-jobs",
     ]);
   });
 
@@ -125,18 +127,28 @@ describe("migrations", () => {
     expect(columns.id).toBe("gen_random_uuid()");
   });
 
-  it("go down one step (dropping the outbox and its enum) and up again", async () => {
+  it("go down one step (dropping the job table and its enum) and up again", async () => {
     const reverted = await migrator.down({ step: 1 });
-    expect(reverted.map((m) => m.name)).toEqual(["202612021047-create-outbox-emails"]);
-    expect(await tables()).toEqual(ALL_TABLES.filter((t) => t !== "outbox_emails"));
-    const [types] = await sequelize.query(
-      "SELECT 1 FROM pg_type WHERE typname = 'enum_outbox_emails_status'",
-    );
+    expect(reverted.map((m) => m.name)).toEqual(["202612021130-create-run-jobs"]);
+    expect(await tables()).toEqual(ALL_TABLES.filter((t) => t !== "run_jobs"));
+    const [types] = await sequelize.query("SELECT 1 FROM pg_type WHERE typname = 'enum_run_jobs_state'");
     expect(types).toHaveLength(0);
-    expect((await migrator.pending()).map((m) => m.name)).toEqual(["202612021047-create-outbox-emails"]);
+    expect((await migrator.pending()).map((m) => m.name)).toEqual(["202612021130-create-run-jobs"]);
 
     const applied = await migrator.up();
-    expect(applied.map((m) => m.name)).toEqual(["202612021047-create-outbox-emails"]);
+    expect(applied.map((m) => m.name)).toEqual(["202612021130-create-run-jobs"]);
+    expect(await tables()).toEqual(ALL_TABLES);
+  });
+
+  it("revert every migration down to an empty schema, then apply them all again", async () => {
+    const all = (await migrator.executed()).map((m) => m.name);
+    const reverted = await migrator.down({ to: 0 });
+    expect(reverted.map((m) => m.name)).toEqual([...all].reverse());
+    expect(await tables()).toEqual(["SequelizeMeta"]);
+    const [types] = await sequelize.query("SELECT typname FROM pg_type WHERE typname LIKE 'enum_%'");
+    expect(types).toEqual([]);
+
+    await migrator.up();
     expect(await tables()).toEqual(ALL_TABLES);
     const [defaults] = await sequelize.query(
       `INSERT INTO outbox_emails ("to", subject, text) VALUES ('a@b.test', 's', 't')

@@ -190,6 +190,16 @@ describe("GET /api/projects/:id/runs", () => {
     expect(page2.body.runs[0].measures).toEqual([{ name: "fc", value: 1000, unit: "Hz", reason: null }]);
     expect(page2.body.runs[0]).not.toHaveProperty("result");
 
+    const byAuthor = await list("sort=author&dir=asc");
+    expect(byAuthor.body.runs.map((r: { authorName: string }) => r.authorName)).toEqual([
+      "Fixture designer",
+      "Fixture designer",
+      "Fixture owner",
+    ]);
+    await Run.update({ checksPassed: 0 }, { where: { title: "Bravo notch" } });
+    const byChecks = await list("sort=checksPassed&dir=asc");
+    expect(byChecks.body.runs[0].title).toBe("Bravo notch");
+
     const bad = await list("sort=colour&pageSize=1000");
     expect(bad.status).toBe(400);
     expect(Object.keys(bad.body.error.details.fields).sort()).toEqual(["pageSize", "sort"]);
