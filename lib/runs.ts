@@ -1,5 +1,5 @@
 import { createHash } from "node:crypto";
-import { Op, type Order, type WhereOptions } from "sequelize";
+import { type InferCreationAttributes, Op, type Order, type WhereOptions } from "sequelize";
 import { type Action, authorizeProject, authorizeRun, can } from "@/lib/authz";
 import { Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
 import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
@@ -9,7 +9,7 @@ import type { RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
 import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
 import { solveNetlist } from "@/solver";
-import type { CheckResult, MeasureResult, SolveSuccess } from "@/solver/types";
+import type { CheckResult, MeasureResult, NetlistError, SolveSuccess } from "@/solver/types";
 
 export type { ReviewEventView, ReviewStateName, RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 
@@ -63,25 +63,16 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
       });
     }
   }
-  // Job queue (issue 5, lib/jobs.ts): a large study (over MAX_INLINE_WORK in lib/limits.ts) is
-  // checked here, saved as 'queued' without a result and solved by `npm run worker`.
+  // Job queue (lib/jobs.ts): a large study (over MAX_INLINE_WORK in lib/limits.ts) is checked
+  // here, saved as 'queued' without a result and solved by `npm run worker`.
   const plan = planRunSolve(input.netlist, MAX_SAVED_POINTS);
-  if (plan.mode === "invalid") {
-    const n = plan.errors.length;
-    throw new NetlistInvalidError(`The netlist has ${n} error${n === 1 ? "" : "s"}; nothing was saved.`, {
-      errors: plan.errors,
-    });
-  }
+  if (plan.mode === "invalid") throw invalid(plan.errors);
   if (plan.mode === "queue") return createQueuedRun(actor, projectId, input, plan.solverVersion);
+
   const started = performance.now();
   const result = solveNetlist(input.netlist, { maxPoints: MAX_SAVED_POINTS });
   const solveMs = performance.now() - started;
-  if (!result.ok) {
-    const n = result.errors.length;
-    throw new NetlistInvalidError(`The netlist has ${n} error${n === 1 ? "" : "s"}; nothing was saved.`, {
-      errors: result.errors,
-    });
-  }
+  if (!result.ok) throw invalid(result.errors);
   if (result.stats.points > MAX_SAVED_POINTS) {
     throw new TooLargeError(
       `The sweep has ${result.stats.points} points; a saved run may have ${MAX_SAVED_POINTS}.`,
@@ -90,7 +81,39 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
       },
     );
   }
-  const run = await withDb(() =>
+  const run = await saveRun(actor, projectId, input, {
+    solverVersion: result.solverVersion,
+    status: "ok",
+    result,
+    measures: result.measures,
+    checks: result.checks,
+    checksPassed: result.checks.filter((c) => c.pass).length,
+    checksTotal: result.checks.length,
+    timings: { solveMs: round3(solveMs), engineMs: result.stats.solveMs },
+  });
+  return { ...toSummary(run), authorName: actor.name };
+}
+
+function invalid(errors: NetlistError[]): NetlistInvalidError {
+  const n = errors.length;
+  return new NetlistInvalidError(`The netlist has ${n} error${n === 1 ? "" : "s"}; nothing was saved.`, {
+    errors,
+  });
+}
+
+type RunOutcome = Pick<
+  InferCreationAttributes<Run>,
+  "solverVersion" | "status" | "result" | "measures" | "checks" | "checksPassed" | "checksTotal" | "timings"
+>;
+
+/** Writes the run and, when it supersedes an earlier run, that run's "supersede" event: one transaction. */
+async function saveRun(
+  actor: Actor,
+  projectId: string,
+  input: RunCreateInput,
+  outcome: RunOutcome,
+): Promise<Run> {
+  return withDb(() =>
     sequelize.transaction(async (transaction) => {
       const created = await Run.create(
         {
@@ -99,16 +122,9 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
           title: input.title,
           netlist: input.netlist,
           netlistHash: sha256Hex(input.netlist),
-          solverVersion: result.solverVersion,
-          status: "ok",
           reviewState: "draft",
-          result,
-          measures: result.measures,
-          checks: result.checks,
-          checksPassed: result.checks.filter((c) => c.pass).length,
-          checksTotal: result.checks.length,
-          timings: { solveMs: round3(solveMs), engineMs: result.stats.solveMs },
           supersedesId: input.supersedesId ?? null,
+          ...outcome,
         },
         { transaction },
       );
@@ -126,7 +142,6 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
       return created;
     }),
   );
-  return { ...toSummary(run), authorName: actor.name };
 }
 
 /**
@@ -139,37 +154,16 @@ async function createQueuedRun(
   input: RunCreateInput,
   solverVersion: string,
 ): Promise<RunSummary> {
-  const run = await withDb(() =>
-    sequelize.transaction(async (transaction) => {
-      const created = await Run.create(
-        {
-          projectId,
-          authorId: actor.userId,
-          title: input.title,
-          netlist: input.netlist,
-          netlistHash: sha256Hex(input.netlist),
-          solverVersion,
-          status: "queued",
-          reviewState: "draft",
-          result: null,
-          supersedesId: input.supersedesId ?? null,
-        },
-        { transaction },
-      );
-      if (input.supersedesId) {
-        await ReviewEvent.create(
-          {
-            runId: input.supersedesId,
-            actorId: actor.userId,
-            action: "supersede",
-            note: `Superseded by "${input.title}".`,
-          },
-          { transaction },
-        );
-      }
-      return created;
-    }),
-  );
+  const run = await saveRun(actor, projectId, input, {
+    solverVersion,
+    status: "queued",
+    result: null,
+    measures: null,
+    checks: null,
+    checksPassed: null,
+    checksTotal: null,
+    timings: null,
+  });
   try {
     await enqueueRunSolve(run.id);
   } catch (error) {

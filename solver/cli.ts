@@ -3,8 +3,10 @@
  * Prints a readable summary, the JSON result, or the traces as CSV.
  * Exit codes: 0 solved, 2 netlist errors (printed as FILE:line:col: message (hint)), 1 anything else.
  */
+
 import { readFileSync } from "node:fs";
 import path from "node:path";
+import { resultToCsv } from "./csv";
 import { solveNetlist } from "./index";
 import type { SolveResult, SolveSuccess } from "./types";
 
@@ -55,25 +57,7 @@ export function formatSi(value: number, unit: string): string {
   return `${Number((value / scale).toPrecision(6))} ${prefix}${unit}`;
 }
 
-function csvField(text: string): string {
-  return /[",\n]/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
-}
-
 /** The traces as CSV: frequency, then re, im, dB, deg of each trace. */
-export function toCsv(result: SolveSuccess): string {
-  const header = ["frequency_Hz"];
-  for (const t of result.traces)
-    header.push(...["re", "im", "dB", "deg"].map((c) => csvField(`${t.name} ${c}`)));
-  const rows = [header.join(",")];
-  result.frequencies.forEach((f, i) => {
-    const row = [String(f)];
-    for (const t of result.traces)
-      row.push(String(t.re[i]), String(t.im[i]), String(t.magnitudeDb[i]), String(t.phaseDeg[i]));
-    rows.push(row.join(","));
-  });
-  return `${rows.join("\n")}\n`;
-}
-
 /** The readable summary: title, measures, checks, studies, warnings, stats. */
 export function toSummary(r: SolveSuccess): string {
   const out: string[] = [r.title ?? "(untitled netlist)"];
@@ -167,7 +151,7 @@ export function run(args: string[], stdout: (s: string) => void, stderr: (s: str
     parsed.mode === "json"
       ? `${JSON.stringify(result, null, 2)}\n`
       : parsed.mode === "csv"
-        ? toCsv(result)
+        ? resultToCsv(result)
         : toSummary(result),
   );
   return 0;

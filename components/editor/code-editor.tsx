@@ -15,6 +15,8 @@ export interface CodeEditorHandle {
   replaceText(text: string): void;
   /** Moves the cursor to a line (and column) and focuses the editor. */
   revealLine(line: number, column?: number): void;
+  /** Inserts whole lines above the cursor's line as one undoable edit. */
+  insertLines(text: string): void;
   focus(): void;
 }
 
@@ -57,6 +59,18 @@ export const CodeEditor = forwardRef<CodeEditorHandle, CodeEditorProps>(function
       if (!editor) return;
       editor.revealLineInCenter(line);
       editor.setPosition({ lineNumber: line, column });
+      editor.focus();
+    },
+    insertLines(text) {
+      const editor = editorRef.current;
+      const line = editor?.getPosition()?.lineNumber ?? 1;
+      if (!editor) return;
+      const body = text.endsWith("\n") ? text : `${text}\n`;
+      editor.pushUndoStop();
+      editor.executeEdits("insert", [
+        { range: { startLineNumber: line, startColumn: 1, endLineNumber: line, endColumn: 1 }, text: body },
+      ]);
+      editor.pushUndoStop();
       editor.focus();
     },
     focus() {

@@ -10,6 +10,7 @@ import { CodeEditor, type CodeEditorHandle } from "./code-editor";
 import { ExamplePicker, type NetlistExample } from "./example-picker";
 import { PreviewPanel } from "./preview-panel";
 import { SaveRunForm } from "./save-run-form";
+import { SnapHelper } from "./snap-helper";
 import { useLiveSolve } from "./use-live-solve";
 
 export interface NetlistEditorProps {
@@ -167,6 +168,19 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
           onNetlistErrors={setSaveErrors}
           disabled={netlist.trim() === ""}
         />
+        <details className="rounded-panel border-paper-200 group border bg-white">
+          <summary className="text-ink-800 hover:bg-paper-50 rounded-panel cursor-pointer px-4 py-3 text-sm font-medium">
+            Standard parts for a target frequency (E-series R and C pairs)
+          </summary>
+          <div className="border-paper-200 border-t p-4">
+            <SnapHelper
+              onInsert={(text) => {
+                editorRef.current?.insertLines(text);
+                setNotice("Inserted the pair above the cursor. Undo (Ctrl+Z) takes it out again.");
+              }}
+            />
+          </div>
+        </details>
       </section>
 
       <section aria-labelledby="preview-heading" className="flex min-w-0 flex-col gap-3">

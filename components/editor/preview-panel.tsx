@@ -1,10 +1,10 @@
 "use client";
 
 import type { ReactNode } from "react";
+import { AnalysesPanel } from "@/components/analyses/analyses-panel";
 import { Caution } from "@/components/run/caution";
 import { CheckBadges } from "@/components/run/check-badges";
 import { MeasuresTable } from "@/components/run/measures-table";
-import { Studies } from "@/components/run/studies";
 import { WarningsList } from "@/components/run/warnings-list";
 import { cn } from "@/lib/utils";
 import type { NetlistError, SolveResult, SolveSuccess } from "@/solver/types";
@@ -102,7 +102,7 @@ export function PreviewPanel({
           </div>
         </div>
       ) : null}
-      {lastGood ? <Studies result={lastGood} /> : null}
+      {lastGood ? <AnalysesPanel result={lastGood} /> : null}
       <WarningsList
         warnings={(current ?? lastGood)?.warnings ?? []}
         onLineClick={(line) => onGoToLine(line)}

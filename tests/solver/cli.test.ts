@@ -113,8 +113,8 @@ describe("solved netlists", () => {
   it("--csv has a header and one row per frequency with re/im/dB/deg per trace", () => {
     const r = call([path.join(EXAMPLES, "twin-t-notch.pwn"), "--csv"]);
     expect(r.code).toBe(0);
-    const rows = r.out.trim().split("\n");
-    expect(rows[0]).toBe("frequency_Hz,H re,H im,H dB,H deg");
+    const rows = r.out.trim().split("\r\n");
+    expect(rows[0]).toBe("frequency_hz,H_re,H_im,H_db,H_deg");
     // 10 Hz … 100 kHz at 200 per decade: 4·200 + 1 = 801 points.
     expect(rows).toHaveLength(802);
     const [f, re, im, db] = rows[1]!.split(",").map(Number);

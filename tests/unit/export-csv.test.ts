@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { csvField, csvHeader, resultToCsv } from "@/lib/export-csv";
+import { csvField, csvHeader, resultToCsv } from "@/solver/csv";
 import type { TraceResult } from "@/solver/types";
 
 /** A trace from complex samples, with dB and degrees derived the usual way (common practice). */

@@ -1,8 +1,8 @@
 import { withApi } from "@/lib/api";
 import { NotFoundError } from "@/lib/errors";
-import { resultToCsv } from "@/lib/export-csv";
 import { getRun } from "@/lib/runs";
 import { requireActor } from "@/lib/session";
+import { resultToCsv } from "@/solver/csv";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";

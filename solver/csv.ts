@@ -1,4 +1,4 @@
-import type { SolveSuccess, TraceResult } from "@/solver/types";
+import type { SolveSuccess, TraceResult } from "./types";
 
 /** Quotes a CSV field when RFC 4180 requires it (comma, double quote, CR or LF inside). */
 export function csvField(value: string): string {
