@@ -7,6 +7,7 @@
 
 import { startRunSolveWorker } from "../lib/job-runner";
 import { stopBoss } from "../lib/jobs";
+import { startOutboxPump, stopOutboxPump } from "../lib/mail/outbox";
 import { startSampleWorkers, stopSampleWorkers } from "../solver/parallel";
 
 async function main(): Promise<void> {
@@ -14,6 +15,8 @@ async function main(): Promise<void> {
   // Start the sample threads now, so the first job does not wait for them.
   await startSampleWorkers(threads).catch((error) => console.warn("[worker] sample threads:", error));
   await startRunSolveWorker({ threads });
+  // Workers also send the e-mail outbox, so mail goes out even when no web server is running.
+  startOutboxPump();
   console.log(`[worker] pid ${process.pid} working the run-solve queue`);
   let stopping = false;
   const stop = async (signal: string) => {
@@ -21,6 +24,7 @@ async function main(): Promise<void> {
     stopping = true;
     console.log(`[worker] ${signal}: stopping`);
     try {
+      stopOutboxPump();
       await stopBoss({ graceful: true, timeout: 30_000 });
       await stopSampleWorkers();
       const { sequelize } = await import("../lib/db");

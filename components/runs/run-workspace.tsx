@@ -69,6 +69,7 @@ export function RunWorkspace(props: RunWorkspaceProps) {
           <BodePlot
             plotId={plotId}
             exportName={exportName}
+            pngButton={false}
             frequencies={frequencies}
             traces={traces}
             measurements={measurements}
