@@ -9,6 +9,7 @@ import { QueryTypes } from "sequelize";
 import { Run, sequelize } from "@/lib/db";
 import { getBoss, RUN_SOLVE_QUEUE, type RunJobState, type RunSolveJobData } from "@/lib/jobs";
 import { JOB_EXPIRE_SECONDS, MAX_QUEUED_SAMPLES, MAX_SAVED_POINTS } from "@/lib/limits";
+import { compactResult } from "@/solver";
 import { solveNetlistParallel } from "@/solver/parallel";
 
 /** Least time between two progress writes of one job, in ms. */
@@ -93,7 +94,7 @@ export async function solveQueuedRun(runId: string, options: SolveJobOptions = {
       {
         status: "ok",
         solverVersion: result.solverVersion,
-        result,
+        result: compactResult(result),
         measures: result.measures,
         checks: result.checks,
         checksPassed: result.checks.filter((c) => c.pass).length,

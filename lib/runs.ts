@@ -8,8 +8,8 @@ import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
 import type { RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
 import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
-import { solveNetlist } from "@/solver";
-import type { CheckResult, MeasureResult, NetlistError, SolveSuccess } from "@/solver/types";
+import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
+import type { CheckResult, MeasureResult, NetlistError } from "@/solver/types";
 
 export type { ReviewEventView, ReviewStateName, RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 
@@ -84,7 +84,8 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
   const run = await saveRun(actor, projectId, input, {
     solverVersion: result.solverVersion,
     status: "ok",
-    result,
+    // Stored as re/im only (solver/stored.ts); getRun rebuilds the dB and degree columns.
+    result: compactResult(result),
     measures: result.measures,
     checks: result.checks,
     checksPassed: result.checks.filter((c) => c.pass).length,
@@ -256,7 +257,7 @@ export async function getRun(actor: Actor, runId: string, action: Action = "run:
         order: [["createdAt", "ASC"]],
       }),
     ]);
-    const result = (run.result ?? null) as SolveSuccess | null;
+    const result = run.result ? expandResult(run.result as StoredResult) : null;
     return {
       ...toSummary(run),
       netlist: run.netlist,

@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import type { Transaction } from "sequelize";
 import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
-import { solveNetlist } from "@/solver";
+import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
 import { LOWPASS_STAGE2, PILOT_NOTCH, WIEN_1K, WIEN_REV_A, WIEN_REV_B } from "./demo/netlists";
 import type { DemoSeed } from "./seed";
 
@@ -32,7 +32,7 @@ async function saveRun(
       solverVersion: result.solverVersion,
       status: "ok",
       reviewState: extra.reviewState ?? "draft",
-      result,
+      result: compactResult(result),
       measures: result.measures,
       checks: result.checks,
       checksPassed: result.checks.filter((c) => c.pass).length,
@@ -160,10 +160,7 @@ async function seedOscillator(t: Transaction, project: Project, users: SeedUsers
  * small fixed ripple standing in for measurement noise.
  */
 async function seedBenchSweep(t: Transaction, project: Project, uploader: User, run: Run): Promise<void> {
-  const result = run.result as {
-    frequencies: number[];
-    traces: { name: string; magnitudeDb: number[]; phaseDeg: number[] }[];
-  };
+  const result = expandResult(run.result as StoredResult);
   const bridge = result.traces.find((tr) => tr.name === "bridge");
   if (!bridge) return;
   const data = { frequencies: [] as number[], magnitudeDb: [] as number[], phaseDeg: [] as number[] };

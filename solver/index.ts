@@ -13,6 +13,7 @@ import type { SolveResult } from "./types";
 export { type AnalyzeOptions, analyze } from "./engine";
 export { SparseComplexLU } from "./engine/sparse-lu";
 export { type CompileOverrides, type CompileResult, compile, parse, snap } from "./lang";
+export { compactResult, expandResult, type StoredResult } from "./stored";
 export * from "./types";
 
 /** Version of the solver, reported in every result. */

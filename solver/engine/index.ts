@@ -17,8 +17,9 @@ import { buildLoop, cutNodeName } from "./loops";
 import { computeMeasures } from "./measures";
 import { buildMna, type MnaSystem } from "./mna";
 import { evalProbe, probeProblem } from "./probes";
-import { deg, type TraceSampler } from "./refine";
+import type { TraceSampler } from "./refine";
 import { sweepFrequencies } from "./sweep";
+import { makeTrace } from "./trace";
 
 export const ENGINE_VERSION = "1.0.0";
 
@@ -27,9 +28,6 @@ export interface AnalyzeOptions {
   /** Refuse sweeps with more points than this (the service's per-request limit). */
   maxPoints?: number;
 }
-
-/** |X| below this is reported as this (−600 dB), so the JSON never holds −Infinity. */
-const MAG_FLOOR = 1e-30;
 
 const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
   line: span?.line ?? 1,
@@ -218,14 +216,7 @@ export function sweepCircuit(
           errors: [spanError(tr.span, `${tr.name}: the probe divides by zero somewhere in the sweep`)],
         };
       }
-      traces.push({
-        name: tr.name,
-        kind: tr.kind,
-        re,
-        im,
-        magnitudeDb: re.map((x, k) => 20 * Math.log10(Math.max(Math.hypot(x, im[k]!), MAG_FLOOR))),
-        phaseDeg: re.map((x, k) => deg(x, im[k]!)),
-      });
+      traces.push(makeTrace(tr.name, tr.kind, re, im));
       samplers.set(tr.name, sampler(run, tr.name, tr.probe, freqs, re, im));
     }
   }

@@ -34,6 +34,35 @@ describe("solver entry", () => {
     expect(typeof solver.snap).toBe("function");
     expect(solver.SOLVER_VERSION).toMatch(/^\d+\.\d+\.\d+$/);
     expect(solver.GROUND).toBe("gnd");
+    expect(Object.keys(solver).sort()).toEqual(
+      [
+        "GROUND",
+        "SOLVER_VERSION",
+        "SparseComplexLU",
+        "analyze",
+        "compactResult",
+        "compile",
+        "expandResult",
+        "parse",
+        "snap",
+        "solveNetlist",
+      ].sort(),
+    );
+  });
+
+  it("stores a result as re/im only and reads it back identical, variants included", () => {
+    const r = solveNetlist(`${EXAMPLE}\nvary Rf over 22k, 24k, 26k\n`);
+    if (!r.ok) throw new Error(JSON.stringify(r.errors));
+    expect(r.variants).toHaveLength(3);
+    const stored = solver.compactResult(r);
+    expect(stored.traces[0]).not.toHaveProperty("magnitudeDb");
+    expect(stored.variants?.[0]?.traces[0]).not.toHaveProperty("phaseDeg");
+    // Through JSON, as the database keeps it: the same result to the last bit.
+    const back = solver.expandResult(JSON.parse(JSON.stringify(stored)));
+    expect(back).toEqual(JSON.parse(JSON.stringify(r)));
+    expect(JSON.stringify(stored).length).toBeLessThan(0.6 * JSON.stringify(r).length);
+    // A result saved in full form reads back unchanged.
+    expect(solver.expandResult(r)).toEqual(r);
   });
 
   it("solves the language reference's example end to end", () => {
