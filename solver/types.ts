@@ -164,6 +164,8 @@ export interface Circuit {
   sweep: Sweep;
   /** True when the netlist had no sweep statement and the default was used. */
   defaultSweep: boolean;
+  /** Where the sweep statement is (absent for the default sweep): errors about the sweep point here. */
+  sweepSpan?: SourceSpan;
   shows: Show[];
   loops: LoopCut[];
   measures: MeasureDef[];

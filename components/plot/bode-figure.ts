@@ -158,7 +158,10 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
   }
 
   const axisFont = { color: plotColors.muted, size: input.compact ? 10 : 11 };
+  // Over a narrow band Plotly labels every minor tick (…500600700…); keep 1-2-5 labels there.
+  const spanDecades = decadesOf([...input.series, ...input.overlays].flatMap((s) => [s.frequencies]));
   const xCommon: Partial<LayoutAxis> = {
+    ...(spanDecades !== null && spanDecades <= 3 ? { dtick: "D2" } : {}),
     type: "log",
     gridcolor: plotColors.grid,
     linecolor: plotColors.axis,
@@ -217,4 +220,19 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
     annotations,
   };
   return { data, layout };
+}
+
+/** How many decades the given frequency grids span together, or null when there is none. */
+function decadesOf(grids: readonly (readonly number[])[]): number | null {
+  let lo = Number.POSITIVE_INFINITY;
+  let hi = 0;
+  for (const g of grids) {
+    for (const f of [g[0], g[g.length - 1]]) {
+      if (f !== undefined && f > 0) {
+        lo = Math.min(lo, f);
+        hi = Math.max(hi, f);
+      }
+    }
+  }
+  return hi > lo ? Math.log10(hi / lo) : null;
 }

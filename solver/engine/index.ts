@@ -260,13 +260,14 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
     warn.push({ line: null, message: "no sweep statement: used 10 Hz to 10 MHz, 100 points per decade" });
   }
   const freqs = sweepFrequencies(circuit.sweep);
-  if (typeof freqs === "string") return { ok: false, errors: [spanError(undefined, freqs)], warnings: warn };
+  if (typeof freqs === "string")
+    return { ok: false, errors: [spanError(circuit.sweepSpan, freqs)], warnings: warn };
   if (options.maxPoints !== undefined && freqs.length > options.maxPoints) {
     return {
       ok: false,
       errors: [
         spanError(
-          undefined,
+          circuit.sweepSpan,
           `the sweep has ${freqs.length} points; this service allows at most ${options.maxPoints}`,
           "use fewer points per decade or a narrower range",
         ),

@@ -193,7 +193,8 @@ function elaborate(
     errors,
     warnings,
   };
-  const { sweep, defaultSweep } = resolveSweep(once(byType(st, "sweep"), "sweep", errors), ctx);
+  const sweepStatement = once(byType(st, "sweep"), "sweep", errors);
+  const { sweep, defaultSweep } = resolveSweep(sweepStatement, ctx);
   const traces = new Map<string, { line: number; column: number; endColumn: number }>();
   const shows = resolveShows(byType(st, "show"), ctx, traces);
   const loops = resolveLoops(byType(st, "loop"), ctx, traces);
@@ -220,6 +221,7 @@ function elaborate(
     nodes,
     sweep,
     defaultSweep,
+    ...(sweepStatement ? { sweepSpan: sweepStatement.span } : {}),
     shows,
     loops,
     measures,

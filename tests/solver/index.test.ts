@@ -50,6 +50,18 @@ describe("solver entry", () => {
     );
   });
 
+  it("points a sweep over the service's limit at the sweep statement", () => {
+    const text =
+      "R1: resistor a gnd 1k\nV1: vsource a gnd\nshow v(a)\nsweep 10Hz to 1MHz log 1000 per decade\n";
+    const r = solveNetlist(text, { maxPoints: 1000 });
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    // 5 decades × 1000 per decade + 1 = 5001 points.
+    expect(r.errors).toEqual([
+      expect.objectContaining({ line: 4, column: 1, message: expect.stringContaining("5001 points") }),
+    ]);
+  });
+
   it("stores a result as re/im only and reads it back identical, variants included", () => {
     const r = solveNetlist(`${EXAMPLE}\nvary Rf over 22k, 24k, 26k\n`);
     if (!r.ok) throw new Error(JSON.stringify(r.errors));
