@@ -25,6 +25,8 @@ export default async function ComparePage({ searchParams }: Props) {
   const sp = await searchParams;
   const parsed = compareQuerySchema.safeParse({ a: sp.a, b: sp.b });
   if (!parsed.success) {
+    // Two ids of which one is malformed: the same "not found" as an id that matches no run.
+    if (sp.a && sp.b) notFound();
     return (
       <div className="mx-auto max-w-3xl px-4 py-12 sm:px-6">
         <PageHeading title="Compare runs" />

@@ -1,3 +1,4 @@
+import { TickedText } from "@/components/ui/ticked-text";
 import type { OscillatorVerdict as Verdict } from "./analysis-math";
 
 const TONES: Record<Verdict["kind"], { box: string; badge: string; label: string }> = {
@@ -30,7 +31,9 @@ export function OscillatorVerdictCard({ verdict }: { verdict: Verdict }) {
           Oscillation {verdict.headline}
         </h3>
       </div>
-      <p className="text-ink-700 mt-2 text-sm">{verdict.detail}</p>
+      <p className="text-ink-700 mt-2 text-sm">
+        <TickedText text={verdict.detail} />
+      </p>
     </section>
   );
 }

@@ -126,7 +126,7 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
         <section
           data-testid="editor-drop"
           aria-label="Netlist editor (drop a .pwn file here to open it)"
-          className={`rounded-panel shadow-panel relative h-[55vh] min-h-72 overflow-hidden border bg-white lg:h-[calc(100dvh-17rem)] ${
+          className={`rounded-panel shadow-panel relative h-[55vh] min-h-72 overflow-hidden border bg-white lg:h-[calc(100dvh-19rem)] ${
             dragging ? "border-copper-400 ring-copper-200 ring-2" : "border-paper-200"
           }`}
           onDragOverCapture={(e) => {
@@ -159,6 +159,10 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
             </div>
           ) : null}
         </section>
+        <p className="text-caption text-ink-500 -mt-1">
+          Tab indents in the editor; <kbd className="text-ink-700">Ctrl+M</kbd> (Mac:{" "}
+          <kbd className="text-ink-700">Ctrl+Shift+M</kbd>) then Tab moves on to the title.
+        </p>
         <p role="status" aria-live="polite" className="text-ink-600 text-sm empty:hidden">
           {notice}
         </p>

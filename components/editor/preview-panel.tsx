@@ -6,6 +6,7 @@ import { Caution } from "@/components/run/caution";
 import { CheckBadges } from "@/components/run/check-badges";
 import { MeasuresTable } from "@/components/run/measures-table";
 import { WarningsList } from "@/components/run/warnings-list";
+import { TickedText } from "@/components/ui/ticked-text";
 import { cn } from "@/lib/utils";
 import type { NetlistError, SolveResult, SolveSuccess } from "@/solver/types";
 import type { LiveSolveState } from "./use-live-solve";
@@ -66,8 +67,14 @@ export function PreviewPanel({
                 <span className="text-signal-fault font-mono font-semibold">
                   {e.line}:{e.column}
                 </span>{" "}
-                <span className="text-ink-900">{e.message}</span>
-                {e.hint ? <span className="text-ink-600 block">{e.hint}</span> : null}
+                <span className="text-ink-900">
+                  <TickedText text={e.message} />
+                </span>
+                {e.hint ? (
+                  <span className="text-ink-600 block">
+                    <TickedText text={e.hint} />
+                  </span>
+                ) : null}
               </button>
             </li>
           ))}

@@ -10,5 +10,7 @@ const Plot = createPlotlyComponent(Plotly);
 export type PlotlyChartProps = PlotParams;
 
 export default function PlotlyChart(props: PlotlyChartProps) {
-  return <Plot {...props} />;
+  // No "Share chart…" button: it would offer to upload a team's data to an outside service.
+  const config: PlotParams["config"] = Object.assign({}, props.config, { showSendToCloud: false });
+  return <Plot {...props} config={config} />;
 }

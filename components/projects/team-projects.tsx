@@ -50,7 +50,7 @@ export function TeamProjects({ team }: { team: TeamWithProjects }) {
                   ) : null}
                   <span className="text-caption text-ink-500 mt-1 block font-mono">
                     {p.runCount} run{p.runCount === 1 ? "" : "s"}
-                    {p.lastRunAt ? ` · last ${formatDate(p.lastRunAt)}` : ""} · since{" "}
+                    {p.lastRunAt ? ` · last run ${formatDate(p.lastRunAt)}` : ""} · project created{" "}
                     {formatDate(p.createdAt)}
                   </span>
                 </Link>

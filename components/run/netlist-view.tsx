@@ -1,3 +1,4 @@
+import { TickedText } from "@/components/ui/ticked-text";
 import { cn } from "@/lib/utils";
 import type { NetlistError, Warning } from "@/solver/types";
 
@@ -59,8 +60,13 @@ export function NetlistView({
                       key={`e${k}`}
                       className="text-signal-fault block font-sans text-xs whitespace-normal"
                     >
-                      column {e.column}: {e.message}
-                      {e.hint ? ` — ${e.hint}` : ""}
+                      column {e.column}: <TickedText text={e.message} />
+                      {e.hint ? (
+                        <>
+                          {" — "}
+                          <TickedText text={e.hint} />
+                        </>
+                      ) : null}
                     </span>
                   ))}
                   {warns.map((w, k) => (
@@ -68,7 +74,7 @@ export function NetlistView({
                       key={`w${k}`}
                       className="text-signal-warn block font-sans text-xs whitespace-normal"
                     >
-                      {w.message}
+                      <TickedText text={w.message} />
                     </span>
                   ))}
                 </td>

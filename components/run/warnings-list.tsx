@@ -1,3 +1,4 @@
+import { TickedText } from "@/components/ui/ticked-text";
 import { cn } from "@/lib/utils";
 import type { Warning } from "@/solver/types";
 import { netlistLineId } from "./netlist-view";
@@ -43,7 +44,9 @@ export function WarningsList({
               </a>
             )}
           </span>
-          <span className="text-ink-800">{w.message}</span>
+          <span className="text-ink-800">
+            <TickedText text={w.message} />
+          </span>
         </li>
       ))}
     </ul>

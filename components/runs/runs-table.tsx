@@ -196,6 +196,13 @@ export function RunsTable({ projectId, runs, total, pages, query, members }: Run
           </tbody>
         </table>
       </div>
+      {runs.length === 0 ? (
+        <p className="text-ink-600 text-sm">
+          {total > 0
+            ? "There are no runs on this page; go back to the first page."
+            : "No run matches these filters. Change or clear them above to see more."}
+        </p>
+      ) : null}
       <Pager page={query.page} pages={pages} pageSize={query.pageSize} onGo={go} />
     </div>
   );

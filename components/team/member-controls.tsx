@@ -43,7 +43,13 @@ export function MemberControls({ teamId, membershipId, memberName, role, soleOwn
               </option>
             ))}
           </select>
-          <Button type="submit" size="sm" variant="secondary" disabled={rolePending}>
+          <Button
+            type="submit"
+            size="sm"
+            variant="secondary"
+            disabled={rolePending}
+            aria-label={`Save the role of ${memberName}`}
+          >
             {rolePending ? "Saving…" : "Save"}
           </Button>
         </form>

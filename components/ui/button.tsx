@@ -9,7 +9,8 @@ const VARIANTS: Record<ButtonVariant, string> = {
   secondary:
     "border border-paper-300 bg-white text-ink-800 hover:border-ink-300 hover:bg-paper-100 disabled:text-ink-400",
   ghost: "text-ink-700 hover:bg-paper-200 hover:text-ink-900 disabled:text-ink-400",
-  danger: "border border-signal-fault/40 bg-white text-signal-fault hover:bg-signal-fault-soft",
+  danger:
+    "border border-signal-fault/40 bg-white text-signal-fault hover:bg-signal-fault-soft disabled:border-paper-300 disabled:text-ink-400 disabled:hover:bg-white",
 };
 
 const SIZES: Record<ButtonSize, string> = {

@@ -37,7 +37,7 @@ export default async function OutboxPage() {
                   <span className={cn("text-caption rounded-full px-2 py-0.5 font-medium", STATUS[m.status])}>
                     {m.status}
                   </span>
-                  <span className="text-ink-900 min-w-0 flex-1 font-medium">{m.subject}</span>
+                  <span className="text-ink-900 min-w-0 flex-1 basis-52 font-medium">{m.subject}</span>
                   <span className="text-ink-600 text-sm">to {m.to}</span>
                   <time className="text-caption text-ink-500 font-mono" dateTime={m.createdAt}>
                     {m.createdAt.replace("T", " ").slice(0, 19)} UTC
