@@ -36,6 +36,9 @@ export default defineConfig({
           fileParallelism: false,
           testTimeout: 90000,
           hookTimeout: 180000,
+          // A page step (fetch + server refresh) can take seconds on a busy CI machine; the
+          // default 1 s of expect.poll made the review walk flaky there.
+          expect: { poll: { timeout: 15000, interval: 100 } },
         },
       },
     ],

@@ -3,10 +3,11 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { signIn } from "next-auth/react";
-import { type FormEvent, useEffect, useState, useTransition } from "react";
+import { type FormEvent, useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { issuesToFields } from "@/lib/utils";
 import { signInSchema } from "@/lib/validations/auth";
 
@@ -23,8 +24,7 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
   );
   const [pending, startTransition] = useTransition();
   // Marks the form as interactive (browser checks wait for it before submitting).
-  const [hydrated, setHydrated] = useState(false);
-  useEffect(() => setHydrated(true), []);
+  const hydrated = useHydrated();
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();

@@ -3,10 +3,11 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { signIn } from "next-auth/react";
-import { type FormEvent, useEffect, useState, useTransition } from "react";
+import { type FormEvent, useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { signUp } from "@/lib/actions/auth";
 import type { FormState } from "@/lib/actions/state";
 import { issuesToFields } from "@/lib/utils";
@@ -20,8 +21,7 @@ export function SignUpForm({ callbackUrl }: { callbackUrl: string }) {
   const [message, setMessage] = useState<string | null>(null);
   const [pending, startTransition] = useTransition();
   // Marks the form as interactive (browser checks wait for it before submitting).
-  const [hydrated, setHydrated] = useState(false);
-  useEffect(() => setHydrated(true), []);
+  const hydrated = useHydrated();
 
   function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault();

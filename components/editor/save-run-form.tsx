@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import type { NetlistError } from "@/solver/types";
 
 export interface SaveRunFormProps {
@@ -21,6 +22,7 @@ type SaveState =
 /** Title field and "Save run": POST /api/projects/:id/runs, then open the new run. The netlist is never cleared. */
 export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled }: SaveRunFormProps) {
   const router = useRouter();
+  const hydrated = useHydrated();
   const [title, setTitle] = useState("");
   const [state, setState] = useState<SaveState>({ status: "idle" });
 
@@ -90,7 +92,7 @@ export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled }: S
         aria-describedby="save-run-status"
         className="border-paper-300 aria-invalid:border-signal-fault h-10 min-w-0 flex-1 rounded-md border bg-white px-3 text-sm"
       />
-      <Button type="submit" disabled={disabled || state.status === "saving"}>
+      <Button type="submit" disabled={disabled || !hydrated || state.status === "saving"}>
         {state.status === "saving" ? "Saving…" : "Save run"}
       </Button>
       <p

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { downloadPlotPng } from "@/components/plot/plot-registry";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { cn } from "@/lib/utils";
 
 export interface ExportButtonsProps {

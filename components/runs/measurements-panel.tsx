@@ -7,6 +7,7 @@ import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { useHydrated } from "@/components/ui/use-hydrated";
 import { formatDate } from "@/lib/utils";
 
 export type MeasurementRow = {
@@ -32,6 +33,7 @@ export function MeasurementsPanel({
   canUpload: boolean;
 }) {
   const router = useRouter();
+  const hydrated = useHydrated();
   const form = useRef<HTMLFormElement>(null);
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<UploadError | null>(null);
@@ -114,7 +116,7 @@ export function MeasurementsPanel({
               className="text-sm"
             />
           </div>
-          <Button type="submit" variant="secondary" disabled={busy}>
+          <Button type="submit" variant="secondary" disabled={busy || !hydrated}>
             {busy ? "Uploading…" : "Upload"}
           </Button>
         </form>

@@ -12,7 +12,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
 import { formatQuantity } from "@/components/run/format";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import type { RunSummary } from "@/lib/run-types";
 import { cn, formatDate } from "@/lib/utils";
 import { RunsFilters, type RunsQueryState, runsHref } from "./runs-filters";

@@ -1,5 +1,5 @@
 import Link from "next/link";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import type { Actor } from "@/lib/session";
 import { Wordmark } from "./mark";
 import { NavLinks } from "./nav-links";
