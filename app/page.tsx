@@ -1,6 +1,6 @@
 import Link from "next/link";
 import { HeroFigure } from "@/components/shell/hero-figure";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { getActor } from "@/lib/session";
 
 export default async function LandingPage() {

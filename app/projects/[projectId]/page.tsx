@@ -3,7 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { MeasurementsPanel } from "@/components/runs/measurements-panel";
 import { RunsTable } from "@/components/runs/runs-table";
-import { buttonClass } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
 import { RoleBadge } from "@/components/ui/role-badge";
