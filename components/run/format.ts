@@ -19,15 +19,40 @@ const PREFIXES: [number, string][] = [
 /** Units that take an SI prefix; others (dB, deg, %, none) are shown as plain numbers. */
 const PREFIXED_UNITS = new Set(["Hz", "V", "A", "Ω", "ohm", "F", "H", "S", "s", "W"]);
 
-/** `digits` significant figures, without trailing zeros ("1.5915", "20", "-0.043214"). */
+/** `digits` significant figures, without trailing zeros, in ASCII ("1.5915", "-5.462e-5"). */
+function plainNumber(value: number, digits: number): string {
+  const abs = Math.abs(value);
+  return abs >= 1e-4 && abs < 1e9
+    ? String(Number(value.toPrecision(digits)))
+    : value.toExponential(digits - 1).replace(/\.?0+e/, "e");
+}
+
+const SUPERSCRIPT: Record<string, string> = {
+  "-": "⁻",
+  "+": "",
+  "0": "⁰",
+  "1": "¹",
+  "2": "²",
+  "3": "³",
+  "4": "⁴",
+  "5": "⁵",
+  "6": "⁶",
+  "7": "⁷",
+  "8": "⁸",
+  "9": "⁹",
+};
+
+/**
+ * `digits` significant figures, without trailing zeros, for reading: "1.5915", "20", "−0.043214";
+ * very small or large numbers as a power of ten, "−5.462×10⁻⁵".
+ */
 export function formatNumber(value: number, digits = 5): string {
   if (!Number.isFinite(value)) return value > 0 ? "∞" : value < 0 ? "−∞" : "—";
   if (value === 0) return "0";
-  const abs = Math.abs(value);
-  const text =
-    abs >= 1e-4 && abs < 1e9
-      ? String(Number(value.toPrecision(digits)))
-      : value.toExponential(digits - 1).replace(/\.?0+e/, "e");
+  const text = plainNumber(value, digits).replace(
+    /e([-+]?\d+)$/,
+    (_, exp: string) => `×10${[...exp].map((c) => SUPERSCRIPT[c] ?? c).join("")}`,
+  );
   return text.replace(/^-/, "−");
 }
 
@@ -40,7 +65,7 @@ export function formatQuantity(value: number | null, unit: string, digits = 5): 
     return unit ? `${formatNumber(value, digits)} ${unit}` : formatNumber(value, digits);
   }
   const abs = Math.abs(value);
-  const [scale, prefix] = PREFIXES.find(([s]) => abs >= s * 0.999_999_5) ?? PREFIXES[PREFIXES.length - 1]!;
+  const [scale, prefix] = PREFIXES.find(([s]) => abs >= s * 0.999_999_5) ?? [1, ""];
   const u = unit === "ohm" ? "Ω" : unit;
   return `${formatNumber(value / scale, digits)} ${prefix}${u}`;
 }
@@ -63,7 +88,7 @@ export function formatPercent(value: number | null, digits = 4): string {
 export function formatSiCompact(value: number, digits = 4): string {
   if (!Number.isFinite(value) || value === 0) return formatNumber(value, digits);
   const abs = Math.abs(value);
-  if (abs >= 1 && abs < 1000) return formatNumber(value, digits);
-  const [scale, prefix] = PREFIXES.find(([s]) => abs >= s * 0.999_999_5) ?? PREFIXES[PREFIXES.length - 1]!;
-  return `${formatNumber(value / scale, digits)}${prefix === "µ" ? "u" : prefix}`;
+  if (abs >= 1 && abs < 1000) return plainNumber(value, digits);
+  const [scale, prefix] = PREFIXES.find(([s]) => abs >= s * 0.999_999_5) ?? [1, ""];
+  return `${plainNumber(value / scale, digits)}${prefix === "µ" ? "u" : prefix}`;
 }

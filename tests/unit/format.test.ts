@@ -30,7 +30,9 @@ describe("formatQuantity", () => {
     expect(formatDelta(-0.31, "dB")).toBe("−0.31 dB");
     expect(formatPercent(-54.6379)).toBe("−54.64 %");
     expect(formatPercent(null)).toBe("—");
-    expect(formatNumber(-5.4624e-5, 4)).toBe("−5.462e-5");
+    expect(formatNumber(-5.4624e-5, 4)).toBe("−5.462×10⁻⁵");
+    expect(formatNumber(3.2e12, 3)).toBe("3.2×10¹²");
+    expect(formatQuantity(2.5e-18, "F")).toBe("2.5×10⁻¹⁸ F");
   });
 
   it("writes bare values the way a netlist would", () => {
@@ -40,5 +42,7 @@ describe("formatQuantity", () => {
     expect(formatSiCompact(2.2e-6)).toBe("2.2u");
     expect(formatSiCompact(0.5)).toBe("500m");
     expect(formatSiCompact(3.05)).toBe("3.05");
+    // Below the smallest prefix it stays a number the netlist reads (ASCII exponent).
+    expect(formatSiCompact(2.5e-19)).toBe("2.5e-19");
   });
 });
