@@ -3,14 +3,15 @@
  * hover help, and a light scan of the names a netlist defines. Client-safe: no mathjs, no parser.
  * The kind table, statements and measure functions come from the solver's own lists.
  */
-import { KEYWORDS, KINDS, MEASURE_FUNCTIONS } from "@/solver/lang/kinds";
-import type { PartKind } from "@/solver/types";
+import { KEYWORDS, KINDS, MEASURE_FUNCTIONS, LOOP_METHODS as METHODS } from "@/solver/lang/kinds";
+import type { LoopMethod, PartKind } from "@/solver/types";
 
 export const LANGUAGE_ID = "phasewright-netlist";
 
 export const STATEMENTS: string[] = [...KEYWORDS];
 export const PART_KINDS = Object.keys(KINDS) as PartKind[];
 export const MEASURE_FNS: string[] = [...MEASURE_FUNCTIONS];
+export const LOOP_METHODS: LoopMethod[] = [...METHODS];
 /** Words used inside statements (sweep, loop, check, vary, monte-carlo). */
 export const SUB_KEYWORDS = [
   "to",
@@ -40,6 +41,14 @@ export const OPTIONS: Record<string, string> = {
   rout: "Output resistance of an `opamp`: `rout=50`.",
   seed: "Random seed of `monte-carlo` (the same seed gives the same result): `seed=7`.",
   dist: "Distribution of `monte-carlo` samples: `dist=uniform` (within ±tol) or `dist=normal` (tol = 3σ).",
+  method:
+    "How a `loop` is measured: `method=cut` (default; exact only behind an ideal voltage output) or `method=injection` (double injection; includes the driver's loading).",
+};
+
+const LOOP_METHOD_DOCS: Record<LoopMethod, string> = {
+  cut: "NODE′ is driven by an ideal 1∠0° source: exact when an ideal voltage output drives NODE (the default).",
+  injection:
+    "Double injection on the closed loop (a series voltage and a shunt current test at NODE): exact whatever drives NODE, including its output resistance.",
 };
 export const SI_PREFIXES = ["f", "p", "n", "u", "µ", "m", "k", "M", "G", "T"];
 export const UNITS = ["Ω", "ohm", "F", "H", "V", "A", "S", "Hz", "%", "dB", "deg", "°"];
@@ -68,7 +77,7 @@ const STATEMENT_DOCS: Record<string, string> = {
   sweep:
     "`sweep 10Hz to 1MHz log 100 per decade` · `sweep 1kHz to 20kHz linear 500 points` · `sweep at 50Hz, 1kHz`. Default: 10 Hz to 10 MHz, 100 per decade.",
   show: "`show [NAME =] PROBE` — a complex trace over `v(NODE)`, `v(A, B)`, `i(PART)` with + − * /.",
-  loop: "`loop NAME cut NODE before PART[,PART…]` — loop gain T = v(NODE)/v(NODE′) with the cut driven by 1∠0°.",
+  loop: "`loop NAME cut NODE before PART[,PART…] [method=cut|injection]` — loop gain T (the returned signal per injected signal) at NODE, between the driver and the listed parts. `cut`: T = v(NODE)/v(NODE′) with the cut driven by 1∠0°; `injection`: double injection, exact whatever drives NODE.",
   measure:
     "`measure NAME = FUNCTION(TRACE…) [at F]` — a scalar result, refined by solving again at new frequencies.",
   check: "`check NAME OP VALUE` or `check NAME between A and B` — a pass/fail limit on a measure.",
@@ -110,7 +119,13 @@ export function hoverDoc(word: string): string | null {
   if (word in STATEMENT_DOCS) return `**${word}** (statement) — ${STATEMENT_DOCS[word]}`;
   if (word in FUNCTION_DOCS) return `**${word}** — ${FUNCTION_DOCS[word]}`;
   if (word in OPTIONS) return `**${word}=** (option) — ${OPTIONS[word]}`;
+  if (word in LOOP_METHOD_DOCS)
+    return `**method=${word}** (loop method) — ${LOOP_METHOD_DOCS[word as LoopMethod]}`;
   return null;
+}
+
+export function loopMethodDoc(method: LoopMethod): string {
+  return LOOP_METHOD_DOCS[method];
 }
 
 export function kindDoc(kind: PartKind): string {
@@ -196,11 +211,15 @@ export type CompletionContext =
   | "function" // after `measure NAME =`
   | "measure" // after `check`, `sensitivity`, `at`
   | "option" // later on a part line
+  | "loop-option" // after a loop's list of parts
+  | "loop-method" // after `method=` on a loop line
   | "any";
 
 export function completionContext(before: string): CompletionContext {
   const line = before.replace(/#.*$/, "");
   if (/^\s*[A-Za-z_]*$/.test(line)) return "statement";
+  if (/^\s*loop\b.*\bmethod=\w*$/.test(line)) return "loop-method";
+  if (/^\s*loop\b.*\bbefore\s+[\w.]+(?:\s*,\s*[\w.]+)*\s+\w*$/.test(line)) return "loop-option";
   if (new RegExp(`^\\s*${NAME}\\s*:\\s*[A-Za-z_]*$`).test(line)) return "kind";
   if (/\bv\(\s*[^()]*$/.test(line)) return "node";
   if (/\bi\(\s*[^()]*$/.test(line) || /\bbefore\s+[\w,\s]*$/.test(line)) return "part";

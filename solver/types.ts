@@ -87,12 +87,20 @@ export interface Show {
   span: SourceSpan;
 }
 
+/** How a loop gain is measured (NETLIST.md "Loop gain"). */
+export type LoopMethod = "cut" | "injection";
+
 export interface LoopCut {
   name: string;
-  /** The node that is cut. */
+  /** The node that is cut (or, with `injection`, where the test sources are inserted). */
   node: string;
   /** Parts whose terminals on `node` move to the new node node′. */
   before: string[];
+  /**
+   * `cut` (the default when absent): node′ driven by an ideal source, exact only behind an ideal
+   * voltage output. `injection`: double injection on the closed loop, exact whatever drives node.
+   */
+  method?: LoopMethod;
   span: SourceSpan;
 }
 

@@ -10,6 +10,8 @@ import {
   kindDoc,
   LANGUAGE_ID,
   LEVEL_WORDS,
+  LOOP_METHODS,
+  loopMethodDoc,
   MEASURE_FNS,
   OPTIONS,
   PART_KINDS,
@@ -183,6 +185,12 @@ export function registerNetlistLanguage(monaco: typeof Monaco): void {
           break;
         case "option":
           suggestions = [...options(), ...nodes(), ...lets()];
+          break;
+        case "loop-option":
+          suggestions = [item("method=", K.Property, "option", OPTIONS.method)];
+          break;
+        case "loop-method":
+          suggestions = LOOP_METHODS.map((m) => item(m, K.EnumMember, "loop method", loopMethodDoc(m)));
           break;
         default:
           suggestions = [

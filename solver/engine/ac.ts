@@ -23,6 +23,8 @@ export function formatHz(f: number): string {
  * at the first frequency solved (normally the first point of the sweep) — see SparseComplexLU.
  * After `solveAt(f)` the solution is in xRe/xIm; `derivative()` then fills dxRe/dxIm with
  * dx/ds = −A(s)⁻¹·C·x using the same factors (one extra solve, no refactorization).
+ * A system with a second right-hand side (`sys.second`, a loop measured by double injection)
+ * gets its solution in x2Re/x2Im (and dx2Re/dx2Im) from the same factors: one more solve each.
  */
 export class AcSolver {
   sys: MnaSystem;
@@ -30,6 +32,11 @@ export class AcSolver {
   readonly xIm: Float64Array;
   readonly dxRe: Float64Array;
   readonly dxIm: Float64Array;
+  /** Solution for `sys.second` (zeros when the system has none), and its derivative. */
+  readonly x2Re: Float64Array;
+  readonly x2Im: Float64Array;
+  readonly dx2Re: Float64Array;
+  readonly dx2Im: Float64Array;
   private lu: SparseComplexLU | null = null;
   /** Angular frequency of the last successful solve. */
   omega = 0;
@@ -40,6 +47,10 @@ export class AcSolver {
     this.xIm = new Float64Array(sys.n);
     this.dxRe = new Float64Array(sys.n);
     this.dxIm = new Float64Array(sys.n);
+    this.x2Re = new Float64Array(sys.n);
+    this.x2Im = new Float64Array(sys.n);
+    this.dx2Re = new Float64Array(sys.n);
+    this.dx2Im = new Float64Array(sys.n);
   }
 
   /**
@@ -77,15 +88,21 @@ export class AcSolver {
     }
     if (!ok) return this.singularReason(f);
     this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);
+    if (sys.second) this.lu.solve(sys.second.bRe, sys.second.bIm, this.x2Re, this.x2Im);
     this.omega = 2 * Math.PI * f;
-    for (let i = 0; i < sys.n; i++) {
-      if (!Number.isFinite(this.xRe[i]!) || !Number.isFinite(this.xIm[i]!)) return this.singularReason(f);
-    }
+    if (!allFinite(this.xRe, this.xIm) || (sys.second && !allFinite(this.x2Re, this.x2Im)))
+      return this.singularReason(f);
     return null;
   }
 
   /** dx/ds at the last solved frequency (requires a successful solveAt). Cost: one solve. */
   derivative(): void {
+    this.derive(this.xRe, this.xIm, this.dxRe, this.dxIm);
+    if (this.sys.second) this.derive(this.x2Re, this.x2Im, this.dx2Re, this.dx2Im);
+  }
+
+  /** d = −A⁻¹·C·x (the right-hand sides do not depend on s). */
+  private derive(xRe: Float64Array, xIm: Float64Array, dRe: Float64Array, dIm: Float64Array): void {
     const { matrix, c, n } = this.sys;
     const { rowPtr, colIdx } = matrix;
     for (let i = 0; i < n; i++) {
@@ -94,13 +111,13 @@ export class AcSolver {
       for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
         const cv = c[p]!;
         if (cv === 0) continue;
-        r -= cv * this.xRe[colIdx[p]!]!;
-        im -= cv * this.xIm[colIdx[p]!]!;
+        r -= cv * xRe[colIdx[p]!]!;
+        im -= cv * xIm[colIdx[p]!]!;
       }
-      this.dxRe[i] = r;
-      this.dxIm[i] = im;
+      dRe[i] = r;
+      dIm[i] = im;
     }
-    this.lu!.solve(this.dxRe, this.dxIm);
+    this.lu!.solve(dRe, dIm);
   }
 
   private singularReason(f: number): string {
@@ -122,4 +139,9 @@ export class AcSolver {
       `sources, or an op-amp without feedback?)${names ? `; undetermined: ${names}` : ""}`
     );
   }
+}
+
+function allFinite(re: Float64Array, im: Float64Array): boolean {
+  for (let i = 0; i < re.length; i++) if (!Number.isFinite(re[i]!) || !Number.isFinite(im[i]!)) return false;
+  return true;
 }

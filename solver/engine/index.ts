@@ -16,7 +16,7 @@ import { floatingNodes } from "./floating";
 import { buildLoop, cutNodeName } from "./loops";
 import { computeMeasures } from "./measures";
 import { buildMna, type MnaSystem } from "./mna";
-import { evalProbe, probeProblem } from "./probes";
+import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
 import { sweepFrequencies } from "./sweep";
 import { makeTrace } from "./trace";
@@ -40,10 +40,12 @@ const spanError = (span: SourceSpan | undefined, message: string, hint?: string)
 /** One solved system (the circuit, or one loop's circuit) and the traces read from it. */
 export interface SystemRun {
   solver: AcSolver;
-  traces: { name: string; kind: "probe" | "loop"; probe: Probe; span: SourceSpan }[];
+  traces: { name: string; kind: "probe" | "loop"; reading: Reading; span: SourceSpan }[];
   /** The parts and nodes the system was built from (a Monte Carlo sample rebuilds it with new values). */
   parts: Part[];
   nodes: string[];
+  /** Sources of the second right-hand side (a loop by double injection), passed to buildMna. */
+  second: Part[];
 }
 
 /** The result of one sweep of one circuit: everything a variant or a sample needs. */
@@ -55,10 +57,23 @@ export interface SweepOutcome {
   system: MnaSystem;
 }
 
+/**
+ * A solve failure of a run. A loop by double injection is solved closed, so its equations are also
+ * singular where the loop gain is exactly 1 at zero phase (a pole on the jω axis): say so.
+ */
+export function runError(run: SystemRun, err: string): string {
+  const loop = run.traces.find((t) => t.kind === "loop");
+  if (loop?.reading.op !== "double-injection") return err;
+  return (
+    `${err}; loop ${loop.name} is measured by injection on the closed loop, which is singular where ` +
+    "T = 1 exactly (an oscillator at its limit): method=cut has no such point"
+  );
+}
+
 export function sampler(
   run: SystemRun,
   name: string,
-  probe: Probe,
+  reading: Reading,
   freqs: number[],
   re: number[],
   im: number[],
@@ -70,9 +85,9 @@ export function sampler(
     im,
     at(f, deriv) {
       const err = run.solver.solveAt(f);
-      if (err) return err;
+      if (err) return runError(run, err);
       if (deriv) run.solver.derivative();
-      const d = evalProbe(probe, run.solver);
+      const d = readTrace(reading, run.solver);
       return deriv ? d : { ...d, dRe: 0, dIm: 0 };
     },
   };
@@ -118,7 +133,13 @@ export function planSystems(
   if (!main.ok) return main;
   const errors: NetlistError[] = [];
   const runs: SystemRun[] = [
-    { solver: new AcSolver(main.system), traces: [], parts: circuit.parts, nodes: circuit.nodes },
+    {
+      solver: new AcSolver(main.system),
+      traces: [],
+      parts: circuit.parts,
+      nodes: circuit.nodes,
+      second: [],
+    },
   ];
   for (const loop of circuit.loops) {
     const lb = buildLoop(circuit, loop);
@@ -126,17 +147,20 @@ export function planSystems(
       errors.push(spanError(loop.span, lb.message));
       continue;
     }
-    const sys = buildMna(lb.parts, lb.nodes);
+    const sys = buildMna(lb.parts, lb.nodes, lb.second);
     if (!sys.ok) {
       errors.push(...sys.errors);
       continue;
     }
-    if (lb.warning) warnings.push(lb.warning);
+    // The language gives the same warning for a netlist it compiled: say it once.
+    const w = lb.warning;
+    if (w && !warnings.some((x) => x.line === w.line && x.message === w.message)) warnings.push(w);
     runs.push({
       solver: new AcSolver(sys.system),
-      traces: [{ name: loop.name, kind: "loop", probe: lb.probe, span: loop.span }],
+      traces: [{ name: loop.name, kind: "loop", reading: lb.reading, span: loop.span }],
       parts: lb.parts,
       nodes: lb.nodes,
+      second: lb.second,
     });
   }
   // A circuit without an independent source (an oscillator) has only the zero response; its
@@ -157,11 +181,16 @@ export function planSystems(
     } else {
       showRun = runs[1]!;
       rename = (p) => renameNode(p, firstLoop.node, cutNodeName(firstLoop.node));
+      // With double injection the shows read the 1 V series injection (the first right-hand side).
       warnings.push({
         line: firstLoop.span.line,
         message:
-          `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s test signal ` +
-          `as the excitation (the loop opened at ${firstLoop.node}, v(${firstLoop.node}) being the injected side)`,
+          firstLoop.method === "injection"
+            ? `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s 1 V series ` +
+              `test source at ${firstLoop.node} as the excitation, v(${firstLoop.node}) being read on the side ` +
+              "of the listed parts"
+            : `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s test signal ` +
+              `as the excitation (the loop opened at ${firstLoop.node}, v(${firstLoop.node}) being the injected side)`,
       });
     }
   }
@@ -169,7 +198,7 @@ export function planSystems(
     const probe = rename(show.probe);
     const problem = probeProblem(probe, showRun.solver.sys);
     if (problem) errors.push(spanError(show.span, `show ${show.name}: ${problem}`));
-    else showRun.traces.push({ name: show.name, kind: "probe", probe, span: show.span });
+    else showRun.traces.push({ name: show.name, kind: "probe", reading: probe, span: show.span });
   }
   if (errors.length > 0) return { ok: false, errors };
   return { ok: true, plan: { runs, main: main.system } };
@@ -199,11 +228,11 @@ export function sweepCircuit(
       if (err) {
         const fl = floatingNodes(run.solver.sys, f);
         const span = r > 0 ? run.traces[0]!.span : fl[0] ? firstPartOn(run.solver.sys, fl[0]) : undefined;
-        const msg = r > 0 ? `loop ${run.traces[0]!.name}: ${err}` : err;
+        const msg = r > 0 ? `loop ${run.traces[0]!.name}: ${runError(run, err)}` : err;
         return { ok: false, errors: [spanError(span, msg)] };
       }
       for (const [t, tr] of run.traces.entries()) {
-        const v = evalProbe(tr.probe, run.solver);
+        const v = readTrace(tr.reading, run.solver);
         cols[t]!.re[k] = v.re;
         cols[t]!.im[k] = v.im;
       }
@@ -217,7 +246,7 @@ export function sweepCircuit(
         };
       }
       traces.push(makeTrace(tr.name, tr.kind, re, im));
-      samplers.set(tr.name, sampler(run, tr.name, tr.probe, freqs, re, im));
+      samplers.set(tr.name, sampler(run, tr.name, tr.reading, freqs, re, im));
     }
   }
   // Shows first, then loops, each in netlist order (the runs are grouped by system).

@@ -1,19 +1,53 @@
-import { type Circuit, GROUND, type LoopCut, type Part, type Probe, type Warning } from "../types";
+import { type Circuit, GROUND, type LoopCut, type Part, type Warning } from "../types";
+import type { Reading } from "./probes";
 
 /** The new node a cut creates: NODE′ (the prime cannot occur in a netlist name). */
 export const cutNodeName = (node: string) => `${node}′`;
 
 export type LoopBuild =
-  | { ok: true; parts: Part[]; nodes: string[]; probe: Probe; warning: Warning | null }
+  | {
+      ok: true;
+      parts: Part[];
+      nodes: string[];
+      /** Sources of the system's second right-hand side (double injection), else empty. */
+      second: Part[];
+      reading: Reading;
+      warning: Warning | null;
+    }
   | { ok: false; message: string };
 
 const IDEAL_VOLTAGE_OUTPUTS = new Set(["vsource", "vcvs", "ccvs"]);
 
 /**
- * The circuit of one loop-gain trace: the listed parts' terminals on NODE move to NODE′, NODE′ is
- * driven by an ideal 1∠0° V test source to gnd, and every independent source of the netlist is
- * zeroed (vsource → 0 V, a short; isource → 0 A, an open), so T = v(NODE)/v(NODE′) is the
- * small-signal return ratio. See solver/engine/README.md.
+ * Whether a part other than the `moved` ones fixes the voltage of `node` (an ideal voltage output:
+ * vsource, vcvs, ccvs, or an op-amp output without `rout`): then cutting at `node` is exact.
+ */
+export function idealDriverAt(parts: Part[], node: string, moved: ReadonlySet<string>): boolean {
+  return parts.some(
+    (p) =>
+      !moved.has(p.name) &&
+      ((IDEAL_VOLTAGE_OUTPUTS.has(p.kind) && (p.nodes[0] === node || p.nodes[1] === node)) ||
+        (p.kind === "opamp" && p.nodes[2] === node && !p.opamp?.rout)),
+  );
+}
+
+/** The warning of a cut that leaves out the driver's loading (the language and the engine give the same). */
+export function inexactCutMessage(loop: string, node: string): string {
+  return (
+    `loop ${loop}: node ${node} is not driven by an ideal voltage output, so the cut leaves out the ` +
+    "driver's loading and T is approximate; add method=injection for a loop gain that includes it"
+  );
+}
+
+/**
+ * The circuit of one loop-gain trace. Every independent source of the netlist is zeroed (vsource
+ * → 0 V, a short; isource → 0 A, an open), so T is the small-signal return ratio, and the listed
+ * parts' terminals on NODE move to NODE′. See solver/engine/README.md.
+ *  - `cut` (default): NODE′ is driven by an ideal 1∠0° V test source to gnd; T = v(NODE)/v(NODE′).
+ *  - `injection`: NODE′ and NODE are joined again through a series test source (NODE′ → NODE), so
+ *    the loop stays closed and loaded as it is; the first right-hand side sets it to 1 V, the
+ *    second sets it to 0 V and injects 1 A from gnd into NODE′. T combines both (probes.ts
+ *    `evalDoubleInjection`) and is exact whatever drives NODE.
  */
 export function buildLoop(circuit: Circuit, loop: LoopCut): LoopBuild {
   const node = loop.node;
@@ -34,6 +68,33 @@ export function buildLoop(circuit: Circuit, loop: LoopCut): LoopBuild {
     if (p.kind === "vsource" || p.kind === "isource") q = { ...q, value: 0 };
     return q;
   });
+  const nodes = [...circuit.nodes, cut];
+  if (loop.method === "injection") {
+    if (!circuit.parts.some((p) => !moved.has(p.name) && p.nodes.includes(node))) {
+      return {
+        ok: false,
+        message: `loop ${loop.name}: every part on node ${node} is listed, so nothing drives the loop there`,
+      };
+    }
+    const source = `${loop.name}′inject`;
+    parts.push({ name: source, kind: "vsource", nodes: [cut, node], value: 1, phaseDeg: 0, span: loop.span });
+    const current: Part = {
+      name: `${loop.name}′current`,
+      kind: "isource",
+      nodes: [GROUND, cut],
+      value: 1,
+      phaseDeg: 0,
+      span: loop.span,
+    };
+    return {
+      ok: true,
+      parts,
+      nodes,
+      second: [current],
+      reading: { op: "double-injection", node, cut, source },
+      warning: null,
+    };
+  }
   parts.push({
     name: `${loop.name}′test`,
     kind: "vsource",
@@ -42,25 +103,14 @@ export function buildLoop(circuit: Circuit, loop: LoopCut): LoopBuild {
     phaseDeg: 0,
     span: loop.span,
   });
-  const ideal = parts.some(
-    (p) =>
-      !moved.has(p.name) &&
-      ((IDEAL_VOLTAGE_OUTPUTS.has(p.kind) && (p.nodes[0] === node || p.nodes[1] === node)) ||
-        (p.kind === "opamp" && p.nodes[2] === node && !p.opamp?.rout)),
-  );
-  const warning: Warning | null = ideal
-    ? null
-    : {
-        line: loop.span.line,
-        message:
-          `loop ${loop.name}: node ${node} is not driven by an ideal voltage output, so the cut leaves out ` +
-          "the driver's loading and T is approximate",
-      };
   return {
     ok: true,
     parts,
-    nodes: [...circuit.nodes, cut],
-    probe: { op: "/", left: { op: "v", node }, right: { op: "v", node: cut } },
-    warning,
+    nodes,
+    second: [],
+    reading: { op: "/", left: { op: "v", node }, right: { op: "v", node: cut } },
+    warning: idealDriverAt(parts, node, moved)
+      ? null
+      : { line: loop.span.line, message: inexactCutMessage(loop.name, node) },
   };
 }

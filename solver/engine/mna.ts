@@ -30,6 +30,11 @@ export interface MnaSystem {
   c: Float64Array;
   bRe: Float64Array;
   bIm: Float64Array;
+  /**
+   * A second right-hand side over the same matrix, or null: the current sources passed to
+   * buildMna as `second` (a loop measured by double injection solves both with one factorization).
+   */
+  second: { bRe: Float64Array; bIm: Float64Array } | null;
 }
 
 export type MnaBuild = { ok: true; system: MnaSystem } | { ok: false; errors: NetlistError[] };
@@ -40,8 +45,12 @@ function partError(part: Part, message: string, hint?: string): NetlistError {
   return { line: part.span.line, column: part.span.column, endColumn: part.span.endColumn, message, hint };
 }
 
-/** Build the MNA system of a flat part list. Never throws on user input. */
-export function buildMna(parts: Part[], nodes: string[]): MnaBuild {
+/**
+ * Build the MNA system of a flat part list. `second`: current sources that excite a second
+ * right-hand side instead of the first (they add nothing to the matrix, so both right-hand sides
+ * share its factors); their nodes must be nodes of `parts` or `nodes`. Never throws on user input.
+ */
+export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): MnaBuild {
   const errors: NetlistError[] = [];
   const nodeIndex = new Map<string, number>();
   const labels: string[] = [];
@@ -154,19 +163,9 @@ export function buildMna(parts: Part[], nodes: string[]): MnaBuild {
         bRe[k] = p.value * Math.cos(phase);
         bIm[k] = p.value * Math.sin(phase);
         break;
-      case "isource": {
-        const ir = p.value * Math.cos(phase);
-        const ii = p.value * Math.sin(phase);
-        if (a >= 0) {
-          bRe[a] = bRe[a]! - ir;
-          bIm[a] = bIm[a]! - ii;
-        }
-        if (b >= 0) {
-          bRe[b] = bRe[b]! + ir;
-          bIm[b] = bIm[b]! + ii;
-        }
+      case "isource":
+        injectCurrent(bRe, bIm, a, b, p.value, phase);
         break;
-      }
       case "vcvs":
         branch(k, a, b);
         stamp(k, c, -p.value, 0);
@@ -195,6 +194,24 @@ export function buildMna(parts: Part[], nodes: string[]): MnaBuild {
       case "opamp":
         for (const problem of stampOpamp(p, k, a, b, c, stamp)) errors.push(partError(p, problem));
         break;
+    }
+  }
+  let secondRhs: MnaSystem["second"] = null;
+  if (second.length > 0) {
+    secondRhs = { bRe: new Float64Array(n), bIm: new Float64Array(n) };
+    for (const p of second) {
+      const known = p.nodes.every((name) => name === GROUND || nodeIndex.has(name));
+      if (p.kind !== "isource" || p.nodes.length !== 2 || !known) {
+        errors.push(
+          partError(
+            p,
+            `${p.name}: only a current source between known nodes can drive the second right-hand side`,
+          ),
+        );
+        continue;
+      }
+      const [a, b] = p.nodes.map(ix) as [number, number];
+      injectCurrent(secondRhs.bRe, secondRhs.bIm, a, b, p.value, ((p.phaseDeg ?? 0) * Math.PI) / 180);
     }
   }
   if (errors.length > 0) return { ok: false, errors };
@@ -229,8 +246,30 @@ export function buildMna(parts: Part[], nodes: string[]): MnaBuild {
       c: cc,
       bRe,
       bIm,
+      second: secondRhs,
     },
   };
+}
+
+/** A current source of `value`∠`phase` flowing from node a through the source to node b (−1 = gnd). */
+function injectCurrent(
+  bRe: Float64Array,
+  bIm: Float64Array,
+  a: number,
+  b: number,
+  value: number,
+  phase: number,
+) {
+  const ir = value * Math.cos(phase);
+  const ii = value * Math.sin(phase);
+  if (a >= 0) {
+    bRe[a] = bRe[a]! - ir;
+    bIm[a] = bIm[a]! - ii;
+  }
+  if (b >= 0) {
+    bRe[b] = bRe[b]! + ir;
+    bIm[b] = bIm[b]! + ii;
+  }
 }
 
 /** Fill matrix.re/im with A(j·2πf) = G + j·2πf·C. Cost O(nnz). */

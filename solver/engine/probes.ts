@@ -127,3 +127,67 @@ export function evalProbe(p: Probe, ac: AcSolver): Dual {
       return div(evalProbe(p.left, ac), evalProbe(p.right, ac));
   }
 }
+
+/**
+ * A loop gain measured by double injection (R. D. Middlebrook, "Measurement of loop gain in
+ * feedback systems", Int. J. Electronics 38(4), 1975) on a system built by loops.ts: the closed
+ * loop with a series test source `source` from `cut` (the listed parts' side, x) to `node` (the
+ * driver's side, y). The system's first right-hand side sets that source to 1 V (voltage
+ * injection); its second sets it to 0 V and injects 1 A from gnd into `cut` (current injection).
+ */
+export interface DoubleInjection {
+  op: "double-injection";
+  node: string;
+  cut: string;
+  source: string;
+}
+
+/** What a trace reads from its system's solution. */
+export type Reading = Probe | DoubleInjection;
+
+const ONE = dual(1, 0);
+
+/**
+ * The two injection ratios, in this engine's sign convention (the returned signal over the
+ * injected one; Middlebrook's Tv, Ti are these negated):
+ *  - Tv = v(node)/v(cut) with the 1 V series source (first right-hand side);
+ *  - Ti = i(driver → junction)/i(junction → listed parts) with the 1 A injection (second one),
+ *    where j, the source's branch current from `cut` to `node`, is the current into the driver
+ *    side, so Ti = −j/(1 − j).
+ */
+export function injectionRatios(d: DoubleInjection, ac: AcSolver): { tv: Dual; ti: Dual } {
+  const { vx, vy, j } = injectionReadings(d, ac);
+  return { tv: div(vy, vx), ti: div(scale(j, -1), diff(ONE, j)) };
+}
+
+function injectionReadings(d: DoubleInjection, ac: AcSolver) {
+  const x = ac.sys.nodeIndex.get(d.cut)!;
+  const k = ac.sys.branchIndex.get(d.source)!;
+  return {
+    vx: dual(ac.xRe[x]!, ac.xIm[x]!, ac.dxRe[x]!, ac.dxIm[x]!),
+    vy: voltage(ac, d.node),
+    j: dual(ac.x2Re[k]!, ac.x2Im[k]!, ac.dx2Re[k]!, ac.dx2Im[k]!),
+  };
+}
+
+/**
+ * T = (Tv·Ti − 1)/(Tv + Ti − 2), i.e. 1/(1 − T) = 1/(1 − Tv) + 1/(1 − Ti): Middlebrook's
+ * combination with T, Tv, Ti negated. Evaluated without Ti (which is infinite when an ideal
+ * voltage output drives the node, j = 1): with w = vx − vy (the injected 1 V) and Ti = −j/(1 − j),
+ *   T = (vx − j·w) / (vx + (1 − j)·w),
+ * which is v(node)/v(cut) = Tv exactly when j = 1, i.e. the ideal cut.
+ */
+export function evalDoubleInjection(d: DoubleInjection, ac: AcSolver): Dual {
+  const { vx, vy, j } = injectionReadings(d, ac);
+  const w = diff(vx, vy);
+  return div(diff(vx, mul(j, w)), sum(vx, mul(diff(ONE, j), w)));
+}
+
+function sum(a: Dual, b: Dual): Dual {
+  return dual(a.re + b.re, a.im + b.im, a.dRe + b.dRe, a.dIm + b.dIm);
+}
+
+/** Evaluate a trace's reading on the last solution of `ac` (derivatives as for evalProbe). */
+export function readTrace(r: Reading, ac: AcSolver): Dual {
+  return r.op === "double-injection" ? evalDoubleInjection(r, ac) : evalProbe(r, ac);
+}

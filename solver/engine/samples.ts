@@ -10,7 +10,7 @@ import { evaluateChecks } from "./checks";
 import { planSystems, type SystemRun, sampler } from "./index";
 import { computeMeasures } from "./measures";
 import { buildMna } from "./mna";
-import { evalProbe } from "./probes";
+import { readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
 
 /** One sample's outcome: measure values in `circuit.measures` order (NaN = no value), checks passed. */
@@ -23,7 +23,7 @@ interface ActiveRun {
   run: SystemRun;
   /** Index of each toleranced part in run.parts (−1 when absent). */
   slots: Int32Array;
-  traces: { probe: SystemRun["traces"][number]["probe"]; re: number[]; im: number[] }[];
+  traces: { reading: SystemRun["traces"][number]["reading"]; re: number[]; im: number[] }[];
 }
 
 /**
@@ -57,8 +57,8 @@ export class SampleKernel {
       const traces = used.map((t) => {
         const re = new Array<number>(n).fill(0);
         const im = new Array<number>(n).fill(0);
-        this.samplers.set(t.name, sampler(run, t.name, t.probe, freqs, re, im));
-        return { probe: t.probe, re, im };
+        this.samplers.set(t.name, sampler(run, t.name, t.reading, freqs, re, im));
+        return { reading: t.reading, re, im };
       });
       this.active.push({ run, slots: Int32Array.from(names, (nm) => index.get(nm) ?? -1), traces });
     }
@@ -73,7 +73,7 @@ export class SampleKernel {
         const s = a.slots[j]!;
         if (s >= 0) parts[s] = { ...parts[s]!, value: values[offset + j]! };
       }
-      const built = buildMna(parts, a.run.nodes);
+      const built = buildMna(parts, a.run.nodes, a.run.second);
       if (!built.ok) return built.errors[0]?.message ?? "the sample could not be built";
       // A value of 0 drops a stamp and changes the pattern: that sample gets its own ordering.
       if (!a.run.solver.rebind(built.system)) a.run.solver = new AcSolver(built.system);
@@ -83,7 +83,7 @@ export class SampleKernel {
         const err = solver.solveAt(freqs[k]!);
         if (err) return err;
         for (const t of a.traces) {
-          const v = evalProbe(t.probe, solver);
+          const v = readTrace(t.reading, solver);
           if (!Number.isFinite(v.re) || !Number.isFinite(v.im)) return "the probe divides by zero";
           t.re[k] = v.re;
           t.im[k] = v.im;

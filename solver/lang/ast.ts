@@ -77,7 +77,7 @@ export type Statement =
   | { type: "title"; text: string; span: SourceSpan }
   | { type: "sweep"; sweep: SweepNode; span: SourceSpan }
   | { type: "show"; name: Named; probe: ProbeNode; text: string; span: SourceSpan }
-  | { type: "loop"; name: Named; node: Named; before: Named[]; span: SourceSpan }
+  | { type: "loop"; name: Named; node: Named; before: Named[]; method?: Named; span: SourceSpan }
   | {
       type: "measure";
       name: Named;

@@ -1,5 +1,6 @@
 /** Resolution of sweep, show and loop statements against the flattened circuit. */
-import type { LoopCut, Part, Probe, Show, SourceSpan, Sweep } from "../types";
+import { idealDriverAt, inexactCutMessage } from "../engine/loops";
+import type { LoopCut, LoopMethod, Part, Probe, Show, SourceSpan, Sweep } from "../types";
 import type { Named, ProbeNode, SweepNode } from "./ast";
 import { didYouMean } from "./hints";
 import { MAX_POINTS } from "./kinds";
@@ -133,16 +134,6 @@ export function resolveShows(
   return out;
 }
 
-/** Parts whose output fixes a node's voltage exactly (the cut is exact at such a node). */
-function idealDriver(parts: Part[], at: string): boolean {
-  return parts.some((p) =>
-    p.kind === "opamp"
-      ? p.nodes[2] === at && !(p.opamp?.rout ?? 0)
-      : (p.kind === "vsource" || p.kind === "vcvs" || p.kind === "ccvs") &&
-        (p.nodes[0] === at || p.nodes[1] === at),
-  );
-}
-
 export function resolveLoops(
   list: Of<"loop">[],
   ctx: DirectiveContext,
@@ -171,13 +162,23 @@ export function resolveLoops(
       before.push(p.name);
     }
     if (at === null || at === "gnd" || before.length !== new Set(l.before.map((b) => b.name)).size) continue;
-    if (!idealDriver(ctx.parts, at)) {
-      ctx.warnings.push({
-        line: l.span.line,
-        message: `loop ${l.name.name}: node ${at} is not driven by an ideal voltage output, so the cut ignores how the parts after it load the stage that drives it`,
-      });
+    const method = (l.method?.name ?? "cut") as LoopMethod;
+    const moved = new Set(before);
+    if (method === "injection") {
+      if (!ctx.parts.some((p) => !moved.has(p.name) && p.nodes.includes(at))) {
+        err(
+          ctx,
+          l.node.span,
+          `every part on \`${at}\` is listed, so nothing drives the loop there`,
+          "list only the parts the loop's signal flows into; the driving stage stays off the list",
+        );
+        continue;
+      }
+    } else if (!idealDriverAt(ctx.parts, at, moved)) {
+      // The engine gives the same warning (for circuits built without the language) and says it once.
+      ctx.warnings.push({ line: l.span.line, message: inexactCutMessage(l.name.name, at) });
     }
-    out.push({ name: l.name.name, node: at, before, span: l.span });
+    out.push({ name: l.name.name, node: at, before, ...(l.method ? { method } : {}), span: l.span });
   }
   return out;
 }

@@ -1,5 +1,5 @@
 /** What each part kind takes: terminals, value place, options, and a usage line for hints. */
-import type { MeasureFunction, PartKind } from "../types";
+import type { LoopMethod, MeasureFunction, PartKind } from "../types";
 import type { Place } from "./numbers";
 
 export interface KindInfo {
@@ -109,6 +109,9 @@ export const KEYWORDS = [
   "poles",
   "sensitivity",
 ];
+
+/** The ways a loop gain is measured (`loop … method=…`); the first is the default. */
+export const LOOP_METHODS: readonly LoopMethod[] = ["cut", "injection"];
 
 export const MEASURE_FUNCTIONS: MeasureFunction[] = [
   "zero-phase",

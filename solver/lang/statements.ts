@@ -2,6 +2,7 @@
 import type { Named, Statement, SweepNode, ValueNode } from "./ast";
 import { type Cursor, spanBetween, spanOf, words } from "./cursor";
 import { didYouMean } from "./hints";
+import { LOOP_METHODS } from "./kinds";
 import { parseCheck, parseMeasure } from "./measure-syntax";
 import { parseProbe } from "./probe";
 
@@ -114,9 +115,37 @@ function parseLoop(c: Cursor): Statement | null {
     if (!c.isOp(",")) break;
     c.next();
   }
-  return c.expectEnd("list parts separated by commas: before R1,R2")
-    ? { type: "loop", name, node, before, span: c.span }
-    : null;
+  const s: Statement = { type: "loop", name, node, before, span: c.span };
+  while (!c.atEnd()) {
+    const key = c.peek()!;
+    if (!(key.kind === "word" && c.isOp("=", 1))) {
+      return c.fail(
+        spanOf(key),
+        `unexpected \`${key.text}\` at the end of the statement`,
+        "list parts separated by commas: before R1,R2 — then options: method=injection",
+      );
+    }
+    c.next();
+    c.next();
+    if (key.text !== "method") {
+      return c.fail(
+        spanOf(key),
+        `unknown option \`${key.text}\``,
+        didYouMean(key.text, ["method"]) ?? "loop T cut out before R1 method=injection",
+      );
+    }
+    const method = c.expectName("cut or injection", false, "method=cut or method=injection");
+    if (method === null) return null;
+    if (!(LOOP_METHODS as readonly string[]).includes(method.name)) {
+      return c.fail(
+        method.span,
+        `unknown loop method \`${method.name}\``,
+        didYouMean(method.name, LOOP_METHODS) ?? "method=cut or method=injection",
+      );
+    }
+    s.method = method;
+  }
+  return s;
 }
 
 function parseVary(c: Cursor): Statement | null {

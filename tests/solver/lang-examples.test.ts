@@ -81,6 +81,13 @@ describe("example netlists", () => {
     for (let i = 1; i < pms.length; i++) expect(pms[i]!).toBeLessThan(pms[i - 1]!); // more load, less margin
   });
 
+  it("line driver with rout: the injected loop keeps the rout·Cl pole (hand formula: tests/solver/loop-injection.test.ts)", () => {
+    const r = solved("line-driver-rout.pwn");
+    // A cut at the op-amp pin would see only A(s)·β: a single pole, about 90° of margin.
+    expect(measure(r, "pm")).toBeLessThan(60);
+    expect(r.checks.every((c) => c.pass)).toBe(true);
+  });
+
   it("buffered RC blocks: corner 1591.549 Hz (CHECKS.md §1) and −6.0206 dB for two buffered sections (CHECKS.md §2)", () => {
     const r = solved("buffered-rc-blocks.pwn");
     expect(measure(r, "corner")).toBeCloseTo(1591.5494, 1);

@@ -46,6 +46,12 @@ describe("completionContext", () => {
     expect(completionContext("measure g = mag(T) at ")).toBe("measure");
     expect(completionContext("check ")).toBe("measure");
     expect(completionContext("R1: resistor a b 10k ")).toBe("option");
+    // After a loop's parts: its option, then the option's values.
+    expect(completionContext("loop T cut amp_out before Rs ")).toBe("loop-option");
+    expect(completionContext("loop T cut amp_out before Rs, Rf me")).toBe("loop-option");
+    expect(completionContext("loop T cut amp_out before Rs, ")).toBe("part");
+    expect(completionContext("loop T cut amp_out before Rs method=")).toBe("loop-method");
+    expect(completionContext("loop T cut amp_out before Rs method=inj")).toBe("loop-method");
   });
 });
 
@@ -57,5 +63,7 @@ describe("hoverDoc", () => {
     expect(hoverDoc("gbw")).toContain("Gain-bandwidth");
     expect(hoverDoc("sweep")).toContain("per decade");
     expect(hoverDoc("amp_out")).toBeNull();
+    expect(hoverDoc("method")).toContain("`method=injection`");
+    expect(hoverDoc("injection")).toContain("(loop method)");
   });
 });
