@@ -31,6 +31,28 @@ export function idealDriverAt(parts: Part[], node: string, moved: ReadonlySet<st
   );
 }
 
+/** Terminals of each kind that draw no current (op-amp inputs, controlled sources' sensing pair). */
+const SENSING_TERMINALS: Partial<Record<Part["kind"], number[]>> = {
+  opamp: [0, 1],
+  vcvs: [2, 3],
+  vccs: [2, 3],
+};
+
+/**
+ * Whether cutting at `node` before the `moved` parts is exact: either an ideal voltage output fixes
+ * the node, or every moved part touches the node only through terminals that draw no current (an
+ * op-amp input, a controlled source's sensing pair), so opening the loop there unloads nothing.
+ */
+export function exactCutAt(parts: Part[], node: string, moved: ReadonlySet<string>): boolean {
+  if (idealDriverAt(parts, node, moved)) return true;
+  return parts
+    .filter((p) => moved.has(p.name))
+    .every((p) => {
+      const sensing = SENSING_TERMINALS[p.kind] ?? [];
+      return p.nodes.every((x, i) => x !== node || sensing.includes(i));
+    });
+}
+
 /** The warning of a cut that leaves out the driver's loading (the language and the engine give the same). */
 export function inexactCutMessage(loop: string, node: string): string {
   return (
@@ -109,7 +131,7 @@ export function buildLoop(circuit: Circuit, loop: LoopCut): LoopBuild {
     nodes,
     second: [],
     reading: { op: "/", left: { op: "v", node }, right: { op: "v", node: cut } },
-    warning: idealDriverAt(parts, node, moved)
+    warning: exactCutAt(parts, node, moved)
       ? null
       : { line: loop.span.line, message: inexactCutMessage(loop.name, node) },
   };

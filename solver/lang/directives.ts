@@ -1,5 +1,5 @@
 /** Resolution of sweep, show and loop statements against the flattened circuit. */
-import { idealDriverAt, inexactCutMessage } from "../engine/loops";
+import { exactCutAt, inexactCutMessage } from "../engine/loops";
 import type { LoopCut, LoopMethod, Part, Probe, Show, SourceSpan, Sweep } from "../types";
 import type { Named, ProbeNode, SweepNode } from "./ast";
 import { didYouMean } from "./hints";
@@ -174,7 +174,7 @@ export function resolveLoops(
         );
         continue;
       }
-    } else if (!idealDriverAt(ctx.parts, at, moved)) {
+    } else if (!exactCutAt(ctx.parts, at, moved)) {
       // The engine gives the same warning (for circuits built without the language) and says it once.
       ctx.warnings.push({ line: l.span.line, message: inexactCutMessage(l.name.name, at) });
     }

@@ -290,6 +290,24 @@ describe("a real op-amp whose output resistance sees the load: injection against
     }
   });
 
+  it("a cut before the op-amp's input unloads nothing: exact without a warning, equal to injection", () => {
+    // The inverting input draws no current, so opening the loop there leaves every load in place:
+    // T at `neg` before U1 is the same return ratio −A·β·ZL/(rout + ZL) (common practice: the loop
+    // gain of a single loop is the same wherever it is broken, if the break does not change loading).
+    const atInput = text.replace(
+      "loop  T cut amp before Cl,Rl,Rf method=injection",
+      "loop  T cut neg before U1",
+    );
+    expect(atInput).not.toBe(text);
+    const cutRun = solve(atInput);
+    expect(cutRun.warnings).toEqual([]);
+    const tc = trace(cutRun, "T");
+    for (const [k, f] of cutRun.frequencies.entries()) {
+      expectComplexClose(c(tc.re[k]!, tc.im[k]!), hand(f).T, 1e-9, `cut at the input, ${f} Hz`);
+    }
+    expectClose(measure(cutRun, "pm"), measure(r, "pm"), 1e-9);
+  });
+
   it("vary and sensitivity re-solve the injected loop", () => {
     const varied = solve(`${text}vary Cl over 10n, 47n\n`);
     const v47 = varied.variants!.find((v) => v.value === 47e-9)!;
