@@ -1,5 +1,6 @@
 /**
  * Monte Carlo on worker threads (node:worker_threads) — `solveNetlistParallel(text, options)`.
+ * The `vary` variants are solved in this thread, one per turn of the event loop (progress, cancel).
  *
  * The parent compiles and solves the nominal circuit, draws every sample's part values up front
  * (solver/engine/monte-carlo.ts `drawSamples`), then hands chunks of sample indices to a pool of
@@ -18,7 +19,7 @@ import { Worker } from "node:worker_threads";
 import { analyze, internalError } from "./engine";
 import { drawSamples, monteCarloPreflight, summarizeSamples } from "./engine/monte-carlo";
 import { type SampleBatch, SampleKernel, solveSampleRange } from "./engine/samples";
-import { addStudies } from "./engine/studies";
+import { addStudies, solveVariant, type VaryOutcome } from "./engine/studies";
 import type { SolveOptions } from "./index";
 import { compile } from "./lang";
 import type { Circuit, MonteCarloResult, SolveResult, SolveSuccess, Warning } from "./types";
@@ -26,9 +27,9 @@ import type { Circuit, MonteCarloResult, SolveResult, SolveSuccess, Warning } fr
 export interface ParallelOptions extends SolveOptions {
   /** Worker threads for the samples: 0 = solve in this thread; default: the cores, at most 4. */
   threads?: number;
-  /** Called as samples finish: done of total. */
+  /** Called as variants and samples finish: done of total (vary values + Monte Carlo samples). */
   onProgress?: (done: number, total: number) => void;
-  /** Stops handing out samples; the promise then rejects with the signal's reason. */
+  /** Stops handing out variants and samples; the promise then rejects with the signal's reason. */
   signal?: AbortSignal;
 }
 
@@ -218,9 +219,12 @@ export function defaultThreads(): number {
 }
 
 /**
- * `solveNetlist` with the Monte Carlo samples on worker threads (same JSON for the same text and
- * seed). Progress counts samples; without Monte Carlo it reports 1 of 1 when done. Never rejects
- * on user input; rejects only when `signal` aborts.
+ * `solveNetlist` with the `vary` variants solved one at a time and the Monte Carlo samples on
+ * worker threads (same JSON for the same text and seed). Progress counts variants, then samples:
+ * total = vary values + samples, each weighing one sweep as in the queue's work measure
+ * (lib/jobs.ts `solveWork`); done grows to total. With neither it reports 1 of 1 when done.
+ * Yields to the event loop between variants and between chunks of samples, so `signal` is
+ * honoured there. Never rejects on user input; rejects only when `signal` aborts.
  */
 export async function solveNetlistParallel(
   text: string,
@@ -232,19 +236,62 @@ export async function solveNetlistParallel(
   const result = analyze(compiled.circuit, compiled.warnings, options);
   if (!result.ok) return result;
   const circuit = compiled.circuit;
+  const variantCount = circuit.vary?.values.length ?? 0;
+  const total = variantCount + (circuit.monteCarlo?.samples ?? 0);
+  let vary: VaryOutcome | undefined;
+  if (circuit.vary) {
+    const onDone = (done: number) => options.onProgress?.(done, total);
+    try {
+      vary = await parallelVary(text, circuit, result.frequencies, onDone, options);
+    } catch (error) {
+      if (options.signal?.aborted) throw error;
+      // A fault of the engine, as solveNetlist reports one from addStudies.
+      return { ok: false, errors: [internalError(error)], warnings: result.warnings };
+    }
+  }
   let mc: { result: MonteCarloResult | string; warnings: Warning[] } | undefined;
   if (circuit.monteCarlo) {
-    mc = await parallelMonteCarlo(circuit, result, options);
+    const onProgress = options.onProgress;
+    mc = await parallelMonteCarlo(circuit, result, {
+      ...options,
+      onProgress: onProgress && ((done) => onProgress(variantCount + done, total)),
+    });
   }
   options.signal?.throwIfAborted();
   try {
-    const full = addStudies(text, circuit, result, { ...options, ...(mc ? { monteCarlo: mc } : {}) });
+    const full = addStudies(text, circuit, result, {
+      ...options,
+      ...(vary ? { vary } : {}),
+      ...(mc ? { monteCarlo: mc } : {}),
+    });
     if (full.ok) full.stats = { ...full.stats, solveMs: Math.round((performance.now() - t0) * 1000) / 1000 };
-    if (!circuit.monteCarlo) options.onProgress?.(1, 1);
+    if (total === 0) options.onProgress?.(1, 1);
     return full;
   } catch (error) {
     return { ok: false, errors: [internalError(error)], warnings: result.warnings };
   }
+}
+
+/**
+ * The `vary` variants in value order, one per turn of the event loop (progress, cancel): a
+ * variant is one full sweep with traces, solved in this thread.
+ */
+async function parallelVary(
+  text: string,
+  circuit: Circuit,
+  freqs: number[],
+  onDone: (done: number) => void,
+  options: ParallelOptions,
+): Promise<VaryOutcome> {
+  const out: VaryOutcome = { variants: [], warnings: [] };
+  const values = circuit.vary?.values ?? [];
+  for (let i = 0; i < values.length; i++) {
+    options.signal?.throwIfAborted();
+    solveVariant(text, circuit, freqs, values[i]!, out);
+    onDone(i + 1);
+    await new Promise<void>((r) => setImmediate(r));
+  }
+  return out;
 }
 
 async function parallelMonteCarlo(

@@ -131,7 +131,7 @@ export function buildLoop(circuit: Circuit, loop: LoopCut): LoopBuild {
     nodes,
     second: [],
     reading: { op: "/", left: { op: "v", node }, right: { op: "v", node: cut } },
-    warning: exactCutAt(parts, node, moved)
+    warning: exactCutAt(circuit.parts, node, moved)
       ? null
       : { line: loop.span.line, message: inexactCutMessage(loop.name, node) },
   };

@@ -24,6 +24,17 @@ export interface StudyOptions {
    * warnings it raised; used in place of the in-thread run so the JSON is the same either way.
    */
   monteCarlo?: { result: MonteCarloResult | string; warnings: Warning[] };
+  /**
+   * The `vary` variants solved elsewhere (one at a time by `solveVariant`, solver/parallel.ts)
+   * with their warnings; used in place of the in-thread loop so the JSON is the same either way.
+   */
+  vary?: VaryOutcome;
+}
+
+/** The variants of a `vary` in value order, and the warnings of the ones that were skipped. */
+export interface VaryOutcome {
+  variants: VariantResult[];
+  warnings: Warning[];
 }
 
 /** Relative step of the central differences of `sensitivity`. */
@@ -54,31 +65,9 @@ export function addStudies(
   const warnings = result.warnings;
   const out: SolveSuccess = { ...result };
   if (circuit.vary) {
-    const vd = circuit.vary;
-    const variants: VariantResult[] = [];
-    for (const value of vd.values) {
-      let c: Circuit | null = circuit;
-      if (vd.targetKind === "let") {
-        const compiled = compile(text, { lets: { [vd.target]: value } });
-        c = compiled.ok ? compiled.circuit : null;
-        if (!compiled.ok) {
-          warnings.push({
-            line: vd.span.line,
-            message: `vary ${vd.target} = ${value}: ${compiled.errors[0]?.message}`,
-          });
-        }
-      } else {
-        c = withValues(circuit, new Map([[vd.target, value]]));
-      }
-      if (!c) continue;
-      const o = rerun(c, freqs);
-      if (typeof o === "string") {
-        warnings.push({ line: vd.span.line, message: `vary ${vd.target} = ${value}: ${o}` });
-        continue;
-      }
-      variants.push({ name: vd.target, value, traces: o.traces, measures: o.measures, checks: o.checks });
-    }
-    out.variants = variants;
+    const vary = options.vary ?? solveVary(text, circuit, freqs);
+    warnings.push(...vary.warnings);
+    out.variants = vary.variants;
   }
   if (circuit.monteCarlo) {
     let mc: MonteCarloResult | string;
@@ -108,6 +97,49 @@ export function addStudies(
   }
   if (circuit.sensitivity.length > 0)
     out.sensitivity = sensitivity(circuit, freqs, result.measures, warnings);
+  return out;
+}
+
+/**
+ * Solve one value of the circuit's `vary` (a `let` is re-compiled with an override, a part's value
+ * is replaced) and add it to `into`: the variant, or a warning when it cannot be solved (skipped).
+ * Never throws on user input.
+ */
+export function solveVariant(
+  text: string,
+  circuit: Circuit,
+  freqs: number[],
+  value: number,
+  into: VaryOutcome,
+): void {
+  const vd = circuit.vary;
+  if (!vd) return;
+  let c: Circuit | null = circuit;
+  if (vd.targetKind === "let") {
+    const compiled = compile(text, { lets: { [vd.target]: value } });
+    c = compiled.ok ? compiled.circuit : null;
+    if (!compiled.ok) {
+      into.warnings.push({
+        line: vd.span.line,
+        message: `vary ${vd.target} = ${value}: ${compiled.errors[0]?.message}`,
+      });
+    }
+  } else {
+    c = withValues(circuit, new Map([[vd.target, value]]));
+  }
+  if (!c) return;
+  const o = rerun(c, freqs);
+  if (typeof o === "string") {
+    into.warnings.push({ line: vd.span.line, message: `vary ${vd.target} = ${value}: ${o}` });
+    return;
+  }
+  into.variants.push({ name: vd.target, value, traces: o.traces, measures: o.measures, checks: o.checks });
+}
+
+/** Every value of the circuit's `vary`, in order, in this thread. */
+export function solveVary(text: string, circuit: Circuit, freqs: number[]): VaryOutcome {
+  const out: VaryOutcome = { variants: [], warnings: [] };
+  for (const value of circuit.vary?.values ?? []) solveVariant(text, circuit, freqs, value, out);
   return out;
 }
 
