@@ -20,8 +20,8 @@ export type ReviewState = (typeof REVIEW_STATES)[number];
 /**
  * One solve of one netlist, kept for good. Runs are immutable once saved (a change is a new run);
  * only status, reviewState and the result of a queued job change later, so there is no updatedAt.
- * JSONB columns (result, measures, checks, timings) are `unknown`, null when absent: map them to
- * plain types in lib/ before use.
+ * JSON columns (result — `json` with lz4, written once and read whole — and the JSONB measures,
+ * checks, timings) are `unknown`, null when absent: map them to plain types in lib/ before use.
  */
 export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run>> {
   declare id: CreationOptional<string>;
@@ -60,7 +60,7 @@ export class Run extends Model<InferAttributes<Run>, InferCreationAttributes<Run
         solverVersion: { type: DataTypes.STRING(40), allowNull: false },
         status: { type: DataTypes.ENUM(...RUN_STATUSES), allowNull: false },
         reviewState: { type: DataTypes.ENUM(...REVIEW_STATES), allowNull: false, defaultValue: "draft" },
-        result: { type: DataTypes.JSONB, allowNull: true },
+        result: { type: DataTypes.JSON, allowNull: true },
         measures: { type: DataTypes.JSONB, allowNull: true },
         checks: { type: DataTypes.JSONB, allowNull: true },
         checksPassed: { type: DataTypes.INTEGER, allowNull: true },

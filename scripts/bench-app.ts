@@ -353,7 +353,7 @@ async function benchRun(fixture: Fixture): Promise<RunFigures> {
     rows: goalRows,
     sizes: [
       ["GET /api/runs/:id response body", kb(responseBytes)],
-      ["result as JSON text (jsonb::text)", kb(Number(stored?.text ?? 0))],
+      ["result as JSON text (result::text)", kb(Number(stored?.text ?? 0))],
       ["result as stored by PostgreSQL (pg_column_size, compressed)", kb(Number(stored?.stored ?? 0))],
     ],
   };

@@ -66,6 +66,7 @@ describe("migrations", () => {
       "202612021046-create-projects-runs",
       "202612021047-create-outbox-emails",
       "202612021130-create-run-jobs",
+      "202612021400-run-result-json-lz4",
     ]);
   });
 
@@ -127,16 +128,41 @@ describe("migrations", () => {
     expect(columns.id).toBe("gen_random_uuid()");
   });
 
-  it("go down one step (dropping the job table and its enum) and up again", async () => {
+  it("go down one step (the result back to jsonb) and up again (json, lz4)", async () => {
+    const resultColumn = async () => {
+      const [rows] = await sequelize.query(
+        `SELECT format_type(a.atttypid, a.atttypmod) AS type, a.attcompression AS compression
+           FROM pg_attribute a WHERE a.attrelid = 'runs'::regclass AND a.attname = 'result'`,
+      );
+      return rows[0] as { type: string; compression: string };
+    };
+    // lz4 when the server was built with it (Debian's is); 'l' is lz4 in pg_attribute.
+    expect(await resultColumn()).toEqual({ type: "json", compression: "l" });
     const reverted = await migrator.down({ step: 1 });
-    expect(reverted.map((m) => m.name)).toEqual(["202612021130-create-run-jobs"]);
+    expect(reverted.map((m) => m.name)).toEqual(["202612021400-run-result-json-lz4"]);
+    expect(await resultColumn()).toEqual({ type: "jsonb", compression: "" });
+    expect((await migrator.pending()).map((m) => m.name)).toEqual(["202612021400-run-result-json-lz4"]);
+
+    const applied = await migrator.up();
+    expect(applied.map((m) => m.name)).toEqual(["202612021400-run-result-json-lz4"]);
+    expect(await resultColumn()).toEqual({ type: "json", compression: "l" });
+  });
+
+  it("go down two steps (dropping the job table and its enum) and up again", async () => {
+    const reverted = await migrator.down({ step: 2 });
+    expect(reverted.map((m) => m.name)).toEqual([
+      "202612021400-run-result-json-lz4",
+      "202612021130-create-run-jobs",
+    ]);
     expect(await tables()).toEqual(ALL_TABLES.filter((t) => t !== "run_jobs"));
     const [types] = await sequelize.query("SELECT 1 FROM pg_type WHERE typname = 'enum_run_jobs_state'");
     expect(types).toHaveLength(0);
-    expect((await migrator.pending()).map((m) => m.name)).toEqual(["202612021130-create-run-jobs"]);
 
     const applied = await migrator.up();
-    expect(applied.map((m) => m.name)).toEqual(["202612021130-create-run-jobs"]);
+    expect(applied.map((m) => m.name)).toEqual([
+      "202612021130-create-run-jobs",
+      "202612021400-run-result-json-lz4",
+    ]);
     expect(await tables()).toEqual(ALL_TABLES);
   });
 
