@@ -4,6 +4,7 @@ import "@fontsource/jetbrains-mono/600.css";
 import "./globals.css";
 import type { Metadata, Viewport } from "next";
 import type { ReactNode } from "react";
+import { RouteFocus } from "@/components/shell/route-focus";
 import { SiteFooter } from "@/components/shell/site-footer";
 import { SiteHeader } from "@/components/shell/site-header";
 import { isDatabaseConnectionError } from "@/lib/errors";
@@ -42,6 +43,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
           {children}
         </main>
         <SiteFooter />
+        <RouteFocus />
       </body>
     </html>
   );
