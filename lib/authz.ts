@@ -101,8 +101,9 @@ export async function authorizeProject(userId: string, projectId: string, action
 export async function authorizeRun(userId: string, runId: string, action: Action) {
   return withDb(async () => {
     if (!isUuid(runId)) throw new NotFoundError("Run not found.");
-    const { Project, Run } = await import("@/lib/db");
-    const run = await Run.findByPk(runId);
+    const { Project, Run, RUN_HEAVY_COLUMNS } = await import("@/lib/db");
+    // Only the run's keys and state: its result can be megabytes (see getRun for the whole run).
+    const run = await Run.findByPk(runId, { attributes: { exclude: RUN_HEAVY_COLUMNS } });
     const project = run ? await Project.findByPk(String(run.get("projectId"))) : null;
     const role = project ? await roleIn(userId, String(project.get("teamId"))) : null;
     if (!run || !project || !role) throw new NotFoundError("Run not found.");

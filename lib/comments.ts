@@ -1,3 +1,4 @@
+import { QueryTypes } from "sequelize";
 import { authorizeRun, isUuid } from "@/lib/authz";
 import { Comment, sequelize, User } from "@/lib/db";
 import { BadRequestError, NotFoundError, withDb } from "@/lib/errors";
@@ -5,7 +6,6 @@ import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
 import { commentMail } from "@/lib/mail/templates";
 import type { Actor } from "@/lib/session";
 import type { CommentCreateInput } from "@/lib/validations/comment";
-import type { SolveSuccess } from "@/solver/types";
 
 export type CommentView = {
   id: string;
@@ -52,23 +52,37 @@ export async function listComments(actor: Actor, runId: string): Promise<Comment
 }
 
 /** A pin must name a frequency inside the run's sweep and, when given, one of its traces. */
-function checkPin(result: SolveSuccess | null, input: CommentCreateInput): void {
+/** What a pin is checked against: the sweep's range and the run's trace names. */
+type SweepFacts = { lo: number | null; hi: number | null; traces: string[] };
+
+/**
+ * The sweep's range and trace names of a saved run, read inside PostgreSQL so that the result (can be
+ * megabytes) never leaves the database for a comment; null when the run has no result (yet).
+ */
+async function sweepFacts(runId: string): Promise<SweepFacts | null> {
+  const rows = await withDb(() =>
+    sequelize.query<SweepFacts>(
+      `SELECT (SELECT min(f::float8) FROM json_array_elements_text(result->'frequencies') f) AS lo,
+              (SELECT max(f::float8) FROM json_array_elements_text(result->'frequencies') f) AS hi,
+              ARRAY(SELECT t->>'name' FROM json_array_elements(result->'traces') t) AS traces
+         FROM runs WHERE id = :runId AND result IS NOT NULL`,
+      { replacements: { runId }, type: QueryTypes.SELECT },
+    ),
+  );
+  return rows[0] ?? null;
+}
+
+function checkPin(facts: SweepFacts | null, input: CommentCreateInput): void {
   const fields: Record<string, string[]> = {};
   const hz = input.frequencyHz ?? null;
   if (input.trace && hz == null) fields.trace = ["A trace pin needs a frequency too."];
-  if (hz != null && result && result.frequencies.length > 0) {
-    // A loop, not Math.min(...f): a sweep may hold 100 000 points.
-    let lo = Number.POSITIVE_INFINITY;
-    let hi = Number.NEGATIVE_INFINITY;
-    for (const f of result.frequencies) {
-      if (f < lo) lo = f;
-      if (f > hi) hi = f;
-    }
+  if (hz != null && facts && facts.lo !== null && facts.hi !== null) {
+    const { lo, hi } = facts;
     if (hz < lo * (1 - 1e-9) || hz > hi * (1 + 1e-9)) {
       fields.frequencyHz = [`Pick a frequency inside the sweep (${lo} Hz to ${hi} Hz).`];
     }
   }
-  if (input.trace && result && !result.traces.some((t) => t.name === input.trace)) {
+  if (input.trace && facts && !facts.traces.includes(input.trace)) {
     fields.trace = [`This run has no trace named "${input.trace}".`];
   }
   if (Object.keys(fields).length > 0) throw new BadRequestError("The pin does not fit this run.", { fields });
@@ -85,8 +99,7 @@ export async function createComment(
   input: CommentCreateInput,
 ): Promise<CommentView> {
   const { run } = await authorizeRun(actor.userId, runId, "run:comment");
-  const result = (run.get("result") ?? null) as SolveSuccess | null;
-  checkPin(result, input);
+  checkPin(await sweepFacts(runId), input);
   const created = await withDb(() =>
     sequelize.transaction(async (transaction) => {
       let rootId: string | null = null;

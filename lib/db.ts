@@ -7,7 +7,7 @@ import { Membership } from "@/models/membership";
 import { OutboxEmail } from "@/models/outbox-email";
 import { Project } from "@/models/project";
 import { ReviewEvent } from "@/models/review-event";
-import { Run } from "@/models/run";
+import { RUN_HEAVY_COLUMNS, Run } from "@/models/run";
 import { Team } from "@/models/team";
 import { User } from "@/models/user";
 import { env } from "./env";
@@ -111,6 +111,7 @@ export {
   OutboxEmail,
   Project,
   ReviewEvent,
+  RUN_HEAVY_COLUMNS,
   Run,
   Team,
   User,

@@ -1,6 +1,6 @@
 import { Op } from "sequelize";
 import { authorizeRun } from "@/lib/authz";
-import { Membership, ReviewEvent, Run, sequelize, User } from "@/lib/db";
+import { Membership, ReviewEvent, RUN_HEAVY_COLUMNS, Run, sequelize, User } from "@/lib/db";
 import { AppError, BadRequestError, ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
 import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
 import { reviewRequestMail, verdictMail } from "@/lib/mail/templates";
@@ -42,12 +42,17 @@ export async function reviewRun(actor: Actor, runId: string, body: ReviewActionB
   const teamId = String(project.get("teamId"));
   const outcome = await withDb(() =>
     sequelize.transaction(async (transaction) => {
-      const run = await Run.findByPk(runId, { lock: transaction.LOCK.UPDATE, transaction });
+      const run = await Run.findByPk(runId, {
+        attributes: { exclude: RUN_HEAVY_COLUMNS },
+        lock: transaction.LOCK.UPDATE,
+        transaction,
+      });
       if (!run) throw new NotFoundError("Run not found.");
       const note = body.note && body.note.length > 0 ? body.note : null;
       const mails = [];
       if (body.action === "supersede") {
         const later = await Run.findOne({
+          attributes: { exclude: RUN_HEAVY_COLUMNS },
           where: { id: body.supersededBy, projectId: run.projectId },
           transaction,
         });

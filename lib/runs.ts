@@ -1,7 +1,7 @@
 import { createHash } from "node:crypto";
 import { type InferCreationAttributes, Op, type Order, type WhereOptions } from "sequelize";
 import { type Action, authorizeProject, authorizeRun, can } from "@/lib/authz";
-import { Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { Project, ReviewEvent, RUN_HEAVY_COLUMNS, Run, sequelize, Team, User } from "@/lib/db";
 import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
 import { enqueueRunSolve, planRunSolve } from "@/lib/jobs";
 import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
@@ -56,7 +56,9 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
     });
   }
   if (input.supersedesId) {
-    const older = await withDb(() => Run.findOne({ where: { id: input.supersedesId, projectId } }));
+    const older = await withDb(() =>
+      Run.findOne({ attributes: ["id"], where: { id: input.supersedesId, projectId } }),
+    );
     if (!older) {
       throw new BadRequestError("The run to supersede is not in this project.", {
         fields: { supersedesId: ["Not a run of this project."] },
@@ -212,7 +214,7 @@ export async function listRuns(actor: Actor, projectId: string, query: RunListQu
   const { rows, count } = await withDb(() =>
     Run.findAndCountAll({
       where: { [Op.and]: and },
-      attributes: { exclude: ["result", "netlist", "checks", "timings"] },
+      attributes: { exclude: RUN_HEAVY_COLUMNS },
       include: [{ model: User, as: "author", attributes: ["id", "name"] }],
       order: SORT_COLUMNS[query.sort](dir),
       limit: query.pageSize,

@@ -16,6 +16,11 @@ export const RUN_STATUSES = ["ok", "failed", "queued", "running", "cancelled"] a
 export type RunStatus = (typeof RUN_STATUSES)[number];
 export const REVIEW_STATES = ["draft", "in_review", "approved", "changes_requested"] as const;
 export type ReviewState = (typeof REVIEW_STATES)[number];
+/**
+ * The large columns of a run (a 10 000 × 8 result is megabytes). Queries that only check or change
+ * a run's state leave them out: `{ attributes: { exclude: RUN_HEAVY_COLUMNS } }`.
+ */
+export const RUN_HEAVY_COLUMNS = ["result", "netlist", "checks", "timings"];
 
 /**
  * One solve of one netlist, kept for good. Runs are immutable once saved (a change is a new run);
