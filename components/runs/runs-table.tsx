@@ -63,6 +63,16 @@ export function RunsTable({ projectId, runs, total, pages, query, members }: Run
               {c.getValue()}
             </Link>
             {c.row.original.status !== "ok" ? <StatusPill status={c.row.original.status} /> : null}
+            {/* On a phone the right-hand columns are off screen: their gist under the title (the
+                columns still hold it for screen readers, so this line is hidden from them). */}
+            <span
+              aria-hidden="true"
+              className="text-caption text-ink-600 flex basis-full items-center gap-2 sm:hidden"
+            >
+              <ReviewStateBadge state={c.row.original.reviewState} />
+              <ChecksCell passed={c.row.original.checksPassed} total={c.row.original.checksTotal} />
+              <span className="whitespace-nowrap">{formatDate(c.row.original.createdAt)}</span>
+            </span>
           </span>
         ),
       }),
