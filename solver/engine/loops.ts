@@ -53,6 +53,11 @@ export function exactCutAt(parts: Part[], node: string, moved: ReadonlySet<strin
     });
 }
 
+/** A 1∠0° test source of a loop (1 V or 1 A), attributed to the loop's line. */
+function testSource(name: string, kind: "vsource" | "isource", nodes: string[], loop: LoopCut): Part {
+  return { name, kind, nodes, value: 1, phaseDeg: 0, span: loop.span };
+}
+
 /** The warning of a cut that leaves out the driver's loading (the language and the engine give the same). */
 export function inexactCutMessage(loop: string, node: string): string {
   return (
@@ -99,32 +104,17 @@ export function buildLoop(circuit: Circuit, loop: LoopCut): LoopBuild {
       };
     }
     const source = `${loop.name}′inject`;
-    parts.push({ name: source, kind: "vsource", nodes: [cut, node], value: 1, phaseDeg: 0, span: loop.span });
-    const current: Part = {
-      name: `${loop.name}′current`,
-      kind: "isource",
-      nodes: [GROUND, cut],
-      value: 1,
-      phaseDeg: 0,
-      span: loop.span,
-    };
+    parts.push(testSource(source, "vsource", [cut, node], loop));
     return {
       ok: true,
       parts,
       nodes,
-      second: [current],
+      second: [testSource(`${loop.name}′current`, "isource", [GROUND, cut], loop)],
       reading: { op: "double-injection", node, cut, source },
       warning: null,
     };
   }
-  parts.push({
-    name: `${loop.name}′test`,
-    kind: "vsource",
-    nodes: [cut, GROUND],
-    value: 1,
-    phaseDeg: 0,
-    span: loop.span,
-  });
+  parts.push(testSource(`${loop.name}′test`, "vsource", [cut, GROUND], loop));
   return {
     ok: true,
     parts,
