@@ -1,6 +1,8 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
+import { Suspense } from "react";
+import { CompareSkeleton } from "@/components/compare/compare-skeleton";
 import { FlippedChecks } from "@/components/compare/flipped-checks";
 import { MeasuresCompare } from "@/components/compare/measures-compare";
 import { NetlistDiff } from "@/components/compare/netlist-diff";
@@ -10,9 +12,10 @@ import { ReviewStateBadge } from "@/components/review/review-state-badge";
 import { Caution } from "@/components/run/caution";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
-import { NotFoundError } from "@/lib/errors";
+import { authorizeRun } from "@/lib/authz";
+import { visibleOr404 } from "@/lib/page-access";
 import { type CompareSideView, compareSavedRuns } from "@/lib/runs-compare";
-import { requireUser } from "@/lib/session";
+import { type Actor, requireUser } from "@/lib/session";
 import { formatDate } from "@/lib/utils";
 import { compareQuerySchema } from "@/lib/validations/run";
 
@@ -39,12 +42,24 @@ export default async function ComparePage({ searchParams }: Props) {
       </div>
     );
   }
-  const { a, b, comparison } = await compareSavedRuns(actor, parsed.data.a, parsed.data.b).catch(
-    (err: unknown) => {
-      if (err instanceof NotFoundError) notFound();
-      throw err;
-    },
+  const ids = parsed.data;
+  // Both runs must be visible: a 404 (with its status) before the comparison streams in.
+  await visibleOr404(() =>
+    Promise.all([
+      authorizeRun(actor.userId, ids.a, "run:read"),
+      authorizeRun(actor.userId, ids.b, "run:read"),
+    ]),
   );
+  return (
+    <Suspense fallback={<CompareSkeleton />}>
+      <Comparison actor={actor} a={ids.a} b={ids.b} />
+    </Suspense>
+  );
+}
+
+/** The comparison itself: both results loaded, diffed and overlaid. */
+async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; b: string }) {
+  const { a, b, comparison } = await visibleOr404(() => compareSavedRuns(actor, idA, idB));
   const labelA = `A: ${a.title}`;
   const labelB = `B: ${b.title}`;
   return (

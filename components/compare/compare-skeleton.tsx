@@ -1,5 +1,5 @@
-/** Skeleton of the compare page while both runs load. */
-export default function Loading() {
+/** Skeleton of the compare page while both runs load and their traces are matched. */
+export function CompareSkeleton() {
   return (
     <div className="mx-auto max-w-6xl animate-pulse px-4 py-8 sm:px-6" aria-busy="true" aria-live="polite">
       <span className="sr-only">Comparing the runs…</span>

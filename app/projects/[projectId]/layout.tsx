@@ -1,0 +1,21 @@
+import type { ReactNode } from "react";
+import { authorizeProject } from "@/lib/authz";
+import { visibleOr404 } from "@/lib/page-access";
+import { requireUser } from "@/lib/session";
+
+/**
+ * A project that is missing or belongs to another team answers 404 here (for the project page and
+ * its editor), before either page streams behind its loading skeleton.
+ */
+export default async function ProjectLayout({
+  children,
+  params,
+}: {
+  children: ReactNode;
+  params: Promise<{ projectId: string }>;
+}) {
+  const actor = await requireUser();
+  const { projectId } = await params;
+  await visibleOr404(() => authorizeProject(actor.userId, projectId, "project:read"));
+  return children;
+}

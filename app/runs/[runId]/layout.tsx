@@ -1,0 +1,21 @@
+import type { ReactNode } from "react";
+import { authorizeRun } from "@/lib/authz";
+import { visibleOr404 } from "@/lib/page-access";
+import { requireUser } from "@/lib/session";
+
+/**
+ * A run that is missing or belongs to another team answers 404 here, before the page streams behind
+ * its loading skeleton (which sits inside this layout). The check reads the run's keys only.
+ */
+export default async function RunLayout({
+  children,
+  params,
+}: {
+  children: ReactNode;
+  params: Promise<{ runId: string }>;
+}) {
+  const actor = await requireUser();
+  const { runId } = await params;
+  await visibleOr404(() => authorizeRun(actor.userId, runId, "run:read"));
+  return children;
+}

@@ -1,0 +1,17 @@
+import { notFound } from "next/navigation";
+import { NotFoundError } from "@/lib/errors";
+
+/**
+ * For pages: runs an access check and turns "not found or not visible" into the framework's 404.
+ * Called before anything streams (in a segment's layout, or above a page's Suspense boundary), so the
+ * answer carries HTTP status 404, not a 200 with the not-found screen. Other errors go on to the
+ * error page.
+ */
+export async function visibleOr404<T>(check: () => Promise<T>): Promise<T> {
+  try {
+    return await check();
+  } catch (err) {
+    if (err instanceof NotFoundError) notFound();
+    throw err;
+  }
+}
