@@ -9,12 +9,15 @@ import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
 import { RoleBadge } from "@/components/ui/role-badge";
 import { NotFoundError } from "@/lib/errors";
 import { listMeasurements } from "@/lib/measurements";
+import { projectPageMetadata } from "@/lib/page-titles";
 import { getProjectOverview } from "@/lib/project-overview";
 import { listRuns } from "@/lib/runs";
 import { requireUser } from "@/lib/session";
 import { parseRunListQuery } from "@/lib/validations/run";
 
-export const metadata: Metadata = { title: "Project" };
+export function generateMetadata({ params }: { params: Promise<{ projectId: string }> }): Promise<Metadata> {
+  return params.then(({ projectId }) => projectPageMetadata(projectId));
+}
 
 type Props = {
   params: Promise<{ projectId: string }>;

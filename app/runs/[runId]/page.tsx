@@ -16,11 +16,14 @@ import { Panel, PanelHeader } from "@/components/ui/panel";
 import { listComments } from "@/lib/comments";
 import { NotFoundError } from "@/lib/errors";
 import { listMeasurements } from "@/lib/measurements";
+import { runPageMetadata } from "@/lib/page-titles";
 import { getRun } from "@/lib/runs";
 import { requireUser } from "@/lib/session";
 import { formatDate } from "@/lib/utils";
 
-export const metadata: Metadata = { title: "Run" };
+export function generateMetadata({ params }: { params: Promise<{ runId: string }> }): Promise<Metadata> {
+  return params.then(({ runId }) => runPageMetadata(runId));
+}
 
 export default async function RunPage({ params }: { params: Promise<{ runId: string }> }) {
   const actor = await requireUser();

@@ -7,11 +7,14 @@ import { RoleBadge } from "@/components/ui/role-badge";
 import { can, isRole, isUuid } from "@/lib/authz";
 import { NotFoundError } from "@/lib/errors";
 import { listInvitations } from "@/lib/invitations";
+import { teamPageMetadata } from "@/lib/page-titles";
 import { requireUser } from "@/lib/session";
 import { getTeamForMember } from "@/lib/teams";
 import { formatDate } from "@/lib/utils";
 
-export const metadata: Metadata = { title: "Team" };
+export function generateMetadata({ params }: { params: Promise<{ teamId: string }> }): Promise<Metadata> {
+  return params.then(({ teamId }) => teamPageMetadata(teamId));
+}
 
 const ROLE_HELP = [
   ["owner", "everything, plus members, roles and deleting projects"],

@@ -6,9 +6,12 @@ import { Notice } from "@/components/ui/notice";
 import { authorizeProject } from "@/lib/authz";
 import { ForbiddenError, NotFoundError } from "@/lib/errors";
 import { listExamples } from "@/lib/examples";
+import { projectPageMetadata } from "@/lib/page-titles";
 import { requireUser } from "@/lib/session";
 
-export const metadata: Metadata = { title: "New run" };
+export function generateMetadata({ params }: { params: Promise<{ projectId: string }> }): Promise<Metadata> {
+  return params.then(({ projectId }) => projectPageMetadata(projectId, "New run · "));
+}
 
 type Props = { params: Promise<{ projectId: string }> };
 
