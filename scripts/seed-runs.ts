@@ -2,7 +2,7 @@ import { createHash } from "node:crypto";
 import type { Transaction } from "sequelize";
 import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
 import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
-import { LOWPASS_STAGE2, PILOT_NOTCH, WIEN_1K, WIEN_REV_A, WIEN_REV_B } from "./demo/netlists";
+import { LINE_DRIVER, LOWPASS_STAGE2, PILOT_NOTCH, WIEN_1K, WIEN_REV_A, WIEN_REV_B } from "./demo/netlists";
 import type { DemoSeed } from "./seed";
 
 type SeedUsers = Pick<DemoSeed["users"], "owner" | "designer" | "reviewer">;
@@ -198,6 +198,8 @@ async function seedFilter(t: Transaction, project: Project, users: SeedUsers): P
     },
   );
   await saveRun(t, project.id, designer, "Pilot-tone notch, twin-T", PILOT_NOTCH, 1);
+  // A failing check on purpose: 44.6° of phase margin against the 45° the team asks for.
+  await saveRun(t, project.id, designer, "Output driver into the rack cable", LINE_DRIVER, 0.5);
   for (const [actor, action, note, days] of [
     [designer, "request", null, 5.5],
     [

@@ -100,3 +100,24 @@ measure fnotch = dip(N)
 measure edge   = crossing(N, -3dB)
 check fnotch between 1.5kHz and 1.7kHz
 `;
+
+export const LINE_DRIVER = `title CV-300 output driver into the rack cable
+
+# The stage drives about 470 m of 100 pF/m cable straight from the op-amp's pin. Its 50 ohm
+# open-loop output resistance and the cable make a pole inside the loop: the loop gain is measured
+# by double injection so that the driver's loading is kept.
+Vin: vsource   in   gnd 1
+U1:  opamp     in   neg amp  gain=100k gbw=1M rout=50
+Cl:  capacitor amp  gnd 47n
+Rl:  resistor  amp  gnd 10k
+Rf:  resistor  amp  neg 9k
+Rg:  resistor  neg  gnd 1k
+
+sweep 100Hz to 10MHz log 100 per decade
+show  A = v(amp) / v(in)
+loop  T cut amp before Cl,Rl,Rf method=injection
+measure crossover = unity(T)
+measure pm        = phase-margin(T)
+measure peaking   = peak(A)
+check pm > 45deg
+`;
