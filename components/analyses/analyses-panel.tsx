@@ -1,7 +1,7 @@
 "use client";
 
 import type { SolveSuccess } from "@/solver/types";
-import { oscillatorVerdict } from "./analysis-math";
+import { analysisSections, oscillatorVerdict } from "./analysis-math";
 import { JobProgress } from "./job-progress";
 import { MonteCarloView } from "./monte-carlo-view";
 import { OscillatorVerdictCard } from "./oscillator-verdict";
@@ -26,20 +26,18 @@ export interface AnalysesPanelProps {
  * Renders nothing when there is nothing to show.
  */
 export function AnalysesPanel({ result, runId, status, canCancel = true }: AnalysesPanelProps) {
-  const pending = status === "queued" || status === "running";
   const sections: React.ReactNode[] = [];
-  if (pending && runId) {
-    sections.push(<JobProgress key="job" runId={runId} initialState={status} canCancel={canCancel} />);
-  }
-  if (result?.ok) {
-    // The verdict is about oscillators: shown for a circuit with a loop cut or a growing pole.
-    const hasLoop = result.traces.some((t) => t.kind === "loop");
-    const growing = (result.poles ?? []).some((p) => p.re > 0);
-    const verdict = hasLoop || growing ? oscillatorVerdict(result) : null;
-    if (verdict && (verdict.pole || verdict.loop))
-      sections.push(<OscillatorVerdictCard key="verdict" verdict={verdict} />);
-    if (result.poles && result.poles.length > 0) sections.push(<PoleMap key="poles" poles={result.poles} />);
-    if (result.variants && result.variants.length > 0) {
+  for (const section of analysisSections(result, status ?? "ok")) {
+    if (section === "job" && runId && status) {
+      sections.push(<JobProgress key="job" runId={runId} initialState={status} canCancel={canCancel} />);
+    }
+    if (!result?.ok) continue;
+    if (section === "verdict") {
+      const verdict = oscillatorVerdict(result);
+      if (verdict) sections.push(<OscillatorVerdictCard key="verdict" verdict={verdict} />);
+    }
+    if (section === "poles" && result.poles) sections.push(<PoleMap key="poles" poles={result.poles} />);
+    if (section === "variants" && result.variants) {
       sections.push(
         <VariantsView
           key="variants"
@@ -49,11 +47,10 @@ export function AnalysesPanel({ result, runId, status, canCancel = true }: Analy
         />,
       );
     }
-    if (result.monteCarlo)
+    if (section === "monteCarlo" && result.monteCarlo)
       sections.push(<MonteCarloView key="mc" mc={result.monteCarlo} measures={result.measures} />);
-    if (result.sensitivity && result.sensitivity.length > 0) {
+    if (section === "sensitivity" && result.sensitivity)
       sections.push(<SensitivityChart key="sens" rows={result.sensitivity} />);
-    }
   }
   if (sections.length === 0) return null;
   return (

@@ -156,3 +156,26 @@ export function histogramBars(
 export function sortedPoles(poles: PoleResult[]): PoleResult[] {
   return [...poles].sort((a, b) => a.frequencyHz - b.frequencyHz || b.im - a.im);
 }
+
+export type AnalysisSection = "job" | "verdict" | "poles" | "variants" | "monteCarlo" | "sensitivity";
+
+/**
+ * Which sections the analyses panel shows for a run, in order — one rule for the panel and for the
+ * run page that decides whether to frame it (an amplifier's loop without an oscillation verdict and
+ * without studies shows none, so the page shows no empty panel).
+ */
+export function analysisSections(result: SolveSuccess | null | undefined, status: string): AnalysisSection[] {
+  const out: AnalysisSection[] = [];
+  if (status === "queued" || status === "running") out.push("job");
+  if (!result?.ok) return out;
+  const hasLoop = result.traces.some((t) => t.kind === "loop");
+  const growing = (result.poles ?? []).some((p) => p.re > 0);
+  // The verdict is about oscillators: shown for a circuit with a loop or a growing pole.
+  const verdict = hasLoop || growing ? oscillatorVerdict(result) : null;
+  if (verdict && (verdict.pole || verdict.loop)) out.push("verdict");
+  if (result.poles && result.poles.length > 0) out.push("poles");
+  if (result.variants && result.variants.length > 0) out.push("variants");
+  if (result.monteCarlo) out.push("monteCarlo");
+  if (result.sensitivity && result.sensitivity.length > 0) out.push("sensitivity");
+  return out;
+}

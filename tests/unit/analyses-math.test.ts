@@ -1,6 +1,7 @@
 /** The analyses views' pure logic (components/analyses/analysis-math.ts) on real solver output. */
 import { describe, expect, it } from "vitest";
 import {
+  analysisSections,
   dominantOscillatoryPole,
   histogramBars,
   oscillatorVerdict,
@@ -92,5 +93,27 @@ describe("helpers", () => {
     expect(shortHz(1591.549)).toBe("1.59 kHz");
     expect(shortHz(2.5e6)).toBe("2.5 MHz");
     expect(shortHz(50)).toBe("50 Hz");
+  });
+});
+
+describe("analysisSections", () => {
+  it("an oscillator's loop gets a verdict and its poles a map; the order is fixed", () => {
+    expect(analysisSections(solve(oscillator(3.05)), "ok")).toEqual(["verdict", "poles"]);
+  });
+
+  it("an amplifier's loop with no zero-phase crossing and no studies shows no panel at all", () => {
+    // Gain-of-10 stage whose loop phase stays between +90° and 0° in the sweep: no oscillation verdict.
+    const amp = solve(`
+Vin: vsource in gnd 1
+U1:  opamp   in neg amp gain=100k gbw=1M rout=50
+Cl:  capacitor amp gnd 47n
+Rf:  resistor amp neg 9k
+Rg:  resistor neg gnd 1k
+sweep 100Hz to 1MHz log 20 per decade
+loop T cut amp before Cl,Rf method=injection
+`);
+    expect(analysisSections(amp, "ok")).toEqual([]);
+    expect(analysisSections(null, "queued")).toEqual(["job"]);
+    expect(analysisSections(null, "ok")).toEqual([]);
   });
 });

@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AnalysesPanel } from "@/components/analyses/analyses-panel";
+import { analysisSections } from "@/components/analyses/analysis-math";
 import { ReviewActions } from "@/components/review/review-actions";
 import { ReviewHistory } from "@/components/review/review-history";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
@@ -37,17 +38,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
   const measurements = await listMeasurements(actor, run.projectId);
   const result = run.result;
   const plotId = `run-plot-${run.id.slice(0, 8)}`;
-  const hasAnalyses =
-    run.status === "queued" ||
-    run.status === "running" ||
-    Boolean(
-      result &&
-        (result.poles?.length ||
-          result.variants?.length ||
-          result.monteCarlo ||
-          result.sensitivity?.length ||
-          result.traces.some((t) => t.kind === "loop")),
-    );
+  const hasAnalyses = analysisSections(result, run.status).length > 0;
   const reviewPanel = (
     <Panel aria-labelledby="review-h">
       <PanelHeader id="review-h" title="Review" />
