@@ -1,4 +1,6 @@
 import { notFound } from "next/navigation";
+import { cache } from "react";
+import { authorizeProject, authorizeRun } from "@/lib/authz";
 import { NotFoundError } from "@/lib/errors";
 
 /**
@@ -15,3 +17,12 @@ export async function visibleOr404<T>(check: () => Promise<T>): Promise<T> {
     throw err;
   }
 }
+
+/**
+ * Read access to a run or a project, asked once per request: a segment's layout and the page's
+ * tab title (generateMetadata) ask the same question, and React's request cache answers the second.
+ */
+export const canReadRun = cache((userId: string, runId: string) => authorizeRun(userId, runId, "run:read"));
+export const canReadProject = cache((userId: string, projectId: string) =>
+  authorizeProject(userId, projectId, "project:read"),
+);

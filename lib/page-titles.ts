@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
-import { authorizeProject, authorizeRun, authorizeTeam } from "@/lib/authz";
+import { authorizeTeam } from "@/lib/authz";
 import { withDb } from "@/lib/errors";
+import { canReadProject, canReadRun } from "@/lib/page-access";
 import { getActor } from "@/lib/session";
 
 /**
@@ -21,14 +22,14 @@ async function titled(fallback: string, load: (userId: string) => Promise<string
 
 export function runPageMetadata(runId: string): Promise<Metadata> {
   return titled("Run", async (userId) => {
-    const { run } = await authorizeRun(userId, runId, "run:read");
+    const { run } = await canReadRun(userId, runId);
     return String(run.get("title"));
   });
 }
 
 export function projectPageMetadata(projectId: string, prefix = ""): Promise<Metadata> {
   return titled(prefix ? prefix.trim() : "Project", async (userId) => {
-    const { project } = await authorizeProject(userId, projectId, "project:read");
+    const { project } = await canReadProject(userId, projectId);
     return `${prefix}${String(project.get("name"))}`;
   });
 }

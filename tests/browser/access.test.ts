@@ -31,6 +31,11 @@ describe("pages of another team", () => {
       const res = await member.page.goto(path);
       expect(res?.status(), `member ${path}`).toBe(200);
     }
+    // The tab names what the member may see (the run's title, the project's name).
+    await member.page.goto(runHref!);
+    expect(await member.page.title()).toMatch(/^Bridge oscillator rev A.* · Phasewright$/);
+    await member.page.goto(`/projects/${projectId}`);
+    expect(await member.page.title()).toBe("Reference oscillator board · Phasewright");
 
     const outsider = await signedIn(browser, "outsider@demo.test");
     const missing = "00000000-0000-4000-8000-000000000000";
@@ -38,6 +43,7 @@ describe("pages of another team", () => {
       const res = await outsider.page.goto(path);
       expect(res?.status(), `outsider ${path}`).toBe(404);
       expect(await outsider.page.getByRole("heading", { level: 1 }).textContent()).toBe("Nothing here");
+      expect(await outsider.page.title()).not.toContain("Reference oscillator board");
     }
     await member.context.close();
     await outsider.context.close();

@@ -1,6 +1,5 @@
 import type { ReactNode } from "react";
-import { authorizeProject } from "@/lib/authz";
-import { visibleOr404 } from "@/lib/page-access";
+import { canReadProject, visibleOr404 } from "@/lib/page-access";
 import { requireUser } from "@/lib/session";
 
 /**
@@ -16,6 +15,6 @@ export default async function ProjectLayout({
 }) {
   const actor = await requireUser();
   const { projectId } = await params;
-  await visibleOr404(() => authorizeProject(actor.userId, projectId, "project:read"));
+  await visibleOr404(() => canReadProject(actor.userId, projectId));
   return children;
 }

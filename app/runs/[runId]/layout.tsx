@@ -1,6 +1,5 @@
 import type { ReactNode } from "react";
-import { authorizeRun } from "@/lib/authz";
-import { visibleOr404 } from "@/lib/page-access";
+import { canReadRun, visibleOr404 } from "@/lib/page-access";
 import { requireUser } from "@/lib/session";
 
 /**
@@ -16,6 +15,6 @@ export default async function RunLayout({
 }) {
   const actor = await requireUser();
   const { runId } = await params;
-  await visibleOr404(() => authorizeRun(actor.userId, runId, "run:read"));
+  await visibleOr404(() => canReadRun(actor.userId, runId));
   return children;
 }
