@@ -57,7 +57,6 @@ export function formatSi(value: number, unit: string): string {
   return `${Number((value / scale).toPrecision(6))} ${prefix}${unit}`;
 }
 
-/** The traces as CSV: frequency, then re, im, dB, deg of each trace. */
 /** The readable summary: title, measures, checks, studies, warnings, stats. */
 export function toSummary(r: SolveSuccess): string {
   const out: string[] = [r.title ?? "(untitled netlist)"];
@@ -116,8 +115,16 @@ export function toSummary(r: SolveSuccess): string {
   return `${out.join("\n")}\n`;
 }
 
-/** Run the command; returns the exit code. Output goes through the given writers (for tests). */
-export function run(args: string[], stdout: (s: string) => void, stderr: (s: string) => void): number {
+/**
+ * Run the command; returns the exit code. Output goes through the given writers (for tests).
+ * FILE is read relative to `cwd` (default: where the user typed `npm run solve`, else this process's).
+ */
+export function run(
+  args: string[],
+  stdout: (s: string) => void,
+  stderr: (s: string) => void,
+  cwd: string = process.env.INIT_CWD ?? process.cwd(),
+): number {
   const parsed = parseArgs(args);
   if ("error" in parsed) {
     stderr(`${parsed.error}\n`);
@@ -126,7 +133,7 @@ export function run(args: string[], stdout: (s: string) => void, stderr: (s: str
   let text: string;
   try {
     // `npm run` starts scripts in the package folder; INIT_CWD is where the user typed the command.
-    text = readFileSync(path.resolve(process.env.INIT_CWD ?? process.cwd(), parsed.file), "utf8");
+    text = readFileSync(path.resolve(cwd, parsed.file), "utf8");
   } catch (error) {
     stderr(`cannot read ${parsed.file}: ${error instanceof Error ? error.message : String(error)}\n`);
     return 1;

@@ -4,7 +4,9 @@
  * functions, so no name outside the netlist's lets, block parameters, `pi`, `e` and the functions
  * below can be reached.
  */
-import { type MathNode, parse as mathParse } from "mathjs";
+// mathjs's number-only build: its parser is the same, and a bundle of it (the `phasewright` command)
+// leaves out the big-number, fraction and matrix types the full build creates at start-up.
+import { create, type MathNode, parseDependencies } from "mathjs/number";
 import type { NetlistError, SourceSpan } from "../types";
 import type { ValueNode } from "./ast";
 import { spanOf } from "./cursor";
@@ -60,6 +62,8 @@ class ExprError extends Error {
     super(message);
   }
 }
+
+const { parse: mathParse } = create({ parseDependencies: parseDependencies! });
 
 const parsedCache = new WeakMap<Token[], MathNode>();
 
