@@ -22,7 +22,7 @@ export interface Baseline {
 /** Where to read RUN: an id with PHASEWRIGHT_URL, or a URL of the run's page or API address. */
 export function locateRun(
   ref: string,
-  env: NodeJS.ProcessEnv,
+  env: Record<string, string | undefined>,
 ): { origin: string; id: string } | { error: string } {
   if (/^https?:\/\//i.test(ref)) {
     let url: URL;
@@ -47,7 +47,7 @@ export function locateRun(
 /** Read the saved run, or a message saying why it cannot be read. */
 export async function fetchBaseline(
   ref: string,
-  env: NodeJS.ProcessEnv,
+  env: Record<string, string | undefined>,
 ): Promise<Baseline | { error: string }> {
   const where = locateRun(ref, env);
   if ("error" in where) return where;

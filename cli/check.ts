@@ -19,7 +19,7 @@ export interface Io {
   out: (s: string) => void;
   err: (s: string) => void;
   cwd: string;
-  env: NodeJS.ProcessEnv;
+  env: Record<string, string | undefined>;
   version: string;
 }
 

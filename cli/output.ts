@@ -18,8 +18,8 @@ function checksText(o: DesignOutcome): string {
   return `${failed} of ${o.checks.length} check${o.checks.length === 1 ? "" : "s"} fail`;
 }
 
-/** The lines for one design, without the baseline comparison. */
-export function designLines(o: DesignOutcome): string[] {
+/** The lines for one design (the baseline's own lines come from `againstLines`). */
+export function designLines(o: DesignOutcome & { against?: BaselineComparison }): string[] {
   if (o.status === "error") {
     const n = o.errors.length;
     return [
@@ -31,7 +31,16 @@ export function designLines(o: DesignOutcome): string[] {
       ),
     ];
   }
-  const lines = [`${LABEL[o.status]} ${o.file} — ${checksText(o)} (${ms(o.ms)})`];
+  const moved = o.against
+    ? o.against.measures.filter((m) => !m.ok).length + o.against.traces.filter((t) => !t.ok).length
+    : 0;
+  const drift =
+    moved > 0
+      ? `, ${moved} moved from the baseline`
+      : o.against && !o.against.ok
+        ? ", baseline limits not met"
+        : "";
+  const lines = [`${LABEL[o.status]} ${o.file} — ${checksText(o)}${drift} (${ms(o.ms)})`];
   for (const c of o.checks)
     if (!c.pass) lines.push(`        check ${c.expression} fails${c.reason ? `: ${c.reason}` : ""}`);
   return lines;
@@ -44,6 +53,9 @@ function value(v: number | null, unit: string): string {
 function signed(v: number, unit: string): string {
   return `${v >= 0 ? "+" : "−"}${formatSi(Math.abs(v), unit)}`;
 }
+
+/** 3 significant digits with a real minus sign. */
+const signed3 = (v: number) => `${v < 0 ? "−" : ""}${Number(Math.abs(v).toPrecision(3))}`;
 
 function measureLine(m: MeasureVerdict, width: number): string {
   const verdict = m.ok ? "ok   " : "MOVED";
@@ -70,10 +82,8 @@ export function againstLines(c: BaselineComparison): string[] {
       `        check ${f.expression}: ${f.before ? "passed" : "failed"} in the baseline, ${f.after ? "passes" : "fails"} now`,
     );
   for (const t of c.traces) {
-    const db = t.maxDb ? `${Number(t.maxDb.value.toPrecision(3))} dB at ${formatSi(t.maxDb.at, "Hz")}` : "—";
-    const deg = t.maxDeg
-      ? `${Number(t.maxDeg.value.toPrecision(3))}° at ${formatSi(t.maxDeg.at, "Hz")}`
-      : "—";
+    const db = t.maxDb ? `${signed3(t.maxDb.value)} dB at ${formatSi(t.maxDb.at, "Hz")}` : "—";
+    const deg = t.maxDeg ? `${signed3(t.maxDeg.value)}° at ${formatSi(t.maxDeg.at, "Hz")}` : "—";
     const judged = t.limit === null ? "" : ` [limit ${t.limit}] ${t.ok ? "ok" : "MOVED"}`;
     lines.push(`        trace ${t.name}: largest difference ${db}, ${deg}${judged}`);
   }

@@ -36,7 +36,7 @@ put("designs/b/fail.pwn", rc("10k", "check fc > 2kHz"));
 put("designs/notes.txt", "not a netlist");
 put("broken/bad.pwn", "R1: resistr a gnd 1k\n");
 
-async function call(args: string[], env: NodeJS.ProcessEnv = {}) {
+async function call(args: string[], env: Record<string, string | undefined> = {}) {
   let out = "";
   let err = "";
   const io: Io = {
