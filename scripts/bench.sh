@@ -20,6 +20,7 @@ esac
 [[ "$BENCH_DB" =~ ^[a-z_][a-z0-9_]*$ ]] || die "BENCH_DB must be a plain lower-case name"
 
 ensure_node_modules
+ensure_cli
 pg_up
 ensure_database "$BENCH_DB"
 DATABASE_URL="$(db_url "$BENCH_DB")"

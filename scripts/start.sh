@@ -17,6 +17,7 @@ if pid_alive "$DATA_DIR/app.pid"; then
 fi
 
 ensure_node_modules
+ensure_cli
 pg_up
 export DATABASE_URL="${DATABASE_URL:-$(db_url phasewright)}"
 ensure_secret

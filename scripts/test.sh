@@ -14,6 +14,7 @@ export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-phasewright-test-secret-0123456789}"
 
 ensure_data_dir
 ensure_node_modules
+ensure_cli
 pg_up
 log "recreating database phasewright_test"
 recreate_database phasewright_test

@@ -33,6 +33,12 @@ ensure_node_modules() {
   fi
 }
 
+# The `phasewright` command (dist-cli/, built by `npm ci`'s prepare script): rebuilt when a source
+# it bundles changed, e.g. in a tree whose node_modules came from elsewhere.
+ensure_cli() {
+  (cd "$ROOT" && node scripts/build-cli.mjs --if-stale --quiet) || die "building the phasewright command failed"
+}
+
 apt_install() {
   [ "$(id -u)" = "0" ] || die "need root to apt-get install $* (or install it yourself)"
   log "installing $* from Debian packages"
