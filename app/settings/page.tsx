@@ -1,4 +1,5 @@
 import type { Metadata } from "next";
+import Link from "next/link";
 import { ProfileForm } from "@/components/auth/profile-form";
 import { TokenCreateForm } from "@/components/auth/token-create-form";
 import { TokenList } from "@/components/auth/token-list";
@@ -25,6 +26,11 @@ export default async function SettingsPage() {
           id="tokens-heading"
           title="API tokens"
           description="A token acts as you in every team you belong to. Only its first characters are kept visible."
+          action={
+            <Link href="/settings/api" className="text-board-700 text-sm font-medium underline">
+              API description and examples
+            </Link>
+          }
         />
         <div className="space-y-6 p-5">
           <TokenCreateForm />
