@@ -198,22 +198,17 @@ export class SparseComplexLU {
     this.singular = false;
     this.failedStep = -1;
     this.failedCols = [];
+    // The scatter vector starts at zero (`solve` uses it as scratch too); each row leaves it zero,
+    // so no row has to clear its pattern first.
+    wRe.fill(0);
+    wIm.fill(0);
     for (let k = 0; k < this.n; k++) {
       const l0 = lPtr[k]!;
       const l1 = lPtr[k + 1]!;
       const u0 = uPtr[k]!;
       const u1 = uPtr[k + 1]!;
-      // Clear the scatter vector over this row's pattern, then scatter row rowPerm[k] of A.
-      for (let q = l0; q < l1; q++) {
-        wRe[lIdx[q]!] = 0;
-        wIm[lIdx[q]!] = 0;
-      }
-      for (let t = u0; t < u1; t++) {
-        wRe[uIdx[t]!] = 0;
-        wIm[uIdx[t]!] = 0;
-      }
-      wRe[k] = 0;
-      wIm[k] = 0;
+      // Scatter row rowPerm[k] of A (w is zero here: every entry of the row's pattern is zeroed as
+      // it is read below, and every entry written lies in that pattern).
       const r = rowPerm[k]!;
       for (let p = rowPtr[r]!; p < rowPtr[r + 1]!; p++) {
         const j = aPos[p]!;
@@ -225,6 +220,8 @@ export class SparseComplexLU {
         const j = lIdx[q]!;
         const xr = wRe[j]!;
         const xi = wIm[j]!;
+        wRe[j] = 0;
+        wIm[j] = 0;
         const lr = xr * invRe[j]! - xi * invIm[j]!;
         const li = xr * invIm[j]! + xi * invRe[j]!;
         lRe[q] = lr;
@@ -242,14 +239,23 @@ export class SparseComplexLU {
       let rowMax = 0;
       for (let t = u0; t < u1; t++) {
         const c = uIdx[t]!;
-        uRe[t] = wRe[c]!;
-        uIm[t] = wIm[c]!;
-        const m = Math.abs(wRe[c]!) + Math.abs(wIm[c]!);
+        const vr = wRe[c]!;
+        const vi = wIm[c]!;
+        uRe[t] = vr;
+        uIm[t] = vi;
+        wRe[c] = 0;
+        wIm[c] = 0;
+        const m = Math.abs(vr) + Math.abs(vi);
         if (m > rowMax) rowMax = m;
       }
       const pr = wRe[k]!;
       const pi = wIm[k]!;
-      const pm = Math.hypot(pr, pi);
+      wRe[k] = 0;
+      wIm[k] = 0;
+      // |pivot|² is needed for its reciprocal anyway; √ of it instead of Math.hypot (which guards
+      // against an overflow that the reciprocal would meet regardless) is a quarter of the refactor.
+      const d = pr * pr + pi * pi;
+      const pm = Math.sqrt(d);
       // |x|₁/√2 ≤ |x|₂: a cheap lower bound keeps the comparison conservative.
       if (pm <= absTol || pm < tau * rowMax * Math.SQRT1_2) {
         this.singular = pm <= absTol;
@@ -257,7 +263,6 @@ export class SparseComplexLU {
         this.failedCols = Array.from(s.colPerm.subarray(k));
         return false;
       }
-      const d = pr * pr + pi * pi;
       invRe[k] = pr / d;
       invIm[k] = -pi / d;
     }
