@@ -6,7 +6,7 @@
  * measure is within its limit of the baseline), 1 a check fails or a measure moved too far,
  * 2 a design has netlist errors, 3 the command could not do its job (arguments, no files, baseline).
  */
-import { writeFileSync } from "node:fs";
+import { mkdirSync, writeFileSync } from "node:fs";
 import path from "node:path";
 import { type Baseline, fetchBaseline, judgeAgainst } from "./against";
 import { parseCheckArgs } from "./args";
@@ -77,7 +77,9 @@ export async function check(args: string[], io: Io): Promise<number> {
   const run: CheckRun = { version: io.version, startedAt, ms, designs };
   for (const r of parsed.reports) {
     try {
-      writeFileSync(path.resolve(io.cwd, r.file), r.format === "junit" ? junitReport(run) : jsonReport(run));
+      const file = path.resolve(io.cwd, r.file);
+      mkdirSync(path.dirname(file), { recursive: true });
+      writeFileSync(file, r.format === "junit" ? junitReport(run) : jsonReport(run));
     } catch (error) {
       io.err(
         `phasewright check: cannot write ${r.file}: ${error instanceof Error ? error.message : error}\n`,

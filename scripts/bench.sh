@@ -86,6 +86,9 @@ if [ "${BENCH_SKIP_SOLVER:-0}" != "1" ]; then
   echo "## Solver"
   npx tsx scripts/bench.ts || status=1
   echo
+  echo "## The phasewright command (fresh processes)"
+  npx tsx scripts/bench-cli.ts || status=1
+  echo
 fi
 npx tsx scripts/bench-app.ts || status=1
 exit "$status"

@@ -126,20 +126,17 @@ describe("phasewright check", () => {
   });
 
   it("writes JUnit XML and JSON reports with every check as a test case", async () => {
-    const r = await call([
+    // A report under a file (not a folder) cannot be written: exit 3 and a message.
+    const blocked = await call([
       "check",
-      "designs/**/*.pwn",
-      "broken/*.pwn",
-      "--report",
-      "junit",
-      "out/junit.xml",
+      "designs/a/pass.pwn",
       "--report",
       "json",
-      "out/report.json",
-    ]).catch((e) => e);
-    // The out/ folder does not exist: writing fails with exit 3 and a message.
-    expect(r.code).toBe(3);
-    mkdirSync(path.join(dir, "out"));
+      "designs/notes.txt/r.json",
+    ]);
+    expect(blocked.code).toBe(3);
+    expect(blocked.err).toContain("cannot write designs/notes.txt/r.json");
+    // A missing folder is created.
     const ok = await call([
       "check",
       "designs/**/*.pwn",

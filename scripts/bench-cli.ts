@@ -1,0 +1,68 @@
+/**
+ * Start-up and fresh-process figures of the `phasewright` command (part of `npm run bench`; not a
+ * test). Measured in one run, side by side:
+ *  - a small netlist's summary through the built command and through today's tsx path
+ *    (`tsx solver/cli.ts`): goal < 300 ms for the command;
+ *  - the 1 000-section RC ladder × 1 000 points through the command in a fresh process, minus the
+ *    same command on a 10-section ladder (start-up, a cold JIT), over the hand-specialized
+ *    tridiagonal solve of the same ladder (scripts/bench.ts `tridiagonalMs`): goal within 6×.
+ * Needs the built command (scripts/bench.sh builds it).
+ */
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import path from "node:path";
+import { sweepFrequencies } from "../solver/engine/sweep";
+import { tridiagonalMs } from "./bench";
+import { ladderNetlist } from "./bench-ladder";
+
+const ROOT = path.resolve(__dirname, "..");
+const SMALL = path.join(ROOT, "solver/examples/lowpass-2nd-order.pwn");
+
+/** Median wall time (ms) of `runs` fresh processes; throws when one fails. */
+function wall(argv: string[], runs: number): number {
+  const times: number[] = [];
+  for (let i = 0; i < runs; i++) {
+    const t0 = performance.now();
+    const r = spawnSync(argv[0]!, argv.slice(1), { cwd: ROOT, encoding: "utf8" });
+    times.push(performance.now() - t0);
+    if (r.status !== 0) throw new Error(`${argv.join(" ")} exited ${r.status}: ${r.stderr}`);
+  }
+  times.sort((a, b) => a - b);
+  return times[Math.floor(times.length / 2)]!;
+}
+
+function main(): void {
+  const node = process.execPath;
+  const bin = path.join(ROOT, "bin/phasewright.mjs");
+  const tsx = path.join(ROOT, "node_modules/.bin/tsx");
+  const dir = mkdtempSync(path.join(tmpdir(), "pw-bench-cli-"));
+  const ladder = (n: number) => {
+    const file = path.join(dir, `ladder-${n}.pwn`);
+    writeFileSync(file, ladderNetlist(n));
+    return file;
+  };
+  const small = wall([node, bin, "solve", SMALL], 7);
+  const viaTsx = wall([tsx, "solver/cli.ts", SMALL], 3);
+  const l10 = wall([node, bin, "solve", ladder(10)], 5);
+  const l1000 = wall([node, bin, "solve", ladder(1000)], 5);
+  const freqs = sweepFrequencies({ kind: "log", start: 10, stop: 10e3, perDecade: 333 });
+  if (typeof freqs === "string" || freqs.length !== 1000)
+    throw new Error("the ladder's sweep is not 1 000 points");
+  const limit = tridiagonalMs(1000, freqs, 7).ms;
+  const sweep = l1000 - l10;
+  console.log("case | median ms | goal");
+  console.log("--- | --- | ---");
+  console.log(`small netlist summary, \`phasewright solve\` (fresh process) | ${small.toFixed(0)} | < 300`);
+  console.log(
+    `the same through tsx (\`tsx solver/cli.ts\`, the old \`npm run solve\`) | ${viaTsx.toFixed(0)} | —`,
+  );
+  console.log(`RC ladder 10 sections × 1 000 points, \`phasewright solve\` | ${l10.toFixed(0)} | —`);
+  console.log(`RC ladder 1 000 sections × 1 000 points, \`phasewright solve\` | ${l1000.toFixed(0)} | —`);
+  console.log(
+    `1 000 − 10 sections (the sweep without start-up) over the tridiagonal limit (${limit.toFixed(1)} ms) | ` +
+      `${sweep.toFixed(0)} = ${(sweep / limit).toFixed(1)}× | ≤ 6×`,
+  );
+}
+
+main();
