@@ -1,8 +1,8 @@
-import { createHash } from "node:crypto";
 import { type InferCreationAttributes, Op, type Order, type WhereOptions } from "sequelize";
 import { type Action, authorizeProject, authorizeRun, can } from "@/lib/authz";
 import { Project, ReviewEvent, RUN_HEAVY_COLUMNS, Run, sequelize, Team, User } from "@/lib/db";
 import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
+import { sha256Hex } from "@/lib/hash";
 import { enqueueRunSolve, planRunSolve } from "@/lib/jobs";
 import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
 import { derivedRunColumns } from "@/lib/run-columns";
@@ -12,11 +12,8 @@ import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
 import { expandResult, type StoredResult, solveNetlist } from "@/solver";
 import type { CheckResult, MeasureResult, NetlistError } from "@/solver/types";
 
+export { sha256Hex } from "@/lib/hash";
 export type { ReviewEventView, ReviewStateName, RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
-
-export function sha256Hex(text: string): string {
-  return createHash("sha256").update(text, "utf8").digest("hex");
-}
 
 function iso(d: unknown): string {
   return d instanceof Date ? d.toISOString() : String(d);
