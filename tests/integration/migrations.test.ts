@@ -67,6 +67,7 @@ describe("migrations", () => {
       "202612021047-create-outbox-emails",
       "202612021130-create-run-jobs",
       "202612021400-run-result-json-lz4",
+      "202612022010-netlist-probe-names",
     ]);
   });
 
@@ -128,7 +129,7 @@ describe("migrations", () => {
     expect(columns.id).toBe("gen_random_uuid()");
   });
 
-  it("go down one step (the result back to jsonb) and up again (json, lz4)", async () => {
+  it("go down to the result's storage (back to jsonb, the netlist rewrite a no-op) and up again (json, lz4)", async () => {
     const resultColumn = async () => {
       const [rows] = await sequelize.query(
         `SELECT format_type(a.atttypid, a.atttypmod) AS type, a.attcompression AS compression
@@ -138,19 +139,21 @@ describe("migrations", () => {
     };
     // lz4 when the server was built with it (Debian's is); 'l' is lz4 in pg_attribute.
     expect(await resultColumn()).toEqual({ type: "json", compression: "l" });
-    const reverted = await migrator.down({ step: 1 });
-    expect(reverted.map((m) => m.name)).toEqual(["202612021400-run-result-json-lz4"]);
+    const reverted = await migrator.down({ to: "202612021400-run-result-json-lz4" });
+    const both = ["202612021400-run-result-json-lz4", "202612022010-netlist-probe-names"];
+    expect(reverted.map((m) => m.name)).toEqual([...both].reverse());
     expect(await resultColumn()).toEqual({ type: "jsonb", compression: "" });
-    expect((await migrator.pending()).map((m) => m.name)).toEqual(["202612021400-run-result-json-lz4"]);
+    expect((await migrator.pending()).map((m) => m.name)).toEqual(both);
 
     const applied = await migrator.up();
-    expect(applied.map((m) => m.name)).toEqual(["202612021400-run-result-json-lz4"]);
+    expect(applied.map((m) => m.name)).toEqual(both);
     expect(await resultColumn()).toEqual({ type: "json", compression: "l" });
   });
 
-  it("go down two steps (dropping the job table and its enum) and up again", async () => {
-    const reverted = await migrator.down({ step: 2 });
+  it("go down to the job table (dropping it and its enum) and up again", async () => {
+    const reverted = await migrator.down({ to: "202612021130-create-run-jobs" });
     expect(reverted.map((m) => m.name)).toEqual([
+      "202612022010-netlist-probe-names",
       "202612021400-run-result-json-lz4",
       "202612021130-create-run-jobs",
     ]);
@@ -162,6 +165,7 @@ describe("migrations", () => {
     expect(applied.map((m) => m.name)).toEqual([
       "202612021130-create-run-jobs",
       "202612021400-run-result-json-lz4",
+      "202612022010-netlist-probe-names",
     ]);
     expect(await tables()).toEqual(ALL_TABLES);
   });
