@@ -5,7 +5,7 @@ export function ladderNetlist(sections: number): string {
     lines.push(`R${i}: resistor n${i - 1} n${i} 1k`, `C${i}: capacitor n${i} gnd 10n`);
   }
   // 3 decades × 333 per decade + 1 = 1 000 log points, both ends included.
-  lines.push("sweep 10Hz to 10kHz log 333 per decade", `show H = v(n${sections}) / v(n0)`);
+  lines.push("sweep 10Hz to 10kHz log 333 per decade", `show H = volts(n${sections}) / volts(n0)`);
   lines.push("measure corner = crossing(H, half-power)", "check corner > 1Hz");
   return `${lines.join("\n")}\n`;
 }

@@ -18,7 +18,7 @@ Vin: vsource   in  gnd 1
 R1:  resistor  in  out ${r}
 C1:  capacitor out gnd 10n
 sweep 100Hz to 100kHz log 50 per decade
-show H = v(out) / v(in)
+show H = volts(out) / volts(in)
 measure fc = crossing(H, half-power)
 check fc between 1.5kHz and 1.7kHz
 ${extraCheck}
