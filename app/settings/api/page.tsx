@@ -86,8 +86,10 @@ curl -s ${base}/api/solve \\
   -H "Authorization: Bearer $PHASEWRIGHT_TOKEN" \\
   -H "Content-Type: application/json" \\
   --data "$(jq -Rs '{title: "rev C", netlist: .}' designs/filter.pwn)"`}</Code>
-        <Code label="Read a run, or compare two">{`curl -s -H "Authorization: Bearer $PHASEWRIGHT_TOKEN" ${base}/api/runs/RUN_ID
-curl -s -H "Authorization: Bearer $PHASEWRIGHT_TOKEN" "${base}/api/compare?a=OLD_RUN_ID&b=NEW_RUN_ID"`}</Code>
+        <Code label="Read a run, or compare two">{`curl -s -H "Authorization: Bearer $PHASEWRIGHT_TOKEN" \\
+  ${base}/api/runs/RUN_ID
+curl -s -H "Authorization: Bearer $PHASEWRIGHT_TOKEN" \\
+  "${base}/api/compare?a=OLD_RUN_ID&b=NEW_RUN_ID"`}</Code>
       </Section>
       <Section
         id="command-heading"
@@ -102,7 +104,8 @@ curl -s -H "Authorization: Bearer $PHASEWRIGHT_TOKEN" "${base}/api/compare?a=OLD
         </Code>
         <Code label="Hold a design to a signed-off run: fail when a measure moves past its limit">{`export PHASEWRIGHT_URL=${base}
 export PHASEWRIGHT_TOKEN=pw_…
-npx phasewright check designs/filter.pwn --against RUN_ID --tolerance f0=0.5% --tolerance pm=2deg`}</Code>
+npx phasewright check designs/filter.pwn --against RUN_ID \\
+  --tolerance f0=0.5% --tolerance pm=2deg`}</Code>
         <p className="text-ink-600 text-sm">
           <code className="font-mono">npx phasewright help</code> lists every option.
         </p>
