@@ -33,10 +33,17 @@ async function editorText(page: Page): Promise<string> {
   return text.replace(/\u00a0/g, " ");
 }
 
+/** Screenshots for a person to look at, when QUICK_FIX_SHOTS names a folder. */
+async function shoot(page: Page, name: string): Promise<void> {
+  const dir = process.env.QUICK_FIX_SHOTS;
+  if (dir) await page.screenshot({ path: `${dir}/${name}.png` });
+}
+
 async function applyQuickFix(page: Page, label: RegExp): Promise<void> {
   await page.keyboard.press("ControlOrMeta+.");
   const item = page.locator(".action-widget").getByText(label).first();
   await item.waitFor({ timeout: 15_000 });
+  await shoot(page, `menu-${label.source.replace(/\W+/g, "")}`);
   await page.keyboard.press("Enter");
   await item.waitFor({ state: "detached", timeout: 15_000 });
 }
@@ -64,6 +71,7 @@ describe("quick fixes from our hints", () => {
     await page.locator(".monaco-editor .squiggly-error").first().hover();
     const hover = page.locator(".monaco-hover").filter({ hasText: "Netlist error" }).first();
     await hover.waitFor({ timeout: 15_000 });
+    await shoot(page, "hover");
     const hoverText = (await hover.textContent()) ?? "";
     expect(hoverText).toContain("write volts(out)");
     expect(hoverText).toContain("One-step fix: Write volts(out)");
