@@ -29,7 +29,7 @@ export interface AnalyzeOptions {
   maxPoints?: number;
 }
 
-const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
+export const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
   line: span?.line ?? 1,
   column: span?.column ?? 1,
   endColumn: span?.endColumn ?? 2,
