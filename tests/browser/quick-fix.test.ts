@@ -61,6 +61,7 @@ describe("quick fixes from our hints", () => {
     await page.keyboard.press("Delete");
     await page.evaluate((text) => navigator.clipboard.writeText(text), OLD_BRIDGE);
     await page.keyboard.press("ControlOrMeta+V");
+    await shoot(page, "pasted");
 
     // Two error markers: `v(out)` and `v(in)` (the live check runs after a short pause).
     await expect
@@ -68,7 +69,7 @@ describe("quick fixes from our hints", () => {
       .toBe(2);
 
     // Our hover explains the problem and the fix; Monaco's stock action bar stays hidden.
-    await page.locator(".monaco-editor .squiggly-error").first().hover();
+    await page.locator(".monaco-editor .squiggly-error").first().hover({ force: true });
     const hover = page.locator(".monaco-hover").filter({ hasText: "Netlist error" }).first();
     await hover.waitFor({ timeout: 15_000 });
     await shoot(page, "hover");
@@ -101,5 +102,5 @@ describe("quick fixes from our hints", () => {
     // The fixed netlist solves: the zero-phase frequency of the bridge, 1.5915 kHz.
     await expect.poll(() => page.getByText("1.5915 kHz").count(), { timeout: 60_000 }).toBeGreaterThan(0);
     await context.close();
-  });
+  }, 240_000);
 });
