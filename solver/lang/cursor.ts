@@ -142,7 +142,7 @@ export class Cursor {
       const parsed = parseNumberText(t.text);
       if (!parsed.ok) {
         const fix = parsed.replacement
-          ? { ...spanOf(t), text: parsed.replacement, label: `Write \`${parsed.replacement}\`` }
+          ? { ...spanOf(t), text: parsed.replacement, label: `Write ${parsed.replacement}` }
           : undefined;
         return this.fail(t, parsed.message, parsed.hint, fix);
       }

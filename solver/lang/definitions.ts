@@ -144,7 +144,7 @@ function unparenthesized(c: Cursor, value: ValueNode, op: Token): null {
     column: value.span.column,
     endColumn: last.endColumn,
     text: wrapped,
-    label: `Write \`${wrapped}\``,
+    label: `Write ${wrapped}`,
   });
 }
 

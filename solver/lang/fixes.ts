@@ -29,6 +29,6 @@ export function addFixes(text: string, errors: NetlistError[]): void {
     }
     if (replacement === undefined) continue;
     const span = { line: e.line, column: e.column, endColumn: e.endColumn };
-    e.fix = { ...span, text: replacement, label: `Write \`${replacement}\`` };
+    e.fix = { ...span, text: replacement, label: `Write ${replacement}` };
   }
 }

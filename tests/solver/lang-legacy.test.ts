@@ -28,7 +28,7 @@ describe("earlier spellings are errors with their rewrite", () => {
       endColumn: 7,
       message: "`v(…)` is not a probe; probes read `volts(…)` and `amps(…)`",
       hint: "write `volts(in)`",
-      fix: { line: 3, column: 6, endColumn: 7, text: "volts", label: "Write `volts(in)`" },
+      fix: { line: 3, column: 6, endColumn: 7, text: "volts", label: "Write volts(in)" },
     });
   });
 
@@ -59,7 +59,7 @@ describe("earlier spellings are errors with their rewrite", () => {
       endColumn: 18,
       message: "ground is `gnd`",
       hint: "write `gnd` instead of `0`",
-      fix: { line: 1, column: 17, endColumn: 18, text: "gnd", label: "Write `gnd`" },
+      fix: { line: 1, column: 17, endColumn: 18, text: "gnd", label: "Write gnd" },
     });
   });
 
@@ -120,16 +120,16 @@ describe("errors carry a machine-readable fix where the hint knows the rewrite",
     expect(
       fixOf("let C = 1n\nV: vsource a gnd 1\nC1: capacitr a gnd 2n\nshow volts(b)\nmeasure x = peek(H)\n"),
     ).toEqual([
-      { line: 3, column: 5, endColumn: 13, text: "capacitor", label: "Write `capacitor`" },
-      { line: 4, column: 12, endColumn: 13, text: "a", label: "Write `a`" },
-      { line: 5, column: 13, endColumn: 17, text: "peak", label: "Write `peak`" },
+      { line: 3, column: 5, endColumn: 13, text: "capacitor", label: "Write capacitor" },
+      { line: 4, column: 12, endColumn: 13, text: "a", label: "Write a" },
+      { line: 5, column: 13, endColumn: 17, text: "peak", label: "Write peak" },
     ]);
   });
 
   it("`meg` → `M`, in part values and in lets", () => {
     expect(fixOf("V: vsource a gnd 1\nR1: resistor a gnd 2.2MEG\nlet z = 1megohm\n")).toEqual([
-      { line: 2, column: 20, endColumn: 26, text: "2.2M", label: "Write `2.2M`" },
-      { line: 3, column: 9, endColumn: 16, text: "1Mohm", label: "Write `1Mohm`" },
+      { line: 2, column: 20, endColumn: 26, text: "2.2M", label: "Write 2.2M" },
+      { line: 3, column: 9, endColumn: 16, text: "1Mohm", label: "Write 1Mohm" },
     ]);
   });
 
@@ -142,7 +142,7 @@ describe("errors carry a machine-readable fix where the hint knows the rewrite",
       column: 21,
       endColumn: 28,
       text: "(2*C / 4)",
-      label: "Write `(2*C / 4)`",
+      label: "Write (2*C / 4)",
     });
   });
 
