@@ -20,11 +20,12 @@ import {
   SUB_KEYWORDS,
   statementDoc,
 } from "@/lib/netlist-language";
-import type { NetlistError, Warning } from "@/solver/types";
 import config from "@/tailwind.config";
+import { problemHover, registerNetlistFixes } from "./monaco-fixes";
+
+export { setNetlistMarkers } from "./monaco-fixes";
 
 export const THEME_ID = "phasewright-paper";
-const MARKER_OWNER = "phasewright";
 const hex = (c: string) => c.replace("#", "");
 const colors = config.theme.extend.colors;
 
@@ -39,7 +40,7 @@ const monarch: Monaco.languages.IMonarchLanguage & Record<string, unknown> = {
   tokenizer: {
     root: [
       [/#.*$/, "comment"],
-      [/^(\s*)(title)(\b.*)$/, ["white", "keyword", "string"]],
+      [/^(\s*)(title)(\b(?:[^#\\]|\\.)*)/, ["white", "keyword", "string"]],
       [/^(\s*)([A-Za-z_][\w.]*)(\s*)(:)/, ["white", "type.identifier", "white", "delimiter"]],
       [/(zero-phase|phase-margin|gain-margin)(?![\w-])/, "predefined"],
       [/monte-carlo(?![\w-])/, "keyword"],
@@ -209,52 +210,26 @@ export function registerNetlistLanguage(monaco: typeof Monaco): void {
     },
   });
 
+  registerNetlistFixes(monaco, LANGUAGE_ID);
   monaco.languages.registerHoverProvider(LANGUAGE_ID, {
     provideHover(model, position) {
+      // Problems first (in our words; Monaco's own marker hover is hidden), then the word's help.
+      const problem = problemHover(model, position.lineNumber, position.column);
       const word = model.getWordAtPosition(position);
-      if (!word) return null;
-      const doc = hoverDoc(word.word.replace(/=$/, ""));
-      if (!doc) return null;
-      return {
-        range: new monaco.Range(position.lineNumber, word.startColumn, position.lineNumber, word.endColumn),
-        contents: [{ value: doc }],
-      };
+      const doc = word ? hoverDoc(word.word.replace(/=$/, "")) : null;
+      if (!problem && !doc) return null;
+      const contents = [problem, doc].filter((v): v is string => v !== null).map((value) => ({ value }));
+      return word
+        ? {
+            range: new monaco.Range(
+              position.lineNumber,
+              word.startColumn,
+              position.lineNumber,
+              word.endColumn,
+            ),
+            contents,
+          }
+        : { contents };
     },
   });
-}
-
-/** Shows the solver's errors (with hints) and warnings as markers in the editor. */
-export function setNetlistMarkers(
-  monaco: typeof Monaco,
-  model: Monaco.editor.ITextModel,
-  errors: NetlistError[],
-  warnings: Warning[],
-): void {
-  const lines = model.getLineCount();
-  const markers: Monaco.editor.IMarkerData[] = [];
-  for (const e of errors) {
-    const line = Math.min(Math.max(e.line, 1), lines);
-    markers.push({
-      severity: monaco.MarkerSeverity.Error,
-      startLineNumber: line,
-      startColumn: e.column,
-      endLineNumber: line,
-      endColumn: Math.max(e.endColumn, e.column + 1),
-      message: e.hint ? `${e.message}\nHint: ${e.hint}` : e.message,
-      source: "netlist",
-    });
-  }
-  for (const w of warnings) {
-    if (w.line === null || w.line > lines) continue;
-    markers.push({
-      severity: monaco.MarkerSeverity.Warning,
-      startLineNumber: w.line,
-      startColumn: 1,
-      endLineNumber: w.line,
-      endColumn: model.getLineMaxColumn(w.line),
-      message: w.message,
-      source: "netlist",
-    });
-  }
-  monaco.editor.setModelMarkers(model, MARKER_OWNER, markers);
 }

@@ -140,7 +140,12 @@ export class Cursor {
     if (t.kind === "number") {
       this.i++;
       const parsed = parseNumberText(t.text);
-      if (!parsed.ok) return this.fail(t, parsed.message, parsed.hint);
+      if (!parsed.ok) {
+        const fix = parsed.replacement
+          ? { ...spanOf(t), text: parsed.replacement, label: `Write ${parsed.replacement}` }
+          : undefined;
+        return this.fail(t, parsed.message, parsed.hint, fix);
+      }
       const mismatch = unitMismatch(parsed.unit, place);
       if (mismatch) return this.fail(t, mismatch.message, mismatch.hint);
       return { kind: "number", value: parsed.value, unit: parsed.unit, span: spanOf(t) };

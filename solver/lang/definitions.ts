@@ -1,10 +1,19 @@
 /** Parsers of the definition lines: parts (and block instances), `let`, `block` headers, `preset`. */
 import type { PartKind } from "../types";
-import type { BlockStatement, LetStatement, Named, OptionNode, PartStatement, Statement } from "./ast";
+import type {
+  BlockStatement,
+  LetStatement,
+  Named,
+  OptionNode,
+  PartStatement,
+  Statement,
+  ValueNode,
+} from "./ast";
 import { type Cursor, spanBetween, spanOf } from "./cursor";
 import { didYouMean } from "./hints";
 import { isPartKind, KIND_NAMES, KINDS } from "./kinds";
 import type { Place } from "./numbers";
+import type { Token } from "./tokens";
 
 /** Names known before the main pass, so a part may use a preset or block defined further down. */
 export interface KindTable {
@@ -84,6 +93,8 @@ export function parsePart(c: Cursor, kinds: KindTable): PartStatement | null {
     } else if (value === null && info !== null && info.value !== "none") {
       value = c.value(base!, "a value");
       if (value === null) return null;
+    } else if (value !== null && t.kind === "op" && EXPRESSION_OPS.has(t.text)) {
+      return unparenthesized(c, value, t);
     } else {
       const unitHint = UNIT_WORDS.has(t.text)
         ? "write the unit right after the number, e.g. 10kΩ or 1kHz"
@@ -113,6 +124,28 @@ export function parsePart(c: Cursor, kinds: KindTable): PartStatement | null {
     return c.fail(undefined, `a ${base} needs a value`, `e.g. \`${info.usage}\``);
   }
   return { type: "part", name, kind, terminals, value, options, span: c.span };
+}
+
+const EXPRESSION_OPS = new Set(["*", "/", "+", "-", "^"]);
+
+/**
+ * `R2: resistor a b 2*R`: an expression value written without its parentheses. The fix wraps the
+ * value and the rest of the expression (up to the first `key=` option) on that line.
+ */
+function unparenthesized(c: Cursor, value: ValueNode, op: Token): null {
+  let last: Token = op;
+  while (!c.atEnd() && !(c.isWord() && c.isOp("=", 1)) && c.peek()!.line === value.span.line)
+    last = c.next()!;
+  const line = c.logical.segments.find((s) => s.line === value.span.line)?.text ?? "";
+  const written = line.slice(value.span.column - 1, last.endColumn - 1);
+  const wrapped = `(${written})`;
+  return c.fail(spanOf(op), "an expression as a value needs parentheses", `write \`${wrapped}\``, {
+    line: value.span.line,
+    column: value.span.column,
+    endColumn: last.endColumn,
+    text: wrapped,
+    label: `Write ${wrapped}`,
+  });
 }
 
 /** `key=value`, with no blanks around `=`. */

@@ -12,6 +12,7 @@ import type {
   Statement,
 } from "./ast";
 import { resolveLoops, resolveShows, resolveSweep } from "./directives";
+import { addFixes } from "./fixes";
 import { didYouMean } from "./hints";
 import { resolveChecks, resolveMeasures, resolveMonteCarlo, resolveVary } from "./measures";
 import { parseNetlist } from "./parser";
@@ -41,7 +42,9 @@ export type CompileResult =
 /** Parse only (for editor completion and hover). Never throws. */
 export function parse(text: string): { tree: ParseTree; errors: NetlistError[] } {
   try {
-    const { tree, errors } = parseNetlist(typeof text === "string" ? text : "");
+    const source = typeof text === "string" ? text : "";
+    const { tree, errors } = parseNetlist(source);
+    addFixes(source, errors);
     return { tree, errors: tidy(errors) };
   } catch (error) {
     return { tree: { statements: [] }, errors: [internal(error)] };
@@ -55,8 +58,10 @@ export function parse(text: string): { tree: ParseTree; errors: NetlistError[] }
 export function compile(text: string, overrides: CompileOverrides = {}): CompileResult {
   const warnings: Warning[] = [];
   try {
-    const { tree, errors } = parseCached(typeof text === "string" ? text : "");
+    const source = typeof text === "string" ? text : "";
+    const { tree, errors } = parseCached(source);
     const circuit = elaborate(tree, overrides, errors, warnings);
+    addFixes(source, errors);
     const sorted = tidy(errors);
     return sorted.length > 0 || circuit === null
       ? { ok: false, errors: sorted, warnings }

@@ -24,7 +24,7 @@ export function legacyGround(at: SourceSpan): NetlistError {
     ...span,
     message: "ground is `gnd`",
     hint: "write `gnd` instead of `0`",
-    fix: { ...span, text: "gnd", label: "Write `gnd`" },
+    fix: { ...span, text: "gnd", label: "Write gnd" },
   });
 }
 
@@ -43,6 +43,6 @@ export function legacyProbe(word: SourceSpan & { text: string }, args: string[])
     ...span,
     message: `\`${word.text}(…)\` is not a probe; probes read \`volts(…)\` and \`amps(…)\``,
     hint: `write \`${written}\``,
-    fix: { ...span, text: renamed, label: `Write \`${written}\`` },
+    fix: { ...span, text: renamed, label: `Write ${written}` },
   });
 }

@@ -12,7 +12,10 @@ export interface NumberValue {
   unit: Unit | null;
 }
 
-export type NumberResult = ({ ok: true } & NumberValue) | { ok: false; message: string; hint?: string };
+/** A failed read may say what to write instead (`replacement`, the whole number as it should be). */
+export type NumberResult =
+  | ({ ok: true } & NumberValue)
+  | { ok: false; message: string; hint?: string; replacement?: string };
 
 const PREFIXES: Record<string, number> = {
   f: 1e-15,
@@ -155,6 +158,7 @@ function badSuffix(text: string, suffix: string): NumberResult {
       ok: false,
       message: `\`${text}\`: "meg" is not a prefix here`,
       hint: "write 1M for mega; M is mega, m is milli",
+      replacement: `${text.slice(0, text.length - suffix.length)}M${suffix.slice(3)}`,
     };
   }
   if (lower.startsWith("mil")) {

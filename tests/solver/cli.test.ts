@@ -70,6 +70,7 @@ describe("netlist errors exit with 2", () => {
       endColumn: 12,
       message: "unknown part kind `resistr`",
       hint: "did you mean `resistor`?",
+      fix: { line: 1, column: 5, endColumn: 12, text: "resistor", label: "Write resistor" },
     });
   });
 });

@@ -59,6 +59,7 @@ describe("blocks", () => {
         endColumn: 19,
         message: "block `stage` has no parameter `gian`",
         hint: "did you mean `gain`?",
+        fix: { line: 11, column: 15, endColumn: 19, text: "gain", label: "Write gain" },
       },
     ]);
     expect(errorsOf(`${base}X1: stage a\n`)[0]).toMatchObject({

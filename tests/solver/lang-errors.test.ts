@@ -17,6 +17,7 @@ describe("statement-level errors", () => {
       endColumn: 5,
       message: "unknown statement `swep`",
       hint: "did you mean `sweep`?",
+      fix: { line: 4, column: 1, endColumn: 5, text: "sweep", label: "Write sweep" },
     });
   });
 
@@ -52,6 +53,7 @@ describe("part errors", () => {
       endColumn: 12,
       message: "unknown part kind `resistr`",
       hint: "did you mean `resistor`?",
+      fix: { line: 4, column: 5, endColumn: 12, text: "resistor", label: "Write resistor" },
     });
   });
 
@@ -87,6 +89,7 @@ describe("part errors", () => {
       endColumn: 29,
       message: "unknown option `toll`",
       hint: "did you mean `tol`?",
+      fix: { line: 4, column: 25, endColumn: 29, text: "tol", label: "Write tol" },
     });
     expect(only(`${DIVIDER}R2: resistor out gnd 1k tol =1%\n`)).toMatchObject({
       column: 25,
@@ -191,6 +194,7 @@ describe("let and expression errors", () => {
       endColumn: 18,
       message: "unknown name `Rlaod`",
       hint: "did you mean `Rload`?",
+      fix: { line: 2, column: 13, endColumn: 18, text: "Rload", label: "Write Rload" },
     });
     expect(only(`${DIVIDER}R2: resistor out gnd Rx\n`)).toMatchObject({
       line: 4,
@@ -270,6 +274,7 @@ describe("analysis statement errors", () => {
       endColumn: 18,
       message: "no node named `ot`",
       hint: "did you mean `out`?",
+      fix: { line: 4, column: 16, endColumn: 18, text: "out", label: "Write out" },
     });
     expect(only(`${DIVIDER}show Z = volts(in) / amps(R2)\n`)).toMatchObject({
       column: 27,
@@ -310,6 +315,7 @@ describe("analysis statement errors", () => {
       endColumn: 23,
       message: "unknown measure function `zero-phaze`",
       hint: "did you mean `zero-phase`?",
+      fix: { line: 5, column: 13, endColumn: 23, text: "zero-phase", label: "Write zero-phase" },
     });
     expect(only(`${s}measure f = peak(h)\n`)).toMatchObject({ column: 18, hint: "did you mean `H`?" });
     expect(only(`${s}measure f = crossing(H)\n`)).toMatchObject({

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { compile, rewriteLegacyNetlist, solveNetlist } from "@/solver";
+import { applyFixes } from "@/solver/lang";
 
 /** The earlier spellings `v(…)`, `i(…)` and ground `0`: errors with a fix, and the rewrite of old netlists. */
 const OLD = `title Divider, 50% — it's "old"   # v(x) in a comment stays
@@ -27,7 +28,7 @@ describe("earlier spellings are errors with their rewrite", () => {
       endColumn: 7,
       message: "`v(…)` is not a probe; probes read `volts(…)` and `amps(…)`",
       hint: "write `volts(in)`",
-      fix: { line: 3, column: 6, endColumn: 7, text: "volts", label: "Write `volts(in)`" },
+      fix: { line: 3, column: 6, endColumn: 7, text: "volts", label: "Write volts(in)" },
     });
   });
 
@@ -58,7 +59,7 @@ describe("earlier spellings are errors with their rewrite", () => {
       endColumn: 18,
       message: "ground is `gnd`",
       hint: "write `gnd` instead of `0`",
-      fix: { line: 1, column: 17, endColumn: 18, text: "gnd", label: "Write `gnd`" },
+      fix: { line: 1, column: 17, endColumn: 18, text: "gnd", label: "Write gnd" },
     });
   });
 
@@ -109,5 +110,62 @@ loop T cut out before R2
     expect(rewriteLegacyNetlist(once)).toBe(once);
     expect(rewriteLegacyNetlist("")).toBe("");
     expect(rewriteLegacyNetlist("let x = 0\nfoo 0 v(\n")).toBe("let x = 0\nfoo 0 v(\n");
+  });
+});
+
+describe("errors carry a machine-readable fix where the hint knows the rewrite", () => {
+  const fixOf = (text: string) => errorsOf(text).map((e) => e.fix ?? null);
+
+  it("unknown words → the nearest known word, at the word's place", () => {
+    expect(
+      fixOf("let C = 1n\nV: vsource a gnd 1\nC1: capacitr a gnd 2n\nshow volts(b)\nmeasure x = peek(H)\n"),
+    ).toEqual([
+      { line: 3, column: 5, endColumn: 13, text: "capacitor", label: "Write capacitor" },
+      { line: 4, column: 12, endColumn: 13, text: "a", label: "Write a" },
+      { line: 5, column: 13, endColumn: 17, text: "peak", label: "Write peak" },
+    ]);
+  });
+
+  it("`meg` → `M`, in part values and in lets", () => {
+    expect(fixOf("V: vsource a gnd 1\nR1: resistor a gnd 2.2MEG\nlet z = 1megohm\n")).toEqual([
+      { line: 2, column: 20, endColumn: 26, text: "2.2M", label: "Write 2.2M" },
+      { line: 3, column: 9, endColumn: 16, text: "1Mohm", label: "Write 1Mohm" },
+    ]);
+  });
+
+  it("an expression value without parentheses → wrapped up to the options", () => {
+    const [e] = errorsOf("let C = 1n\nV: vsource a gnd 1\nC1: capacitor a gnd 2*C / 4 tol=1%\n");
+    expect(e).toMatchObject({ line: 3, column: 22, message: "an expression as a value needs parentheses" });
+    expect(e!.hint).toBe("write `(2*C / 4)`");
+    expect(e!.fix).toEqual({
+      line: 3,
+      column: 21,
+      endColumn: 28,
+      text: "(2*C / 4)",
+      label: "Write (2*C / 4)",
+    });
+  });
+
+  it("applying every fix of a netlist (again while new ones appear) gives one that solves", () => {
+    const text =
+      "let C = 1n\nV: vsource in 0 1\nR1: resistr in out 1meg\nC1: capacitor out gnd 2*C\nshow H = v(out) / v(in)\nmeasure fc = crossing(H, -3dB)\n";
+    let fixed = text;
+    for (let pass = 0; pass < 3; pass++) {
+      const fixes = errorsOf(fixed).flatMap((e) => (e.fix ? [e.fix] : []));
+      fixed = applyFixes(fixed, fixes);
+    }
+    expect(fixed).toBe(
+      "let C = 1n\nV: vsource in gnd 1\nR1: resistor in out 1M\nC1: capacitor out gnd (2*C)\nshow H = volts(out) / volts(in)\nmeasure fc = crossing(H, -3dB)\n",
+    );
+    const r = solveNetlist(fixed);
+    expect(r.ok).toBe(true);
+    // RC low-pass, 1/(2π·1 MΩ·2 nF) = 79.577 Hz; −3.000 dB (a literal level) lies at that
+    // frequency × √(10^0.3 − 1) (closed form of |H| = 1/√(1 + (f/f0)²), common practice).
+    const f0 = 1 / (2 * Math.PI * 1e6 * 2e-9);
+    if (r.ok) expect(r.measures[0]!.value).toBeCloseTo(f0 * Math.sqrt(10 ** 0.3 - 1), 6);
+  });
+
+  it("errors without a known rewrite carry no fix", () => {
+    expect(fixOf("V: vsource a gnd 1\nR1: resistor a gnd\nfoo\n")).toEqual([null, null]);
   });
 });
