@@ -45,7 +45,7 @@ export function RunWorkspace(props: RunWorkspaceProps) {
   const pins = useMemo<BodePin[]>(
     () => [
       ...comments
-        .filter((c) => c.frequencyHz !== null && !c.resolvedAt)
+        .filter((c) => c.frequencyHz !== null && c.state === "open")
         .map((c) => ({
           frequencyHz: c.frequencyHz as number,
           trace: c.trace,

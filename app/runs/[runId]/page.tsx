@@ -47,7 +47,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
           runId={run.id}
           reviewState={run.reviewState}
           isAuthor={run.authorId === actor.userId}
-          canRequest={run.permissions.requestReview}
+          canRequest={run.permissions.askSignOff}
           canReview={run.permissions.review}
         />
         <ReviewHistory events={run.reviewEvents} />
