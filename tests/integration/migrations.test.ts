@@ -67,6 +67,7 @@ describe("migrations", () => {
       "202612021047-create-outbox-emails",
       "202612021130-create-run-jobs",
       "202612021400-run-result-json-lz4",
+      "202612022020-review-words",
     ]);
   });
 
