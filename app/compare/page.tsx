@@ -114,7 +114,7 @@ async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; 
         <Panel aria-labelledby="diff-h">
           <PanelHeader
             id="diff-h"
-            title="Netlist, line by line"
+            title="Netlist changes"
             description={describeDiffStats(comparison.rowStats)}
           />
           <div className="overflow-x-auto p-2 sm:p-4">
