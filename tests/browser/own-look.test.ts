@@ -67,7 +67,8 @@ describe("our own look", () => {
     await page.mouse.move(box.x + box.width * 0.45, box.y + box.height * 0.5);
     await expect
       .poll(() => page.locator(".hoverlayer .hovertext").first().textContent(), { timeout: 10_000 })
-      .toMatch(/^[0-9.]+ (k|M)?Hz {2}· {2}(−)?[0-9]+\.[0-9]{2} dB/);
+      // The label starts with the trace's name (H), then our text.
+      .toMatch(/^H[0-9.]+ (k|M)?Hz {2}· {2}−?[0-9]+\.[0-9]{2} dB$/);
 
     // Click mode "cursor A", then a click on the plot places A (and the mode moves on to B).
     await plot.getByRole("button", { name: "cursor A" }).click();
