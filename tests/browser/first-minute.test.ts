@@ -104,8 +104,12 @@ describe("first minutes", () => {
     const measures = page.getByRole("region", { name: "Measures" });
     await expect.poll(() => measures.textContent()).toContain("gain");
     await expect.poll(() => measures.textContent()).toMatch(/%/);
-    const diff = page.getByRole("region", { name: "Netlist diff" });
+    const diff = page.getByRole("region", { name: "Netlist changes" });
     await expect.poll(() => diff.textContent()).toContain("gbw=1MHz");
+    // Part-aware: U1 edited in place is one changed row with the new options marked.
+    const u1 = diff.locator('[data-diff-row="changed"]').filter({ hasText: "U1: opamp" });
+    expect(await u1.count()).toBe(1);
+    expect(await u1.locator("ins").textContent()).toContain("gain=100k gbw=1MHz");
     await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
     await context.close();
   });
@@ -201,5 +205,5 @@ describe("first minutes", () => {
     );
     await designer.context.close();
     await reviewer.context.close();
-  });
+  }, 240_000);
 });
