@@ -8,6 +8,7 @@ import { OutboxEmail } from "@/models/outbox-email";
 import { Project } from "@/models/project";
 import { ReviewEvent } from "@/models/review-event";
 import { RUN_HEAVY_COLUMNS, Run } from "@/models/run";
+import { RunJob } from "@/models/run-job";
 import { Team } from "@/models/team";
 import { User } from "@/models/user";
 import { env } from "./env";
@@ -38,6 +39,7 @@ function initModels(db: Sequelize): void {
     ApiToken,
     Project,
     Run,
+    RunJob,
     Comment,
     ReviewEvent,
     Measurement,
@@ -63,6 +65,9 @@ function initModels(db: Sequelize): void {
   Run.belongsTo(Project, { foreignKey: "projectId", as: "project" });
   Run.belongsTo(User, { foreignKey: "authorId", as: "author" });
   Run.belongsTo(Run, { foreignKey: "supersedesId", as: "supersedes" });
+
+  Run.hasOne(RunJob, { foreignKey: "runId", as: "job" });
+  RunJob.belongsTo(Run, { foreignKey: "runId", as: "run" });
 
   Run.hasMany(Comment, { foreignKey: "runId", as: "comments" });
   Comment.belongsTo(Run, { foreignKey: "runId", as: "run" });
@@ -113,6 +118,7 @@ export {
   ReviewEvent,
   RUN_HEAVY_COLUMNS,
   Run,
+  RunJob,
   Team,
   User,
 };

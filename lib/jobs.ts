@@ -12,10 +12,16 @@
  *                             progress report (within a fraction of a second)
  */
 import type { PgBoss } from "pg-boss";
-import { QueryTypes } from "sequelize";
-import { sequelize } from "@/lib/db";
 import { env } from "@/lib/env";
 import { JOB_EXPIRE_SECONDS, MAX_INLINE_WORK, MAX_MC_INLINE_SAMPLES, MAX_QUEUED_SAMPLES } from "@/lib/limits";
+import {
+  attachQueueJob,
+  fail,
+  getRunJob,
+  openJob,
+  type RunJobView,
+  requestCancel,
+} from "@/lib/run-lifecycle";
 import { analyze, compile, SOLVER_VERSION } from "@/solver";
 import { sweepLength } from "@/solver/engine/sweep";
 import type { Circuit, NetlistError } from "@/solver/types";
@@ -23,19 +29,8 @@ import type { Circuit, NetlistError } from "@/solver/types";
 export const RUN_SOLVE_QUEUE = "run-solve";
 export const PGBOSS_SCHEMA = "pgboss";
 
-export type RunJobState = "queued" | "running" | "ok" | "failed" | "cancelled";
-
-export interface RunJobView {
-  runId: string;
-  jobId: string | null;
-  state: RunJobState;
-  /** 0…1 */
-  progress: number;
-  cancelRequested: boolean;
-  error: string | null;
-  startedAt: string | null;
-  finishedAt: string | null;
-}
+export type { RunJobView } from "@/lib/run-lifecycle";
+export { getRunJob } from "@/lib/run-lifecycle";
 
 export interface RunSolveJobData {
   runId: string;
@@ -75,10 +70,7 @@ export function getBoss(options: { worker?: boolean } = {}): Promise<PgBoss> {
       });
       boss.on("error", (error: unknown) => console.error("[jobs] queue error:", error));
       await boss.start();
-      await boss.createQueue(RUN_SOLVE_QUEUE, {
-        retryLimit: 0,
-        expireInSeconds: JOB_EXPIRE_SECONDS,
-      });
+      await boss.createQueue(RUN_SOLVE_QUEUE, RUN_SOLVE_SEND_OPTIONS);
       return boss;
     })();
     globalBoss.__phasewrightBoss.catch(() => {
@@ -97,99 +89,46 @@ export async function stopBoss(options: { graceful?: boolean; timeout?: number }
   await boss?.stop({ graceful: options.graceful ?? true, timeout: options.timeout ?? 10_000, close: true });
 }
 
-interface RunJobRow {
-  run_id: string;
-  job_id: string | null;
-  state: RunJobState;
-  progress: number;
-  cancel_requested: boolean;
-  error: string | null;
-  started_at: Date | null;
-  finished_at: Date | null;
-}
+/** How every run-solve job is sent: no pg-boss retries (recovery is ours), expiry from lib/limits. */
+export const RUN_SOLVE_SEND_OPTIONS = { retryLimit: 0, expireInSeconds: JOB_EXPIRE_SECONDS } as const;
 
-const iso = (d: Date | null) => (d ? new Date(d).toISOString() : null);
-
-function toView(r: RunJobRow): RunJobView {
-  return {
-    runId: r.run_id,
-    jobId: r.job_id,
-    state: r.state,
-    progress: Math.max(0, Math.min(1, Number(r.progress))),
-    cancelRequested: r.cancel_requested,
-    error: r.error,
-    startedAt: iso(r.started_at),
-    finishedAt: iso(r.finished_at),
-  };
-}
-
-/** Put a saved 'queued' run on the queue. Returns the pg-boss job id. */
-export async function enqueueRunSolve(runId: string): Promise<string> {
-  await sequelize.query(
-    `INSERT INTO run_jobs (run_id, state, progress) VALUES (:runId, 'queued', 0)
-     ON CONFLICT (run_id) DO UPDATE SET state = 'queued', progress = 0, cancel_requested = false,
-       error = NULL, started_at = NULL, finished_at = NULL, updated_at = now()`,
-    { replacements: { runId } },
-  );
-  let jobId: string | null = null;
-  try {
-    const boss = await getBoss();
-    const data: RunSolveJobData = { runId };
-    jobId = await boss.send(RUN_SOLVE_QUEUE, data, { retryLimit: 0, expireInSeconds: JOB_EXPIRE_SECONDS });
-    if (!jobId) throw new Error(`the queue refused the job of run ${runId}`);
-  } catch (error) {
-    await sequelize.query(
-      `UPDATE run_jobs SET state = 'failed', error = 'the job queue is not reachable', finished_at = now(),
-         updated_at = now() WHERE run_id = :runId`,
-      { replacements: { runId } },
-    );
-    throw error;
-  }
-  await sequelize.query("UPDATE run_jobs SET job_id = :jobId, updated_at = now() WHERE run_id = :runId", {
-    replacements: { runId, jobId },
-  });
+/** Send a 'queued' run to the queue and keep the pg-boss job id; throws when the queue refuses. */
+export async function sendRunSolve(runId: string, options: { worker?: boolean } = {}): Promise<string> {
+  const boss = await getBoss(options);
+  const data: RunSolveJobData = { runId };
+  const jobId = await boss.send(RUN_SOLVE_QUEUE, data, RUN_SOLVE_SEND_OPTIONS);
+  if (!jobId) throw new Error(`the queue refused the job of run ${runId}`);
+  await attachQueueJob(runId, jobId);
   return jobId;
 }
 
-/** The job of a run, or null when the run was solved in its request (never queued). */
-export async function getRunJob(runId: string): Promise<RunJobView | null> {
-  const rows = await sequelize.query<RunJobRow>("SELECT * FROM run_jobs WHERE run_id = :runId", {
-    replacements: { runId },
-    type: QueryTypes.SELECT,
-  });
-  return rows[0] ? toView(rows[0]) : null;
+/**
+ * Put a saved 'queued' run on the queue. Returns the pg-boss job id; when the queue cannot take
+ * it, the run is failed (lib/run-lifecycle.ts) and the error rethrown.
+ */
+export async function enqueueRunSolve(runId: string): Promise<string> {
+  await openJob(runId);
+  try {
+    return await sendRunSolve(runId);
+  } catch (error) {
+    await fail(runId, "the job queue is not reachable");
+    throw error;
+  }
 }
 
 /**
- * Cancel a run's job. A job still waiting in the queue is cancelled there and the run marked
- * 'cancelled' at once; a running job is asked to stop (the worker checks at every progress
- * report and then marks the run). Finished jobs are left alone. Returns the job's view.
+ * Cancel a run's job. A job still waiting in the queue is cancelled at once (and taken off the
+ * queue); a running job is asked to stop (the worker checks at every progress report and then
+ * moves the run). Finished jobs are left alone. Returns the job's view.
  */
 export async function cancelRunJob(runId: string): Promise<RunJobView | null> {
+  const outcome = await requestCancel(runId);
   const job = await getRunJob(runId);
-  if (!job || job.state === "ok" || job.state === "failed" || job.state === "cancelled") return job;
-  await sequelize.query(
-    "UPDATE run_jobs SET cancel_requested = true, updated_at = now() WHERE run_id = :runId",
-    { replacements: { runId } },
-  );
-  if (job.state === "queued") {
-    // Claim the cancellation only if no worker has started it meanwhile.
-    const claimed = await sequelize.query<{ run_id: string }>(
-      `UPDATE run_jobs SET state = 'cancelled', finished_at = now(), updated_at = now()
-       WHERE run_id = :runId AND state = 'queued' RETURNING run_id`,
-      { replacements: { runId }, type: QueryTypes.SELECT },
-    );
-    if (claimed.length > 0) {
-      await sequelize.query("UPDATE runs SET status = 'cancelled' WHERE id = :runId AND status = 'queued'", {
-        replacements: { runId },
-      });
-      if (job.jobId) {
-        const boss = await getBoss();
-        await boss.cancel(RUN_SOLVE_QUEUE, job.jobId).catch(() => undefined);
-      }
-    }
+  if (outcome === "cancelled" && job?.jobId) {
+    const boss = await getBoss();
+    await boss.cancel(RUN_SOLVE_QUEUE, job.jobId).catch(() => undefined);
   }
-  return getRunJob(runId);
+  return job;
 }
 
 export type RunSolvePlan =

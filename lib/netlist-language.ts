@@ -28,7 +28,7 @@ export const SUB_KEYWORDS = [
   "over",
   "from",
 ];
-export const PROBE_FNS = ["v", "i"];
+export const PROBE_FNS = ["volts", "amps"];
 export const EXPRESSION_FNS = ["sqrt", "log10", "exp", "snap", "abs", "pi", "e"];
 export const LEVEL_WORDS = ["half-power"];
 export const E_SERIES = ["E6", "E12", "E24", "E48", "E96", "E192"];
@@ -59,16 +59,17 @@ const KIND_DOCS: Record<PartKind, string> = {
   inductor: "Inductor between a and b; value in henries.",
   vsource: "AC voltage source, p to n; value is the amplitude in volts (default 1), `phase=` in degrees.",
   isource: "AC current source; the current flows from p through the source to n. Amplitude in amperes.",
-  vcvs: "Voltage-controlled voltage source: v(p,n) = gain · v(cp,cn).",
-  vccs: "Voltage-controlled current source: gm · v(cp,cn) flows from p through the part to n.",
-  ccvs: "Current-controlled voltage source: v(p,n) = r · i(SENSE); SENSE is a vsource or inductor.",
-  cccs: "Current-controlled current source: k · i(SENSE) flows from p through the part to n.",
+  vcvs: "Voltage-controlled voltage source: volts(p, n) = gain · volts(cp, cn).",
+  vccs: "Voltage-controlled current source: gm · volts(cp, cn) flows from p through the part to n.",
+  ccvs: "Current-controlled voltage source: volts(p, n) = r · amps(SENSE); SENSE is a vsource or inductor.",
+  cccs: "Current-controlled current source: k · amps(SENSE) flows from p through the part to n.",
   opamp:
     "Operational amplifier, pins in+ in− out. Ideal without options; `gain=A0` finite gain, `gbw=F` single pole, `rout=R` output resistance.",
 };
 
 const STATEMENT_DOCS: Record<string, string> = {
-  title: "`title TEXT` — the circuit's title (once).",
+  title:
+    "`title TEXT` — the circuit's title (once): the rest of the line as written; `#` starts a comment, `\\#` writes a `#`.",
   let: "`let NAME = EXPR` — a named value; numbers with SI prefixes, earlier lets, `pi`, `sqrt`, `log10`, `exp`, `snap`.",
   block:
     "`block NAME(T1, T2, …) [key=default…]` … `end` — a reusable sub-network; address inner names as `X1.R1`.",
@@ -76,8 +77,8 @@ const STATEMENT_DOCS: Record<string, string> = {
   preset: "`preset NAME = KIND key=value…` — a named set of options, then used as a kind.",
   sweep:
     "`sweep 10Hz to 1MHz log 100 per decade` · `sweep 1kHz to 20kHz linear 500 points` · `sweep at 50Hz, 1kHz`. Default: 10 Hz to 10 MHz, 100 per decade.",
-  show: "`show [NAME =] PROBE` — a complex trace over `v(NODE)`, `v(A, B)`, `i(PART)` with + − * /.",
-  loop: "`loop NAME cut NODE before PART[,PART…] [method=cut|injection]` — loop gain T (the returned signal per injected signal) at NODE, between the driver and the listed parts. `cut`: T = v(NODE)/v(NODE′) with the cut driven by 1∠0°; `injection`: double injection, exact whatever drives NODE.",
+  show: "`show [NAME =] PROBE` — a complex trace over `volts(NODE)`, `volts(A, B)`, `amps(PART)` with + − * /.",
+  loop: "`loop NAME cut NODE before PART[,PART…] [method=cut|injection]` — loop gain T (the returned signal per injected signal) at NODE, between the driver and the listed parts. `cut`: T = volts(NODE)/volts(NODE′) with the cut driven by 1∠0°; `injection`: double injection, exact whatever drives NODE.",
   measure:
     "`measure NAME = FUNCTION(TRACE…) [at F]` — a scalar result, refined by solving again at new frequencies.",
   check: "`check NAME OP VALUE` or `check NAME between A and B` — a pass/fail limit on a measure.",
@@ -104,8 +105,9 @@ const FUNCTION_DOCS: Record<string, string> = {
   mag: "`mag(X) at F` — |X| at frequency F (a number or a measure's name).",
   db: "`db(X) at F` — 20·log10|X| at frequency F.",
   phase: "`phase(X) at F` — ∠X in degrees at frequency F.",
-  v: "`v(NODE)` or `v(A, B)` — node voltage, or the voltage between two nodes.",
-  i: "`i(PART)` — current entering the part's first terminal and leaving its second.",
+  volts: "`volts(NODE)` or `volts(A, B)` — node voltage to `gnd`, or the voltage of A against B.",
+  amps: "`amps(PART)` — current entering the part's first terminal and leaving its second.",
+  gnd: "`gnd` — ground, the reference node (0 V) of every voltage.",
   snap: "`snap(E24, x)` — nearest IEC 60063 preferred value of the series (E6…E192) to x.",
   "half-power": "`half-power` — the level |X| = 1/√2 (−3.0103 dB).",
 };
@@ -173,8 +175,7 @@ export function collectNames(text: string): NetlistNames {
       const info = KINDS[kind as PartKind];
       const words = (rest ?? "").split(/\s+/).filter((w) => w && !w.includes("="));
       const count = info ? info.terminals.length - (kind === "ccvs" || kind === "cccs" ? 1 : 0) : 2;
-      for (const w of words.slice(0, count))
-        if (/^[A-Za-z0-9_.]+$/.test(w) && w !== "gnd" && w !== "0") sets.nodes.add(w);
+      for (const w of words.slice(0, count)) if (/^[A-Za-z0-9_.]+$/.test(w) && w !== "gnd") sets.nodes.add(w);
       continue;
     }
     let m = new RegExp(`^\\s*let\\s+(${NAME})\\s*=`).exec(line);
@@ -205,8 +206,8 @@ export function collectNames(text: string): NetlistNames {
 export type CompletionContext =
   | "statement" // start of a line
   | "kind" // after `NAME:`
-  | "node" // inside v( … )
-  | "part" // inside i( … ), after `before`
+  | "node" // inside volts( … )
+  | "part" // inside amps( … ), after `before`
   | "trace" // inside a measure function's parentheses
   | "function" // after `measure NAME =`
   | "measure" // after `check`, `sensitivity`, `at`
@@ -221,8 +222,8 @@ export function completionContext(before: string): CompletionContext {
   if (/^\s*loop\b.*\bmethod=\w*$/.test(line)) return "loop-method";
   if (/^\s*loop\b.*\bbefore\s+[\w.]+(?:\s*,\s*[\w.]+)*\s+\w*$/.test(line)) return "loop-option";
   if (new RegExp(`^\\s*${NAME}\\s*:\\s*[A-Za-z_]*$`).test(line)) return "kind";
-  if (/\bv\(\s*[^()]*$/.test(line)) return "node";
-  if (/\bi\(\s*[^()]*$/.test(line) || /\bbefore\s+[\w,\s]*$/.test(line)) return "part";
+  if (/\bvolts\(\s*[^()]*$/.test(line)) return "node";
+  if (/\bamps\(\s*[^()]*$/.test(line) || /\bbefore\s+[\w,\s]*$/.test(line)) return "part";
   if (/^\s*measure\s+\w+\s*=\s*[\w-]+\(\s*[^()]*$/.test(line)) return "trace";
   if (/^\s*measure\s+\w+\s*=\s*[\w-]*$/.test(line)) return "function";
   if (/^\s*(check|sensitivity)\s+\w*$/.test(line) || /\bat\s+\w*$/.test(line)) return "measure";

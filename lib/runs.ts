@@ -1,21 +1,19 @@
-import { createHash } from "node:crypto";
 import { type InferCreationAttributes, Op, type Order, type WhereOptions } from "sequelize";
 import { type Action, authorizeProject, authorizeRun, can } from "@/lib/authz";
 import { Project, ReviewEvent, RUN_HEAVY_COLUMNS, Run, sequelize, Team, User } from "@/lib/db";
 import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
+import { sha256Hex } from "@/lib/hash";
 import { enqueueRunSolve, planRunSolve } from "@/lib/jobs";
 import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
+import { derivedRunColumns } from "@/lib/run-columns";
 import type { RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
 import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
-import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
+import { expandResult, type StoredResult, solveNetlist } from "@/solver";
 import type { CheckResult, MeasureResult, NetlistError } from "@/solver/types";
 
+export { sha256Hex } from "@/lib/hash";
 export type { ReviewEventView, ReviewStateName, RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
-
-export function sha256Hex(text: string): string {
-  return createHash("sha256").update(text, "utf8").digest("hex");
-}
 
 function iso(d: unknown): string {
   return d instanceof Date ? d.toISOString() : String(d);
@@ -84,14 +82,8 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
     );
   }
   const run = await saveRun(actor, projectId, input, {
-    solverVersion: result.solverVersion,
+    ...derivedRunColumns(result),
     status: "ok",
-    // Stored as re/im only (solver/stored.ts); getRun rebuilds the dB and degree columns.
-    result: compactResult(result),
-    measures: result.measures,
-    checks: result.checks,
-    checksPassed: result.checks.filter((c) => c.pass).length,
-    checksTotal: result.checks.length,
     timings: { solveMs: round3(solveMs), engineMs: result.stats.solveMs },
   });
   return { ...toSummary(run), authorName: actor.name };
@@ -170,8 +162,8 @@ async function createQueuedRun(
   try {
     await enqueueRunSolve(run.id);
   } catch (error) {
+    // enqueueRunSolve has moved the run to 'failed' (lib/run-lifecycle.ts).
     console.error("[runs] the job queue did not take run", run.id, error);
-    await withDb(() => Run.update({ status: "failed" }, { where: { id: run.id } }));
     run.status = "failed";
   }
   return { ...toSummary(run), authorName: actor.name };

@@ -86,7 +86,7 @@ export function ladderNetlist(traces: number, points: number): string {
     lines.push(`R${i}: resistor  n${i - 1} n${i} 1k`, `C${i}: capacitor n${i} gnd 10n`);
   }
   lines.push(`sweep 10Hz to 100kHz linear ${points} points`);
-  for (let i = 1; i <= traces; i++) lines.push(`show tap${i} = v(n${i})`);
+  for (let i = 1; i <= traces; i++) lines.push(`show tap${i} = volts(n${i})`);
   return `${lines.join("\n")}\n`;
 }
 

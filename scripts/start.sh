@@ -16,6 +16,7 @@ if pid_alive "$DATA_DIR/app.pid"; then
   die "the app is already running (pid $(cat "$DATA_DIR/app.pid")); run \`npm run stop\` first"
 fi
 
+require_free_port "$PORT" PORT "the app" || exit 1
 ensure_node_modules
 pg_up
 export DATABASE_URL="${DATABASE_URL:-$(db_url phasewright)}"
@@ -36,6 +37,8 @@ trap 'exit 143' TERM
 
 # Each service runs in its own process group (setsid) so that stop.sh can end it with its children.
 if ! pid_alive "$DATA_DIR/smtp.pid"; then
+  smtp_port="${SMTP_URL##*:}"
+  require_free_port "${smtp_port%%/*}" SMTP_URL "the local SMTP sink" || exit 1
   MAIL_DIR="$DATA_DIR/mail" setsid node_modules/.bin/tsx scripts/smtp-sink.ts &
   echo $! >"$DATA_DIR/smtp.pid"
 fi

@@ -15,6 +15,9 @@ export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-phasewright-test-secret-0123456789}"
 ensure_data_dir
 ensure_node_modules
 pg_up
+# A cluster this run started is stopped again at the end, so that its port is free for another
+# checkout's `npm start`; one that was already running (e.g. `npm start` here) is left as it was.
+if [ "$PG_STARTED_HERE" = "1" ] && [ -z "${KEEP_PG:-}" ]; then trap 'pg_down' EXIT; fi
 log "recreating database phasewright_test"
 recreate_database phasewright_test
 node_modules/.bin/tsx scripts/migrate.ts up
@@ -38,6 +41,8 @@ if [ -d tests/browser ] && [ -n "$(find tests/browser -name '*.test.ts' -print -
   browser_stage() {
     local base="http://127.0.0.1:$TEST_PORT" i
     [ -x /usr/bin/chromium ] || apt_install chromium
+    require_free_port "$TEST_PORT" E2E_PORT "the app under test" || return 1
+    require_free_port "$TEST_SMTP_PORT" E2E_SMTP_PORT "the test SMTP sink" || return 1
     ensure_build || return 1
     # Fresh data for the browser (integration tests leave rows behind): recreate, migrate, seed.
     recreate_database phasewright_test || return 1
@@ -61,7 +66,7 @@ if [ -d tests/browser ] && [ -n "$(find tests/browser -name '*.test.ts' -print -
     stop_pidfile "$DATA_DIR/test-app.pid" "test app"
     stop_pidfile "$DATA_DIR/test-smtp.pid" "test SMTP sink"
   }
-  trap stop_test_services EXIT
+  trap 'stop_test_services; [ "$PG_STARTED_HERE" = "1" ] && [ -z "${KEEP_PG:-}" ] && pg_down' EXIT
   stage browser browser_stage
   stop_test_services
 fi

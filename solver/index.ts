@@ -12,7 +12,14 @@ import type { SolveResult } from "./types";
 
 export { type AnalyzeOptions, analyze } from "./engine";
 export { SparseComplexLU } from "./engine/sparse-lu";
-export { type CompileOverrides, type CompileResult, compile, parse, snap } from "./lang";
+export {
+  type CompileOverrides,
+  type CompileResult,
+  compile,
+  parse,
+  rewriteLegacyNetlist,
+  snap,
+} from "./lang";
 export { compactResult, expandResult, type StoredResult } from "./stored";
 export * from "./types";
 

@@ -9,20 +9,26 @@
  *
  * The worker entry is `solver/workers/sample-worker.mjs`, which registers tsx's loader and imports
  * the TypeScript task. It is found at `PHASEWRIGHT_SAMPLE_WORKER` or `<cwd>/solver/workers/…`;
- * when it cannot be found or a worker fails to start, the samples are solved in this thread.
+ * when it cannot be found or no worker starts, the samples are solved in this thread. The pool
+ * itself (retry of a failed chunk on a fresh thread, abort) is solver/sample-pool.ts.
  * Kept out of `solver/index.ts` so a web bundle of the solver never pulls worker_threads in.
  */
-import { existsSync } from "node:fs";
-import { availableParallelism } from "node:os";
-import path from "node:path";
-import { Worker } from "node:worker_threads";
-import { analyze, internalError } from "./engine";
+import { analyze, internalError, spanError } from "./engine";
 import { drawSamples, monteCarloPreflight, summarizeSamples } from "./engine/monte-carlo";
 import { type SampleBatch, SampleKernel, solveSampleRange } from "./engine/samples";
 import { addStudies, solveVariant, type VaryOutcome } from "./engine/studies";
 import type { SolveOptions } from "./index";
 import { compile } from "./lang";
+import { defaultThreads, solveSamplesOnWorkers, WorkerFault } from "./sample-pool";
 import type { Circuit, MonteCarloResult, SolveResult, SolveSuccess, Warning } from "./types";
+
+export {
+  defaultThreads,
+  sampleWorkerThreads,
+  startSampleWorkers,
+  stopSampleWorkers,
+  workersUnavailableReason,
+} from "./sample-pool";
 
 export interface ParallelOptions extends SolveOptions {
   /** Worker threads for the samples: 0 = solve in this thread; default: the cores, at most 4. */
@@ -35,188 +41,6 @@ export interface ParallelOptions extends SolveOptions {
 
 /** Below this many samples × points the threads' start-up is not worth it. */
 export const PARALLEL_MIN_WORK = 20_000;
-
-type WorkerReply =
-  | { type: "ready" }
-  | { type: "done"; jobId: number; batch: SampleBatch }
-  | { type: "error"; jobId: number; message: string };
-
-interface PoolWorker {
-  worker: Worker;
-  ready: Promise<void>;
-}
-
-let pool: PoolWorker[] = [];
-let unavailable: string | null = null;
-let nextJobId = 1;
-const handlers = new Map<number, (w: PoolWorker, reply: WorkerReply) => void>();
-
-function workerEntry(): string | null {
-  const candidates = [
-    process.env.PHASEWRIGHT_SAMPLE_WORKER,
-    path.join(process.cwd(), "solver", "workers", "sample-worker.mjs"),
-  ];
-  return candidates.find((c): c is string => !!c && existsSync(c)) ?? null;
-}
-
-function startWorker(entry: string): PoolWorker {
-  const worker = new Worker(entry);
-  worker.unref();
-  const pw: PoolWorker = {
-    worker,
-    ready: new Promise<void>((resolve, reject) => {
-      const timer = setTimeout(() => reject(new Error("the worker did not start within 30 s")), 30_000);
-      timer.unref();
-      worker.once("message", (m: WorkerReply) => {
-        clearTimeout(timer);
-        if (m.type === "ready") resolve();
-        else reject(new Error("the worker did not report ready"));
-      });
-      worker.once("error", (e) => {
-        clearTimeout(timer);
-        reject(e);
-      });
-    }),
-  };
-  pw.ready.then(
-    () => {
-      worker.on("message", (m: WorkerReply) => {
-        if (m.type !== "ready") handlers.get(m.jobId)?.(pw, m);
-      });
-    },
-    () => {},
-  );
-  worker.on("error", () => {
-    pool = pool.filter((p) => p !== pw);
-  });
-  worker.on("exit", () => {
-    pool = pool.filter((p) => p !== pw);
-  });
-  return pw;
-}
-
-/** Up to `threads` started workers, or null (with the reason kept) when they cannot start. */
-async function getPool(threads: number): Promise<PoolWorker[] | null> {
-  if (unavailable) return null;
-  const entry = workerEntry();
-  if (!entry) {
-    unavailable = "the worker entry solver/workers/sample-worker.mjs was not found";
-    return null;
-  }
-  while (pool.length < threads) pool.push(startWorker(entry));
-  const mine = pool.slice(0, threads);
-  try {
-    await Promise.all(mine.map((w) => w.ready));
-    return mine;
-  } catch (error) {
-    unavailable = error instanceof Error ? error.message : String(error);
-    await stopSampleWorkers();
-    return null;
-  }
-}
-
-/** Start the pool ahead of the first Monte Carlo run (a long-lived worker process). */
-export async function startSampleWorkers(threads = defaultThreads()): Promise<boolean> {
-  return (await getPool(threads)) !== null;
-}
-
-/** Why worker threads are not used in this process, or null. */
-export function workersUnavailableReason(): string | null {
-  return unavailable;
-}
-
-/** Terminate the pool (tests, clean shutdown). A later run starts new workers. */
-export async function stopSampleWorkers(): Promise<void> {
-  const all = pool;
-  pool = [];
-  await Promise.all(all.map((w) => w.worker.terminate().catch(() => 0)));
-}
-
-function abortError(signal: AbortSignal): unknown {
-  return signal.reason ?? new Error("cancelled");
-}
-
-/**
- * Solve every sample on `threads` workers (chunks handed out as workers become free). Null when
- * the workers cannot start (the caller then solves in its own thread).
- */
-export async function solveSamplesOnWorkers(
-  circuit: Circuit,
-  freqs: number[],
-  draws: { names: string[]; samples: number; values: Float64Array },
-  threads: number,
-  onProgress?: (done: number, total: number) => void,
-  signal?: AbortSignal,
-): Promise<SampleBatch[] | null> {
-  const workers = await getPool(threads);
-  if (!workers) return null;
-  const total = draws.samples;
-  const size = Math.max(10, Math.ceil(total / (workers.length * 8)));
-  const chunks: [number, number][] = [];
-  for (let s = 0; s < total; s += size) chunks.push([s, Math.min(total, s + size)]);
-  const jobId = nextJobId++;
-  const batches: SampleBatch[] = [];
-  let done = 0;
-  try {
-    return await new Promise<SampleBatch[]>((resolve, reject) => {
-      let inFlight = 0;
-      let settled = false;
-      const finish = (error?: unknown) => {
-        if (settled) return;
-        settled = true;
-        if (error !== undefined) reject(error);
-        else resolve(batches);
-      };
-      const dispatch = (w: PoolWorker) => {
-        if (settled) return;
-        if (signal?.aborted) {
-          if (inFlight === 0) finish(abortError(signal));
-          return;
-        }
-        const next = chunks.shift();
-        if (!next) {
-          if (inFlight === 0) finish();
-          return;
-        }
-        inFlight++;
-        w.worker.postMessage({ type: "task", jobId, from: next[0], to: next[1] });
-      };
-      handlers.set(jobId, (w, reply) => {
-        if (reply.type === "error") {
-          inFlight--;
-          finish(new Error(reply.message));
-          return;
-        }
-        if (reply.type !== "done") return;
-        inFlight--;
-        batches.push(reply.batch);
-        done += reply.batch.to - reply.batch.from;
-        onProgress?.(done, total);
-        dispatch(w);
-      });
-      for (const w of workers) {
-        w.worker.postMessage({
-          type: "setup",
-          jobId,
-          circuit,
-          freqs,
-          names: draws.names,
-          values: draws.values,
-        });
-      }
-      for (const w of workers) dispatch(w);
-      if (chunks.length === 0 && inFlight === 0) finish();
-    });
-  } finally {
-    handlers.delete(jobId);
-    for (const w of workers) w.worker.postMessage({ type: "release", jobId });
-  }
-}
-
-/** The default thread count: the cores this process may use, at most 4. */
-export function defaultThreads(): number {
-  return Math.max(1, Math.min(4, availableParallelism()));
-}
 
 /**
  * `solveNetlist` with the `vary` variants solved one at a time and the Monte Carlo samples on
@@ -252,10 +76,20 @@ export async function solveNetlistParallel(
   let mc: { result: MonteCarloResult | string; warnings: Warning[] } | undefined;
   if (circuit.monteCarlo) {
     const onProgress = options.onProgress;
-    mc = await parallelMonteCarlo(circuit, result, {
-      ...options,
-      onProgress: onProgress && ((done) => onProgress(variantCount + done, total)),
-    });
+    try {
+      mc = await parallelMonteCarlo(circuit, result, {
+        ...options,
+        onProgress: onProgress && ((done) => onProgress(variantCount + done, total)),
+      });
+    } catch (error) {
+      if (!(error instanceof WorkerFault)) throw error;
+      const fault = spanError(
+        circuit.monteCarlo.span,
+        "the Monte Carlo samples could not be solved",
+        error.message,
+      );
+      return { ok: false, errors: [fault], warnings: result.warnings };
+    }
   }
   options.signal?.throwIfAborted();
   try {
@@ -317,8 +151,10 @@ async function parallelMonteCarlo(
         options.signal,
       );
     } catch (error) {
-      if (options.signal?.aborted) throw error;
-      batches = null; // a worker fault: solve in this thread below
+      // An abort, or a chunk that failed twice on fresh threads: the run fails with the reason
+      // (solving it again in this thread could take the whole process down the same way).
+      if (options.signal?.aborted || error instanceof WorkerFault) throw error;
+      batches = null;
     }
   }
   if (!batches) {

@@ -19,6 +19,17 @@ export interface SourceSpan {
 export interface NetlistError extends SourceSpan {
   message: string;
   hint?: string;
+  /** A known rewrite that resolves this error (an editor offers it as a quick fix). */
+  fix?: NetlistFix;
+}
+
+/**
+ * A machine-readable fix: replace the text of `line` from `column` to `endColumn` (1-based,
+ * exclusive, on that one physical line) with `text`. `label` says it in words for a menu.
+ */
+export interface NetlistFix extends SourceSpan {
+  text: string;
+  label: string;
 }
 
 export interface Warning {
@@ -39,7 +50,7 @@ export type PartKind =
   | "cccs"
   | "opamp";
 
-/** Ground's canonical name after elaboration (`0` is folded into it). */
+/** Ground's name (the only spelling the language accepts). */
 export const GROUND = "gnd";
 
 /** One part after blocks are flattened and values evaluated. */

@@ -14,7 +14,7 @@ Rf: resistor  neg     amp_out 20.5k
 Rg: resistor  neg     gnd     10k  # K = 1 + Rf/Rg = 3.05
 
 sweep 10Hz to 100kHz log 100 per decade
-show  bridge = v(pos) / v(amp_out)
+show  bridge = volts(pos) / volts(amp_out)
 loop  T cut amp_out before Rs
 measure f0   = zero-phase(bridge)
 measure gain = mag(T) at f0
@@ -36,7 +36,7 @@ Rf: resistor  neg     amp_out 20.5k
 Rg: resistor  neg     gnd     10k
 
 sweep 10Hz to 100kHz log 100 per decade
-show  bridge = v(pos) / v(amp_out)
+show  bridge = volts(pos) / volts(amp_out)
 loop  T cut amp_out before Rs
 measure f0   = zero-phase(bridge)
 measure fosc = zero-phase(T)
@@ -59,7 +59,7 @@ Rf: resistor  neg     amp_out 24k
 Rg: resistor  neg     gnd     11k
 
 sweep 10Hz to 100kHz log 100 per decade
-show  bridge = v(pos) / v(amp_out)
+show  bridge = volts(pos) / volts(amp_out)
 loop  T cut amp_out before Rs
 measure f0   = zero-phase(bridge)
 measure gain = mag(T) at f0
@@ -77,7 +77,7 @@ Cg:  capacitor b   gnd 820p  tol=5%
 U1:  opamp     b   out out
 
 sweep 100Hz to 10MHz log 50 per decade
-show  H = v(out) / v(in)
+show  H = volts(out) / volts(in)
 measure fc      = crossing(H, -3dB)
 measure gain_lf = db(H) at 100Hz
 check fc between 40kHz and 60kHz
@@ -95,7 +95,7 @@ Cb:  capacitor t2  out 10n
 Rm:  resistor  t2  gnd 5k
 
 sweep 100Hz to 20kHz log 100 per decade
-show  N = v(out) / v(in)
+show  N = volts(out) / volts(in)
 measure fnotch = dip(N)
 measure edge   = crossing(N, -3dB)
 check fnotch between 1.5kHz and 1.7kHz
@@ -114,7 +114,7 @@ Rf:  resistor  amp  neg 9k
 Rg:  resistor  neg  gnd 1k
 
 sweep 100Hz to 10MHz log 100 per decade
-show  A = v(amp) / v(in)
+show  A = volts(amp) / volts(in)
 loop  T cut amp before Cl,Rl,Rf method=injection
 measure crossover = unity(T)
 measure pm        = phase-margin(T)

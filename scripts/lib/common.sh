@@ -18,6 +18,18 @@ as_pg() {
   if [ "$(id -u)" = "0" ]; then runuser -u postgres -- "$@"; else "$@"; fi
 }
 
+# Is something listening on 127.0.0.1:PORT? (bash's /dev/tcp: no extra tools needed)
+port_taken() { (exec 3<>"/dev/tcp/127.0.0.1/$1") 2>/dev/null; }
+
+# Stop with a message naming the port and the variable to change when a port we need is taken.
+require_free_port() {
+  local port="$1" var="$2" what="$3"
+  if port_taken "$port"; then
+    log "error: port $port ($what) is already in use, perhaps by another checkout; set $var to a free port (e.g. $var=$((port + 10)))"
+    return 1
+  fi
+}
+
 # A URL for one database of the local cluster.
 db_url() { printf 'postgres://%s:%s@127.0.0.1:%s/%s' "$DB_ROLE" "$DB_PASSWORD" "$PGPORT" "$1"; }
 
@@ -72,8 +84,11 @@ pg_up() {
     as_pg "$PGBIN/initdb" -D "$PGDATA" -U postgres -E UTF8 --no-locale \
       --auth-local=trust --auth-host=scram-sha-256 >/dev/null
   fi
+  PG_STARTED_HERE=0
   if ! pg_is_running; then
+    require_free_port "$PGPORT" PGPORT "PostgreSQL" || exit 1
     log "starting PostgreSQL on 127.0.0.1:$PGPORT"
+    PG_STARTED_HERE=1
     # A postmaster.pid left by a killed server is detected and replaced by the server itself.
     as_pg "$PGBIN/pg_ctl" start -w -t 60 -D "$PGDATA" -l "$PGDATA/server.log" \
       -o "-c listen_addresses=127.0.0.1 -p $PGPORT -k $PGDATA" >/dev/null ||

@@ -29,7 +29,7 @@ export interface AnalyzeOptions {
   maxPoints?: number;
 }
 
-const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
+export const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
   line: span?.line ?? 1,
   column: span?.column ?? 1,
   endColumn: span?.endColumn ?? 2,
@@ -94,7 +94,7 @@ export function sampler(
   return s;
 }
 
-/** The probe with every v(from…) read at node `to` instead. */
+/** The probe with every volts(from…) read at node `to` instead. */
 function renameNode(p: Probe, from: string, to: string): Probe {
   switch (p.op) {
     case "num":
@@ -187,10 +187,10 @@ export function planSystems(
         message:
           firstLoop.method === "injection"
             ? `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s 1 V series ` +
-              `test source at ${firstLoop.node} as the excitation, v(${firstLoop.node}) being read on the side ` +
+              `test source at ${firstLoop.node} as the excitation, volts(${firstLoop.node}) being read on the side ` +
               "of the listed parts"
             : `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s test signal ` +
-              `as the excitation (the loop opened at ${firstLoop.node}, v(${firstLoop.node}) being the injected side)`,
+              `as the excitation (the loop opened at ${firstLoop.node}, volts(${firstLoop.node}) being the injected side)`,
       });
     }
   }

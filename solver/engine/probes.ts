@@ -26,7 +26,7 @@ export function probeProblem(p: Probe, sys: MnaSystem): string | null {
       const part = sys.partByName.get(p.part);
       if (!part) return `no part named ${p.part}`;
       if (part.kind === "opamp")
-        return `i(${p.part}): an op-amp has no single current; probe a part in series`;
+        return `amps(${p.part}): an op-amp has no single current; probe a part in series`;
       return null;
     }
     case "neg":

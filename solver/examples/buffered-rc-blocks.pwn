@@ -16,8 +16,8 @@ S2:  rc_section mid out r=(snap(E24, 9.6k))    # 9.6k snaps to 10k
 Rl:  resistor   out gnd 10k
 
 sweep 10Hz to 1MHz log 100 per decade
-show H = v(out) / v(in)
-show first = v(S1.out) / v(in)
+show H = volts(out) / volts(in)
+show first = volts(S1.out) / volts(in)
 measure corner = crossing(first, half-power)
 measure both   = db(H) at corner
 check both between -6.2dB and -5.8dB

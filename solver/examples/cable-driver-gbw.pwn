@@ -11,7 +11,7 @@ Rf:  resistor out  neg 9k
 Rg:  resistor neg  gnd 1k
 
 sweep 100Hz to 10MHz log 100 per decade
-show  A = v(out) / v(in)
+show  A = volts(out) / volts(in)
 loop  T cut amp before Ro
 measure crossover = unity(T)
 measure pm        = phase-margin(T)

@@ -12,7 +12,7 @@ Rf:  resistor  amp  neg 9k
 Rg:  resistor  neg  gnd 1k
 
 sweep 100Hz to 10MHz log 100 per decade
-show  A = v(amp) / v(in)
+show  A = volts(amp) / volts(in)
 loop  T cut amp before Cl,Rl,Rf method=injection
 measure crossover = unity(T)
 measure pm        = phase-margin(T)

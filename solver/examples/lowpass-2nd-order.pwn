@@ -9,7 +9,7 @@ Cg:  capacitor b   gnd 820p  tol=5%
 U1:  opamp     b   out out
 
 sweep 1kHz to 1MHz log 100 per decade
-show H = v(out) / v(in)
+show H = volts(out) / volts(in)
 measure corner = crossing(H, -3dB)
 measure at_f0  = mag(H) at 49.9155kHz
 check corner between 40kHz and 60kHz

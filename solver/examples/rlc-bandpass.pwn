@@ -7,8 +7,8 @@ C1:  capacitor a   out 100n tol=5%
 R1:  resistor  out gnd 100
 
 sweep 500Hz to 50kHz log 200 per decade
-show H = v(out) / v(in)
-show Zin = v(in) / i(Vin)
+show H = volts(out) / volts(in)
+show Zin = volts(in) / amps(Vin)
 measure centre = peak(H)
 measure width  = bandwidth(H)
 measure quality = q(H)

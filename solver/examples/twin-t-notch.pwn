@@ -13,7 +13,7 @@ Cb:  capacitor t2  out C
 R0:  resistor  t2  gnd (R/2)
 
 sweep 10Hz to 100kHz log 200 per decade
-show H = v(out) / v(in)
+show H = volts(out) / volts(in)
 measure null  = dip(H)
 measure depth = db(H) at null
 measure lower = crossing(H, half-power)

@@ -14,7 +14,7 @@ Rf: resistor  neg  out  20.5k tol=1%
 Rg: resistor  neg  gnd  10k   tol=1%     # K = 3.05: starts reliably, grows slowly
 
 sweep 100Hz to 20kHz log 200 per decade
-show  network = v(pos) / v(out)
+show  network = volts(pos) / volts(out)
 loop  T cut out before Rs
 measure f0     = zero-phase(T)
 measure margin = mag(T) at f0

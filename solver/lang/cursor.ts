@@ -1,7 +1,8 @@
 /** A cursor over one logical line's tokens, collecting errors with line and column. */
-import type { NetlistError, SourceSpan } from "../types";
+import type { NetlistError, NetlistFix, SourceSpan } from "../types";
 import type { Named, ValueNode } from "./ast";
 import { didYouMean } from "./hints";
+import { legacyGround } from "./legacy";
 import { type Place, parseNumberText, unitMismatch } from "./numbers";
 import type { LogicalLine, Token } from "./tokens";
 
@@ -61,12 +62,25 @@ export class Cursor {
     return { line: last.line, column: last.endColumn, endColumn: last.endColumn + 1 };
   }
 
-  /** Record an error at `at` (a token or span) or at the end of the line; returns null for chaining. */
-  fail(at: SourceSpan | undefined, message: string, hint?: string): null {
+  /**
+   * Record an error at `at` (a token or span) or at the end of the line, with an optional hint and
+   * quick fix; returns null for chaining.
+   */
+  fail(at: SourceSpan | undefined, message: string, hint?: string, fix?: NetlistFix): null {
+    this.errors.push(this.error(at, message, hint, fix));
+    return null;
+  }
+
+  /** The error `fail` records, for callers that go on reading after it. */
+  error(at: SourceSpan | undefined, message: string, hint?: string, fix?: NetlistFix): NetlistError {
     const span =
       at === undefined ? this.endSpan() : { line: at.line, column: at.column, endColumn: at.endColumn };
-    this.errors.push(hint === undefined ? { ...span, message } : { ...span, message, hint });
-    return null;
+    return {
+      ...span,
+      message,
+      ...(hint === undefined ? {} : { hint }),
+      ...(fix === undefined ? {} : { fix }),
+    };
   }
 
   expectOp(text: string, message: string, hint?: string): Token | null {
@@ -85,9 +99,17 @@ export class Cursor {
     return this.fail(t, `expected ${what}, found \`${t.text}\``, hint);
   }
 
-  /** A node name: a word (dots allowed) or digits only. */
+  /**
+   * A node name: a word (dots allowed) or digits only. `0`, once an alias of ground, is an error with
+   * the fix `gnd`; reading goes on as if `gnd` were written, so the line's other errors show too.
+   */
   expectNode(what: string, hint?: string): Named | null {
     const t = this.peek();
+    if (t?.kind === "number" && t.text === "0") {
+      this.i++;
+      this.errors.push(legacyGround(t));
+      return { name: "gnd", span: spanOf(t) };
+    }
     if (t?.kind === "number" && /^[0-9]+$/.test(t.text)) {
       this.i++;
       return { name: t.text, span: spanOf(t) };

@@ -12,7 +12,20 @@ export interface KindTable {
   blocks: Map<string, number>;
 }
 
-const RESERVED = new Set(["gnd", "pi", "e", "snap", "sqrt", "exp", "log", "log10", "v", "i"]);
+const RESERVED = new Set([
+  "gnd",
+  "pi",
+  "e",
+  "snap",
+  "sqrt",
+  "exp",
+  "log",
+  "log10",
+  "volts",
+  "amps",
+  "v",
+  "i",
+]);
 const UNIT_WORDS = new Set([
   "Hz",
   "F",

@@ -62,13 +62,13 @@ function sweepOf(s: SweepNode, ctx: DirectiveContext, span: SourceSpan): Sweep |
 }
 
 function node(ctx: DirectiveContext, n: Named): string | null {
-  if (n.name === "gnd" || n.name === "0") return "gnd";
+  if (n.name === "gnd") return "gnd";
   if (ctx.nodes.has(n.name)) return n.name;
   const alias = ctx.aliases.get(n.name);
   if (alias !== undefined) return alias;
   const hint =
     didYouMean(n.name, ctx.nodes) ??
-    (/^gnd$/i.test(n.name) || n.name === "ground" ? "ground is written gnd (or 0)" : undefined);
+    (/^gnd$/i.test(n.name) || n.name === "ground" ? "ground is `gnd`" : undefined);
   return err(ctx, n.span, `no node named \`${n.name}\``, hint);
 }
 
@@ -103,7 +103,7 @@ function probe(ctx: DirectiveContext, p: ProbeNode): Probe | null {
         return err(
           ctx,
           p.part.span,
-          "i() reads parts with two terminals and sources, not an opamp",
+          "amps() reads parts with two terminals and sources, not an opamp",
           "read the current of a part in series with the output",
         );
       return { op: "i", part: found.name };

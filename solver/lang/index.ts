@@ -24,6 +24,7 @@ export type { ParseTree, Statement } from "./ast";
 export { E_SERIES, type SeriesName, seriesValues, snap } from "./eseries";
 export { BUILTIN_NAMES } from "./expr";
 export { KEYWORDS, KIND_NAMES, KINDS, MEASURE_FUNCTIONS, measureUnit } from "./kinds";
+export { applyFixes, rewriteLegacyNetlist } from "./rewrite";
 export { type LogicalLine, lex, type Token } from "./tokens";
 
 export interface CompileOverrides {

@@ -10,7 +10,7 @@ import { type KindTable, parseBlockHeader, parseLet, parsePart, parsePreset } fr
 import { didYouMean } from "./hints";
 import { isPartKind, KEYWORDS, KINDS } from "./kinds";
 import { parseAnalysis } from "./statements";
-import { type LogicalLine, lex } from "./tokens";
+import { type LogicalLine, lex, type Token, titleText } from "./tokens";
 
 /** Lex and parse `text`. Never throws. */
 export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistError[] } {
@@ -18,6 +18,8 @@ export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistEr
   const kinds = prescan(lines);
   const statements: Statement[] = [];
   let open: BlockStatement | null = null;
+  const topNames = new Map<string, number>();
+  let blockNames = new Map<string, number>();
   for (const logical of lines) {
     const c = new Cursor(logical, errors);
     const head = c.peek()!;
@@ -39,9 +41,11 @@ export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistEr
         continue;
       }
       open = parseBlockHeader(c);
+      blockNames = new Map();
       continue;
     }
     const isPart = c.isOp(":", 1);
+    if (isPart && head.kind === "word") duplicateName(head, open ? blockNames : topNames, errors);
     if (open !== null) {
       if (isPart) {
         const part = parsePart(c, kinds);
@@ -72,6 +76,23 @@ export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistEr
   return { tree: { statements }, errors };
 }
 
+/**
+ * A part name used twice in one scope (the top level or one block's body). Checked on every
+ * `NAME:` line, also one that fails to parse further, so it is reported with the other errors.
+ */
+function duplicateName(head: Token, seen: Map<string, number>, errors: NetlistError[]): void {
+  const earlier = seen.get(head.text);
+  if (earlier === undefined) {
+    seen.set(head.text, head.line);
+    return;
+  }
+  errors.push({
+    ...spanOf(head),
+    message: `a part named \`${head.text}\` already exists (line ${earlier})`,
+    hint: "give each part its own name",
+  });
+}
+
 function prescan(lines: LogicalLine[]): KindTable {
   const presets = new Map<string, PartKind | null>();
   const blocks = new Map<string, number>();
@@ -98,11 +119,9 @@ function parseTopLevel(c: Cursor, kinds: KindTable): Statement | null {
       case "preset":
         return parsePreset(c);
       case "title": {
-        c.next();
-        const first = c.peek();
-        if (first === undefined)
-          return c.fail(undefined, "the title is missing", "title Bench sweep source, 1 kHz");
-        return { type: "title", text: c.rawFrom(first), span: c.span };
+        const text = c.logical.verbatim ? titleText(c.logical) : "";
+        if (text === "") return c.fail(undefined, "the title is missing", "title Bench sweep source, 1 kHz");
+        return { type: "title", text, span: c.span };
       }
     }
     if (KEYWORDS.includes(head.text)) return parseAnalysis(c);

@@ -55,15 +55,8 @@ export function flatten(statements: PartStatement[], ctx: FlattenContext): Part[
   const visit = (list: PartStatement[], inst: Instance) => {
     for (const st of list) {
       const fullName = inst.prefix + st.name.name;
-      const earlier = seen.get(fullName);
-      if (earlier !== undefined) {
-        ctx.errors.push({
-          ...st.name.span,
-          message: `a part named \`${fullName}\` already exists (line ${earlier.line})`,
-          hint: "give each part its own name",
-        });
-        continue;
-      }
+      // A repeated name was reported by the parser (parser.ts, duplicateName); keep the first.
+      if (seen.has(fullName)) continue;
       seen.set(fullName, st.name.span);
       const block = ctx.blocks.get(st.kind.name);
       if (block !== undefined) {
@@ -98,7 +91,7 @@ export function flatten(statements: PartStatement[], ctx: FlattenContext): Part[
 }
 
 function resolveNode(name: string, inst: Instance): string {
-  if (name === "gnd" || name === "0") return "gnd";
+  if (name === "gnd") return "gnd";
   return inst.nodeMap.get(name) ?? inst.prefix + name;
 }
 

@@ -1,11 +1,15 @@
 /**
- * Probe expressions: `+ - * /`, parentheses, numbers, `v(NODE)`, `v(NODE1, NODE2)` and `i(PART)`.
- * Recursive descent, usual precedence, left-associative.
+ * Probe expressions: `+ - * /`, parentheses, numbers, `volts(NODE)`, `volts(NODE1, NODE2)` and
+ * `amps(PART)`. Recursive descent, usual precedence, left-associative. The earlier words `v(…)` and
+ * `i(…)` are read the same way but recorded as errors with their rewrite (legacy.ts).
  */
 import type { Named, ProbeNode } from "./ast";
 import { type Cursor, spanBetween, spanOf } from "./cursor";
+import { legacyProbe, PROBE_RENAMES } from "./legacy";
 
-const PROBE_HINT = "a probe reads v(NODE), v(NODE1, NODE2) or i(PART), combined with + - * / and numbers";
+const PROBE_HINT =
+  "a probe reads volts(NODE), volts(NODE1, NODE2) or amps(PART), combined with + - * / and numbers";
+const PROBE_WORDS = new Set(["volts", "amps", ...Object.keys(PROBE_RENAMES)]);
 
 /** Parse a whole probe; null (with an error recorded) when it is malformed. */
 export function parseProbe(c: Cursor): ProbeNode | null {
@@ -60,28 +64,35 @@ function primary(c: Cursor): ProbeNode | null {
     if (c.expectOp(")", "expected `)` to close the parenthesis") === null) return null;
     return inner;
   }
-  if (t.kind === "word" && (t.text === "v" || t.text === "i") && c.isOp("(", 1)) {
-    c.next();
-    c.next();
-    if (t.text === "i") {
-      const part = c.expectName("a part name", true, "i(PART) reads the current through a part");
-      if (part === null) return null;
-      const close = c.expectOp(")", "expected `)` after the part name", "i(PART) takes one part");
-      return close === null ? null : { op: "i", part, span: spanBetween(spanOf(t), spanOf(close)) };
-    }
-    const node = c.expectNode("a node name");
-    if (node === null) return null;
-    let ref: Named | undefined;
-    if (c.isOp(",")) {
-      c.next();
-      const second = c.expectNode("a second node name");
-      if (second === null) return null;
-      ref = second;
-    }
-    const close = c.expectOp(")", "expected `)` after the node name", "v(NODE) or v(NODE1, NODE2)");
-    if (close === null) return null;
-    const span = spanBetween(spanOf(t), spanOf(close));
-    return ref === undefined ? { op: "v", node, span } : { op: "v", node, ref, span };
-  }
+  if (t.kind === "word" && PROBE_WORDS.has(t.text) && c.isOp("(", 1)) return reading(c);
   return c.fail(t, `\`${t.text}\` can't be read in a probe`, PROBE_HINT);
+}
+
+/** `volts(…)` or `amps(…)` at the cursor (or an earlier word for them, recorded with its fix). */
+function reading(c: Cursor): ProbeNode | null {
+  const t = c.next()!;
+  c.next();
+  const word = PROBE_RENAMES[t.text] ?? t.text;
+  if (word === "amps") {
+    const part = c.expectName("a part name", true, "amps(PART) reads the current through a part");
+    if (part === null) return null;
+    const close = c.expectOp(")", "expected `)` after the part name", "amps(PART) takes one part");
+    if (close === null) return null;
+    if (word !== t.text) c.errors.push(legacyProbe(t, [part.name]));
+    return { op: "i", part, span: spanBetween(spanOf(t), spanOf(close)) };
+  }
+  const node = c.expectNode("a node name");
+  if (node === null) return null;
+  let ref: Named | undefined;
+  if (c.isOp(",")) {
+    c.next();
+    const second = c.expectNode("a second node name");
+    if (second === null) return null;
+    ref = second;
+  }
+  const close = c.expectOp(")", "expected `)` after the node name", "volts(NODE) or volts(NODE1, NODE2)");
+  if (close === null) return null;
+  if (word !== t.text) c.errors.push(legacyProbe(t, ref === undefined ? [node.name] : [node.name, ref.name]));
+  const span = spanBetween(spanOf(t), spanOf(close));
+  return ref === undefined ? { op: "v", node, span } : { op: "v", node, ref, span };
 }

@@ -94,7 +94,8 @@ function parseShow(c: Cursor): Statement | null {
     c.next();
   }
   const first = c.peek();
-  if (first === undefined) return c.fail(undefined, "the probe is missing", "show gain = v(out) / v(in)");
+  if (first === undefined)
+    return c.fail(undefined, "the probe is missing", "show gain = volts(out) / volts(in)");
   const text = c.rawFrom(first);
   const probe = parseProbe(c);
   if (probe === null) return null;

@@ -21,6 +21,8 @@ export interface LogicalLine {
   tokens: Token[];
   /** The raw text pieces (comment removed), for statements that keep text as written. */
   segments: { line: number; column: number; text: string }[];
+  /** A `title` line: only the keyword is a token; the text is in `segments` as written. */
+  verbatim?: boolean;
 }
 
 /** Hyphenated keywords are single words; the lexer joins `head-tail` when head is one of these. */
@@ -37,6 +39,11 @@ const isWordChar = (c: string | undefined) =>
 const SUFFIX_EXTRA = new Set(["\u00B5", "\u03BC", "\u03A9", "\u2126", "\u00B0", "%"]);
 const isSuffixChar = (c: string | undefined) => c !== undefined && (isWordChar(c) || SUFFIX_EXTRA.has(c));
 
+/** A `title` line: its text is read as written, not as tokens (NETLIST.md, "Statements"). */
+const TITLE_LINE = /^[ \t]*title(?=[ \t#\\]|$)/;
+/** `#` starts a comment unless written `\#` (only a title has a use for a literal `#`). */
+const TITLE_COMMENT = /(?<!\\)#/;
+
 /** Split `text` into logical lines and tokens. Never throws; bad characters become errors. */
 export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[] } {
   const errors: NetlistError[] = [];
@@ -45,13 +52,17 @@ export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[
   let current: LogicalLine | null = null;
   physical.forEach((raw, index) => {
     const lineNo = index + 1;
-    const hash = raw.indexOf("#");
+    const starting = current === null;
+    if (current === null) current = { line: lineNo, tokens: [], segments: [] };
+    if (starting && TITLE_LINE.test(raw)) current.verbatim = true;
+    const hash = current.verbatim ? raw.search(TITLE_COMMENT) : raw.indexOf("#");
     let body = (hash >= 0 ? raw.slice(0, hash) : raw).replace(/[ \t]+$/, "");
     const continues = body.endsWith("\\");
     if (continues) body = body.slice(0, -1);
-    if (current === null) current = { line: lineNo, tokens: [], segments: [] };
     current.segments.push({ line: lineNo, column: 1, text: body });
-    lexSegment(body, lineNo, current.tokens, errors);
+    if (!current.verbatim) lexSegment(body, lineNo, current.tokens, errors);
+    else if (starting)
+      lexSegment(body.slice(0, (TITLE_LINE.exec(body)?.[0] ?? "").length), lineNo, current.tokens, errors);
     if (!continues) {
       if (current.tokens.length > 0) lines.push(current);
       current = null;
@@ -60,6 +71,16 @@ export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[
   const last = current as LogicalLine | null;
   if (last !== null && last.tokens.length > 0) lines.push(last);
   return { lines, errors };
+}
+
+/** A title line's text after the keyword: continued lines joined by a space, `\#` read as `#`. */
+export function titleText(logical: LogicalLine): string {
+  const keyword = logical.tokens[0]!;
+  return logical.segments
+    .map((seg, i) => (i === 0 ? seg.text.slice(keyword.endColumn - 1) : seg.text).trim())
+    .filter((piece) => piece !== "")
+    .join(" ")
+    .replace(/\\#/g, "#");
 }
 
 function lexSegment(body: string, line: number, out: Token[], errors: NetlistError[]): void {

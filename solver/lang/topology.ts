@@ -143,8 +143,8 @@ function groundPaths(parts: Part[], errors: NetlistError[]): void {
       ...parts[0]!.span,
       message: "nothing connects to gnd, so no voltage has a reference",
       hint: looksLikeGround
-        ? `ground is written gnd (or 0), not ${looksLikeGround}`
-        : "connect the circuit's reference node to gnd (or 0)",
+        ? `ground is \`gnd\`, not ${looksLikeGround}`
+        : "connect the circuit's reference node to gnd",
     });
     return;
   }

@@ -13,7 +13,7 @@ Cs:  capacitor mid out 10n
 Rp:  resistor  out gnd 10k
 Cp:  capacitor out gnd 10n
 sweep 100Hz to 100kHz log 50 per decade
-show bridge = v(out) / v(in)
+show bridge = volts(out) / volts(in)
 measure f0  = zero-phase(bridge)
 measure att = db(bridge) at f0
 `;

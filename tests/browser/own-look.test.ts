@@ -17,7 +17,7 @@ const lowpass = (r: string, extra: string[] = []) =>
     ...extra,
     "Rload: resistor out gnd 1G",
     "sweep 10Hz to 1MHz log 200 per decade",
-    "show H = v(out) / v(in)",
+    "show H = volts(out) / volts(in)",
     "measure fc = crossing(H, half-power)",
     "check fc between 1kHz and 2kHz",
   ].join("\n");

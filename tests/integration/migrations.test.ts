@@ -67,6 +67,7 @@ describe("migrations", () => {
       "202612021047-create-outbox-emails",
       "202612021130-create-run-jobs",
       "202612021400-run-result-json-lz4",
+      "202612022010-netlist-probe-names",
       "202612022020-review-words",
     ]);
   });
@@ -137,7 +138,7 @@ describe("migrations", () => {
     return reverted.map((m) => m.name);
   }
 
-  it("take the result back to jsonb going down past the lz4 step, and to json, lz4 going up", async () => {
+  it("take the result back to jsonb going down past the lz4 step (later steps revert first), and to json, lz4 going up", async () => {
     const resultColumn = async () => {
       const [rows] = await sequelize.query(
         `SELECT format_type(a.atttypid, a.atttypmod) AS type, a.attcompression AS compression

@@ -25,7 +25,7 @@ Vin: vsource in gnd 1
 R1: resistor in out 1k
 C1: capacitor out gnd 100n
 sweep 100Hz to 10kHz log 10 per decade
-show H = v(out) / v(in)
+show H = volts(out) / volts(in)
 `;
 
 let fx: Fixtures;

@@ -22,7 +22,7 @@ Vin: vsource   in  gnd 1
 R1:  resistor  in  out 10k
 C1:  capacitor out gnd 10n
 sweep 100Hz to 100kHz log 20 per decade
-show H = v(out) / v(in)
+show H = volts(out) / volts(in)
 measure fc  = crossing(H, half-power)
 measure att = db(H) at 15.915494309190kHz
 measure ph  = phase(H) at 15.915494309190kHz

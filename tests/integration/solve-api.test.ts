@@ -54,7 +54,7 @@ const RC = [
   "R1: resistor in out 10k",
   "C1: capacitor out gnd 10n",
   "sweep 100Hz to 100kHz log 50 per decade",
-  "show h = v(out) / v(in)",
+  "show h = volts(out) / volts(in)",
   "measure fc = crossing(h, half-power)",
   "measure lp10 = db(h) at 15915.494309190Hz",
   "check fc between 1.5kHz and 1.7kHz",

@@ -18,7 +18,7 @@ Rf: resistor  neg     amp_out 24k
 Rg: resistor  neg     gnd   11k              # K = 1 + Rf/Rg = 3.18
 
 sweep 10Hz to 100kHz log 200 per decade
-show  bridge = v(pos) / v(amp_out)
+show  bridge = volts(pos) / volts(amp_out)
 loop  T cut amp_out before Rs
 measure f0   = zero-phase(bridge)
 measure gain = mag(T) at f0
@@ -44,6 +44,7 @@ describe("solver entry", () => {
         "compile",
         "expandResult",
         "parse",
+        "rewriteLegacyNetlist",
         "snap",
         "solveNetlist",
       ].sort(),
@@ -52,7 +53,7 @@ describe("solver entry", () => {
 
   it("points a sweep over the service's limit at the sweep statement", () => {
     const text =
-      "R1: resistor a gnd 1k\nV1: vsource a gnd\nshow v(a)\nsweep 10Hz to 1MHz log 1000 per decade\n";
+      "R1: resistor a gnd 1k\nV1: vsource a gnd\nshow volts(a)\nsweep 10Hz to 1MHz log 1000 per decade\n";
     const r = solveNetlist(text, { maxPoints: 1000 });
     expect(r.ok).toBe(false);
     if (r.ok) return;
@@ -113,7 +114,9 @@ describe("solver entry", () => {
   });
 
   it("names the floating node of a netlist", () => {
-    const r = solveNetlist("V1: vsource in gnd 1\nR1: resistor in gnd 1k\nC1: capacitor x y 1n\nshow v(x)\n");
+    const r = solveNetlist(
+      "V1: vsource in gnd 1\nR1: resistor in gnd 1k\nC1: capacitor x y 1n\nshow volts(x)\n",
+    );
     expect(r.ok).toBe(false);
     if (r.ok) return;
     expect(r.errors[0]?.message).toContain("no path to gnd");

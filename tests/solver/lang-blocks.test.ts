@@ -33,7 +33,7 @@ describe("blocks", () => {
 
   it("nests blocks, names nodes through every level, and accepts a terminal's dotted name as its node", () => {
     const c = circuitOf(
-      `let Rb = 10k\n${STAGE}block pair(x, y)\n  S1: stage x m gain=3\n  S2: stage m y\nend\nVin: vsource a gnd 1\nP: pair a b\nRl: resistor b gnd 1k\nshow mid = v(P.m)\nshow same = v(P.S1.out)\nshow deep = v(P.S2.mid)\nloop T cut P.m before P.S2.Ra\n`,
+      `let Rb = 10k\n${STAGE}block pair(x, y)\n  S1: stage x m gain=3\n  S2: stage m y\nend\nVin: vsource a gnd 1\nP: pair a b\nRl: resistor b gnd 1k\nshow mid = volts(P.m)\nshow same = volts(P.S1.out)\nshow deep = volts(P.S2.mid)\nloop T cut P.m before P.S2.Ra\n`,
     );
     expect(c.parts.map((p) => p.name)).toContain("P.S2.Rin");
     expect(c.shows.map((s) => s.probe)).toEqual([

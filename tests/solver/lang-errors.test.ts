@@ -149,12 +149,12 @@ describe("part errors", () => {
       column: 5,
       message: "let `a` is already defined on line 1",
     });
-    expect(only(`${DIVIDER}show H = v(out)\nloop H cut out before C1\n`)).toMatchObject({
+    expect(only(`${DIVIDER}show H = volts(out)\nloop H cut out before C1\n`)).toMatchObject({
       line: 5,
       column: 6,
       message: "a trace named `H` already exists (line 4)",
     });
-    expect(only(`${DIVIDER}show H = v(out)\nmeasure p = peak(H)\nmeasure p = dip(H)\n`)).toMatchObject({
+    expect(only(`${DIVIDER}show H = volts(out)\nmeasure p = peak(H)\nmeasure p = dip(H)\n`)).toMatchObject({
       line: 6,
       column: 9,
     });
@@ -264,21 +264,21 @@ describe("analysis statement errors", () => {
   });
 
   it("show: unknown node or part, opamp current, bad probe", () => {
-    expect(only(`${DIVIDER}show H = v(ot) / v(in)\n`)).toEqual({
+    expect(only(`${DIVIDER}show H = volts(ot) / volts(in)\n`)).toEqual({
       line: 4,
-      column: 12,
-      endColumn: 14,
+      column: 16,
+      endColumn: 18,
       message: "no node named `ot`",
       hint: "did you mean `out`?",
     });
-    expect(only(`${DIVIDER}show Z = v(in) / i(R2)\n`)).toMatchObject({
-      column: 20,
+    expect(only(`${DIVIDER}show Z = volts(in) / amps(R2)\n`)).toMatchObject({
+      column: 27,
       message: "no part named `R2`",
       hint: "did you mean `R1`?",
     });
-    expect(only(`${DIVIDER}U1: opamp out gnd o\nRo: resistor o gnd 1k\nshow I = i(U1)\n`)).toMatchObject({
+    expect(only(`${DIVIDER}U1: opamp out gnd o\nRo: resistor o gnd 1k\nshow I = amps(U1)\n`)).toMatchObject({
       line: 6,
-      column: 12,
+      column: 15,
       message: expect.stringContaining("not an opamp"),
     });
     expect(only(`${DIVIDER}show H = w(out)\n`)).toMatchObject({
@@ -303,7 +303,7 @@ describe("analysis statement errors", () => {
   });
 
   it("measure: unknown function, trace, missing level or frequency, misplaced at, order", () => {
-    const s = `${DIVIDER}show H = v(out)\n`;
+    const s = `${DIVIDER}show H = volts(out)\n`;
     expect(only(`${s}measure f = zero-phaze(H)\n`)).toEqual({
       line: 5,
       column: 13,
@@ -340,7 +340,7 @@ describe("analysis statement errors", () => {
   });
 
   it("check: unknown measure, unit mismatch, reversed limits, bad operator", () => {
-    const s = `${DIVIDER}show H = v(out)\nmeasure fc = crossing(H, -3dB)\n`;
+    const s = `${DIVIDER}show H = volts(out)\nmeasure fc = crossing(H, -3dB)\n`;
     expect(only(`${s}check fcc > 1k\n`)).toMatchObject({ line: 6, column: 7, hint: "did you mean `fc`?" });
     expect(only(`${s}check fc > 3dB\n`)).toMatchObject({
       column: 12,
@@ -384,15 +384,27 @@ describe("analysis statement errors", () => {
 describe("all errors at once", () => {
   it("reports every bad line, sorted by place, and keeps going after each", () => {
     const errors = errorsOf(
-      "R1: resistr a b 1k\nR2: resistor a b 1meg\nlet x = y\nsweep 1k to 10 log 5 per decade\nshow H = v(q)\nfoo\n",
+      "R1: resistr a b 1k\nR2: resistor a b 1meg\nlet x = y\nsweep 1k to 10 log 5 per decade\nshow H = volts(q)\nfoo\n",
     );
     expect(errors.map((e) => [e.line, e.column])).toEqual([
       [1, 5],
       [2, 18],
       [3, 9],
       [4, 13],
-      [5, 12],
+      [5, 16],
       [6, 1],
+    ]);
+  });
+
+  it("a repeated part name is reported with the other errors, also when its first line fails", () => {
+    const errors = errorsOf(
+      "R1: resistor a b 1meg\nR1: capacitor a gnd 1n\nV: vsource a gnd 1\nblock s(x)\n  R: resistor x gnd 1k\n  R: resistor x gnd 2k\nend\nX: s a\nshow volts(q)\n",
+    );
+    expect(errors.map((e) => [e.line, e.column, e.message])).toEqual([
+      [1, 18, '`1meg`: "meg" is not a prefix here'],
+      [2, 1, "a part named `R1` already exists (line 1)"],
+      [6, 3, "a part named `R` already exists (line 5)"],
+      [9, 12, "no node named `q`"],
     ]);
   });
 

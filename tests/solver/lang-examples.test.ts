@@ -109,7 +109,7 @@ Rf: resistor  neg     amp_out 24k
 Rg: resistor  neg     gnd   11k              # K = 1 + Rf/Rg = 3.18
 
 sweep 10Hz to 100kHz log 200 per decade
-show  bridge = v(pos) / v(amp_out)
+show  bridge = volts(pos) / volts(amp_out)
 loop  T cut amp_out before Rs
 measure f0   = zero-phase(bridge)
 measure gain = mag(T) at f0

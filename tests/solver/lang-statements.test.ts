@@ -1,13 +1,27 @@
 import { describe, expect, it } from "vitest";
 import { compile, parse } from "@/solver/lang";
-import { circuitOf, DIVIDER } from "./lang-helpers";
+import { circuitOf, DIVIDER, errorsOf } from "./lang-helpers";
 
 describe("title and let", () => {
+  it("reads the rest of a title line verbatim: %, apostrophes, quotes, numbers; \\# is a literal #", () => {
+    const title = (text: string) => circuitOf(`${text}\n${DIVIDER}`).title;
+    expect(title(`title Op-amp's 1% "bench" 2*3 = 6; v(x) 0 — ok`)).toBe(
+      `Op-amp's 1% "bench" 2*3 = 6; v(x) 0 — ok`,
+    );
+    expect(title("title Rev \\#3 bench # a comment")).toBe("Rev #3 bench");
+    expect(title("title Long \\\n   continued")).toBe("Long continued");
+    expect(title("\ttitle\tTabbed")).toBe("Tabbed");
+    expect(errorsOf("title   # only a comment\n")[0]).toMatchObject({
+      line: 1,
+      message: "the title is missing",
+    });
+  });
+
   it("keeps the title as written and evaluates lets with prefixes, functions and earlier or later lets", () => {
     const c = circuitOf(
       `title  Bench sweep source,   1 kHz   # note\nlet f = 1/(2*pi*R*C)\nlet R = 16k\nlet C = 10n\nlet K = 1 + Rf/Rg\nlet Rf = 24k\nlet Rg = 11k\nlet w = sqrt(4) * log10(1k) + exp(0) - 2^3\nlet s = snap(E24, 9.6k)\n${DIVIDER}R2: resistor out gnd (s*K)\nR3: resistor out gnd (f)\nR4: resistor out gnd (w + 10)\n`,
     );
-    expect(c.title).toBe("Bench sweep source, 1 kHz");
+    expect(c.title).toBe("Bench sweep source,   1 kHz");
     const [, , , r2, r3, r4] = c.parts;
     // 1/(2π·16k·10n) = 994.7183 Hz (NETLIST.md example comment: 994.7 Hz).
     expect(r3!.value).toBeCloseTo(994.71836, 4);
@@ -26,7 +40,7 @@ describe("parts", () => {
   it("reads every kind with its terminals, values and options", () => {
     const c = circuitOf(
       [
-        "Vin: vsource in 0 2 phase=30",
+        "Vin: vsource in gnd 2 phase=30",
         "Iin: isource gnd in 1m",
         "R1: resistor in a 1k tol=1%",
         "C1: capacitor a gnd 1n",
@@ -104,9 +118,9 @@ describe("sweeps", () => {
 
 describe("show, loop, measure, check", () => {
   const text = `${DIVIDER}U1: opamp out fb o2\nRf: resistor o2 fb 10k\nRg: resistor fb gnd 10k
-show H = v(out) / v(in)
-show v(in, out) * 2 - -1
-show Z = v(in) / i(Vin)
+show H = volts(out) / volts(in)
+show volts(in, out) * 2 - -1
+show Z = volts(in) / amps(Vin)
 loop T cut o2 before Rf
 measure f0 = zero-phase(H)
 measure fc = crossing(H, -3dB)
@@ -133,7 +147,7 @@ check d1 <= -3
 
   it("reads traces and probes into trees", () => {
     const c = circuitOf(text);
-    expect(c.shows.map((s) => s.name)).toEqual(["H", "v(in, out) * 2 - -1", "Z"]);
+    expect(c.shows.map((s) => s.name)).toEqual(["H", "volts(in, out) * 2 - -1", "Z"]);
     expect(c.shows[0]!.probe).toEqual({
       op: "/",
       left: { op: "v", node: "out" },
@@ -228,7 +242,7 @@ describe("analyses beyond one sweep", () => {
 
   it("monte-carlo with and without options, poles, sensitivity", () => {
     const a = circuitOf(
-      `${DIVIDER.replace("10k", "10k tol=1%")}monte-carlo 500 seed=7 dist=normal\npoles\nshow H = v(out)\nmeasure fc = crossing(H, -3dB)\nsensitivity fc\n`,
+      `${DIVIDER.replace("10k", "10k tol=1%")}monte-carlo 500 seed=7 dist=normal\npoles\nshow H = volts(out)\nmeasure fc = crossing(H, -3dB)\nsensitivity fc\n`,
     );
     expect(a.monteCarlo).toEqual({
       samples: 500,

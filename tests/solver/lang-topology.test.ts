@@ -87,11 +87,11 @@ describe("structure errors", () => {
         column: 1,
         endColumn: 18,
         message: "nothing connects to gnd, so no voltage has a reference",
-        hint: "connect the circuit's reference node to gnd (or 0)",
+        hint: "connect the circuit's reference node to gnd",
       },
     ]);
     expect(errorsOf("V1: vsource a GND 1\nR1: resistor a GND 1k\n")[0]!.hint).toBe(
-      "ground is written gnd (or 0), not GND",
+      "ground is `gnd`, not GND",
     );
   });
 
@@ -116,7 +116,7 @@ describe("structure errors", () => {
   });
 
   it("0 is ground too", () => {
-    const c = circuitOf("V1: vsource a 0 1\nR1: resistor a 0 1k\nshow v(a, 0)\n");
+    const c = circuitOf("V1: vsource a gnd 1\nR1: resistor a gnd 1k\nshow volts(a, gnd)\n");
     expect(c.parts[0]!.nodes).toEqual(["a", "gnd"]);
     expect(c.nodes).toEqual(["a"]);
     expect(c.shows[0]!.probe).toEqual({ op: "v", node: "a", ref: "gnd" });

@@ -28,7 +28,7 @@ V1: vsource   in  gnd 1
 R1: resistor  in  out 10k tol=10%
 C1: capacitor out gnd 10n
 sweep 10Hz to 100kHz log 50 per decade
-show H = v(out) / v(in)
+show H = volts(out) / volts(in)
 measure fc = crossing(H, half-power)
 check fc between 1.5kHz and 1.7kHz
 monte-carlo ${samples} seed=${seed} dist=${dist}

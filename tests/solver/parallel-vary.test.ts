@@ -20,7 +20,7 @@ Cs: capacitor mid pos 10n tol=1%
 Rp: resistor  pos gnd R   tol=1%
 Cp: capacitor pos gnd 10n tol=1%
 sweep 100Hz to 10kHz log 50 per decade
-show beta = v(pos) / v(in)
+show beta = volts(pos) / volts(in)
 measure f0 = zero-phase(beta)
 measure b0 = mag(beta) at f0
 check f0 between 1.58kHz and 1.60kHz

@@ -64,7 +64,9 @@ describe("compile never throws", () => {
       "loop",
       "measure",
       "check",
+      "volts(",
       "v(",
+      "amps(",
       "i(",
       "to",
       "log",
@@ -150,7 +152,7 @@ const BASE = [
 ];
 const TAIL = [
   "sweep 10Hz to 100kHz log 20 per decade",
-  "show H = v(nd_c) / v(nd_in)",
+  "show H = volts(nd_c) / volts(nd_in)",
   "measure fc = crossing(H, -3dB)",
   "measure pk = peak(H)",
   "measure g1 = db(H) at 1kHz",

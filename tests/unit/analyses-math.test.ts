@@ -54,7 +54,7 @@ describe("oscillatorVerdict", () => {
 
   it("is null without a loop or complex poles", () => {
     const rc = solve(
-      "V1: vsource in gnd 1\nR1: resistor in out 10k\nC1: capacitor out gnd 10n\nshow H = v(out)\npoles\n",
+      "V1: vsource in gnd 1\nR1: resistor in out 10k\nC1: capacitor out gnd 10n\nshow H = volts(out)\npoles\n",
     );
     expect(oscillatorVerdict(rc)).toBeNull();
   });

@@ -73,14 +73,14 @@ describe("wrapDeg", () => {
 describe("diffNetlists", () => {
   it("numbers lines in each text and marks added and removed lines", () => {
     const a = "title A\nR1: resistor in out 10k\nC1: capacitor out gnd 10n\n";
-    const b = "title A\r\nR1: resistor in out 22k\r\nC1: capacitor out gnd 10n\r\nshow v(out)\r\n";
+    const b = "title A\r\nR1: resistor in out 22k\r\nC1: capacitor out gnd 10n\r\nshow volts(out)\r\n";
     const d = diffNetlists(a, b);
     expect(d).toEqual([
       { kind: "same", text: "title A", oldLine: 1, newLine: 1 },
       { kind: "removed", text: "R1: resistor in out 10k", oldLine: 2, newLine: null },
       { kind: "added", text: "R1: resistor in out 22k", oldLine: null, newLine: 2 },
       { kind: "same", text: "C1: capacitor out gnd 10n", oldLine: 3, newLine: 3 },
-      { kind: "added", text: "show v(out)", oldLine: null, newLine: 4 },
+      { kind: "added", text: "show volts(out)", oldLine: null, newLine: 4 },
     ]);
   });
 });
@@ -226,7 +226,7 @@ describe("compareRuns", () => {
     "C1: capacitor mid out 10n tol=5%",
     "R2: resistor out gnd 10k",
     "V1: vsource in gnd 1",
-    "show h = v(out) / v(in)",
+    "show h = volts(out) / volts(in)",
     "",
   ].join("\n");
   const B = [
@@ -236,7 +236,7 @@ describe("compareRuns", () => {
     "C1: capacitor mid out 10n tol=1%",
     "V1: vsource in gnd 1",
     "C2: capacitor out gnd 47n",
-    "show h = v(out) / v(in)",
+    "show h = volts(out) / volts(in)",
     "",
   ].join("\n");
 

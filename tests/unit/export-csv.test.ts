@@ -55,11 +55,11 @@ describe("resultToCsv", () => {
   });
 
   it("quotes trace names with commas or quotes (RFC 4180) and leaves plain ones bare", () => {
-    expect(csvField('v(a, b) "diff"_re')).toBe('"v(a, b) ""diff""_re"');
+    expect(csvField('volts(a, b) "diff"_re')).toBe('"volts(a, b) ""diff""_re"');
     expect(csvField("bridge_re")).toBe("bridge_re");
     expect(csvField("line\nbreak")).toBe('"line\nbreak"');
-    expect(csvHeader([{ name: "v(a, b)" }, { name: "T" }])).toBe(
-      'frequency_hz,"v(a, b)_re","v(a, b)_im","v(a, b)_db","v(a, b)_deg",T_re,T_im,T_db,T_deg',
+    expect(csvHeader([{ name: "volts(a, b)" }, { name: "T" }])).toBe(
+      'frequency_hz,"volts(a, b)_re","volts(a, b)_im","volts(a, b)_db","volts(a, b)_deg",T_re,T_im,T_db,T_deg',
     );
   });
 

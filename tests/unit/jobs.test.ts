@@ -9,7 +9,7 @@ V1: vsource   in  gnd 1
 R1: resistor  in  out 10k tol=1%
 C1: capacitor out gnd 10n
 ${sweep}
-show H = v(out) / v(in)
+show H = volts(out) / volts(in)
 measure fc = crossing(H, half-power)
 ${extra}
 `;

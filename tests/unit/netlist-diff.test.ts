@@ -12,8 +12,8 @@ describe("lineSubject", () => {
     expect(lineSubject("measure fc = crossing(H, half-power)")).toBe("measure fc");
     expect(lineSubject("check fc between 950Hz and 1.05kHz")).toBe("check fc");
     expect(lineSubject("let r = 10k")).toBe("let r");
-    expect(lineSubject("show H = v(out) / v(in)")).toBe("show H");
-    expect(lineSubject("show v(out)")).toBe("show v(out)");
+    expect(lineSubject("show H = volts(out) / volts(in)")).toBe("show H");
+    expect(lineSubject("show volts(out)")).toBe("show volts(out)");
     expect(lineSubject("block rc(in, out) r=10k")).toBe("block rc");
     expect(lineSubject("# R1: resistor a b 1k")).toBeNull();
     expect(lineSubject("")).toBeNull();

@@ -10,8 +10,8 @@ const NETLIST = [
   "U1: opamp     pos     neg   amp_out gbw=1M",
   "Zt: ccvs      sense_o gnd   Vx 1k",
   "preset fastamp = opamp gbw=10M",
-  "show  bridge = v(pos) / v(amp_out)",
-  "show v(mid)",
+  "show  bridge = volts(pos) / volts(amp_out)",
+  "show volts(mid)",
   "loop  T cut amp_out before Rs",
   "measure f0   = zero-phase(bridge)",
   "check f0 between 950Hz and 1.05kHz",
@@ -24,7 +24,7 @@ describe("collectNames", () => {
     // ccvs has two node terminals, then its sense part: Vx is not a node.
     expect(n.nodes).toEqual(["gnd", "amp_out", "mid", "pos", "neg", "sense_o"]);
     expect(n.lets).toEqual(["R"]);
-    expect(n.traces).toEqual(["bridge", "v(mid)", "T"]);
+    expect(n.traces).toEqual(["bridge", "volts(mid)", "T"]);
     expect(n.measures).toEqual(["f0"]);
     expect(n.presets).toEqual(["fastamp"]);
   });
@@ -36,8 +36,8 @@ describe("completionContext", () => {
     expect(completionContext("  mea")).toBe("statement");
     expect(completionContext("R1: ")).toBe("kind");
     expect(completionContext("R1: capa")).toBe("kind");
-    expect(completionContext("show x = v(")).toBe("node");
-    expect(completionContext("show x = i(R")).toBe("part");
+    expect(completionContext("show x = volts(")).toBe("node");
+    expect(completionContext("show x = amps(R")).toBe("part");
     expect(completionContext("loop T cut amp_out before ")).toBe("part");
     expect(completionContext("loop T cut ")).toBe("node");
     expect(completionContext("measure f0 = ")).toBe("function");

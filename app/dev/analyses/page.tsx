@@ -18,7 +18,7 @@ U1: opamp     pos  neg  out
 Rf: resistor  neg  out  20.5k tol=1%
 Rg: resistor  neg  gnd  10k   tol=1%
 sweep 100Hz to 20kHz log 100 per decade
-show  network = v(pos) / v(out)
+show  network = volts(pos) / volts(out)
 loop  T cut out before Rs
 measure f0     = zero-phase(T)
 measure margin = mag(T) at f0
