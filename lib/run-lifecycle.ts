@@ -173,9 +173,12 @@ export async function requestCancel(runId: string): Promise<"cancelled" | "reque
 /** A running job the queue stopped (shutdown, expiry): made stale at once for `recoverStale`. */
 export async function markAbandoned(runId: string): Promise<void> {
   // Raw SQL: Sequelize's update() always stamps updated_at with now().
-  await sequelize.query("UPDATE run_jobs SET updated_at = 'epoch' WHERE run_id = :runId AND state = 'running'", {
-    replacements: { runId },
-  });
+  await sequelize.query(
+    "UPDATE run_jobs SET updated_at = 'epoch' WHERE run_id = :runId AND state = 'running'",
+    {
+      replacements: { runId },
+    },
+  );
 }
 
 /**

@@ -56,7 +56,14 @@ async function states(runId: string): Promise<RunStatus> {
   return run!.status;
 }
 
-const result = { solverVersion: "t", result: { ok: true }, measures: [], checks: [], checksPassed: 0, checksTotal: 0 };
+const result = {
+  solverVersion: "t",
+  result: { ok: true },
+  measures: [],
+  checks: [],
+  checksPassed: 0,
+  checksTotal: 0,
+};
 
 describe("the transition table", () => {
   it("lets final states go nowhere and refuses a move it does not list", async () => {
@@ -145,14 +152,20 @@ describe("a worker that died", () => {
     await claim(id, "dead-worker");
     await beat(id, 0.19);
     // 30 s without a beat: still alive.
-    await sequelize.query("UPDATE run_jobs SET updated_at = now() - interval '30 seconds' WHERE run_id = :id", {
-      replacements: { id },
-    });
+    await sequelize.query(
+      "UPDATE run_jobs SET updated_at = now() - interval '30 seconds' WHERE run_id = :id",
+      {
+        replacements: { id },
+      },
+    );
     expect(await recoverStale()).toEqual([]);
     // 45 s: taken back, progress reset, attempts kept.
-    await sequelize.query("UPDATE run_jobs SET updated_at = now() - interval '45 seconds' WHERE run_id = :id", {
-      replacements: { id },
-    });
+    await sequelize.query(
+      "UPDATE run_jobs SET updated_at = now() - interval '45 seconds' WHERE run_id = :id",
+      {
+        replacements: { id },
+      },
+    );
     expect(await recoverStale()).toEqual([id]);
     expect(await states(id)).toBe("queued");
     expect(await getRunJob(id)).toMatchObject({ progress: 0, startedAt: null });
