@@ -4,6 +4,7 @@ import { Comment, sequelize, User } from "@/lib/db";
 import { BadRequestError, NotFoundError, withDb } from "@/lib/errors";
 import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
 import { commentMail } from "@/lib/mail/templates";
+import type { ThreadState } from "@/lib/review-states";
 import type { Actor } from "@/lib/session";
 import type { CommentCreateInput } from "@/lib/validations/comment";
 
@@ -17,8 +18,9 @@ export type CommentView = {
   authorId: string;
   authorName: string;
   createdAt: string;
-  resolvedAt: string | null;
-  resolvedByName: string | null;
+  state: ThreadState;
+  settledAt: string | null;
+  settledByName: string | null;
 };
 
 function toView(c: Comment): CommentView {
@@ -32,14 +34,15 @@ function toView(c: Comment): CommentView {
     authorId: c.authorId,
     authorName: c.author?.name ?? "",
     createdAt: c.createdAt.toISOString(),
-    resolvedAt: c.resolvedAt ? c.resolvedAt.toISOString() : null,
-    resolvedByName: c.resolvedBy?.name ?? null,
+    state: c.settledAt ? "settled" : "open",
+    settledAt: c.settledAt ? c.settledAt.toISOString() : null,
+    settledByName: c.settledBy?.name ?? null,
   };
 }
 
 const INCLUDE = [
   { model: User, as: "author", attributes: ["id", "name"] },
-  { model: User, as: "resolvedBy", attributes: ["id", "name"] },
+  { model: User, as: "settledBy", attributes: ["id", "name"] },
 ];
 
 /** A run's comments, oldest first (threads are built by the client from parentId). */
@@ -164,21 +167,21 @@ export async function createComment(
   return toView(full);
 }
 
-/** Resolves (or reopens) a comment of the run. */
-export async function setCommentResolved(
+/** Settles a comment thread of the run, or opens it again. */
+export async function setCommentState(
   actor: Actor,
   runId: string,
   commentId: string,
-  resolved: boolean,
+  state: ThreadState,
 ): Promise<CommentView> {
   await authorizeRun(actor.userId, runId, "run:comment");
   return withDb(async () => {
     const comment = isUuid(commentId) ? await Comment.findOne({ where: { id: commentId, runId } }) : null;
     if (!comment) throw new NotFoundError("Comment not found.");
     await comment.update(
-      resolved
-        ? { resolvedAt: new Date(), resolvedById: actor.userId }
-        : { resolvedAt: null, resolvedById: null },
+      state === "settled"
+        ? { settledAt: new Date(), settledById: actor.userId }
+        : { settledAt: null, settledById: null },
     );
     const full = await Comment.findByPk(comment.id, { include: INCLUDE });
     if (!full) throw new NotFoundError("Comment not found.");

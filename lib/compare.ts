@@ -1,4 +1,5 @@
 import { diffArrays } from "diff";
+import { type NetlistDiffStats, type NetlistRow, netlistDiffStats, netlistRows } from "@/lib/netlist-diff";
 import { sampleTrace, wrapDeg } from "@/lib/trace-math";
 import { compile } from "@/solver/lang";
 import type {
@@ -89,6 +90,9 @@ export interface TraceComparison {
 export interface RunComparison {
   diff: DiffLine[];
   diffStats: { added: number; removed: number; same: number };
+  /** The same diff by statement: a part, sweep, measure… edited in place is one "changed" row. */
+  rows: NetlistRow[];
+  rowStats: NetlistDiffStats;
   parts: PartChange[];
   /** Compile errors of either netlist (parts cannot be compared then). */
   partErrors: { a: NetlistError[]; b: NetlistError[] };
@@ -267,6 +271,7 @@ export function compareRuns(a: CompareSide, b: CompareSide): RunComparison {
   const diff = diffNetlists(a.netlist, b.netlist);
   const diffStats = { added: 0, removed: 0, same: 0 };
   for (const d of diff) diffStats[d.kind]++;
+  const rows = netlistRows(diff);
   const { parts, errors } = compareParts(a.netlist, b.netlist);
   const checks = compareChecks(checksOf(a.result), checksOf(b.result));
   const ra = a.result?.ok ? a.result : null;
@@ -274,6 +279,8 @@ export function compareRuns(a: CompareSide, b: CompareSide): RunComparison {
   return {
     diff,
     diffStats,
+    rows,
+    rowStats: netlistDiffStats(rows),
     parts,
     partErrors: errors,
     measures: compareMeasures(measuresOf(a.result), measuresOf(b.result)),

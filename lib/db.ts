@@ -72,7 +72,7 @@ function initModels(db: Sequelize): void {
   Run.hasMany(Comment, { foreignKey: "runId", as: "comments" });
   Comment.belongsTo(Run, { foreignKey: "runId", as: "run" });
   Comment.belongsTo(User, { foreignKey: "authorId", as: "author" });
-  Comment.belongsTo(User, { foreignKey: "resolvedById", as: "resolvedBy" });
+  Comment.belongsTo(User, { foreignKey: "settledById", as: "settledBy" });
   Comment.belongsTo(Comment, { foreignKey: "parentId", as: "parent" });
   Comment.hasMany(Comment, { foreignKey: "parentId", as: "replies" });
 

@@ -3,8 +3,8 @@ import { authorizeRun } from "@/lib/authz";
 import { Membership, ReviewEvent, RUN_HEAVY_COLUMNS, Run, sequelize, User } from "@/lib/db";
 import { AppError, BadRequestError, ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
 import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
-import { reviewRequestMail, verdictMail } from "@/lib/mail/templates";
-import type { ReviewStateName } from "@/lib/run-types";
+import { signOffRequestMail, verdictMail } from "@/lib/mail/templates";
+import { nextReviewState, REVIEW_STATE_LABELS, type ReviewState, VERDICT_ACTIONS } from "@/lib/review-states";
 import type { Actor } from "@/lib/session";
 import type { ReviewActionBody } from "@/lib/validations/review";
 
@@ -15,29 +15,22 @@ export class ReviewConflictError extends AppError {
   }
 }
 
-/** Which states each step starts from, and where it leads. */
-const TRANSITIONS = {
-  request: { from: ["draft", "changes_requested"], to: "in_review" },
-  approve: { from: ["in_review"], to: "approved" },
-  request_changes: { from: ["in_review"], to: "changes_requested" },
-} as const satisfies Record<string, { from: readonly ReviewStateName[]; to: ReviewStateName }>;
-
 export type ReviewOutcome = {
   runId: string;
-  reviewState: ReviewStateName;
+  reviewState: ReviewState;
   event: { id: string; action: string; note: string | null; createdAt: string };
   emails: number;
 };
 
 /**
  * One step of the review flow, in one transaction with its e-mails:
- * request (designer/owner; draft or changes requested → in review; mails the team's reviewers),
- * approve / request_changes (reviewer/owner, not the run's author; in review → verdict; mails the author),
+ * submit (designer/owner; draft or sent back → awaiting sign-off; mails the team's reviewers),
+ * sign_off / send_back (reviewer/owner, not the run's author; awaiting sign-off → verdict; mails the author),
  * supersede (designer/owner; links a later run of the same project as this run's replacement).
  */
 export async function reviewRun(actor: Actor, runId: string, body: ReviewActionBody): Promise<ReviewOutcome> {
-  const permission =
-    body.action === "approve" || body.action === "request_changes" ? "run:review" : "run:request_review";
+  const isVerdict = (VERDICT_ACTIONS as readonly string[]).includes(body.action);
+  const permission = isVerdict ? "run:review" : "run:request_review";
   const { project } = await authorizeRun(actor.userId, runId, permission);
   const teamId = String(project.get("teamId"));
   const outcome = await withDb(() =>
@@ -71,20 +64,19 @@ export async function reviewRun(actor: Actor, runId: string, body: ReviewActionB
         }
         if (!later.supersedesId) await later.update({ supersedesId: run.id }, { transaction });
       } else {
-        const step = TRANSITIONS[body.action];
-        if (!(step.from as readonly string[]).includes(run.reviewState)) {
-          throw new ReviewConflictError(
-            `This run is ${run.reviewState.replace("_", " ")}; it cannot take "${body.action}".`,
-            {
-              reviewState: run.reviewState,
-            },
-          );
+        const from = run.reviewState as ReviewState;
+        const to = nextReviewState(from, body.action);
+        if (to === null) {
+          const label = REVIEW_STATE_LABELS[from].toLowerCase();
+          throw new ReviewConflictError(`This run is ${label}; it cannot take "${body.action}".`, {
+            reviewState: from,
+          });
         }
-        if (body.action !== "request" && run.authorId === actor.userId) {
-          throw new ForbiddenError("You cannot give the verdict on your own run.");
+        if (isVerdict && run.authorId === actor.userId) {
+          throw new ForbiddenError("You cannot sign off or send back your own run.");
         }
-        await run.update({ reviewState: step.to }, { transaction });
-        if (body.action === "request") {
+        await run.update({ reviewState: to }, { transaction });
+        if (body.action === "submit") {
           const reviewers = await Membership.findAll({
             where: { teamId, role: "reviewer", userId: { [Op.ne]: actor.userId } },
             include: [{ model: User, as: "user", attributes: ["email"] }],
@@ -93,7 +85,7 @@ export async function reviewRun(actor: Actor, runId: string, body: ReviewActionB
           for (const m of reviewers) {
             if (m.user) {
               mails.push(
-                reviewRequestMail({
+                signOffRequestMail({
                   to: m.user.email,
                   requester: actor.name || actor.email,
                   runTitle: run.title,
@@ -112,7 +104,7 @@ export async function reviewRun(actor: Actor, runId: string, body: ReviewActionB
                 reviewer: actor.name || actor.email,
                 runTitle: run.title,
                 runId,
-                approved: body.action === "approve",
+                verdict: body.action,
                 note,
               }),
             );
@@ -131,7 +123,7 @@ export async function reviewRun(actor: Actor, runId: string, body: ReviewActionB
       const emails = await enqueueEmails(mails, transaction);
       return {
         runId,
-        reviewState: run.reviewState as ReviewStateName,
+        reviewState: run.reviewState as ReviewState,
         event: {
           id: event.id,
           action: event.action,

@@ -3,7 +3,9 @@ import type { CheckResult, MeasureResult, SolveSuccess } from "@/solver/types";
 
 // Plain shapes of runs for pages, client components and the JSON API (no Sequelize instances).
 
-export type ReviewStateName = "draft" | "in_review" | "approved" | "changes_requested";
+import type { ReviewState } from "@/lib/review-states";
+
+export type ReviewStateName = ReviewState;
 
 /** A run as the runs table shows it (no result arrays). */
 export type RunSummary = {
@@ -39,7 +41,7 @@ export type RunDetail = RunSummary & {
   timings: Record<string, number> | null;
   project: { id: string; name: string; teamId: string; teamName: string };
   role: Role;
-  permissions: { comment: boolean; review: boolean; requestReview: boolean; createRun: boolean };
+  permissions: { comment: boolean; review: boolean; askSignOff: boolean; createRun: boolean };
   reviewEvents: ReviewEventView[];
   supersedes: { id: string; title: string } | null;
   supersededBy: { id: string; title: string }[];

@@ -270,7 +270,7 @@ export async function getRun(actor: Actor, runId: string, action: Action = "run:
       permissions: {
         comment: can(role, "run:comment"),
         review: can(role, "run:review"),
-        requestReview: can(role, "run:request_review"),
+        askSignOff: can(role, "run:request_review"),
         createRun: can(role, "run:create"),
       },
       reviewEvents: events.map((e) => ({

@@ -10,7 +10,10 @@ import {
 import type { Run } from "./run";
 import type { User } from "./user";
 
-/** A remark on a run, optionally pinned to a frequency on a trace, optionally a reply (parentId). */
+/**
+ * A remark on a run, optionally pinned to a frequency on a trace, optionally a reply (parentId).
+ * A thread is open until someone settles it (`settledAt`, `settledById`); it can be opened again.
+ */
 export class Comment extends Model<InferAttributes<Comment>, InferCreationAttributes<Comment>> {
   declare id: CreationOptional<string>;
   declare runId: string;
@@ -19,8 +22,8 @@ export class Comment extends Model<InferAttributes<Comment>, InferCreationAttrib
   declare body: string;
   declare frequencyHz: CreationOptional<number | null>;
   declare trace: CreationOptional<string | null>;
-  declare resolvedAt: CreationOptional<Date | null>;
-  declare resolvedById: CreationOptional<string | null>;
+  declare settledAt: CreationOptional<Date | null>;
+  declare settledById: CreationOptional<string | null>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -28,7 +31,7 @@ export class Comment extends Model<InferAttributes<Comment>, InferCreationAttrib
   declare author?: NonAttribute<User>;
   declare parent?: NonAttribute<Comment | null>;
   declare replies?: NonAttribute<Comment[]>;
-  declare resolvedBy?: NonAttribute<User | null>;
+  declare settledBy?: NonAttribute<User | null>;
 
   static initModel(sequelize: Sequelize): typeof Comment {
     Comment.init(
@@ -40,8 +43,8 @@ export class Comment extends Model<InferAttributes<Comment>, InferCreationAttrib
         body: { type: DataTypes.TEXT, allowNull: false },
         frequencyHz: { type: DataTypes.DOUBLE, allowNull: true },
         trace: { type: DataTypes.STRING(120), allowNull: true },
-        resolvedAt: { type: DataTypes.DATE, allowNull: true },
-        resolvedById: { type: DataTypes.UUID, allowNull: true },
+        settledAt: { type: DataTypes.DATE, allowNull: true },
+        settledById: { type: DataTypes.UUID, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -7,11 +7,11 @@ import {
   type NonAttribute,
   type Sequelize,
 } from "sequelize";
+import { REVIEW_ACTIONS, type ReviewAction } from "@/lib/review-states";
 import type { Run } from "./run";
 import type { User } from "./user";
 
-export const REVIEW_ACTIONS = ["request", "approve", "request_changes", "supersede"] as const;
-export type ReviewAction = (typeof REVIEW_ACTIONS)[number];
+export { REVIEW_ACTIONS, type ReviewAction };
 
 /** One step in a run's review history (append-only: no updatedAt). */
 export class ReviewEvent extends Model<InferAttributes<ReviewEvent>, InferCreationAttributes<ReviewEvent>> {

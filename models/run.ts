@@ -14,8 +14,10 @@ import type { User } from "./user";
 
 export const RUN_STATUSES = ["ok", "failed", "queued", "running", "cancelled"] as const;
 export type RunStatus = (typeof RUN_STATUSES)[number];
-export const REVIEW_STATES = ["draft", "in_review", "approved", "changes_requested"] as const;
-export type ReviewState = (typeof REVIEW_STATES)[number];
+
+import { REVIEW_STATES, type ReviewState } from "@/lib/review-states";
+
+export { REVIEW_STATES, type ReviewState };
 /**
  * The large columns of a run (a 10 000 × 8 result is megabytes). Queries that only check or change
  * a run's state leave them out: `{ attributes: { exclude: RUN_HEAVY_COLUMNS } }`.

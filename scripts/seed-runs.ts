@@ -82,7 +82,7 @@ async function seedOscillator(t: Transaction, project: Project, users: SeedUsers
     WIEN_REV_A,
     9,
     {
-      reviewState: "approved",
+      reviewState: "signed_off",
     },
   );
   const revB = await saveRun(
@@ -93,20 +93,20 @@ async function seedOscillator(t: Transaction, project: Project, users: SeedUsers
     WIEN_REV_B,
     4,
     {
-      reviewState: "in_review",
+      reviewState: "awaiting_signoff",
       supersedesId: revA.id,
     },
   );
   await saveRun(t, project.id, owner, "Service tone 1 kHz variant", WIEN_1K, 2);
 
   const events: [Run, User, ReviewEvent["action"], string | null, number][] = [
-    [revA, designer, "request", "First pass with an ideal amplifier.", 8.5],
-    [revA, reviewer, "approve", "Zero-phase point and loop gain as intended.", 7],
+    [revA, designer, "submit", "First pass with an ideal amplifier.", 8.5],
+    [revA, reviewer, "sign_off", "Zero-phase point and loop gain as intended.", 7],
     [revA, designer, "supersede", "Superseded by rev B (real amplifier).", 4],
     [
       revB,
       designer,
-      "request",
+      "submit",
       "Same bridge with the 1 MHz part we stock; the frequency moves down a little.",
       3.5,
     ],
@@ -194,17 +194,17 @@ async function seedFilter(t: Transaction, project: Project, users: SeedUsers): P
     LOWPASS_STAGE2,
     6,
     {
-      reviewState: "changes_requested",
+      reviewState: "sent_back",
     },
   );
   await saveRun(t, project.id, designer, "Pilot-tone notch, twin-T", PILOT_NOTCH, 1);
   // A failing check on purpose: 44.6° of phase margin against the 45° the team asks for.
   await saveRun(t, project.id, designer, "Output driver into the rack cable", LINE_DRIVER, 0.5);
   for (const [actor, action, note, days] of [
-    [designer, "request", null, 5.5],
+    [designer, "submit", null, 5.5],
     [
       reviewer,
-      "request_changes",
+      "send_back",
       "Q is 0.62; the spec sheet asks for a flatter pass band. Try swapping values.",
       5,
     ],

@@ -13,6 +13,7 @@ import { Caution } from "@/components/run/caution";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
 import { authorizeRun } from "@/lib/authz";
+import { describeDiffStats } from "@/lib/netlist-diff";
 import { visibleOr404 } from "@/lib/page-access";
 import { type CompareSideView, compareSavedRuns } from "@/lib/runs-compare";
 import { type Actor, requireUser } from "@/lib/session";
@@ -113,11 +114,11 @@ async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; 
         <Panel aria-labelledby="diff-h">
           <PanelHeader
             id="diff-h"
-            title="Netlist diff"
-            description={`${comparison.diffStats.added} added, ${comparison.diffStats.removed} removed lines`}
+            title="Netlist changes"
+            description={describeDiffStats(comparison.rowStats)}
           />
           <div className="overflow-x-auto p-2 sm:p-4">
-            <NetlistDiff diff={comparison.diff} labelA={labelA} labelB={labelB} />
+            <NetlistDiff rows={comparison.rows} labelA={labelA} labelB={labelB} />
           </div>
         </Panel>
         <Caution />

@@ -12,8 +12,5 @@ export const LazyPlot = dynamic(() => import("@/components/plot/plotly-chart"), 
   ),
 });
 
-export const PLOT_CONFIG = {
-  displaylogo: false,
-  responsive: true,
-  modeBarButtonsToRemove: ["lasso2d", "select2d", "toImage"],
-} as const;
+/** No library icon bar on any chart (PlotlyChart enforces it too). */
+export const PLOT_CONFIG = { displaylogo: false, displayModeBar: false, responsive: true } as const;

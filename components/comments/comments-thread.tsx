@@ -4,6 +4,7 @@ import { useState } from "react";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import type { CommentView } from "@/lib/comments";
+import { THREAD_STATE_LABELS, type ThreadState } from "@/lib/review-states";
 import { cn, formatDate } from "@/lib/utils";
 import { CommentForm, formatPin, type PinDraft } from "./comment-form";
 import { PinIcon } from "./pin-icon";
@@ -22,7 +23,7 @@ export type CommentsThreadProps = {
   onFocusPin: (hz: number) => void;
 };
 
-/** Comment threads (a first comment and its replies), with pins, replies and resolve. */
+/** Comment threads (a first comment and its replies), with pins, replies, settle and open again. */
 export function CommentsThread(props: CommentsThreadProps) {
   const { runId, comments, onChange, canComment, pin, onClearPin, onPin, traces, onFocusPin } = props;
   const roots = comments.filter((c) => !c.parentId);
@@ -80,14 +81,14 @@ function Thread(props: {
   const { root, replies, runId, canComment, onUpsert, onFocusPin } = props;
   const [replying, setReplying] = useState(false);
   const [error, setError] = useState<string | null>(null);
-  const resolved = Boolean(root.resolvedAt);
+  const settled = root.state === "settled";
 
-  async function setResolved(value: boolean) {
+  async function setState(state: ThreadState) {
     setError(null);
     const res = await fetch(`/api/runs/${runId}/comments/${root.id}`, {
       method: "PATCH",
       headers: { "Content-Type": "application/json" },
-      body: JSON.stringify({ resolved: value }),
+      body: JSON.stringify({ state }),
     }).catch(() => null);
     const data = res ? await res.json().catch(() => null) : null;
     if (!res?.ok) {
@@ -101,7 +102,7 @@ function Thread(props: {
     <article
       className={cn(
         "rounded-md border p-3",
-        resolved ? "border-paper-200 bg-paper-50" : "border-paper-300 bg-white",
+        settled ? "border-paper-200 bg-paper-50" : "border-paper-300 bg-white",
       )}
       aria-label={`Comment by ${root.authorName}`}
     >
@@ -116,14 +117,24 @@ function Thread(props: {
         </ul>
       ) : null}
       <div className="mt-3 flex flex-wrap items-center gap-2">
-        {resolved ? (
-          <span className="text-caption text-signal-ok">
-            Resolved by {root.resolvedByName} · {formatDate(root.resolvedAt)}
+        <span
+          className={cn(
+            "text-caption rounded-[2px] border-l-[3px] px-1.5 font-semibold tracking-wider uppercase",
+            settled
+              ? "border-board-600 bg-board-50 text-board-800"
+              : "border-copper-500 bg-copper-50 text-copper-700",
+          )}
+        >
+          {THREAD_STATE_LABELS[root.state]}
+        </span>
+        {settled ? (
+          <span className="text-caption text-ink-500">
+            by {root.settledByName} · {formatDate(root.settledAt)}
           </span>
         ) : null}
         {canComment ? (
           <>
-            {!resolved ? (
+            {!settled ? (
               <Button
                 size="sm"
                 variant="ghost"
@@ -133,8 +144,8 @@ function Thread(props: {
                 Reply
               </Button>
             ) : null}
-            <Button size="sm" variant="ghost" onClick={() => setResolved(!resolved)}>
-              {resolved ? "Reopen" : "Resolve"}
+            <Button size="sm" variant="ghost" onClick={() => setState(settled ? "open" : "settled")}>
+              {settled ? "Open again" : "Settle"}
             </Button>
           </>
         ) : null}

@@ -1,102 +1,162 @@
-import type { DiffLine } from "@/lib/compare";
+import { foldRows, type NetlistRow, type RowBlock } from "@/lib/netlist-diff";
 import { cn } from "@/lib/utils";
 
 export interface NetlistDiffProps {
-  diff: DiffLine[];
-  /** Unchanged lines kept around each change; longer unchanged stretches fold away. Default 3. */
+  rows: NetlistRow[];
+  /** Unchanged lines kept beside each change; longer unchanged stretches fold away. Default 2. */
   context?: number;
   labelA?: string;
   labelB?: string;
   className?: string;
 }
 
-type Block = { kind: "lines"; lines: DiffLine[] } | { kind: "fold"; lines: DiffLine[] };
+/** The word on each changed row, and its colours from our palette (never the colour alone). */
+const TAGS = {
+  changed: { word: "changed", rule: "border-copper-500", tag: "bg-copper-100 text-copper-700" },
+  added: { word: "added", rule: "border-board-500", tag: "bg-board-100 text-board-800" },
+  removed: { word: "removed", rule: "border-ink-400", tag: "bg-paper-200 text-ink-700" },
+} as const;
 
-/** Line-based netlist diff with the line numbers of both texts; long unchanged stretches fold. */
-export function NetlistDiff({
-  diff,
-  context = 3,
-  labelA = "before",
-  labelB = "after",
-  className,
-}: NetlistDiffProps) {
-  if (diff.every((d) => d.kind === "same")) {
-    return <p className={cn("text-ink-500 text-sm", className)}>The two netlists are identical.</p>;
-  }
-  const blocks = foldUnchanged(diff, context);
+const grid = "grid grid-cols-[2.25rem_2.25rem_5.5rem_minmax(0,1fr)] items-baseline";
+
+function LineNo({ n, side }: { n: number | null; side: "A" | "B" }) {
   return (
-    <div className={cn("border-paper-200 overflow-x-auto rounded-md border bg-white", className)}>
-      <table className="w-full border-collapse font-mono text-[0.8125rem] leading-5">
-        <caption className="sr-only">
-          Netlist changes from {labelA} to {labelB}
-        </caption>
-        <thead className="sr-only">
-          <tr>
-            <th scope="col">Line in {labelA}</th>
-            <th scope="col">Line in {labelB}</th>
-            <th scope="col">Change</th>
-            <th scope="col">Text</th>
-          </tr>
-        </thead>
-        <tbody>
-          {blocks.map((block, i) =>
-            block.kind === "fold" ? (
-              <tr key={`f${i}`} className="bg-paper-50 text-ink-400">
-                <td colSpan={4} className="text-caption px-3 py-0.5 font-sans">
-                  ⋯ {block.lines.length} unchanged {block.lines.length === 1 ? "line" : "lines"}
-                </td>
-              </tr>
-            ) : (
-              block.lines.map((d, k) => (
-                <tr
-                  key={`${i}-${k}`}
-                  className={cn(
-                    d.kind === "added" && "bg-signal-ok-soft",
-                    d.kind === "removed" && "bg-signal-fault-soft",
-                  )}
-                >
-                  <td className="text-ink-400 w-10 px-2 text-right align-top select-none">
-                    {d.oldLine ?? ""}
-                  </td>
-                  <td className="border-paper-200 text-ink-400 w-10 border-r px-2 text-right align-top select-none">
-                    {d.newLine ?? ""}
-                  </td>
-                  <td
-                    className={cn(
-                      "w-5 text-center align-top select-none",
-                      d.kind === "added"
-                        ? "text-signal-ok"
-                        : d.kind === "removed"
-                          ? "text-signal-fault"
-                          : "text-ink-300",
-                    )}
-                  >
-                    <span aria-hidden>{d.kind === "added" ? "+" : d.kind === "removed" ? "−" : " "}</span>
-                    <span className="sr-only">{d.kind === "same" ? "unchanged" : d.kind}</span>
-                  </td>
-                  <td className="text-ink-900 pr-3 align-top whitespace-pre">{d.text || " "}</td>
-                </tr>
-              ))
-            ),
-          )}
-        </tbody>
-      </table>
-    </div>
+    <span className="text-ink-400 pr-2 text-right font-mono text-xs select-none">
+      {n === null ? (
+        ""
+      ) : (
+        <>
+          <span className="sr-only">{side} line </span>
+          {n}
+        </>
+      )}
+    </span>
   );
 }
 
-function foldUnchanged(diff: DiffLine[], context: number): Block[] {
-  const keep = diff.map(() => false);
-  diff.forEach((d, i) => {
-    if (d.kind === "same") return;
-    for (let k = Math.max(0, i - context); k <= Math.min(diff.length - 1, i + context); k++) keep[k] = true;
-  });
-  const blocks: Block[] = [];
-  diff.forEach((d, i) => {
-    const kind = keep[i] ? "lines" : "fold";
-    const last = blocks[blocks.length - 1];
-    if (last && last.kind === kind) last.lines.push(d);
-    else blocks.push({ kind, lines: [d] });
-  });
-  return blocks;
+function Tag({ kind, subject }: { kind: keyof typeof TAGS; subject: string | null }) {
+  return (
+    <span className="pr-2">
+      <span
+        className={cn(
+          "text-caption rounded-[2px] px-1.5 font-sans font-semibold tracking-wider uppercase",
+          TAGS[kind].tag,
+        )}
+      >
+        {TAGS[kind].word}
+      </span>
+      {subject ? <span className="sr-only"> {subject}:</span> : null}
+    </span>
+  );
+}
+
+function Row({ row }: { row: NetlistRow }) {
+  if (row.kind === "same") {
+    return (
+      <li className={cn(grid, "border-l-[3px] border-transparent")}>
+        <LineNo n={row.oldLine} side="A" />
+        <LineNo n={row.newLine} side="B" />
+        <span />
+        <code className="text-ink-600 whitespace-pre-wrap">{row.text || " "}</code>
+      </li>
+    );
+  }
+  const t = TAGS[row.kind];
+  return (
+    <li data-diff-row={row.kind} className={cn(grid, "border-l-[3px] bg-white py-0.5", t.rule)}>
+      <LineNo n={row.kind === "added" ? null : row.oldLine} side="A" />
+      <LineNo n={row.kind === "removed" ? null : row.newLine} side="B" />
+      <Tag kind={row.kind} subject={row.subject} />
+      {row.kind === "changed" ? (
+        <code className="text-ink-900 whitespace-pre-wrap">
+          {row.segments.map((s, i) =>
+            s.kind === "kept" ? (
+              <span key={i}>{s.text}</span>
+            ) : (
+              <span key={i} data-swap="" className="bg-copper-50 rounded-[2px] px-0.5">
+                {s.before ? (
+                  <del className="text-ink-500 decoration-ink-400 line-through">{s.before}</del>
+                ) : null}
+                <span aria-hidden="true" className="text-copper-600 px-1 font-sans">
+                  →
+                </span>
+                <span className="sr-only"> becomes </span>
+                {s.after ? <ins className="text-copper-800 font-semibold no-underline">{s.after}</ins> : null}
+              </span>
+            ),
+          )}
+        </code>
+      ) : (
+        <code
+          className={cn(
+            "whitespace-pre-wrap",
+            row.kind === "removed" ? "text-ink-500 decoration-ink-300 line-through" : "text-board-900",
+          )}
+        >
+          {row.text || " "}
+        </code>
+      )}
+    </li>
+  );
+}
+
+function Fold({ block }: { block: RowBlock }) {
+  const first = block.rows[0];
+  const last = block.rows[block.rows.length - 1];
+  const range =
+    first?.kind === "same" && last?.kind === "same" ? `lines ${first.newLine}–${last.newLine} of B` : "";
+  return (
+    <li>
+      <details className="group">
+        <summary className="text-caption text-ink-500 hover:text-ink-800 cursor-pointer list-none py-1 pl-[4.5rem] font-sans select-none">
+          <span aria-hidden="true" className="text-paper-400 mr-1 group-open:hidden">
+            ┄┄
+          </span>
+          {block.rows.length} lines as in both runs{range ? ` (${range})` : ""}
+          <span className="text-copper-600 ml-2 underline-offset-2 group-open:hidden hover:underline">
+            show
+          </span>
+          <span className="text-copper-600 ml-2 hidden underline-offset-2 group-open:inline hover:underline">
+            hide
+          </span>
+        </summary>
+        <ol>
+          {block.rows.map((r, k) => (
+            <Row key={k} row={r} />
+          ))}
+        </ol>
+      </details>
+    </li>
+  );
+}
+
+/**
+ * The netlist diff by statement: a part, sweep, measure, check or let edited in place is one
+ * "changed" row with the words that differ shown old → new; whole lines are "added" or "removed";
+ * unchanged stretches fold into a line that opens on demand (a native disclosure: keyboard ready,
+ * no script needed).
+ */
+export function NetlistDiff({ rows, context = 2, labelA = "A", labelB = "B", className }: NetlistDiffProps) {
+  if (rows.every((r) => r.kind === "same")) {
+    return (
+      <p className={cn("text-ink-500 text-sm", className)}>The two netlists are the same, line for line.</p>
+    );
+  }
+  return (
+    <div className={cn("border-paper-200 bg-paper-50 overflow-x-auto rounded-md border", className)}>
+      <p className="sr-only">
+        Netlist changes from {labelA} to {labelB}. Each row gives its line in A, its line in B, what happened,
+        and the text.
+      </p>
+      <ol aria-label="Netlist changes" className="min-w-[32rem] py-1 font-mono text-[0.8125rem] leading-5">
+        {foldRows(rows, context).map((block, i) =>
+          block.kind === "fold" ? (
+            <Fold key={`f${i}`} block={block} />
+          ) : (
+            block.rows.map((r, k) => <Row key={`${i}-${k}`} row={r} />)
+          ),
+        )}
+      </ol>
+    </div>
+  );
 }

@@ -35,6 +35,7 @@ export function CompareOverlayPlot({
   exportName = "phasewright-compare",
 }: CompareOverlayPlotProps) {
   const [showDiff, setShowDiff] = useState(true);
+  const stamp = useMemo(() => ({ title: `${labelB} against ${labelA}` }), [labelA, labelB]);
   const frequencies = traces[0]?.frequencies ?? [];
   const main = useMemo(
     () => traces.map((t) => ({ name: `${t.name} (${short(labelB)})`, magnitudeDb: t.bDb, phaseDeg: t.bDeg })),
@@ -84,6 +85,7 @@ export function CompareOverlayPlot({
         plotId={plotId}
         exportName={exportName}
         label={`Bode plot comparing ${labelA} and ${labelB}`}
+        stamp={stamp}
       />
       {traces.some((t) => t.interpolated) ? (
         <p className="text-caption text-ink-500 mt-1">

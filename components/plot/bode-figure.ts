@@ -1,6 +1,8 @@
 import type { Annotation, Data, Layout, LayoutAxis, Shape } from "plotly.js";
 import { sampleTrace } from "@/lib/trace-math";
-import { plotColors, traceColor } from "./palette";
+import { type BodeCursor, cursorShapes } from "./cursors";
+import { formatHz, hoverTexts } from "./hover-format";
+import { plotColors, plotFonts, plotHoverLabel, traceColor } from "./palette";
 import type { BodeMarker, BodeOverlay, BodePin, BodeSeries } from "./types";
 
 /** Above this many points a trace is drawn with WebGL. */
@@ -14,6 +16,8 @@ export interface BodeFigureInput {
   pins: BodePin[];
   focusHz: number | null;
   compact: boolean;
+  /** Readout cursors A and B (vertical lines with their letter). */
+  cursors?: readonly BodeCursor[];
 }
 
 function lineTrace(
@@ -43,10 +47,9 @@ function lineTrace(
     yaxis: row === 1 ? "y" : "y2",
     line: { color: opts.color, width: opts.width, dash: opts.dash },
     connectgaps: false,
-    hovertemplate:
-      row === 1
-        ? "%{x:.5s}Hz · %{y:.3f} dB<extra>%{meta[0]}</extra>"
-        : "%{x:.5s}Hz · %{y:.2f}°<extra>%{meta[0]}</extra>",
+    // Our own label text ("1.698 kHz  ·  −3.01 dB"), built once per figure.
+    text: hoverTexts(s.frequencies, y, row),
+    hovertemplate: "%{text}<extra>%{meta[0]}</extra>",
   } as Data;
 }
 
@@ -81,7 +84,8 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
         xaxis: row === 1 ? "x" : "x2",
         yaxis: row === 1 ? "y" : "y2",
         marker: { color: plotColors.measurement, size: 5, symbol: "circle-open" },
-        hovertemplate: "%{x:.5s}Hz · %{y:.3f}<extra>bench: %{meta[0]}</extra>",
+        text: hoverTexts(s.frequencies, row === 1 ? s.magnitudeDb : s.phaseDeg, row),
+        hovertemplate: "%{text}<extra>bench: %{meta[0]}</extra>",
       } as Data);
     }
   });
@@ -98,7 +102,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
     if (!sample) continue;
     pinX.push(pin.frequencyHz);
     pinY.push(sample.db);
-    pinText.push(pin.label ?? "comment");
+    pinText.push(`${formatHz(pin.frequencyHz)}<br>${pin.label ?? "comment"}`);
   }
   if (pinX.length > 0) {
     data.push({
@@ -112,7 +116,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
       xaxis: "x",
       yaxis: "y",
       marker: { color: plotColors.pin, size: 11, symbol: "diamond", line: { color: "#ffffff", width: 1.5 } },
-      hovertemplate: "%{x:.5s}Hz<br>%{text}<extra>pinned</extra>",
+      hovertemplate: "%{text}<extra>pinned</extra>",
     } as Data);
   }
 
@@ -157,6 +161,10 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
     });
   }
 
+  const cursors = cursorShapes(input.cursors ?? []);
+  shapes.push(...cursors.shapes);
+  annotations.push(...cursors.annotations);
+
   const axisFont = { color: plotColors.muted, size: input.compact ? 10 : 11 };
   // Over a narrow band Plotly labels every minor tick (…500600700…); keep 1-2-5 labels there.
   const spanDecades = decadesOf([...input.series, ...input.overlays].flatMap((s) => [s.frequencies]));
@@ -181,12 +189,12 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
     margin: { l: input.compact ? 46 : 60, r: 12, t: input.markers.length > 0 ? 44 : 16, b: 44 },
     paper_bgcolor: "rgba(0,0,0,0)",
     plot_bgcolor: plotColors.plotBg,
-    font: {
-      family: '"Inter Variable", Inter, ui-sans-serif, system-ui, sans-serif',
-      color: plotColors.text,
-      size: 12,
-    },
-    hovermode: "x",
+    font: { family: plotFonts.sans, color: plotColors.text, size: 12 },
+    // The nearest point anywhere under the pointer (hoverdistance −1), so a click always lands.
+    hovermode: "closest",
+    hoverdistance: -1,
+    hoverlabel: plotHoverLabel,
+    dragmode: "zoom",
     showlegend: true,
     legend: {
       orientation: "h",

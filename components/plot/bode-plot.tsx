@@ -4,7 +4,16 @@ import dynamic from "next/dynamic";
 import type { PlotMouseEvent } from "plotly.js";
 import { useCallback, useEffect, useId, useMemo, useRef, useState } from "react";
 import { buildBodeFigure } from "./bode-figure";
-import { downloadPlotPng, registerPlot, unregisterPlot } from "./plot-registry";
+import { CursorReadout } from "./cursor-readout";
+import type { BodeCursor } from "./cursors";
+import {
+  downloadPlotPng,
+  type PlotStamp,
+  registerPlot,
+  resetPlotView,
+  unregisterPlot,
+} from "./plot-registry";
+import { type ClickMode, PlotToolbar } from "./plot-toolbar";
 import type { BodeMarker, BodeOverlay, BodePin, BodeSeries } from "./types";
 
 const PlotlyChart = dynamic(() => import("./plotly-chart"), {
@@ -37,8 +46,12 @@ export interface BodePlotProps {
   height?: number;
   /** Accessible description of the plot. */
   label?: string;
-  /** Shows a "Save PNG" button above the plot (default true); pass false when ExportButtons is on the page. */
+  /** Shows a "PNG" button beside the plot (default true). */
   pngButton?: boolean;
+  /** Title and netlist hash printed above the plot in the PNG export (the date is added). */
+  stamp?: PlotStamp | null;
+  /** Hides the cursor controls and readout (small previews). */
+  cursors?: boolean;
 }
 
 // Stable empty defaults, so memoised figures are not rebuilt on every render.
@@ -61,12 +74,23 @@ export function BodePlot({
   height = 520,
   label = "Bode plot: magnitude and phase against frequency",
   pngButton = true,
+  stamp = null,
+  cursors: withCursors = true,
 }: BodePlotProps) {
   const generatedId = useId();
   const id = plotId ?? `bode-${generatedId}`;
   const compact = useCompact();
   const graphRef = useRef<HTMLElement | null>(null);
   const [ready, setReady] = useState(false);
+  const [mode, setMode] = useState<ClickMode>(onPickFrequency ? "pin" : "A");
+  const [cursors, setCursors] = useState<BodeCursor[]>([]);
+  const [cursorTrace, setCursorTrace] = useState("");
+  const setCursor = useCallback((cursorId: BodeCursor["id"], hz: number | null) => {
+    setCursors((cs) => [
+      ...cs.filter((c) => c.id !== cursorId),
+      ...(hz === null ? [] : [{ id: cursorId, frequencyHz: hz }]),
+    ]);
+  }, []);
 
   const series = useMemo<BodeSeries[]>(
     () =>
@@ -74,8 +98,8 @@ export function BodePlot({
     [traces, frequencies],
   );
   const figure = useMemo(
-    () => buildBodeFigure({ series, overlays, measurements, markers, pins, focusHz, compact }),
-    [series, overlays, measurements, markers, pins, focusHz, compact],
+    () => buildBodeFigure({ series, overlays, measurements, markers, pins, focusHz, compact, cursors }),
+    [series, overlays, measurements, markers, pins, focusHz, compact, cursors],
   );
 
   useEffect(() => () => unregisterPlot(id, graphRef.current ?? undefined), [id]);
@@ -83,53 +107,51 @@ export function BodePlot({
   const onInit = useCallback(
     (_: unknown, graphDiv: Readonly<HTMLElement>) => {
       graphRef.current = graphDiv as HTMLElement;
-      registerPlot(id, graphDiv as HTMLElement);
+      registerPlot(id, graphDiv as HTMLElement, stamp);
       setReady(true);
     },
-    [id],
+    [id, stamp],
   );
 
   const onClick = useCallback(
     (event: Readonly<PlotMouseEvent>) => {
       const point = event.points[0];
-      if (!point || !onPickFrequency) return;
+      if (!point) return;
       const meta = (point.data as { meta?: unknown }).meta;
       const trace = Array.isArray(meta) && typeof meta[0] === "string" ? meta[0] : (point.data.name ?? "");
       const hz = Number(point.x);
-      if (Number.isFinite(hz) && hz > 0) onPickFrequency(hz, trace);
+      if (!(Number.isFinite(hz) && hz > 0)) return;
+      if (mode === "pin") {
+        onPickFrequency?.(hz, trace);
+        return;
+      }
+      if (!withCursors) return;
+      setCursor(mode, hz);
+      if (series.some((s) => s.name === trace)) setCursorTrace(trace);
+      // A then B, then A again: two clicks measure a span.
+      setMode(mode === "A" ? "B" : "A");
     },
-    [onPickFrequency],
+    [onPickFrequency, mode, withCursors, setCursor, series],
   );
 
   const h = compact ? Math.round(height * 0.8) : height;
   return (
     <figure className="w-full" aria-label={label}>
-      {pngButton || onPickFrequency ? (
-        <div className="flex min-h-8 items-center justify-between gap-2 px-1 pb-1">
-          <figcaption className="text-caption text-ink-500">
-            {onPickFrequency ? "Click a point on a trace to pin a comment there." : null}
-          </figcaption>
-          {pngButton ? (
-            <button
-              type="button"
-              disabled={!ready}
-              onClick={() => void downloadPlotPng(id, exportName)}
-              className="border-paper-300 text-caption text-ink-700 hover:bg-paper-100 disabled:text-ink-300 rounded-md border bg-white px-2 py-1 font-medium"
-            >
-              Save PNG
-            </button>
-          ) : null}
-        </div>
+      {withCursors || pngButton ? (
+        <PlotToolbar
+          mode={withCursors ? mode : "pin"}
+          onMode={setMode}
+          canPin={Boolean(onPickFrequency)}
+          ready={ready}
+          onReset={() => void resetPlotView(id)}
+          onPng={pngButton ? () => void downloadPlotPng(id, exportName) : undefined}
+        />
       ) : null}
       <div style={{ height: h }}>
         <PlotlyChart
           data={figure.data}
           layout={figure.layout}
-          config={{
-            displaylogo: false,
-            responsive: true,
-            modeBarButtonsToRemove: ["toImage", "lasso2d", "select2d"],
-          }}
+          config={PLOT_CONFIG}
           useResizeHandler
           style={{ width: "100%", height: "100%" }}
           onInitialized={onInit}
@@ -137,9 +159,26 @@ export function BodePlot({
           onClick={onClick}
         />
       </div>
+      {onPickFrequency && mode === "pin" ? (
+        <figcaption className="text-caption text-ink-500 px-1 pt-1">
+          Click a point on a trace to pin a comment there.
+        </figcaption>
+      ) : null}
+      {withCursors && series.length > 0 ? (
+        <CursorReadout
+          series={series}
+          traceName={cursorTrace}
+          onTraceName={setCursorTrace}
+          cursors={cursors}
+          onCursor={setCursor}
+        />
+      ) : null}
     </figure>
   );
 }
+
+/** No library icon bar: our own toolbar above does reset and PNG; drag zooms, a double click resets. */
+const PLOT_CONFIG = { displaylogo: false, displayModeBar: false, responsive: true } as const;
 
 function PlotSkeleton() {
   return (

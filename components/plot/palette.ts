@@ -16,6 +16,27 @@ export const plotColors = {
   /** Difference traces in turn, when several traces are compared. */
   differences: [c.signal.fault, c.ink[500], c.signal.warn, c.copper[700]],
   measurement: c.ink[900],
+  /** The two readout cursors: copper and deep board green, never the trace colours' first pair. */
+  cursorA: c.copper[600],
+  cursorB: c.board[800],
+  /** Hover labels: graphite card, paper text, a copper edge. */
+  hoverBg: c.ink[900],
+  hoverText: c.paper[50],
+  hoverEdge: c.copper[400],
+};
+
+/** Hover labels of every chart: a graphite card with monospaced figures and a copper edge. */
+export const plotHoverLabel = {
+  bgcolor: c.ink[900],
+  bordercolor: c.copper[400],
+  font: { family: '"JetBrains Mono", ui-monospace, SFMono-Regular, monospace', size: 12, color: c.paper[50] },
+  align: "left" as const,
+};
+
+/** Type of the plots: the app's own faces (served locally through @fontsource). */
+export const plotFonts = {
+  sans: '"Inter Variable", Inter, ui-sans-serif, system-ui, sans-serif',
+  mono: '"JetBrains Mono", ui-monospace, SFMono-Regular, monospace',
 };
 
 /** Colours for traces in order: board green, copper, graphite, then lighter tints. */

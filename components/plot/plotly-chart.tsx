@@ -3,6 +3,7 @@
 import Plotly from "plotly.js-dist-min";
 import type { PlotParams } from "react-plotly.js";
 import createPlotlyComponent from "react-plotly.js/factory";
+import { plotFonts, plotHoverLabel } from "./palette";
 
 /** react-plotly bound to the small Plotly bundle. Loaded only through next/dynamic (no SSR). */
 const Plot = createPlotlyComponent(Plotly);
@@ -10,7 +11,19 @@ const Plot = createPlotlyComponent(Plotly);
 export type PlotlyChartProps = PlotParams;
 
 export default function PlotlyChart(props: PlotlyChartProps) {
-  // No "Share chart…" button: it would offer to upload a team's data to an outside service.
-  const config: PlotParams["config"] = Object.assign({}, props.config, { showSendToCloud: false });
-  return <Plot {...props} config={config} />;
+  // Never the library's icon bar (our own controls sit beside each plot) and no "Share chart…"
+  // button: it would offer to upload a team's data to an outside service.
+  const config: PlotParams["config"] = Object.assign({}, props.config, {
+    displayModeBar: false,
+    displaylogo: false,
+    showSendToCloud: false,
+  });
+  // Our hover card and type unless a chart sets its own.
+  const given: { font?: object } = (props.layout ?? {}) as { font?: object };
+  const layout = {
+    hoverlabel: plotHoverLabel,
+    ...given,
+    font: { family: plotFonts.sans, ...given.font },
+  } as PlotParams["layout"];
+  return <Plot {...props} layout={layout} config={config} />;
 }

@@ -5,10 +5,16 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import {
+  nextReviewState,
+  REVIEW_ACTION_LABELS,
+  type ReviewState,
+  type ReviewStep,
+} from "@/lib/review-states";
 
 export type ReviewActionsProps = {
   runId: string;
-  reviewState: string;
+  reviewState: ReviewState;
   isAuthor: boolean;
   canRequest: boolean;
   canReview: boolean;
@@ -21,10 +27,10 @@ export function ReviewActions({ runId, reviewState, isAuthor, canRequest, canRev
   const [note, setNote] = useState("");
   const [busy, setBusy] = useState<string | null>(null);
   const [error, setError] = useState<string | null>(null);
-  const mayRequest = canRequest && (reviewState === "draft" || reviewState === "changes_requested");
-  const mayDecide = canReview && reviewState === "in_review" && !isAuthor;
+  const mayRequest = canRequest && nextReviewState(reviewState, "submit") !== null;
+  const mayDecide = canReview && nextReviewState(reviewState, "sign_off") !== null && !isAuthor;
 
-  async function send(action: "request" | "approve" | "request_changes") {
+  async function send(action: ReviewStep) {
     setBusy(action);
     setError(null);
     try {
@@ -50,12 +56,12 @@ export function ReviewActions({ runId, reviewState, isAuthor, canRequest, canRev
 
   if (!mayRequest && !mayDecide) {
     const why =
-      canReview && isAuthor && reviewState === "in_review"
-        ? "Another reviewer gives the verdict on your own run."
-        : reviewState === "in_review"
-          ? "Waiting for a reviewer."
-          : reviewState === "approved"
-            ? "Approved. A revision is saved as a new run."
+      canReview && isAuthor && reviewState === "awaiting_signoff"
+        ? "Another reviewer signs off or sends back your own run."
+        : reviewState === "awaiting_signoff"
+          ? "Waiting for a reviewer to sign off or send it back."
+          : reviewState === "signed_off"
+            ? "Signed off. A revision is saved as a new run."
             : "Your role can read this run.";
     return <p className="text-ink-500 text-sm">{why}</p>;
   }
@@ -64,7 +70,7 @@ export function ReviewActions({ runId, reviewState, isAuthor, canRequest, canRev
     <div className="space-y-3">
       <div>
         <label htmlFor={noteId} className="text-ink-700 mb-1 block text-sm font-medium">
-          Note {mayDecide ? "(required to request changes)" : "(optional)"}
+          Note {mayDecide ? "(required to send back)" : "(optional)"}
         </label>
         <textarea
           id={noteId}
@@ -77,17 +83,17 @@ export function ReviewActions({ runId, reviewState, isAuthor, canRequest, canRev
       </div>
       <div className="flex flex-wrap gap-2">
         {mayRequest ? (
-          <Button onClick={() => send("request")} disabled={busy !== null}>
-            {busy === "request" ? "Requesting…" : "Request review"}
+          <Button onClick={() => send("submit")} disabled={busy !== null}>
+            {busy === "submit" ? "Asking…" : REVIEW_ACTION_LABELS.submit}
           </Button>
         ) : null}
         {mayDecide ? (
           <>
-            <Button onClick={() => send("approve")} disabled={busy !== null}>
-              {busy === "approve" ? "Approving…" : "Approve"}
+            <Button onClick={() => send("sign_off")} disabled={busy !== null}>
+              {busy === "sign_off" ? "Signing off…" : REVIEW_ACTION_LABELS.sign_off}
             </Button>
-            <Button variant="danger" onClick={() => send("request_changes")} disabled={busy !== null}>
-              {busy === "request_changes" ? "Sending…" : "Request changes"}
+            <Button variant="secondary" onClick={() => send("send_back")} disabled={busy !== null}>
+              {busy === "send_back" ? "Sending back…" : REVIEW_ACTION_LABELS.send_back}
             </Button>
           </>
         ) : null}

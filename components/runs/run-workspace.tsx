@@ -4,6 +4,7 @@ import { type ReactNode, useMemo, useState } from "react";
 import type { PinDraft } from "@/components/comments/comment-form";
 import { CommentsThread } from "@/components/comments/comments-thread";
 import { BodePlot } from "@/components/plot/bode-plot";
+import type { PlotStamp } from "@/components/plot/plot-registry";
 import type { BodeMarker, BodePin, BodeSeries } from "@/components/plot/types";
 import { MeasuresTable } from "@/components/run/measures-table";
 import { Panel, PanelHeader } from "@/components/ui/panel";
@@ -14,6 +15,8 @@ export type RunWorkspaceProps = {
   runId: string;
   plotId: string;
   exportName: string;
+  /** Printed above the plot in the PNG export, with the date. */
+  stamp: PlotStamp;
   frequencies: number[];
   traces: Pick<TraceResult, "name" | "magnitudeDb" | "phaseDeg">[];
   measures: MeasureResult[];
@@ -30,7 +33,8 @@ export type RunWorkspaceProps = {
  * or a frequency measure zooms the plot to it.
  */
 export function RunWorkspace(props: RunWorkspaceProps) {
-  const { runId, plotId, exportName, frequencies, traces, measures, measurements, canComment, aside } = props;
+  const { runId, plotId, exportName, stamp, frequencies, traces, measures, measurements, canComment, aside } =
+    props;
   const [comments, setComments] = useState(props.comments);
   const [pin, setPin] = useState<PinDraft | null>(null);
   const [focusHz, setFocusHz] = useState<number | null>(null);
@@ -45,7 +49,7 @@ export function RunWorkspace(props: RunWorkspaceProps) {
   const pins = useMemo<BodePin[]>(
     () => [
       ...comments
-        .filter((c) => c.frequencyHz !== null && !c.resolvedAt)
+        .filter((c) => c.frequencyHz !== null && c.state === "open")
         .map((c) => ({
           frequencyHz: c.frequencyHz as number,
           trace: c.trace,
@@ -69,7 +73,7 @@ export function RunWorkspace(props: RunWorkspaceProps) {
           <BodePlot
             plotId={plotId}
             exportName={exportName}
-            pngButton={false}
+            stamp={stamp}
             frequencies={frequencies}
             traces={traces}
             measurements={measurements}

@@ -4,6 +4,7 @@ import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { buttonClass } from "@/components/ui/button-class";
 import { inputClass } from "@/components/ui/field";
+import { REVIEW_STATE_LABELS, REVIEW_STATES } from "@/lib/review-states";
 
 export type RunsQueryState = {
   sort: "createdAt" | "title" | "author" | "reviewState" | "checksPassed";
@@ -77,10 +78,11 @@ export function RunsFilters({
             onChange={(e) => go({ review: e.target.value || undefined })}
           >
             <option value="">Any state</option>
-            <option value="draft">Draft</option>
-            <option value="in_review">In review</option>
-            <option value="approved">Approved</option>
-            <option value="changes_requested">Changes requested</option>
+            {REVIEW_STATES.map((s) => (
+              <option key={s} value={s}>
+                {REVIEW_STATE_LABELS[s]}
+              </option>
+            ))}
           </select>
         </div>
         <div>

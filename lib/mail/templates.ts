@@ -43,7 +43,8 @@ export function commentMail(p: {
   };
 }
 
-export function reviewRequestMail(p: {
+/** To each reviewer of the team when a designer asks for sign-off. */
+export function signOffRequestMail(p: {
   to: string;
   requester: string;
   runTitle: string;
@@ -52,24 +53,25 @@ export function reviewRequestMail(p: {
 }): MailMessage {
   return {
     to: p.to,
-    subject: `Review requested: "${p.runTitle}"`,
-    text: `${p.requester} asks you to review the run "${p.runTitle}".${p.note ? `\n\n${quote(p.note)}` : ""}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
+    subject: `Sign-off asked: "${p.runTitle}"`,
+    text: `${p.requester} asks you to sign off the run "${p.runTitle}", or send it back with a note.${p.note ? `\n\n${quote(p.note)}` : ""}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
   };
 }
 
+/** To the run's author when a reviewer signs the run off or sends it back. */
 export function verdictMail(p: {
   to: string;
   reviewer: string;
   runTitle: string;
   runId: string;
-  approved: boolean;
+  verdict: "sign_off" | "send_back";
   note?: string | null;
 }): MailMessage {
-  const verdict = p.approved ? "approved" : "asked for changes to";
+  const signedOff = p.verdict === "sign_off";
   return {
     to: p.to,
-    subject: `${p.approved ? "Approved" : "Changes requested"}: "${p.runTitle}"`,
-    text: `${p.reviewer} ${verdict} your run "${p.runTitle}".${p.note ? `\n\n${quote(p.note)}` : ""}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
+    subject: `${signedOff ? "Signed off" : "Sent back"}: "${p.runTitle}"`,
+    text: `${p.reviewer} ${signedOff ? "signed off" : "sent back"} your run "${p.runTitle}".${p.note ? `\n\n${quote(p.note)}` : ""}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
   };
 }
 

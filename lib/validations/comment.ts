@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { THREAD_STATES } from "@/lib/review-states";
 
 export const MAX_COMMENT_CHARS = 5000;
 
@@ -15,5 +16,7 @@ export const commentCreateSchema = z.object({
 });
 export type CommentCreateInput = z.infer<typeof commentCreateSchema>;
 
-/** `PATCH /api/runs/:id/comments/:commentId`: resolve or reopen a thread. */
-export const commentPatchSchema = z.object({ resolved: z.boolean() });
+/** `PATCH /api/runs/:id/comments/:commentId` `{state: "open" | "settled"}`: settle a thread or open it again. */
+export const commentPatchSchema = z.object({
+  state: z.enum(THREAD_STATES, `Choose ${THREAD_STATES.join(" or ")}.`),
+});

@@ -1,15 +1,19 @@
 import { z } from "zod";
+import { NOTE_REQUIRED_ACTIONS, REVIEW_ACTIONS, type ReviewAction } from "@/lib/review-states";
 
-export const REVIEW_ACTIONS = ["request", "approve", "request_changes", "supersede"] as const;
-export type ReviewActionInput = (typeof REVIEW_ACTIONS)[number];
+export { REVIEW_ACTIONS };
+export type ReviewActionInput = ReviewAction;
+
+const needsNote = (action: ReviewAction) =>
+  (NOTE_REQUIRED_ACTIONS as readonly ReviewAction[]).includes(action);
 
 /**
  * `POST /api/runs/:id/review`. `supersede` is posted on the older run and names the later run of
- * the same project that replaces it (`supersededBy`).
+ * the same project that replaces it (`supersededBy`); `send_back` needs a note saying why.
  */
 export const reviewActionSchema = z
   .object({
-    action: z.enum(REVIEW_ACTIONS, "Choose request, approve, request_changes or supersede."),
+    action: z.enum(REVIEW_ACTIONS, `Choose one of ${REVIEW_ACTIONS.join(", ")}.`),
     note: z.string().trim().max(2000, "Keep the note under 2000 characters.").optional(),
     supersededBy: z.uuid("Not a run id.").optional(),
   })
@@ -17,8 +21,8 @@ export const reviewActionSchema = z
     message: "Name the later run that supersedes this one.",
     path: ["supersededBy"],
   })
-  .refine((v) => v.action !== "request_changes" || (v.note !== undefined && v.note.length > 0), {
-    message: "Say what should change.",
+  .refine((v) => !needsNote(v.action) || (v.note !== undefined && v.note.length > 0), {
+    message: "Say what needs another look before sending the run back.",
     path: ["note"],
   });
 export type ReviewActionBody = z.infer<typeof reviewActionSchema>;

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { REVIEW_STATES } from "@/lib/review-states";
 
 /** `POST /api/projects/:id/runs`: solve the netlist and save it as a new run. */
 export const runCreateSchema = z.object({
@@ -10,7 +11,7 @@ export type RunCreateInput = z.infer<typeof runCreateSchema>;
 
 export const RUN_SORT_KEYS = ["createdAt", "title", "author", "reviewState", "checksPassed"] as const;
 export type RunSortKey = (typeof RUN_SORT_KEYS)[number];
-export const RUN_REVIEW_FILTERS = ["draft", "in_review", "approved", "changes_requested"] as const;
+export const RUN_REVIEW_FILTERS = REVIEW_STATES;
 
 /** Query string of the runs list: server-side sorting, filtering and pagination. */
 export const runListQuerySchema = z.object({

@@ -104,8 +104,12 @@ describe("first minutes", () => {
     const measures = page.getByRole("region", { name: "Measures" });
     await expect.poll(() => measures.textContent()).toContain("gain");
     await expect.poll(() => measures.textContent()).toMatch(/%/);
-    const diff = page.getByRole("region", { name: "Netlist diff" });
+    const diff = page.getByRole("region", { name: "Netlist changes" });
     await expect.poll(() => diff.textContent()).toContain("gbw=1MHz");
+    // Part-aware: U1 edited in place is one changed row with the new options marked.
+    const u1 = diff.locator('[data-diff-row="changed"]').filter({ hasText: "U1: opamp" });
+    expect(await u1.count()).toBe(1);
+    expect(await u1.locator("ins").textContent()).toContain("gain=100k gbw=1MHz");
     await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
     await context.close();
   });
@@ -157,40 +161,49 @@ describe("first minutes", () => {
     await context.close();
   });
 
-  it("review on the saved run: designer requests, reviewer asks for changes (note required), then approves", async () => {
+  it("review on the saved run: designer asks for sign-off, reviewer sends back (note required), then signs off", async () => {
     expect(savedRunUrl).not.toBe("");
     const designer = await signedIn(browser, "designer@demo.test");
     await designer.page.goto(savedRunUrl);
     const review = designer.page.getByRole("region", { name: "Review" });
-    await review.getByRole("button", { name: "Request review" }).click();
-    await expect
-      .poll(() => designer.page.getByRole("heading", { level: 1 }).textContent())
-      .toContain("In review");
-    // The author cannot approve their own run: no verdict buttons for the designer.
-    expect(await review.getByRole("button", { name: "Approve" }).count()).toBe(0);
+    const designerTitle = designer.page.getByRole("heading", { level: 1 });
+    await expect.poll(() => designerTitle.textContent()).toContain("Draft");
+    await review.getByRole("button", { name: "Ask for sign-off" }).click();
+    await expect.poll(() => designerTitle.textContent()).toContain("Awaiting sign-off");
+    // The author cannot sign off their own run: no verdict buttons for the designer.
+    expect(await review.getByRole("button", { name: "Sign off" }).count()).toBe(0);
+    expect(await review.getByRole("button", { name: "Send back" }).count()).toBe(0);
 
     const reviewer = await signedIn(browser, "reviewer@demo.test");
     await reviewer.page.goto(savedRunUrl);
     const panel = reviewer.page.getByRole("region", { name: "Review" });
-    await panel.getByRole("button", { name: "Request changes" }).click();
-    await expect.poll(() => panel.textContent()).toContain("Say what should change.");
-    await panel.getByLabel(/Note/).fill("Add the output buffer before saving the next revision.");
-    await panel.getByRole("button", { name: "Request changes" }).click();
+    await panel.getByRole("button", { name: "Send back" }).click();
+    await expect
+      .poll(() => panel.textContent())
+      .toContain("Say what needs another look before sending the run back.");
+    await panel
+      .getByLabel(/Note \(required to send back\)/)
+      .fill("Add the output buffer before the next revision.");
+    await panel.getByRole("button", { name: "Send back" }).click();
     const title = reviewer.page.getByRole("heading", { level: 1 });
-    await expect.poll(() => title.textContent()).toContain("Changes requested");
+    await expect.poll(() => title.textContent()).toContain("Sent back");
     await expect.poll(() => panel.textContent()).toContain("Add the output buffer");
+    expect(await title.locator("[data-review-state]").getAttribute("data-review-state")).toBe("sent_back");
 
     await designer.page.reload();
-    await review.getByRole("button", { name: "Request review" }).click();
-    await expect
-      .poll(() => designer.page.getByRole("heading", { level: 1 }).textContent())
-      .toContain("In review");
+    await expect.poll(() => review.textContent()).toContain("Add the output buffer");
+    await review.getByRole("button", { name: "Ask for sign-off" }).click();
+    await expect.poll(() => designerTitle.textContent()).toContain("Awaiting sign-off");
     await reviewer.page.reload();
-    await panel.getByRole("button", { name: "Approve" }).click();
-    await expect.poll(() => title.textContent()).toContain("Approved");
-    const history = await panel.locator("ol").textContent();
-    expect(history).toMatch(/asked for review.*requested changes.*asked for review.*approved/s);
+    await panel.getByRole("button", { name: "Sign off" }).click();
+    await expect.poll(() => title.textContent()).toContain("Signed off");
+    const history = await panel.getByRole("list", { name: "Review history" }).textContent();
+    expect(history).toMatch(/asked for sign-off.*sent back.*asked for sign-off.*signed off/s);
+    // None of the old words is left on the page.
+    expect(await reviewer.page.locator("main").textContent()).not.toMatch(
+      /Request review|Request changes|Approved|In review|Resolve\b|Reopen/,
+    );
     await designer.context.close();
     await reviewer.context.close();
-  });
+  }, 240_000);
 });

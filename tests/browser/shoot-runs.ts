@@ -30,7 +30,7 @@ async function main(): Promise<void> {
     await page.screenshot({ path: `${out}/compare-${size}.png`, fullPage: true });
     await page.goto("/dev/outbox");
     await page.screenshot({ path: `${out}/outbox-${size}.png`, fullPage: true });
-    await page.goto(`/projects/${projectId}?sort=title&dir=asc&review=approved`);
+    await page.goto(`/projects/${projectId}?sort=title&dir=asc&review=signed_off`);
     await page.getByRole("heading", { name: "Runs" }).waitFor();
     await page.screenshot({ path: `${out}/project-filtered-${size}.png` });
     await page.goto("/invite/not-a-real-token-at-all-000000000000");

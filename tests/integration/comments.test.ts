@@ -34,7 +34,8 @@ describe("POST /api/runs/:id/comments", () => {
       trace: "H",
       parentId: null,
       authorName: "Fixture reviewer",
-      resolvedAt: null,
+      state: "open",
+      settledAt: null,
     });
     const row = await Comment.findByPk(res.body.comment.id);
     expect(row?.frequencyHz).toBe(1000);
@@ -106,7 +107,7 @@ describe("POST /api/runs/:id/comments", () => {
 });
 
 describe("GET and PATCH comments", () => {
-  it("lists oldest first and resolves/reopens with who resolved it", async () => {
+  it("lists oldest first, settles a thread and opens it again, naming who settled it", async () => {
     const a = await post("reviewer", { body: "first" });
     await post("designer", { body: "second" });
     const list = await call(listCommentsRoute, { token: tokens.viewer, params: { id: runId } });
@@ -114,36 +115,46 @@ describe("GET and PATCH comments", () => {
     expect(list.body.comments.map((c: { body: string }) => c.body)).toEqual(["first", "second"]);
 
     const id = a.body.comment.id;
-    const resolved = await call(patchComment, {
+    const settled = await call(patchComment, {
+      token: tokens.designer,
+      method: "PATCH",
+      params: { id: runId, commentId: id },
+      body: { state: "settled" },
+    });
+    expect(settled.status).toBe(200);
+    expect(settled.body.comment).toMatchObject({ state: "settled", settledByName: "Fixture designer" });
+    expect((await Comment.findByPk(id))?.settledById).toBe(fx.users.designer.id);
+
+    // The old word is not accepted; the field is named.
+    const oldWord = await call(patchComment, {
       token: tokens.designer,
       method: "PATCH",
       params: { id: runId, commentId: id },
       body: { resolved: true },
     });
-    expect(resolved.status).toBe(200);
-    expect(resolved.body.comment.resolvedByName).toBe("Fixture designer");
-    expect((await Comment.findByPk(id))?.resolvedById).toBe(fx.users.designer.id);
+    expect(oldWord.status).toBe(400);
+    expect(Object.keys(oldWord.body.error.details.fields)).toEqual(["state"]);
 
     const reopened = await call(patchComment, {
       token: tokens.reviewer,
       method: "PATCH",
       params: { id: runId, commentId: id },
-      body: { resolved: false },
+      body: { state: "open" },
     });
-    expect(reopened.body.comment.resolvedAt).toBeNull();
+    expect(reopened.body.comment).toMatchObject({ state: "open", settledAt: null, settledByName: null });
 
     const viewer = await call(patchComment, {
       token: tokens.viewer,
       method: "PATCH",
       params: { id: runId, commentId: id },
-      body: { resolved: true },
+      body: { state: "settled" },
     });
     expect(viewer.status).toBe(403);
     const wrongRun = await call(patchComment, {
       token: tokens.designer,
       method: "PATCH",
       params: { id: (await insertRun(fx.project.id, fx.users.designer.id)).id, commentId: id },
-      body: { resolved: true },
+      body: { state: "settled" },
     });
     expect(wrongRun.status).toBe(404);
   });

@@ -68,6 +68,7 @@ describe("migrations", () => {
       "202612021130-create-run-jobs",
       "202612021400-run-result-json-lz4",
       "202612022010-netlist-probe-names",
+      "202612022020-review-words",
     ]);
   });
 
@@ -82,7 +83,7 @@ describe("migrations", () => {
       run_id: "runs CASCADE",
       author_id: "users RESTRICT",
       parent_id: "comments CASCADE",
-      resolved_by_id: "users SET NULL",
+      settled_by_id: "users SET NULL",
     });
     expect(await foreignKeys("review_events")).toEqual({
       run_id: "runs CASCADE",
@@ -129,7 +130,15 @@ describe("migrations", () => {
     expect(columns.id).toBe("gen_random_uuid()");
   });
 
-  it("go down to the result's storage (back to jsonb, the netlist rewrite a no-op) and up again (json, lz4)", async () => {
+  /** Reverts every migration from `name` on (newest first) and returns the reverted names. */
+  async function downTo(name: string): Promise<string[]> {
+    const all = (await migrator.executed()).map((m) => m.name);
+    const reverted = await migrator.down({ to: name });
+    expect(reverted.map((m) => m.name)).toEqual(all.slice(all.indexOf(name)).reverse());
+    return reverted.map((m) => m.name);
+  }
+
+  it("take the result back to jsonb going down past the lz4 step (later steps revert first), and to json, lz4 going up", async () => {
     const resultColumn = async () => {
       const [rows] = await sequelize.query(
         `SELECT format_type(a.atttypid, a.atttypmod) AS type, a.attcompression AS compression
@@ -139,35 +148,106 @@ describe("migrations", () => {
     };
     // lz4 when the server was built with it (Debian's is); 'l' is lz4 in pg_attribute.
     expect(await resultColumn()).toEqual({ type: "json", compression: "l" });
-    const reverted = await migrator.down({ to: "202612021400-run-result-json-lz4" });
-    const both = ["202612021400-run-result-json-lz4", "202612022010-netlist-probe-names"];
-    expect(reverted.map((m) => m.name)).toEqual([...both].reverse());
+    const reverted = await downTo("202612021400-run-result-json-lz4");
     expect(await resultColumn()).toEqual({ type: "jsonb", compression: "" });
-    expect((await migrator.pending()).map((m) => m.name)).toEqual(both);
+    expect((await migrator.pending()).map((m) => m.name)).toEqual(reverted.reverse());
 
-    const applied = await migrator.up();
-    expect(applied.map((m) => m.name)).toEqual(both);
+    await migrator.up();
     expect(await resultColumn()).toEqual({ type: "json", compression: "l" });
   });
 
-  it("go down to the job table (dropping it and its enum) and up again", async () => {
-    const reverted = await migrator.down({ to: "202612021130-create-run-jobs" });
-    expect(reverted.map((m) => m.name)).toEqual([
-      "202612022010-netlist-probe-names",
-      "202612021400-run-result-json-lz4",
-      "202612021130-create-run-jobs",
-    ]);
+  it("drop the job table and its enum going down past it, and create them again going up", async () => {
+    await downTo("202612021130-create-run-jobs");
     expect(await tables()).toEqual(ALL_TABLES.filter((t) => t !== "run_jobs"));
     const [types] = await sequelize.query("SELECT 1 FROM pg_type WHERE typname = 'enum_run_jobs_state'");
     expect(types).toHaveLength(0);
 
-    const applied = await migrator.up();
-    expect(applied.map((m) => m.name)).toEqual([
-      "202612021130-create-run-jobs",
-      "202612021400-run-result-json-lz4",
-      "202612022010-netlist-probe-names",
-    ]);
+    await migrator.up();
     expect(await tables()).toEqual(ALL_TABLES);
+  });
+
+  it("rename the review words of existing rows going up, and back going down", async () => {
+    const [[user]] = (await sequelize.query(
+      `INSERT INTO users (id, email, name, password_hash, created_at, updated_at)
+       VALUES (gen_random_uuid(), 'words@migration.test', 'Words', 'x', now(), now()) RETURNING id`,
+    )) as [{ id: string }[], unknown];
+    const [[team]] = (await sequelize.query(
+      `INSERT INTO teams (id, name, slug, created_at, updated_at)
+       VALUES (gen_random_uuid(), 'Words', 'words-migration', now(), now()) RETURNING id`,
+    )) as [{ id: string }[], unknown];
+    const [[project]] = (await sequelize.query(
+      `INSERT INTO projects (id, team_id, name, created_by_id, created_at, updated_at)
+       VALUES (gen_random_uuid(), :team, 'Words', :user, now(), now()) RETURNING id`,
+      { replacements: { team: team?.id, user: user?.id } },
+    )) as [{ id: string }[], unknown];
+    const words = async () => {
+      const [rows] = await sequelize.query(
+        `SELECT r.review_state AS state, e.action, c.* FROM runs r
+           JOIN review_events e ON e.run_id = r.id JOIN comments c ON c.run_id = r.id
+          WHERE r.project_id = :project ORDER BY r.title, e.created_at`,
+        { replacements: { project: project?.id } },
+      );
+      return (rows as Record<string, unknown>[]).map((r) => ({
+        state: r.state,
+        action: r.action,
+        settled: r.settled_at !== undefined ? r.settled_at !== null : undefined,
+        resolved: r.resolved_at !== undefined ? r.resolved_at !== null : undefined,
+      }));
+    };
+    try {
+      await downTo("202612022020-review-words");
+      const insertRun = `INSERT INTO runs (id, project_id, author_id, title, netlist, netlist_hash, solver_version,
+          status, review_state, created_at)
+        VALUES (gen_random_uuid(), :project, :user, :title, 'x', 'h', 't', 'ok', :state, now()) RETURNING id`;
+      for (const [title, state, action] of [
+        ["a", "in_review", "request"],
+        ["b", "approved", "approve"],
+        ["c", "changes_requested", "request_changes"],
+      ] as const) {
+        const [[run]] = (await sequelize.query(insertRun, {
+          replacements: { project: project?.id, user: user?.id, title, state },
+        })) as [{ id: string }[], unknown];
+        await sequelize.query(
+          `INSERT INTO review_events (id, run_id, actor_id, action, created_at)
+           VALUES (gen_random_uuid(), :run, :user, :action, now())`,
+          { replacements: { run: run?.id, user: user?.id, action } },
+        );
+        await sequelize.query(
+          `INSERT INTO comments (id, run_id, author_id, body, resolved_at, resolved_by_id, created_at, updated_at)
+           VALUES (gen_random_uuid(), :run, :user, 'c', :at, :by, now(), now())`,
+          {
+            replacements: {
+              run: run?.id,
+              user: user?.id,
+              at: title === "b" ? new Date() : null,
+              by: title === "b" ? user?.id : null,
+            },
+          },
+        );
+      }
+      const before = [
+        { state: "in_review", action: "request", settled: undefined, resolved: false },
+        { state: "approved", action: "approve", settled: undefined, resolved: true },
+        { state: "changes_requested", action: "request_changes", settled: undefined, resolved: false },
+      ];
+      expect(await words()).toEqual(before);
+
+      await migrator.up();
+      expect(await words()).toEqual([
+        { state: "awaiting_signoff", action: "submit", settled: false, resolved: undefined },
+        { state: "signed_off", action: "sign_off", settled: true, resolved: undefined },
+        { state: "sent_back", action: "send_back", settled: false, resolved: undefined },
+      ]);
+      expect((await foreignKeys("comments")).settled_by_id).toBe("users SET NULL");
+
+      await downTo("202612022020-review-words");
+      expect(await words()).toEqual(before);
+    } finally {
+      await migrator.up();
+      // The team's projects, runs, comments and events go with it (cascades).
+      await sequelize.query("DELETE FROM teams WHERE id = :id", { replacements: { id: team?.id } });
+      await sequelize.query("DELETE FROM users WHERE id = :id", { replacements: { id: user?.id } });
+    }
   });
 
   it("revert every migration down to an empty schema, then apply them all again", async () => {

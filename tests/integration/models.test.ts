@@ -69,7 +69,7 @@ describe("models over the migrated schema", () => {
       body: "Phase at 1 kHz?",
     });
     await Comment.create({ runId: run.id, authorId: fx.users.designer.id, parentId: top.id, body: "Fixed." });
-    await ReviewEvent.create({ runId: run.id, actorId: fx.users.designer.id, action: "request" });
+    await ReviewEvent.create({ runId: run.id, actorId: fx.users.designer.id, action: "submit" });
     expect(await Comment.count()).toBe(2);
 
     await Team.destroy({ where: { id: fx.team.id } });

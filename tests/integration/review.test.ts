@@ -23,8 +23,8 @@ const review = (who: Who, id: string, body: unknown) =>
   call(reviewRoute, { token: tokens[who], params: { id }, body });
 
 describe("POST /api/runs/:id/review", () => {
-  it("walks draft → in review → changes requested → in review → approved, mailing the right people", async () => {
-    // A second reviewer, so the request goes to both.
+  it("walks draft → awaiting sign-off → sent back → awaiting sign-off → signed off, mailing the right people", async () => {
+    // A second reviewer, so the ask for sign-off goes to both.
     const second = await User.create({
       email: "second-reviewer@fixture.test",
       name: "Second reviewer",
@@ -34,52 +34,61 @@ describe("POST /api/runs/:id/review", () => {
     const run = await insertRun(fx.project.id, fx.users.designer.id, { title: "Notch rev 1" });
 
     const req = await review("designer", run.id, {
-      action: "request",
+      action: "submit",
       note: "Please check the notch depth.",
     });
     expect(req.status).toBe(200);
-    expect(req.body).toMatchObject({ reviewState: "in_review", emails: 2, event: { action: "request" } });
+    expect(req.body).toMatchObject({
+      reviewState: "awaiting_signoff",
+      emails: 2,
+      event: { action: "submit" },
+    });
     const requestMails = await OutboxEmail.findAll({ order: [["to", "ASC"]] });
     expect(requestMails.map((m) => m.to)).toEqual(["reviewer@fixture.test", "second-reviewer@fixture.test"]);
-    expect(requestMails[0]?.subject).toBe('Review requested: "Notch rev 1"');
+    expect(requestMails[0]?.subject).toBe('Sign-off asked: "Notch rev 1"');
+    expect(requestMails[0]?.text).toContain(
+      'asks you to sign off the run "Notch rev 1", or send it back with a note.',
+    );
     expect(requestMails[0]?.text).toContain("> Please check the notch depth.");
 
     // The author may not judge their own run even as owner of a team; a designer may not judge at all.
-    expect((await review("designer", run.id, { action: "approve" })).status).toBe(403);
-    // Changes need a note.
-    const noNote = await review("reviewer", run.id, { action: "request_changes" });
+    expect((await review("designer", run.id, { action: "sign_off" })).status).toBe(403);
+    // Sending back needs a note.
+    const noNote = await review("reviewer", run.id, { action: "send_back" });
     expect(noNote.status).toBe(400);
-    expect(noNote.body.error.details.fields.note).toEqual(["Say what should change."]);
+    expect(noNote.body.error.details.fields.note).toEqual([
+      "Say what needs another look before sending the run back.",
+    ]);
 
     const changes = await review("reviewer", run.id, {
-      action: "request_changes",
+      action: "send_back",
       note: "Deeper null, please.",
     });
-    expect(changes.body.reviewState).toBe("changes_requested");
+    expect(changes.body.reviewState).toBe("sent_back");
     const verdict1 = await OutboxEmail.findAll({ where: { to: "designer@fixture.test" } });
-    expect(verdict1.map((m) => m.subject)).toEqual(['Changes requested: "Notch rev 1"']);
+    expect(verdict1.map((m) => m.subject)).toEqual(['Sent back: "Notch rev 1"']);
 
-    // Approving a run that is not in review is a conflict.
-    const early = await review("reviewer", run.id, { action: "approve" });
+    // Signing off a run that is not awaiting sign-off is a conflict, in the new words.
+    const early = await review("reviewer", run.id, { action: "sign_off" });
     expect(early.status).toBe(409);
     expect(early.body.error.code).toBe("conflict");
+    expect(early.body.error.message).toBe('This run is sent back; it cannot take "sign_off".');
 
-    expect((await review("designer", run.id, { action: "request" })).body.reviewState).toBe("in_review");
-    const ok = await review("owner", run.id, { action: "approve", note: "Good." });
+    expect((await review("designer", run.id, { action: "submit" })).body.reviewState).toBe(
+      "awaiting_signoff",
+    );
+    const ok = await review("owner", run.id, { action: "sign_off", note: "Good." });
     expect(ok.status).toBe(200);
-    expect(ok.body.reviewState).toBe("approved");
-    expect((await Run.findByPk(run.id))?.reviewState).toBe("approved");
+    expect(ok.body.reviewState).toBe("signed_off");
+    expect((await Run.findByPk(run.id))?.reviewState).toBe("signed_off");
 
     const events = await ReviewEvent.findAll({ where: { runId: run.id }, order: [["createdAt", "ASC"]] });
-    expect(events.map((e) => e.action)).toEqual(["request", "request_changes", "request", "approve"]);
+    expect(events.map((e) => e.action)).toEqual(["submit", "send_back", "submit", "sign_off"]);
     const toAuthor = await OutboxEmail.findAll({
       where: { to: "designer@fixture.test" },
       order: [["createdAt", "ASC"]],
     });
-    expect(toAuthor.map((m) => m.subject)).toEqual([
-      'Changes requested: "Notch rev 1"',
-      'Approved: "Notch rev 1"',
-    ]);
+    expect(toAuthor.map((m) => m.subject)).toEqual(['Sent back: "Notch rev 1"', 'Signed off: "Notch rev 1"']);
 
     // The run page's data shows the history with names.
     const page = await call(getRunRoute, { token: tokens.viewer, params: { id: run.id } });
@@ -92,21 +101,21 @@ describe("POST /api/runs/:id/review", () => {
     expect(page.body.run.permissions).toEqual({
       comment: false,
       review: false,
-      requestReview: false,
+      askSignOff: false,
       createRun: false,
     });
   });
 
-  it("viewer and reviewer may not request review; viewer and designer may not approve; outsider gets 404", async () => {
+  it("viewer and reviewer may not ask for sign-off; viewer and designer may not sign off; outsider gets 404", async () => {
     const run = await insertRun(fx.project.id, fx.users.designer.id);
-    expect((await review("viewer", run.id, { action: "request" })).status).toBe(403);
-    expect((await review("reviewer", run.id, { action: "request" })).status).toBe(403);
-    expect((await review("outsider", run.id, { action: "request" })).status).toBe(404);
-    const inReview = await insertRun(fx.project.id, fx.users.owner.id, { reviewState: "in_review" });
-    expect((await review("viewer", inReview.id, { action: "approve" })).status).toBe(403);
-    expect((await review("designer", inReview.id, { action: "approve" })).status).toBe(403);
-    expect((await review("outsider", inReview.id, { action: "approve" })).status).toBe(404);
-    expect((await review("reviewer", inReview.id, { action: "approve" })).status).toBe(200);
+    expect((await review("viewer", run.id, { action: "submit" })).status).toBe(403);
+    expect((await review("reviewer", run.id, { action: "submit" })).status).toBe(403);
+    expect((await review("outsider", run.id, { action: "submit" })).status).toBe(404);
+    const awaiting = await insertRun(fx.project.id, fx.users.owner.id, { reviewState: "awaiting_signoff" });
+    expect((await review("viewer", awaiting.id, { action: "sign_off" })).status).toBe(403);
+    expect((await review("designer", awaiting.id, { action: "sign_off" })).status).toBe(403);
+    expect((await review("outsider", awaiting.id, { action: "sign_off" })).status).toBe(404);
+    expect((await review("reviewer", awaiting.id, { action: "sign_off" })).status).toBe(200);
     expect(await ReviewEvent.count()).toBe(1);
   });
 

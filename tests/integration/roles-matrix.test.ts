@@ -93,34 +93,34 @@ const cases: Case[] = [
         token: tokens[who],
         method: "PATCH",
         params: { id: runId, commentId },
-        body: { resolved: true },
+        body: { state: "settled" },
       }),
   },
   {
-    name: "POST /api/runs/:id/review request (fresh draft run each time)",
+    name: "POST /api/runs/:id/review submit (fresh draft run each time)",
     expect: { owner: 200, designer: 200, reviewer: 403, viewer: 403, outsider: 404 },
     run: async (who) => {
       const run = await insertRun(fx.project.id, fx.users.designer.id);
-      return call(reviewRoute, { token: tokens[who], params: { id: run.id }, body: { action: "request" } });
+      return call(reviewRoute, { token: tokens[who], params: { id: run.id }, body: { action: "submit" } });
     },
   },
   {
-    name: "POST /api/runs/:id/review approve (fresh run in review each time)",
+    name: "POST /api/runs/:id/review sign_off (fresh run awaiting sign-off each time)",
     expect: { owner: 200, designer: 403, reviewer: 200, viewer: 403, outsider: 404 },
     run: async (who) => {
-      const run = await insertRun(fx.project.id, fx.users.designer.id, { reviewState: "in_review" });
-      return call(reviewRoute, { token: tokens[who], params: { id: run.id }, body: { action: "approve" } });
+      const run = await insertRun(fx.project.id, fx.users.designer.id, { reviewState: "awaiting_signoff" });
+      return call(reviewRoute, { token: tokens[who], params: { id: run.id }, body: { action: "sign_off" } });
     },
   },
   {
-    name: "POST /api/runs/:id/review request_changes (fresh run in review each time)",
+    name: "POST /api/runs/:id/review send_back (fresh run awaiting sign-off each time)",
     expect: { owner: 200, designer: 403, reviewer: 200, viewer: 403, outsider: 404 },
     run: async (who) => {
-      const run = await insertRun(fx.project.id, fx.users.designer.id, { reviewState: "in_review" });
+      const run = await insertRun(fx.project.id, fx.users.designer.id, { reviewState: "awaiting_signoff" });
       return call(reviewRoute, {
         token: tokens[who],
         params: { id: run.id },
-        body: { action: "request_changes", note: "Tighten the tolerance." },
+        body: { action: "send_back", note: "Tighten the tolerance." },
       });
     },
   },
@@ -179,7 +179,7 @@ describe("route × role", () => {
         (await call(getRun, { token: t, params: { id: foreignRun.id } })).status,
         (await call(listComments, { token: t, params: { id: foreignRun.id } })).status,
         (await call(exportCsv, { token: t, params: { id: foreignRun.id } })).status,
-        (await call(reviewRoute, { token: t, params: { id: foreignRun.id }, body: { action: "request" } }))
+        (await call(reviewRoute, { token: t, params: { id: foreignRun.id }, body: { action: "submit" } }))
           .status,
         (await call(compareRoute, { token: t, path: `/api/compare?a=${runId}&b=${foreignRun.id}` })).status,
         (await call(listMeasurements, { token: t, params: { id: fx.otherProject.id } })).status,
@@ -201,7 +201,7 @@ describe("route × role", () => {
       (await call(listRuns, { token: bogus, params: { id: fx.project.id } })).status,
       (await call(getRun, { token: bogus, params: { id: runId } })).status,
       (await call(postComment, { token: bogus, params: { id: runId }, body: { body: "x" } })).status,
-      (await call(reviewRoute, { token: bogus, params: { id: runId }, body: { action: "request" } })).status,
+      (await call(reviewRoute, { token: bogus, params: { id: runId }, body: { action: "submit" } })).status,
       (await call(compareRoute, { token: bogus, path: `/api/compare?a=${runId}&b=${otherRunId}` })).status,
     ];
     expect(statuses).toEqual([401, 401, 401, 401, 401]);

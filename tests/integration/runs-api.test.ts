@@ -151,8 +151,11 @@ describe("GET /api/projects/:id/runs", () => {
   it("sorts, filters and pages on the server", async () => {
     const d = fx.users.designer.id;
     await insertRun(fx.project.id, d, { title: "Bravo notch" });
-    await insertRun(fx.project.id, fx.users.owner.id, { title: "alpha bridge", reviewState: "in_review" });
-    await insertRun(fx.project.id, d, { title: "Charlie bridge", reviewState: "approved" });
+    await insertRun(fx.project.id, fx.users.owner.id, {
+      title: "alpha bridge",
+      reviewState: "awaiting_signoff",
+    });
+    await insertRun(fx.project.id, d, { title: "Charlie bridge", reviewState: "signed_off" });
     await insertRun(fx.otherProject.id, fx.users.outsider.id, { title: "Other team bridge" });
     const list = (q: string, who: Who = "viewer") =>
       call(listRunsRoute, {
@@ -180,7 +183,7 @@ describe("GET /api/projects/:id/runs", () => {
       "Charlie bridge",
       "alpha bridge",
     ]);
-    const inReview = await list("review=in_review");
+    const inReview = await list("review=awaiting_signoff");
     expect(inReview.body.runs.map((r: { authorName: string }) => r.authorName)).toEqual(["Fixture owner"]);
     const mine = await list(`author=${d}&sort=title&dir=asc`);
     expect(mine.body.runs.map((r: { title: string }) => r.title)).toEqual(["Bravo notch", "Charlie bridge"]);
@@ -218,7 +221,7 @@ describe("run, export, compare, measurements", () => {
     expect(res.body.run.permissions).toEqual({
       comment: false,
       review: false,
-      requestReview: false,
+      askSignOff: false,
       createRun: false,
     });
 

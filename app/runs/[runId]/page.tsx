@@ -38,6 +38,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
   const measurements = await listMeasurements(actor, run.projectId);
   const result = run.result;
   const plotId = `run-plot-${run.id.slice(0, 8)}`;
+  const stamp = { title: run.title, netlistHash: run.netlistHash };
   const hasAnalyses = analysisSections(result, run.status).length > 0;
   const reviewPanel = (
     <Panel aria-labelledby="review-h">
@@ -47,7 +48,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
           runId={run.id}
           reviewState={run.reviewState}
           isAuthor={run.authorId === actor.userId}
-          canRequest={run.permissions.requestReview}
+          canRequest={run.permissions.askSignOff}
           canReview={run.permissions.review}
         />
         <ReviewHistory events={run.reviewEvents} />
@@ -110,6 +111,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             runId={run.id}
             plotId={plotId}
             exportName={run.title}
+            stamp={stamp}
             frequencies={result.frequencies}
             traces={result.traces}
             measures={result.measures}

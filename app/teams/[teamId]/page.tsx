@@ -19,7 +19,7 @@ export function generateMetadata({ params }: { params: Promise<{ teamId: string 
 const ROLE_HELP = [
   ["owner", "everything, plus members, roles and deleting projects"],
   ["designer", "creates projects and runs, uploads measurements, asks for review"],
-  ["reviewer", "reads, comments, approves or requests changes"],
+  ["reviewer", "reads, comments, signs off or sends back runs"],
   ["viewer", "reads only"],
 ] as const;
 

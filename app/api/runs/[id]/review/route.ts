@@ -7,7 +7,7 @@ export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /**
- * POST /api/runs/:id/review `{action: "request"|"approve"|"request_changes"|"supersede", note?, supersededBy?}`
+ * POST /api/runs/:id/review `{action: "submit"|"sign_off"|"send_back"|"supersede", note?, supersededBy?}`
  * → the new review state and the recorded event. 409 when the run's state doesn't allow the step.
  */
 export const POST = withApi(async (req: Request, { params }: { params: Promise<{ id: string }> }) => {
