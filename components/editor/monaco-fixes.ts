@@ -15,7 +15,18 @@ interface Problem {
   fix?: NetlistFix;
 }
 
-const problems = new WeakMap<Monaco.editor.ITextModel, Problem[]>();
+/**
+ * The problems of a model and the text version they were computed for. Markers are not moved when
+ * the text changes, so after an edit (and until the next check) neither the hover nor a quick fix
+ * may act on them: a fix applied at a stale column would corrupt the line.
+ */
+const problems = new WeakMap<Monaco.editor.ITextModel, { version: number; list: Problem[] }>();
+
+/** The problems that still describe the model's current text (none while a check is pending). */
+function currentProblems(model: Monaco.editor.ITextModel): Problem[] {
+  const entry = problems.get(model);
+  return entry && entry.version === model.getVersionId() ? entry.list : [];
+}
 
 const isMac = () => typeof navigator !== "undefined" && /Mac|iPhone|iPad/.test(navigator.platform);
 
@@ -59,7 +70,7 @@ export function setNetlistMarkers(
       },
     });
   }
-  problems.set(model, list);
+  problems.set(model, { version: model.getVersionId(), list });
   monaco.editor.setModelMarkers(
     model,
     MARKER_OWNER,
@@ -80,7 +91,7 @@ function escapeOutsideCode(text: string): string {
 
 /** Markdown for the problems under the cursor, in our words. */
 export function problemHover(model: Monaco.editor.ITextModel, line: number, column: number): string | null {
-  const here = (problems.get(model) ?? []).filter((p) => touches(p.marker, line, column));
+  const here = currentProblems(model).filter((p) => touches(p.marker, line, column));
   if (here.length === 0) return null;
   const keys = isMac() ? "⌘." : "Ctrl+.";
   return here
@@ -98,7 +109,7 @@ function codeActions(
   range: Monaco.Range,
 ): Monaco.languages.CodeAction[] {
   const actions: Monaco.languages.CodeAction[] = [];
-  for (const { marker, fix } of problems.get(model) ?? []) {
+  for (const { marker, fix } of currentProblems(model)) {
     if (!fix) continue;
     const markerRange = new monaco.Range(
       marker.startLineNumber,

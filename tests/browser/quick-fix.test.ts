@@ -89,6 +89,10 @@ describe("quick fixes from our hints", () => {
     await page.keyboard.press("Home");
     for (let k = 0; k < 15; k++) await page.keyboard.press("ArrowRight");
     await applyQuickFix(page, /Write `?volts\(out\)`?/);
+    // Fixes act only on markers of the current text: wait for the check of the edited text (one error left).
+    await expect
+      .poll(() => page.locator(".monaco-editor .squiggly-error").count(), { timeout: 30_000 })
+      .toBe(1);
     await page.keyboard.press("End");
     for (let k = 0; k < 4; k++) await page.keyboard.press("ArrowLeft");
     await applyQuickFix(page, /Write `?volts\(in\)`?/);

@@ -50,6 +50,6 @@ describe("buildBodeFigure", () => {
     const pins = data.at(-1) as { x: number[]; y: number[]; text: string[] };
     expect(pins.x).toEqual([1000]);
     expect(pins.y[0]).toBeCloseTo(-40, 9);
-    expect(pins.text).toEqual(["why?"]);
+    expect(pins.text).toEqual(["1 kHz<br>why?"]); // the hover names the pinned frequency before the note
   });
 });

@@ -77,7 +77,7 @@ describe("OpenAPI document", () => {
       ["b", true],
     ]);
     const review = doc.paths["/api/runs/{id}/review"].post.requestBody.content["application/json"].schema;
-    expect(review.properties.action.enum).toEqual(["request", "approve", "request_changes", "supersede"]);
+    expect(review.properties.action.enum).toEqual(["submit", "sign_off", "send_back", "supersede"]);
     expect(doc.paths["/api/health"].get.security).toEqual([]);
     expect(doc.paths["/api/runs/{id}"].get.responses["404"].content["application/json"].schema).toEqual({
       $ref: "#/components/schemas/Error",
