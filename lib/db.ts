@@ -1,5 +1,6 @@
 import { Sequelize } from "sequelize";
 import { ApiToken } from "@/models/api-token";
+import { BenchReading } from "@/models/bench-reading";
 import { Comment } from "@/models/comment";
 import { Invitation } from "@/models/invitation";
 import { Measurement } from "@/models/measurement";
@@ -43,6 +44,7 @@ function initModels(db: Sequelize): void {
     Comment,
     ReviewEvent,
     Measurement,
+    BenchReading,
     OutboxEmail,
   ]) {
     model.initModel(db);
@@ -83,6 +85,10 @@ function initModels(db: Sequelize): void {
   Project.hasMany(Measurement, { foreignKey: "projectId", as: "measurements" });
   Measurement.belongsTo(Project, { foreignKey: "projectId", as: "project" });
   Measurement.belongsTo(User, { foreignKey: "uploadedById", as: "uploadedBy" });
+
+  Run.hasMany(BenchReading, { foreignKey: "runId", as: "readings" });
+  BenchReading.belongsTo(Run, { foreignKey: "runId", as: "run" });
+  BenchReading.belongsTo(User, { foreignKey: "authorId", as: "author" });
 }
 
 initModels(sequelize);
@@ -109,6 +115,7 @@ export type { ReviewAction } from "@/models/review-event";
 export type { ReviewState, RunStatus } from "@/models/run";
 export {
   ApiToken,
+  BenchReading,
   Comment,
   Invitation,
   Measurement,

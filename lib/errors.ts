@@ -72,6 +72,16 @@ export class DatabaseUnavailableError extends AppError {
   }
 }
 
+/** The object store (attachments) does not answer; nothing was saved. */
+export class StorageUnavailableError extends AppError {
+  constructor(
+    message = "The file store is not reachable right now, so nothing was saved. Try again shortly.",
+    details?: Record<string, unknown>,
+  ) {
+    super(503, "storage_unavailable", message, details);
+  }
+}
+
 const CONNECTION_ERROR_NAMES = new Set([
   "SequelizeConnectionError",
   "SequelizeConnectionRefusedError",

@@ -30,3 +30,12 @@ export const MAX_QUEUED_SAMPLES = 20_000;
 
 /** How long a queued solve may run before the queue gives up on it, in seconds. */
 export const JOB_EXPIRE_SECONDS = 15 * 60;
+
+/** Largest scope capture (PNG or JPEG) attached to a bench reading, in bytes. */
+export const MAX_READING_IMAGE_BYTES = 10 * 1024 * 1024;
+
+/** Largest CSV attached to a bench reading, in bytes. */
+export const MAX_READING_CSV_BYTES = 5 * 1024 * 1024;
+
+/** Most bench readings one run keeps. */
+export const MAX_READINGS_PER_RUN = 200;

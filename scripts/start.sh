@@ -8,6 +8,7 @@ cd "$ROOT"
 export PORT="${PORT:-3000}"
 export APP_ENV="${APP_ENV:-development}"
 export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:2526}"
+export S3_PORT="${S3_PORT:-4526}"
 export NEXTAUTH_URL="${NEXTAUTH_URL:-http://localhost:$PORT}"
 started=$SECONDS
 
@@ -23,6 +24,14 @@ pg_up
 export DATABASE_URL="${DATABASE_URL:-$(db_url phasewright)}"
 ensure_secret
 
+# The object store fake comes up before the seed (demo readings may carry attachments), unless
+# S3_ENDPOINT names a real store.
+if [ -z "${S3_ENDPOINT:-}" ] && ! pid_alive "$DATA_DIR/s3.pid"; then
+  require_free_port "$S3_PORT" S3_PORT "the local object store fake" || exit 1
+  start_s3_fake "$S3_PORT" "$DATA_DIR/s3" "$DATA_DIR/s3.pid" "$DATA_DIR/s3.log" || die "the object store fake did not start"
+fi
+trap 'stop_pidfile "$DATA_DIR/s3.pid" "object store fake"' EXIT
+
 node_modules/.bin/tsx scripts/lib/prepare-db.ts # = npm run db:migrate && npm run db:seed
 ensure_build
 
@@ -31,6 +40,7 @@ cleanup() {
   stop_pidfile "$DATA_DIR/app.pid" app
   stop_pidfile "$DATA_DIR/worker.pid" worker
   stop_pidfile "$DATA_DIR/smtp.pid" "SMTP sink"
+  stop_pidfile "$DATA_DIR/s3.pid" "object store fake"
 }
 trap cleanup EXIT
 trap 'exit 130' INT

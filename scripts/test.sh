@@ -8,6 +8,7 @@ cd "$ROOT"
 
 TEST_PORT="${E2E_PORT:-3101}"
 TEST_SMTP_PORT="${E2E_SMTP_PORT:-2527}"
+TEST_S3_PORT="${E2E_S3_PORT:-4527}"
 export APP_ENV=test
 export DATABASE_URL="$(db_url phasewright_test)"
 export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-phasewright-test-secret-0123456789}"
@@ -22,6 +23,16 @@ if [ "$PG_STARTED_HERE" = "1" ] && [ -z "${KEEP_PG:-}" ]; then trap 'pg_down' EX
 log "recreating database phasewright_test"
 recreate_database phasewright_test
 node_modules/.bin/tsx scripts/migrate.ts up
+
+# The object store fake for integration and browser tests (fresh data each run), stopped at the end.
+stop_s3_fake() { stop_pidfile "$DATA_DIR/test-s3.pid" "test object store fake"; }
+export S3_PORT="$TEST_S3_PORT" E2E_S3_PORT="$TEST_S3_PORT" S3_BUCKET="${S3_BUCKET:-phasewright-test}"
+unset S3_ENDPOINT
+require_free_port "$TEST_S3_PORT" E2E_S3_PORT "the test object store fake" || exit 1
+rm -rf "$DATA_DIR/s3-test"
+start_s3_fake "$TEST_S3_PORT" "$DATA_DIR/s3-test" "$DATA_DIR/test-s3.pid" "$DATA_DIR/test-s3.log" ||
+  die "the test object store fake did not start"
+if [ "$PG_STARTED_HERE" = "1" ] && [ -z "${KEEP_PG:-}" ]; then trap 'stop_s3_fake; pg_down' EXIT; else trap 'stop_s3_fake' EXIT; fi
 
 failed=()
 stage() {
@@ -67,7 +78,7 @@ if [ -d tests/browser ] && [ -n "$(find tests/browser -name '*.test.ts' -print -
     stop_pidfile "$DATA_DIR/test-app.pid" "test app"
     stop_pidfile "$DATA_DIR/test-smtp.pid" "test SMTP sink"
   }
-  trap 'stop_test_services; [ "$PG_STARTED_HERE" = "1" ] && [ -z "${KEEP_PG:-}" ] && pg_down' EXIT
+  trap 'stop_test_services; stop_s3_fake; [ "$PG_STARTED_HERE" = "1" ] && [ -z "${KEEP_PG:-}" ] && pg_down' EXIT
   stage browser browser_stage
   stop_test_services
 fi

@@ -9,6 +9,7 @@ import { commentCreateSchema, commentPatchSchema } from "@/lib/validations/comme
 import { invitationCreateSchema } from "@/lib/validations/invitation";
 import { measurementUploadSchema } from "@/lib/validations/measurement";
 import { projectCreateSchema, projectListQuerySchema, tokenCreateSchema } from "@/lib/validations/project";
+import { readingCreateSchema, readingParamsSchema } from "@/lib/validations/reading";
 import { reviewActionSchema } from "@/lib/validations/review";
 import { compareQuerySchema, runCreateSchema, runListQuerySchema } from "@/lib/validations/run";
 import { solveRequestSchema } from "@/lib/validations/solve";
@@ -231,6 +232,52 @@ export const API_ROUTES: ApiRoute[] = [
     body: commentPatchSchema,
     ok: { status: 200, description: "`{comment}`" },
     errors: [400, 404],
+  },
+  {
+    path: "/api/runs/{id}/readings",
+    method: "get",
+    tag: "readings",
+    summary: "A run's bench readings, each beside the run's prediction",
+    description:
+      "Each reading has its arithmetic in words (`steps`), and `comparison`: measured, predicted, deviation in %, and where the run has Monte Carlo of the measure, the reading's percentile and whether it lies inside p1…p99.",
+    auth: "token",
+    params: id("run"),
+    ok: { status: 200, description: "`{readings}`" },
+    errors: [404],
+  },
+  {
+    path: "/api/runs/{id}/readings",
+    method: "post",
+    tag: "readings",
+    summary: "Record what the bench showed (designer or owner)",
+    description:
+      "JSON, or multipart form data with the same fields and an optional `file`: a PNG/JPEG scope capture up to 10 MB or a CSV up to 5 MB, judged by its content. The file goes to the object store first; when the store is down the answer is 503 and nothing is saved.",
+    auth: "token",
+    params: id("run"),
+    body: readingCreateSchema,
+    otherBodies: { "multipart/form-data": "the same fields as form fields, and an optional `file`" },
+    ok: { status: 201, description: "`{reading}`" },
+    errors: [400, 403, 404, 413, 503],
+  },
+  {
+    path: "/api/runs/{id}/readings/{readingId}",
+    method: "delete",
+    tag: "readings",
+    summary: "Delete a reading and its attachment (designer or owner)",
+    auth: "token",
+    params: readingParamsSchema,
+    ok: { status: 204, description: "deleted" },
+    errors: [403, 404, 503],
+  },
+  {
+    path: "/api/runs/{id}/readings/{readingId}/attachment",
+    method: "get",
+    tag: "readings",
+    summary: "Download a reading's attachment (members of the run's team only)",
+    auth: "token",
+    params: readingParamsSchema,
+    ok: { status: 200, description: "the file", contentType: "image/png, image/jpeg or text/csv" },
+    errors: [404, 503],
   },
   {
     path: "/api/compare",

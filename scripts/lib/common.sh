@@ -205,6 +205,22 @@ pid_alive() {
   return 1
 }
 
+# Start the object store fake (scripts/s3-fake.ts, s3rver) on 127.0.0.1:PORT with its data in DIR, in
+# its own process group; wait until it answers. Args: port, data dir, pid file, log file.
+start_s3_fake() {
+  local port="$1" dir="$2" pidfile="$3" logfile="$4" i
+  mkdir -p "$dir"
+  S3_PORT="$port" S3_DATA_DIR="$dir" setsid node_modules/.bin/tsx scripts/s3-fake.ts </dev/null >"$logfile" 2>&1 &
+  echo $! >"$pidfile"
+  for i in $(seq 1 60); do
+    port_taken "$port" && return 0
+    pid_alive "$pidfile" || { tail -n 20 "$logfile" >&2; return 1; }
+    sleep 0.25
+  done
+  tail -n 20 "$logfile" >&2
+  return 1
+}
+
 # Stop the process group recorded in a pid file (TERM, then KILL after 10 s).
 stop_pidfile() {
   local file="$1" name="$2" pid i

@@ -1,9 +1,38 @@
 // vitest globalSetup for the integration project: make sure the test database exists and is migrated.
+import net from "node:net";
+import path from "node:path";
+import S3rver from "s3rver";
 import { Sequelize } from "sequelize";
 import { createMigrator } from "../../scripts/lib/migrator";
 import { testDatabaseUrl } from "./test-db-url";
 
-export default async function setup(): Promise<void> {
+function answers(port: number): Promise<boolean> {
+  return new Promise((resolve) => {
+    const socket = net.connect({ host: "127.0.0.1", port }, () => {
+      socket.end();
+      resolve(true);
+    });
+    socket.on("error", () => resolve(false));
+  });
+}
+
+/** The test object store fake: the one scripts/test.sh started, or one of our own for a hand run. */
+async function ensureObjectStore(): Promise<(() => Promise<void>) | undefined> {
+  if (process.env.S3_ENDPOINT) return undefined;
+  const port = Number(process.env.E2E_S3_PORT || "4527");
+  if (await answers(port)) return undefined;
+  const fake = new S3rver({
+    address: "127.0.0.1",
+    port,
+    silent: true,
+    directory: path.resolve(".data/s3-test-vitest"),
+    resetOnClose: true,
+  });
+  await fake.run();
+  return () => fake.close();
+}
+
+export default async function setup(): Promise<(() => Promise<void>) | undefined> {
   const url = testDatabaseUrl();
   process.env.DATABASE_URL = url;
   const target = new URL(url);
@@ -32,4 +61,5 @@ export default async function setup(): Promise<void> {
   } finally {
     await db.close();
   }
+  return ensureObjectStore();
 }

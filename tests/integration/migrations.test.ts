@@ -36,6 +36,7 @@ async function indexDefs(table: string): Promise<string[]> {
 const ALL_TABLES = [
   "SequelizeMeta",
   "api_tokens",
+  "bench_readings",
   "comments",
   "invitations",
   "measurements",
@@ -69,6 +70,7 @@ describe("migrations", () => {
       "202612021400-run-result-json-lz4",
       "202612022010-netlist-probe-names",
       "202612022020-review-words",
+      "202612030330-bench-readings",
     ]);
   });
 
@@ -88,6 +90,10 @@ describe("migrations", () => {
     expect(await foreignKeys("review_events")).toEqual({
       run_id: "runs CASCADE",
       actor_id: "users RESTRICT",
+    });
+    expect(await foreignKeys("bench_readings")).toEqual({
+      run_id: "runs CASCADE",
+      author_id: "users RESTRICT",
     });
   });
 
@@ -158,7 +164,8 @@ describe("migrations", () => {
 
   it("drop the job table and its enum going down past it, and create them again going up", async () => {
     await downTo("202612021130-create-run-jobs");
-    expect(await tables()).toEqual(ALL_TABLES.filter((t) => t !== "run_jobs"));
+    // Later tables (bench_readings) go down first.
+    expect(await tables()).toEqual(ALL_TABLES.filter((t) => t !== "run_jobs" && t !== "bench_readings"));
     const [types] = await sequelize.query("SELECT 1 FROM pg_type WHERE typname = 'enum_run_jobs_state'");
     expect(types).toHaveLength(0);
 
