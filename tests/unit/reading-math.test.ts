@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { toSi } from "@/components/readings/units";
 import { sniffAttachment } from "@/lib/attachments";
 import {
   compareReading,
@@ -127,5 +128,14 @@ describe("readingCreateSchema", () => {
     });
     expect(ok).toMatchObject({ value: 1500, node: "out" });
     expect(ok.measureName).toBeUndefined();
+  });
+});
+
+describe("the form's units", () => {
+  it("applies the prefix in decimal, so 10 µs is the double nearest 1e-5 (not 10 × 1e-6)", () => {
+    expect(toSi("10", "µs", "s")).toBe(1e-5);
+    expect(toSi("9,8", "", "s")).toBe(9.8);
+    expect(toSi("1.5e1", "kHz", "Hz")).toBe(15_000);
+    expect(toSi("abc", "V", "V")).toBeUndefined();
   });
 });

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AnalysesPanel } from "@/components/analyses/analyses-panel";
 import { analysisSections } from "@/components/analyses/analysis-math";
+import { ReadingsPanel } from "@/components/readings/readings-panel";
 import { ReviewActions } from "@/components/review/review-actions";
 import { ReviewHistory } from "@/components/review/review-history";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
@@ -14,10 +15,12 @@ import { WarningsList } from "@/components/run/warnings-list";
 import { RunWorkspace } from "@/components/runs/run-workspace";
 import { Notice } from "@/components/ui/notice";
 import { Panel, PanelHeader } from "@/components/ui/panel";
+import { can } from "@/lib/authz";
 import { listComments } from "@/lib/comments";
 import { NotFoundError } from "@/lib/errors";
 import { listMeasurements } from "@/lib/measurements";
 import { runPageMetadata } from "@/lib/page-titles";
+import { listReadings } from "@/lib/readings";
 import { getRun } from "@/lib/runs";
 import { requireUser } from "@/lib/session";
 import { formatDate } from "@/lib/utils";
@@ -35,7 +38,10 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
       throw err;
     },
   );
-  const measurements = await listMeasurements(actor, run.projectId);
+  const [measurements, readings] = await Promise.all([
+    listMeasurements(actor, run.projectId),
+    listReadings(actor, run.id),
+  ]);
   const result = run.result;
   const plotId = `run-plot-${run.id.slice(0, 8)}`;
   const stamp = { title: run.title, netlistHash: run.netlistHash };
@@ -144,6 +150,15 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
           </div>
         </Panel>
       ) : null}
+
+      <div className="mt-6">
+        <ReadingsPanel
+          runId={run.id}
+          readings={readings}
+          measures={result?.measures ?? []}
+          canRecord={can(run.role, "measurement:upload")}
+        />
+      </div>
 
       <div className="mt-6 grid gap-6 lg:grid-cols-[minmax(0,1fr)_22rem]">
         <div className="min-w-0 space-y-6">
