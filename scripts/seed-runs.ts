@@ -4,6 +4,7 @@ import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User 
 import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
 import { LINE_DRIVER, LOWPASS_STAGE2, PILOT_NOTCH, WIEN_1K, WIEN_REV_A, WIEN_REV_B } from "./demo/netlists";
 import type { DemoSeed } from "./seed";
+import { seedReadings } from "./seed-readings";
 
 type SeedUsers = Pick<DemoSeed["users"], "owner" | "designer" | "reviewer">;
 
@@ -68,6 +69,7 @@ function measure(run: Run, name: string): number | null {
 export async function seedRuns(seed: Pick<DemoSeed, "users" | "projects" | "transaction">): Promise<void> {
   const { users, projects, transaction: t } = seed;
   await seedOscillator(t, projects.oscillator, users);
+  await seedReadings(t, projects.oscillator, users);
   await seedFilter(t, projects.filter, users);
 }
 
@@ -249,6 +251,7 @@ export async function seedDemoRuns(): Promise<boolean> {
   if (!oscillator || !filter) return false;
   await sequelize.transaction(async (transaction) => {
     await seedOscillator(transaction, oscillator, users);
+    await seedReadings(transaction, oscillator, users);
     await seedFilter(transaction, filter, users);
   });
   return true;
