@@ -8,6 +8,9 @@ import { formatNumber, formatPercent, formatQuantity } from "@/components/run/fo
 import type { ReadingForm, ReadingQuantity } from "@/lib/reading-kinds";
 import type { MeasureResult, MeasureStats } from "@/solver/types";
 
+/** What a run predicted: its measures and, if it has Monte Carlo, their statistics. */
+export type Prediction = { measures: MeasureResult[]; monteCarlo: MeasureStats[] | undefined };
+
 export type ReadingNumbers = {
   quantity: ReadingQuantity;
   form: ReadingForm;

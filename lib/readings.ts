@@ -11,11 +11,19 @@ import { BenchReading, sequelize, User } from "@/lib/db";
 import { BadRequestError, NotFoundError, withDb } from "@/lib/errors";
 import { MAX_READINGS_PER_RUN } from "@/lib/limits";
 import type { ReadingForm, ReadingQuantity } from "@/lib/reading-kinds";
-import { type Comparison, comparableMeasures, compareReading, deriveReading } from "@/lib/reading-math";
+import {
+  type Comparison,
+  comparableMeasures,
+  compareReading,
+  deriveReading,
+  type Prediction,
+} from "@/lib/reading-math";
 import type { Actor } from "@/lib/session";
 import { deleteObject, getObject, putObject } from "@/lib/storage/object-store";
 import type { ReadingCreateInput } from "@/lib/validations/reading";
 import type { MeasureResult, MeasureStats } from "@/solver/types";
+
+export type { Prediction } from "@/lib/reading-math";
 
 export type ReadingView = {
   id: string;
@@ -36,9 +44,6 @@ export type ReadingView = {
   comparison: Comparison;
   attachment: { name: string; type: string; size: number; url: string } | null;
 };
-
-/** What the run predicted: its measures and, if it has Monte Carlo, their statistics. */
-export type Prediction = { measures: MeasureResult[]; monteCarlo: MeasureStats[] | undefined };
 
 /** The run's measures and Monte Carlo statistics, without reading its whole result across the wire. */
 export async function loadPrediction(runId: string): Promise<Prediction> {

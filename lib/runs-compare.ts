@@ -1,4 +1,7 @@
 import { compareRuns, type RunComparison } from "@/lib/compare";
+import { compareReadings, type ReadingCompareRow } from "@/lib/compare-readings";
+import type { Prediction } from "@/lib/reading-math";
+import { readingsOfRuns } from "@/lib/readings";
 import { getRun, type RunDetail } from "@/lib/runs";
 import type { Actor } from "@/lib/session";
 
@@ -6,7 +9,18 @@ export type CompareSideView = Pick<
   RunDetail,
   "id" | "title" | "authorName" | "createdAt" | "reviewState" | "checksPassed" | "checksTotal" | "project"
 >;
-export type SavedComparison = { a: CompareSideView; b: CompareSideView; comparison: RunComparison };
+export type SavedComparison = {
+  a: CompareSideView;
+  b: CompareSideView;
+  comparison: RunComparison;
+  /** Bench readings of either run beside both predictions (lib/compare-readings.ts). */
+  readings: ReadingCompareRow[];
+};
+
+const predictionOf = (r: RunDetail): Prediction => ({
+  measures: r.measures,
+  monteCarlo: r.result?.monteCarlo?.measures,
+});
 
 function side(r: RunDetail): CompareSideView {
   const { id, title, authorName, createdAt, reviewState, checksPassed, checksTotal, project } = r;
@@ -20,5 +34,10 @@ export async function compareSavedRuns(actor: Actor, aId: string, bId: string): 
     { netlist: a.netlist, result: a.result },
     { netlist: b.netlist, result: b.result },
   );
-  return { a: side(a), b: side(b), comparison };
+  const byRun = await readingsOfRuns([a.id, b.id]);
+  const readings = compareReadings(
+    { a: byRun.get(a.id) ?? [], b: a.id === b.id ? [] : (byRun.get(b.id) ?? []) },
+    { a: predictionOf(a), b: predictionOf(b) },
+  );
+  return { a: side(a), b: side(b), comparison, readings };
 }

@@ -8,6 +8,7 @@ import { MeasuresCompare } from "@/components/compare/measures-compare";
 import { NetlistDiff } from "@/components/compare/netlist-diff";
 import { CompareOverlayPlot } from "@/components/compare/overlay-plot";
 import { PartsChanges } from "@/components/compare/parts-changes";
+import { ReadingsCompare } from "@/components/compare/readings-compare";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
 import { Caution } from "@/components/run/caution";
 import { EmptyState } from "@/components/ui/empty-state";
@@ -60,7 +61,7 @@ export default async function ComparePage({ searchParams }: Props) {
 
 /** The comparison itself: both results loaded, diffed and overlaid. */
 async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; b: string }) {
-  const { a, b, comparison } = await visibleOr404(() => compareSavedRuns(actor, idA, idB));
+  const { a, b, comparison, readings } = await visibleOr404(() => compareSavedRuns(actor, idA, idB));
   const labelA = `A: ${a.title}`;
   const labelB = `B: ${b.title}`;
   return (
@@ -111,6 +112,16 @@ async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; 
             </Panel>
           </div>
         </div>
+        <Panel aria-labelledby="readings-h">
+          <PanelHeader
+            id="readings-h"
+            title="Bench readings"
+            description="What the boards showed, against A's and B's prediction (deviation in %)."
+          />
+          <div className="p-3">
+            <ReadingsCompare rows={readings} />
+          </div>
+        </Panel>
         <Panel aria-labelledby="diff-h">
           <PanelHeader
             id="diff-h"

@@ -2,6 +2,7 @@
 // started by scripts/test.sh or by global-setup.ts): upload, download, roles, the store being down,
 // and validation errors by field.
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
+import { GET as compareRoute } from "@/app/api/compare/route";
 import { GET as getAttachment } from "@/app/api/runs/[id]/readings/[readingId]/attachment/route";
 import { DELETE as deleteRoute } from "@/app/api/runs/[id]/readings/[readingId]/route";
 import { GET as listRoute, POST as postRoute } from "@/app/api/runs/[id]/readings/route";
@@ -255,5 +256,41 @@ describe("attachments in the object store", () => {
       );
       expect(await BenchReading.count()).toBe(1);
     });
+  });
+});
+
+describe("readings in compare", () => {
+  it("sets each reading beside both runs' predictions", async () => {
+    const later = await insertRun(fx.project.id, fx.users.designer.id, { title: "Bridge, 1.5 nF" });
+    // The same bridge with C = 1.5 nF: f0 = 1/(2π · 10 kΩ · 1.5 nF) = 10 610.33 Hz (common practice).
+    const f0b = 1 / (2 * Math.PI * 10e3 * 1.5e-9);
+    await Run.update(
+      { measures: [{ name: "f0", value: f0b, unit: "Hz", reason: null }] },
+      { where: { id: later.id } },
+    );
+    const reading = {
+      quantity: "period",
+      form: "divisions",
+      divisions: 9.8,
+      perDivision: 10e-6,
+      measureName: "f0",
+    };
+    expect(
+      (await call(postRoute, { token: tokens.designer, params: { id: runId }, body: reading })).status,
+    ).toBe(201);
+
+    const res = await call(compareRoute, {
+      token: tokens.viewer,
+      path: `/api/compare?a=${runId}&b=${later.id}`,
+    });
+    expect(res.status).toBe(200);
+    expect(res.body.readings).toHaveLength(1);
+    const row = res.body.readings[0];
+    expect(row.of).toBe("a");
+    expect(row.against.a.deviationPct).toBeCloseTo(((1 / 98e-6 - F0) / F0) * 100, 9);
+    expect(row.against.a.spread.inside).toBe(false);
+    // B has no Monte Carlo: a deviation, no spread. 10 204.08 Hz vs 10 610.33 Hz = −3.83 %.
+    expect(row.against.b.deviationPct).toBeCloseTo(((1 / 98e-6 - f0b) / f0b) * 100, 9);
+    expect(row.against.b.spread).toBeNull();
   });
 });

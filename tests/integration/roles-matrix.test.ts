@@ -11,6 +11,7 @@ import { POST as createRun, GET as listRuns } from "@/app/api/projects/[id]/runs
 import { PATCH as patchComment } from "@/app/api/runs/[id]/comments/[commentId]/route";
 import { GET as listComments, POST as postComment } from "@/app/api/runs/[id]/comments/route";
 import { GET as exportCsv } from "@/app/api/runs/[id]/export.csv/route";
+import { GET as listReadings, POST as postReading } from "@/app/api/runs/[id]/readings/route";
 import { POST as reviewRoute } from "@/app/api/runs/[id]/review/route";
 import { GET as getRun } from "@/app/api/runs/[id]/route";
 import { POST as invite, GET as listInvitations } from "@/app/api/teams/[id]/invitations/route";
@@ -145,6 +146,21 @@ const cases: Case[] = [
       }),
   },
   {
+    name: "GET /api/runs/:id/readings",
+    expect: READ,
+    run: (who) => call(listReadings, { token: tokens[who], params: { id: runId } }),
+  },
+  {
+    name: "POST /api/runs/:id/readings (as for bench measurements)",
+    expect: { owner: 201, designer: 201, reviewer: 403, viewer: 403, outsider: 404 },
+    run: (who) =>
+      call(postReading, {
+        token: tokens[who],
+        params: { id: runId },
+        body: { quantity: "frequency", form: "value", value: 1000, note: `read by ${who}` },
+      }),
+  },
+  {
     name: "GET /api/teams/:id/invitations",
     expect: { owner: 200, designer: 403, reviewer: 403, viewer: 403, outsider: 404 },
     run: (who) => call(listInvitations, { token: tokens[who], params: { id: fx.team.id } }),
@@ -203,8 +219,9 @@ describe("route × role", () => {
       (await call(postComment, { token: bogus, params: { id: runId }, body: { body: "x" } })).status,
       (await call(reviewRoute, { token: bogus, params: { id: runId }, body: { action: "submit" } })).status,
       (await call(compareRoute, { token: bogus, path: `/api/compare?a=${runId}&b=${otherRunId}` })).status,
+      (await call(listReadings, { token: bogus, params: { id: runId } })).status,
     ];
-    expect(statuses).toEqual([401, 401, 401, 401, 401]);
+    expect(statuses).toEqual([401, 401, 401, 401, 401, 401]);
     expect((await call(outboxRoute, {})).status).toBe(200);
   });
 });
