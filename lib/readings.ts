@@ -10,11 +10,12 @@ import { authorizeRun } from "@/lib/authz";
 import { BenchReading, sequelize, User } from "@/lib/db";
 import { BadRequestError, NotFoundError, withDb } from "@/lib/errors";
 import { MAX_READINGS_PER_RUN } from "@/lib/limits";
-import type { ReadingForm, ReadingQuantity } from "@/lib/reading-kinds";
+import { QUANTITY_LABEL, type ReadingForm, type ReadingQuantity } from "@/lib/reading-kinds";
 import {
   type Comparison,
   comparableMeasures,
   compareReading,
+  comparisonLine,
   deriveReading,
   type Prediction,
 } from "@/lib/reading-math";
@@ -120,6 +121,15 @@ export async function readingsOfRuns(runIds: string[]): Promise<Map<string, Read
     );
   }
   return out;
+}
+
+/** One line per reading for the review e-mails: what was read, how, and how it stands against the prediction. */
+export async function readingSummaryLines(runId: string): Promise<string[]> {
+  const views = (await readingsOfRuns([runId])).get(runId) ?? [];
+  return views.map((r) => {
+    const where = r.node ? ` at ${r.node}` : "";
+    return `${QUANTITY_LABEL[r.quantity]}${where}: ${r.steps} — ${comparisonLine(r.measureName, r.comparison)} (${r.authorName})`;
+  });
 }
 
 /** The run's readings, oldest first (any member of the team). */

@@ -4,6 +4,7 @@ import { Membership, ReviewEvent, RUN_HEAVY_COLUMNS, Run, sequelize, User } from
 import { AppError, BadRequestError, ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
 import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
 import { signOffRequestMail, verdictMail } from "@/lib/mail/templates";
+import { readingSummaryLines } from "@/lib/readings";
 import { nextReviewState, REVIEW_STATE_LABELS, type ReviewState, VERDICT_ACTIONS } from "@/lib/review-states";
 import type { Actor } from "@/lib/session";
 import type { ReviewActionBody } from "@/lib/validations/review";
@@ -76,6 +77,7 @@ export async function reviewRun(actor: Actor, runId: string, body: ReviewActionB
           throw new ForbiddenError("You cannot sign off or send back your own run.");
         }
         await run.update({ reviewState: to }, { transaction });
+        const readings = await readingSummaryLines(runId);
         if (body.action === "submit") {
           const reviewers = await Membership.findAll({
             where: { teamId, role: "reviewer", userId: { [Op.ne]: actor.userId } },
@@ -91,6 +93,7 @@ export async function reviewRun(actor: Actor, runId: string, body: ReviewActionB
                   runTitle: run.title,
                   runId,
                   note,
+                  readings,
                 }),
               );
             }
@@ -106,6 +109,7 @@ export async function reviewRun(actor: Actor, runId: string, body: ReviewActionB
                 runId,
                 verdict: body.action,
                 note,
+                readings,
               }),
             );
           }

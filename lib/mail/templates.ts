@@ -43,6 +43,12 @@ export function commentMail(p: {
   };
 }
 
+/** The run's bench readings beside its prediction, one line each (lib/readings.ts `readingSummaryLines`). */
+function benchSection(lines?: string[]): string {
+  if (!lines?.length) return "";
+  return `\n\nBench readings (${lines.length}):\n${lines.map((l) => `- ${l}`).join("\n")}`;
+}
+
 /** To each reviewer of the team when a designer asks for sign-off. */
 export function signOffRequestMail(p: {
   to: string;
@@ -50,11 +56,12 @@ export function signOffRequestMail(p: {
   runTitle: string;
   runId: string;
   note?: string | null;
+  readings?: string[];
 }): MailMessage {
   return {
     to: p.to,
     subject: `Sign-off asked: "${p.runTitle}"`,
-    text: `${p.requester} asks you to sign off the run "${p.runTitle}", or send it back with a note.${p.note ? `\n\n${quote(p.note)}` : ""}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
+    text: `${p.requester} asks you to sign off the run "${p.runTitle}", or send it back with a note.${p.note ? `\n\n${quote(p.note)}` : ""}${benchSection(p.readings)}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
   };
 }
 
@@ -66,12 +73,13 @@ export function verdictMail(p: {
   runId: string;
   verdict: "sign_off" | "send_back";
   note?: string | null;
+  readings?: string[];
 }): MailMessage {
   const signedOff = p.verdict === "sign_off";
   return {
     to: p.to,
     subject: `${signedOff ? "Signed off" : "Sent back"}: "${p.runTitle}"`,
-    text: `${p.reviewer} ${signedOff ? "signed off" : "sent back"} your run "${p.runTitle}".${p.note ? `\n\n${quote(p.note)}` : ""}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
+    text: `${p.reviewer} ${signedOff ? "signed off" : "sent back"} your run "${p.runTitle}".${p.note ? `\n\n${quote(p.note)}` : ""}${benchSection(p.readings)}\n\nOpen the run: ${appUrl(`/runs/${p.runId}`)}\n`,
   };
 }
 

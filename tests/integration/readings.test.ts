@@ -6,13 +6,15 @@ import { GET as compareRoute } from "@/app/api/compare/route";
 import { GET as getAttachment } from "@/app/api/runs/[id]/readings/[readingId]/attachment/route";
 import { DELETE as deleteRoute } from "@/app/api/runs/[id]/readings/[readingId]/route";
 import { GET as listRoute, POST as postRoute } from "@/app/api/runs/[id]/readings/route";
-import { BenchReading, Run } from "@/lib/db";
+import { POST as reviewRoute } from "@/app/api/runs/[id]/review/route";
+import { BenchReading, OutboxEmail, Run } from "@/lib/db";
 import { INSIDE_SPREAD, OUTSIDE_SPREAD } from "@/lib/reading-math";
 import { configureObjectStore, objectExists, type StoreConfig } from "@/lib/storage/object-store";
 import { call, insertRun, smallResult, tokensFor, type Who } from "./runs-fixtures";
 import { createFixtures, type Fixtures, useTestDb } from "./setup";
 
 useTestDb();
+process.env.OUTBOX_AUTODELIVER = "0";
 
 let fx: Fixtures;
 let tokens: Record<Who, string>;
@@ -292,5 +294,30 @@ describe("readings in compare", () => {
     // B has no Monte Carlo: a deviation, no spread. 10 204.08 Hz vs 10 610.33 Hz = −3.83 %.
     expect(row.against.b.deviationPct).toBeCloseTo(((1 / 98e-6 - f0b) / f0b) * 100, 9);
     expect(row.against.b.spread).toBeNull();
+  });
+});
+
+describe("readings in the review e-mail", () => {
+  it("lists each reading with its arithmetic and verdict when sign-off is asked", async () => {
+    const body = {
+      quantity: "period",
+      form: "divisions",
+      divisions: 9.8,
+      perDivision: 10e-6,
+      measureName: "f0",
+      node: "out",
+    };
+    expect((await call(postRoute, { token: tokens.designer, params: { id: runId }, body })).status).toBe(201);
+    const res = await call(reviewRoute, {
+      token: tokens.designer,
+      params: { id: runId },
+      body: { action: "submit" },
+    });
+    expect(res.status).toBe(200);
+    const mail = await OutboxEmail.findOne({ where: { to: "reviewer@fixture.test" } });
+    expect(mail?.text).toContain("Bench readings (1):");
+    expect(mail?.text).toContain(
+      "- Period (oscilloscope) at out: 9.8 div × 10 µs/div = 98 µs → 10.2 kHz — f0: measured 10.2 kHz, predicted 9.947 kHz (+2.58 %); above every Monte Carlo sample, outside: look for a build fault or a wrong part (Fixture designer)",
+    );
   });
 });
