@@ -18,12 +18,12 @@ export function compareReadings(
   predictions: { a: Prediction; b: Prediction },
 ): ReadingCompareRow[] {
   const rows: ReadingCompareRow[] = [];
-  for (const of of ["a", "b"] as const) {
-    for (const reading of readings[of]) {
+  for (const side of ["a", "b"] as const) {
+    for (const reading of readings[side]) {
       const d = deriveReading(reading);
       if (!d) continue;
       const against = (p: Prediction) => compareReading(d, reading.measureName, p.measures, p.monteCarlo);
-      rows.push({ reading, of, against: { a: against(predictions.a), b: against(predictions.b) } });
+      rows.push({ reading, of: side, against: { a: against(predictions.a), b: against(predictions.b) } });
     }
   }
   return rows;
