@@ -16,8 +16,9 @@ import {
   type ReadingForm,
   type ReadingQuantity,
 } from "@/lib/reading-kinds";
-import { comparableMeasures, compareReading, deriveReading } from "@/lib/reading-math";
-import type { MeasureResult } from "@/solver/types";
+import { comparableMeasures, compareReading, deriveReading, percentileWords } from "@/lib/reading-math";
+import { cn } from "@/lib/utils";
+import type { MeasureResult, MeasureStats } from "@/solver/types";
 import { DEFAULT_UNIT, toSi, UNIT_CHOICES } from "./units";
 
 type Fields = Record<string, string[]>;
@@ -25,7 +26,15 @@ type Fields = Record<string, string[]>;
 const labelClass = "text-ink-800 mb-1 block text-sm font-medium";
 
 /** The bench reading form: quantity, how it was read (with the arithmetic live), node, note, a file. */
-export function BenchReadingForm({ runId, measures }: { runId: string; measures: MeasureResult[] }) {
+export function BenchReadingForm({
+  runId,
+  measures,
+  monteCarlo,
+}: {
+  runId: string;
+  measures: MeasureResult[];
+  monteCarlo?: MeasureStats[] | undefined;
+}) {
   const router = useRouter();
   const hydrated = useHydrated();
   const uid = useId().replace(/[^a-zA-Z0-9_-]/g, "");
@@ -51,6 +60,9 @@ export function BenchReadingForm({ runId, measures }: { runId: string; measures:
     setValueUnit(DEFAULT_UNIT[inputUnit(q)]);
     setPerUnit(DEFAULT_UNIT[inputUnit(q)]);
     setMeasureName(comparableMeasures(measures, q)[0]?.name ?? "");
+    setValue("");
+    setDivisions("");
+    setPerDivision("");
     setFields({});
   }
 
@@ -62,7 +74,7 @@ export function BenchReadingForm({ runId, measures }: { runId: string; measures:
     perDivision: toSi(perDivision, perUnit, kind),
   };
   const derived = deriveReading(numbers);
-  const preview = derived ? compareReading(derived, measureName || null, measures, undefined) : null;
+  const preview = derived ? compareReading(derived, measureName || null, measures, monteCarlo) : null;
 
   async function submit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -205,7 +217,7 @@ export function BenchReadingForm({ runId, measures }: { runId: string; measures:
               />
               <select
                 aria-label="Unit per division"
-                className={`${inputClass} w-24`}
+                className={cn(inputClass, "w-28 shrink-0")}
                 value={perUnit}
                 onChange={(e) => setPerUnit(e.target.value)}
               >
@@ -235,7 +247,7 @@ export function BenchReadingForm({ runId, measures }: { runId: string; measures:
             />
             <select
               aria-label="Unit"
-              className={`${inputClass} w-24`}
+              className={cn(inputClass, "w-28 shrink-0")}
               value={valueUnit}
               onChange={(e) => setValueUnit(e.target.value)}
             >
@@ -260,6 +272,9 @@ export function BenchReadingForm({ runId, measures }: { runId: string; measures:
           <span className="text-ink-600 block font-sans">
             predicted {formatQuantity(preview.predicted, preview.unit, 4)} · deviation{" "}
             {formatPercent(preview.deviationPct, 3)}
+            {preview.spread
+              ? ` · ${percentileWords(preview.spread.percentile)}: ${preview.spread.verdict}`
+              : ""}
           </span>
         ) : null}
       </output>

@@ -1,7 +1,7 @@
 import { EmptyState } from "@/components/ui/empty-state";
 import { Panel, PanelHeader } from "@/components/ui/panel";
 import type { ReadingView } from "@/lib/readings";
-import type { MeasureResult } from "@/solver/types";
+import type { MeasureResult, MeasureStats } from "@/solver/types";
 import { BenchReadingForm } from "./reading-form";
 import { ReadingsList } from "./readings-list";
 
@@ -10,12 +10,14 @@ export function ReadingsPanel({
   runId,
   readings,
   measures,
+  monteCarlo,
   canRecord,
   error,
 }: {
   runId: string;
   readings: ReadingView[];
   measures: MeasureResult[];
+  monteCarlo?: MeasureStats[] | undefined;
   canRecord: boolean;
   /** Set when the readings could not be loaded; the rest of the page still shows. */
   error?: string | null;
@@ -44,7 +46,7 @@ export function ReadingsPanel({
         {canRecord ? (
           <div className="border-paper-200 border-t pt-5">
             <h3 className="text-ink-900 mb-3 font-semibold">Record a reading</h3>
-            <BenchReadingForm runId={runId} measures={measures} />
+            <BenchReadingForm runId={runId} measures={measures} monteCarlo={monteCarlo} />
           </div>
         ) : null}
       </div>

@@ -28,8 +28,9 @@ async function main(): Promise<void> {
     await panel.getByLabel("Time per division").fill("100");
     await panel.screenshot({ path: `${out}/readings-typing-${size}.png` });
     await panel.getByLabel("What was measured").selectOption("amplitude");
+    await panel.getByLabel("Peak-to-peak spans (divisions)").fill("-2");
     await panel.getByRole("button", { name: "Record reading" }).click();
-    await panel.getByText("Enter the number of divisions.").waitFor();
+    await panel.getByText("Enter the scale per division.").waitFor();
     await panel.screenshot({ path: `${out}/readings-errors-${size}.png` });
     const a = String(revBHref).replace("/runs/", "");
     const b = String(spreadHref).replace("/runs/", "");

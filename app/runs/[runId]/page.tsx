@@ -156,6 +156,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
           runId={run.id}
           readings={readings}
           measures={result?.measures ?? []}
+          monteCarlo={result?.monteCarlo?.measures}
           canRecord={can(run.role, "measurement:upload")}
         />
       </div>
