@@ -12,9 +12,9 @@ import { putObject } from "@/lib/storage/object-store";
 import { compactResult, solveNetlist } from "@/solver";
 import { WIEN_REV_B } from "./demo/netlists";
 
-export const SPREAD_RUN_TITLE = "Bridge oscillator rev B, parts spread";
+export const SPREAD_RUN_TITLE = "Bridge oscillator parts spread, 1 MHz amplifier";
 
-const SPREAD_NETLIST = `${WIEN_REV_B.replace(/^title [^\n]*/, "title CV-200 reference oscillator, rev B, parts spread")}monte-carlo 300 seed=11
+const SPREAD_NETLIST = `${WIEN_REV_B.replace(/^title [^\n]*/, "title CV-200 reference oscillator, parts spread of the 1 MHz build")}monte-carlo 300 seed=11
 `;
 
 async function spreadRun(t: Transaction, project: Project, author: User): Promise<Run> {
