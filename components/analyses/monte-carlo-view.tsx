@@ -2,7 +2,7 @@
 
 import type { Layout } from "plotly.js";
 import { plotColors, traceColor } from "@/components/plot/palette";
-import { formatQuantity } from "@/components/run/format";
+import { formatQuantity } from "@/solver/format";
 import type { MeasureResult, MeasureStats, MonteCarloResult } from "@/solver/types";
 import { histogramBars } from "./analysis-math";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";

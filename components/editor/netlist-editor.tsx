@@ -5,10 +5,11 @@ import { BodePlot } from "@/components/plot/bode-plot";
 import type { BodeMarker, BodeOverlay } from "@/components/plot/types";
 import { variantOverlays } from "@/components/plot/variants";
 import { MAX_NETLIST_BYTES } from "@/lib/limits";
-import type { NetlistError, SolveSuccess } from "@/solver/types";
+import type { NetlistError } from "@/solver/types";
 import { CodeEditor, type CodeEditorHandle } from "./code-editor";
 import { ExamplePicker, type NetlistExample } from "./example-picker";
 import { PreviewPanel } from "./preview-panel";
+import { previewView } from "./preview-view";
 import { SaveRunForm } from "./save-run-form";
 import { SnapHelper } from "./snap-helper";
 import { useLiveSolve } from "./use-live-solve";
@@ -51,10 +52,10 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
     return () => clearTimeout(t);
   }, [netlist, projectId]);
 
-  const current = live.status === "done" ? live.result : live.status === "idle" ? null : live.last;
-  const errors = saveErrors.length > 0 ? saveErrors : current && !current.ok ? current.errors : [];
-  const warnings = current?.warnings ?? [];
-  const lastGood = useLastGood(current?.ok ? current : null);
+  const view = previewView({ ...live, saveErrors });
+  const errors = view.kind === "errors" ? view.errors : [];
+  const lastGood = view.kind === "result" ? view.result : null;
+  const warnings = lastGood?.warnings ?? [];
 
   const markers = useMemo<BodeMarker[]>(
     () =>
@@ -203,9 +204,7 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
           ) : null}
         </div>
         <PreviewPanel
-          state={live}
-          errors={errors}
-          lastGood={lastGood}
+          view={view}
           onGoToLine={(line, column) => editorRef.current?.revealLine(line, column)}
           onSelectFrequency={(hz) => {
             setFocusHz(hz);
@@ -231,13 +230,4 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
       </section>
     </div>
   );
-}
-
-/** The last successful result, kept on screen (faded) while the netlist has errors. */
-function useLastGood(result: SolveSuccess | null): SolveSuccess | null {
-  const [last, setLast] = useState<SolveSuccess | null>(result);
-  useEffect(() => {
-    if (result) setLast(result);
-  }, [result]);
-  return result ?? last;
 }

@@ -1,7 +1,6 @@
 "use client";
 
 import { useId, useMemo, useState } from "react";
-import { formatQuantity } from "@/components/run/format";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import {
@@ -14,6 +13,7 @@ import {
   SNAP_NETWORKS,
   type SnapNetwork,
 } from "@/lib/snap-pairs";
+import { formatQuantity } from "@/solver/format";
 import type { SeriesName } from "@/solver/lang/eseries";
 import { parseNumberText } from "@/solver/lang/numbers";
 

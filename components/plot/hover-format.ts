@@ -1,4 +1,4 @@
-import { formatQuantity } from "@/components/run/format";
+import { formatQuantity } from "@/solver/format";
 
 /**
  * How the plot writes its numbers: a value, a space, then the SI-prefixed unit ("1.698 kHz",

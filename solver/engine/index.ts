@@ -16,6 +16,7 @@ import { floatingNodes } from "./floating";
 import { buildLoop, cutNodeName } from "./loops";
 import { computeMeasures } from "./measures";
 import { buildMna, type MnaSystem } from "./mna";
+import { loopsAtZeroPhase } from "./oscillation";
 import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
 import { sweepFrequencies } from "./sweep";
@@ -315,6 +316,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
     traces: outcome.traces,
     measures: outcome.measures,
     checks: outcome.checks,
+    ...(circuit.loops.length > 0 ? { zeroPhase: loopsAtZeroPhase(circuit, outcome.samplers) } : {}),
     warnings: warn,
     stats: {
       nodes: circuit.nodes.length,

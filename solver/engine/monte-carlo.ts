@@ -1,4 +1,5 @@
 import type { Circuit, MeasureStats, MonteCarloDef, MonteCarloResult, SolveSuccess, Warning } from "../types";
+import { evaluateChecks } from "./checks";
 import { type SampleBatch, SampleKernel, solveSampleRange } from "./samples";
 import type { StudyOptions } from "./studies";
 
@@ -103,6 +104,7 @@ export function summarizeSamples(
     seed: def.seed,
     yield: def.samples > 0 ? passed / def.samples : 0,
     measures: names.map((name, i) => stats(name, columns[i] ?? [])),
+    checks: checkYields(circuit, nominal, columns),
   };
 }
 
@@ -177,4 +179,27 @@ export function stats(name: string, list: (number | null)[]): MeasureStats {
     },
     histogram: { edges, counts },
   };
+}
+
+/**
+ * Each check's own yield: the share of samples whose measure values pass it (a sample that could not
+ * be solved, or whose measure has no value, fails it). Read from the measure columns the samples gave.
+ */
+function checkYields(
+  circuit: Circuit,
+  nominal: SolveSuccess,
+  columns: (number | null)[][],
+): { name: string; expression: string; yield: number }[] {
+  const samples = columns[0]?.length ?? 0;
+  return circuit.checks.map((c) => {
+    const i = nominal.measures.findIndex((m) => m.name === c.measure);
+    const unit = nominal.measures[i]?.unit ?? "";
+    let pass = 0;
+    for (let r = 0; r < samples; r++) {
+      const value = i >= 0 ? (columns[i]![r] ?? null) : null;
+      const [result] = evaluateChecks([c], [{ name: c.measure, value, unit, reason: null }]);
+      if (result?.pass) pass++;
+    }
+    return { name: c.measure, expression: c.expression, yield: samples > 0 ? pass / samples : 0 };
+  });
 }
