@@ -245,13 +245,23 @@ export interface MeasureStats {
   histogram: { edges: number[]; counts: number[] };
 }
 
+export interface MonteCarloCheck {
+  /** The measure the check reads. */
+  name: string;
+  expression: string;
+  op: CheckDef["op"];
+  value: number;
+  value2?: number;
+  yield: number;
+}
+
 export interface MonteCarloResult {
   samples: number;
   seed: number;
   yield: number;
   measures: MeasureStats[];
-  /** Each check's share of passing samples (a failed sample fails every check). */
-  checks?: { name: string; expression: string; yield: number }[];
+  /** Each check's share of passing samples (a failed sample fails every check), with its limits. */
+  checks?: MonteCarloCheck[];
 }
 
 export interface PoleResult {

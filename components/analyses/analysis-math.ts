@@ -2,7 +2,7 @@
  * Pure helpers of the analyses views (client-safe, no React): the oscillator verdict, ranked
  * sensitivities, histogram bars and pole rows. Unit-tested in tests/unit/analyses-math.test.ts.
  */
-import type { PoleResult, SensitivityResult, SolveSuccess } from "@/solver/types";
+import type { MonteCarloCheck, PoleResult, SensitivityResult, SolveSuccess } from "@/solver/types";
 import { oscillatorVerdict } from "./oscillator-grade";
 
 /** Sensitivities of one measure, largest |value| first (nulls last). */
@@ -56,4 +56,22 @@ export function analysisSections(result: SolveSuccess | null | undefined, status
   if (result.monteCarlo) out.push("monteCarlo");
   if (result.sensitivity && result.sensitivity.length > 0) out.push("sensitivity");
   return out;
+}
+
+/** The nominal value and each check limit of a measure, as vertical lines on its histogram. */
+export function histogramMarks(
+  nominal: number | null,
+  limits: MonteCarloCheck[],
+): { x: number; label: string; limit: boolean }[] {
+  const marks: { x: number; label: string; limit: boolean }[] = [];
+  if (nominal !== null) marks.push({ x: nominal, label: "nominal", limit: false });
+  for (const c of limits) {
+    if (c.op === "between") {
+      marks.push({ x: Math.min(c.value, c.value2 ?? c.value), label: "limit", limit: true });
+      marks.push({ x: Math.max(c.value, c.value2 ?? c.value), label: "limit", limit: true });
+    } else {
+      marks.push({ x: c.value, label: `limit ${c.op} ${c.value}`, limit: true });
+    }
+  }
+  return marks;
 }

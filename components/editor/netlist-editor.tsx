@@ -20,13 +20,24 @@ export interface NetlistEditorProps {
   examples: NetlistExample[];
   /** Text to start with when there is no draft (default: the first example). */
   initialNetlist?: string;
+  /** Revising a saved run: its netlist is the starting text and the saved run supersedes it. */
+  revise?: { id: string; title: string; netlist: string };
 }
 
-const draftKey = (projectId: string) => `phasewright:draft:${projectId}`;
+/** The unsaved draft of a project — or of one revision, so revising never picks up another draft. */
+const draftKey = (projectId: string, reviseId?: string) =>
+  reviseId ? `phasewright:draft:${projectId}:revise:${reviseId}` : `phasewright:draft:${projectId}`;
 
 /** The editor page's interactive part: netlist text, live preview, upload, examples and "Save run". */
-export function NetlistEditor({ projectId, projectName, examples, initialNetlist }: NetlistEditorProps) {
-  const [netlist, setNetlist] = useState(initialNetlist ?? examples[0]?.text ?? "");
+export function NetlistEditor({
+  projectId,
+  projectName,
+  examples,
+  initialNetlist,
+  revise,
+}: NetlistEditorProps) {
+  const [netlist, setNetlist] = useState(revise?.netlist ?? initialNetlist ?? examples[0]?.text ?? "");
+  const key = draftKey(projectId, revise?.id);
   const [saveErrors, setSaveErrors] = useState<NetlistError[]>([]);
   const [notice, setNotice] = useState<string | null>(null);
   const [dragging, setDragging] = useState(false);
@@ -44,13 +55,13 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
 
   // Keep an unsaved draft per project in this browser, so a reload loses nothing.
   useEffect(() => {
-    const draft = window.localStorage.getItem(draftKey(projectId));
+    const draft = window.localStorage.getItem(key);
     if (draft) replaceNetlist(draft);
-  }, [projectId, replaceNetlist]);
+  }, [key, replaceNetlist]);
   useEffect(() => {
-    const t = setTimeout(() => window.localStorage.setItem(draftKey(projectId), netlist), 500);
+    const t = setTimeout(() => window.localStorage.setItem(key, netlist), 500);
     return () => clearTimeout(t);
-  }, [netlist, projectId]);
+  }, [netlist, key]);
 
   const view = previewView({ ...live, saveErrors });
   const errors = view.kind === "errors" ? view.errors : [];
@@ -172,6 +183,7 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
           netlist={netlist}
           onNetlistErrors={setSaveErrors}
           disabled={netlist.trim() === ""}
+          supersedes={revise ? { id: revise.id, title: revise.title } : undefined}
         />
         <details className="rounded-panel border-paper-200 group border bg-white">
           <summary className="text-ink-800 hover:bg-paper-50 rounded-panel cursor-pointer px-4 py-3 text-sm font-medium">

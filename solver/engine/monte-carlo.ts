@@ -1,4 +1,12 @@
-import type { Circuit, MeasureStats, MonteCarloDef, MonteCarloResult, SolveSuccess, Warning } from "../types";
+import type {
+  Circuit,
+  MeasureStats,
+  MonteCarloCheck,
+  MonteCarloDef,
+  MonteCarloResult,
+  SolveSuccess,
+  Warning,
+} from "../types";
 import { evaluateChecks } from "./checks";
 import { type SampleBatch, SampleKernel, solveSampleRange } from "./samples";
 import type { StudyOptions } from "./studies";
@@ -189,7 +197,7 @@ function checkYields(
   circuit: Circuit,
   nominal: SolveSuccess,
   columns: (number | null)[][],
-): { name: string; expression: string; yield: number }[] {
+): MonteCarloCheck[] {
   const samples = columns[0]?.length ?? 0;
   return circuit.checks.map((c) => {
     const i = nominal.measures.findIndex((m) => m.name === c.measure);
@@ -200,6 +208,7 @@ function checkYields(
       const [result] = evaluateChecks([c], [{ name: c.measure, value, unit, reason: null }]);
       if (result?.pass) pass++;
     }
-    return { name: c.measure, expression: c.expression, yield: samples > 0 ? pass / samples : 0 };
+    const limits = { op: c.op, value: c.value, ...(c.value2 !== undefined ? { value2: c.value2 } : {}) };
+    return { name: c.measure, expression: c.expression, ...limits, yield: samples > 0 ? pass / samples : 0 };
   });
 }

@@ -1,6 +1,11 @@
 /** The analyses views' pure logic (components/analyses/analysis-math.ts) on real solver output. */
 import { describe, expect, it } from "vitest";
-import { analysisSections, histogramBars, rankSensitivities } from "@/components/analyses/analysis-math";
+import {
+  analysisSections,
+  histogramBars,
+  histogramMarks,
+  rankSensitivities,
+} from "@/components/analyses/analysis-math";
 import {
   dominantOscillatoryPole,
   MARGIN_DB,
@@ -93,6 +98,13 @@ describe("oscillatorVerdict", () => {
     const row = r.monteCarlo!.checks!.find((c) => c.expression === "gain >= 1")!;
     expect(row.yield).toBeGreaterThan(0);
     expect(row.yield).toBeLessThan(1);
+    expect(row).toMatchObject({ name: "gain", op: ">=", value: 1 });
+    // The histogram of `gain` draws its nominal value and the check's limit.
+    const nominal = r.measures.find((m) => m.name === "gain")!.value;
+    expect(histogramMarks(nominal, [row])).toEqual([
+      { x: nominal, label: "nominal", limit: false },
+      { x: 1, label: "limit >= 1", limit: true },
+    ]);
     const v = oscillatorVerdict(r)!;
     expect(v.kind).toBe("marginal");
     expect(v.detail).toMatch(/Monte Carlo: only \d+(\.\d+)? % of 200 samples pass `gain >= 1`/);
