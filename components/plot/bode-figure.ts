@@ -172,7 +172,12 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
   // Over a narrow band Plotly labels every minor tick (…500600700…); keep 1-2-5 labels there.
   const spanDecades = decadesOf([...input.series, ...input.overlays].flatMap((s) => [s.frequencies]));
   const xCommon: Partial<LayoutAxis> = {
-    ...(spanDecades !== null && spanDecades <= 3 ? { dtick: "D2" } : {}),
+    // On a phone only decades are labelled (minor labels collide: "50k100k"); else 1-2-5 over a narrow band.
+    ...(input.compact && spanDecades !== null && spanDecades > 1.5
+      ? { dtick: 1 }
+      : spanDecades !== null && spanDecades <= 3
+        ? { dtick: "D2" }
+        : {}),
     type: "log",
     gridcolor: plotColors.grid,
     linecolor: plotColors.axis,

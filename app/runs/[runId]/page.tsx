@@ -57,7 +57,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
     </Panel>
   );
   return (
-    <div className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
+    <div className="mx-auto max-w-[90rem] px-4 py-8 sm:px-6">
       <nav aria-label="Breadcrumb" className="text-ink-500 mb-2 text-sm">
         <Link href="/projects" className="hover:underline">
           Projects
