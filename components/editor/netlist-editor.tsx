@@ -5,6 +5,7 @@ import { BodePlot } from "@/components/plot/bode-plot";
 import type { BodeMarker, BodeOverlay } from "@/components/plot/types";
 import { variantOverlays } from "@/components/plot/variants";
 import { MAX_NETLIST_BYTES } from "@/lib/limits";
+import { freePairNames } from "@/lib/snap-pairs";
 import type { NetlistError } from "@/solver/types";
 import { CodeEditor, type CodeEditorHandle } from "./code-editor";
 import { ExamplePicker, type NetlistExample } from "./example-picker";
@@ -191,6 +192,7 @@ export function NetlistEditor({
           </summary>
           <div className="border-paper-200 border-t p-4">
             <SnapHelper
+              names={freePairNames(netlist)}
               onInsert={(text) => {
                 editorRef.current?.insertLines(text);
                 setNotice("Inserted the pair above the cursor. Undo (Ctrl+Z) takes it out again.");

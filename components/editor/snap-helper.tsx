@@ -30,7 +30,8 @@ export interface SnapHelperProps {
 function readValue(text: string, expect: string): { value: number } | { error: string } {
   const t = text.trim();
   if (t === "") return { error: "Enter a value." };
-  const r = parseNumberText(t.replace(/^\+/, ""));
+  // "2.74 kHz" as well as "2.74kHz": a blank between the number and its unit is fine here.
+  const r = parseNumberText(t.replace(/^\+/, "").replace(/\s+/g, ""));
   if (!r.ok) return { error: r.message.replace(/`/g, "") };
   if (r.unit !== null && r.unit !== expect) return { error: `Expected ${expect}, got ${r.unit}.` };
   if (!(r.value > 0)) return { error: "Must be above zero." };
