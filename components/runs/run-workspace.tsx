@@ -2,6 +2,7 @@
 
 import { type ReactNode, useMemo, useState } from "react";
 import type { PinDraft } from "@/components/comments/comment-form";
+import { useComments } from "@/components/comments/comments-query";
 import { CommentsThread } from "@/components/comments/comments-thread";
 import { BodePlot } from "@/components/plot/bode-plot";
 import type { PlotStamp } from "@/components/plot/plot-registry";
@@ -48,7 +49,8 @@ export function RunWorkspace(props: RunWorkspaceProps) {
     aside,
     benchChooser,
   } = props;
-  const [comments, setComments] = useState(props.comments);
+  // The comments live in the query cache (seeded by the server's list); posting and settling update it.
+  const { data: comments } = useComments(runId, props.comments);
   const [pin, setPin] = useState<PinDraft | null>(null);
   const [focusHz, setFocusHz] = useState<number | null>(null);
 
@@ -138,7 +140,6 @@ export function RunWorkspace(props: RunWorkspaceProps) {
           <CommentsThread
             runId={runId}
             comments={comments}
-            onChange={setComments}
             canComment={canComment}
             pin={pin}
             onClearPin={() => setPin(null)}
