@@ -1,5 +1,5 @@
-import type { MigrationFn } from "umzug";
 import type { QueryInterface } from "sequelize";
+import type { MigrationFn } from "umzug";
 
 /**
  * Which of a project's bench data sets a run overlays on its plot, chosen on the run page. Until now

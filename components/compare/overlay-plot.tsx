@@ -43,7 +43,7 @@ export function CompareOverlayPlot({
   const frequencies = traces[0]?.frequencies ?? [];
   const main = useMemo(
     () => traces.map((t) => ({ name: `${t.name} · ${letterB}`, magnitudeDb: t.bDb, phaseDeg: t.bDeg })),
-    [traces, labelB],
+    [traces, letterB],
   );
   const overlays = useMemo<BodeOverlay[]>(() => {
     const out: BodeOverlay[] = traces.map((t) => ({

@@ -61,7 +61,6 @@ const CREATED_BY: Record<string, string> = {
 /** The tables that exist with every migration before `name` applied (and `name` itself reverted). */
 const tablesBefore = (name: string) => ALL_TABLES.filter((t) => (CREATED_BY[t] ?? "") < name);
 
-
 describe("migrations", () => {
   beforeAll(async () => {
     await migrator.up();
