@@ -48,7 +48,8 @@ export type PartKind =
   | "vccs"
   | "ccvs"
   | "cccs"
-  | "opamp";
+  | "opamp"
+  | "diode";
 
 /** Ground's name (the only spelling the language accepts). */
 export const GROUND = "gnd";
@@ -72,7 +73,9 @@ export interface Part {
   /** ccvs/cccs: full name of the sensing vsource or inductor. */
   sense?: string;
   /** opamp options; all absent means the ideal nullor. */
-  opamp?: { gain?: number; gbw?: number; rout?: number };
+  opamp?: { gain?: number; gbw?: number; rout?: number; swing?: number };
+  /** diode options: saturation current (A), emission coefficient, and the junction temperature (K). */
+  diode?: { is: number; n: number; kelvin: number };
   /** Where the part line is (for block instances: the line inside the block). */
   span: SourceSpan;
 }
@@ -134,13 +137,19 @@ export type MeasureFunction =
   | "gain-margin"
   | "mag"
   | "db"
-  | "phase";
+  | "phase"
+  | "frequency"
+  | "amplitude"
+  | "thd"
+  | "startup";
 
 export interface MeasureDef {
   name: string;
   fn: MeasureFunction;
-  /** The trace or loop name the function reads. */
+  /** The trace or loop name the function reads (`amplitude`/`thd`: the probe's text). */
   target: string;
+  /** `amplitude`/`thd`: the probe read from the steady state. */
+  probe?: Probe;
   level?: Level;
   /** `mag/db/phase … at F`: a frequency in Hz or the name of an earlier measure. */
   at?: { hz: number } | { measure: string };
@@ -193,6 +202,20 @@ export interface Circuit {
   monteCarlo: MonteCarloDef | null;
   poles: boolean;
   sensitivity: { measure: string; span: SourceSpan }[];
+  /** Temperature in kelvin (`temperature`, default 27 °C = 300.15 K): diodes and noise. */
+  temperature: number;
+  /** `steady LOOP …`: the steady oscillation of a loop, or null. */
+  steady: SteadyDef | null;
+}
+
+/** `steady LOOP [harmonics=N] [from=LEVEL]` (NETLIST.md "Steady oscillation"). */
+export interface SteadyDef {
+  loop: string;
+  /** Number of harmonics N (default 15). */
+  harmonics: number;
+  /** Start level of the envelope at the cut node, volts (default 1 µV). */
+  from: number;
+  span: SourceSpan;
 }
 
 // ---------------------------------------------------------------------------------------------

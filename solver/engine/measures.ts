@@ -28,6 +28,10 @@ const UNITS: Record<MeasureDef["fn"], string> = {
   mag: "",
   db: "dB",
   phase: "deg",
+  frequency: "Hz",
+  amplitude: "V",
+  thd: "%",
+  startup: "s",
 };
 
 /** The function of one measure (no `at` resolution); F is the resolved frequency if any. */
@@ -90,6 +94,9 @@ function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outco
       if (def.fn === "db") return { value: 20 * Math.log10(mag(x.re, x.im)) };
       return { value: deg(x.re, x.im) };
     }
+    default:
+      // frequency, amplitude, thd, startup: read from the steady oscillation (engine/steady).
+      return { reason: `${def.fn} is read from the steady oscillation: add \`steady LOOP\`` };
   }
 }
 

@@ -93,15 +93,20 @@ export function resolveChecks(
     const unit = measureUnit(m.fn);
     const limit = (v: ValueNode): number | null => {
       if (v.kind === "number" && v.unit !== null && v.unit !== unit) {
-        const measured = unit === "" ? "a plain number" : `in ${UNIT_NAMES[unit]}`;
+        const measured =
+          unit === "" ? "a plain number" : unit === "s" ? "in seconds" : `in ${UNIT_NAMES[unit]}`;
         return err(
           ctx,
           v.span,
           `\`${m.name.name}\` is ${measured}; this limit is in ${UNIT_NAMES[v.unit]}`,
-          unit === "" ? "write the limit without a unit" : `write it in ${unit} or without a unit`,
+          unit === "" || unit === "s"
+            ? "write the limit without a unit"
+            : `write it in ${unit} or without a unit`,
         );
       }
-      return evaluate(v, ctx.global, ctx.errors);
+      const x = evaluate(v, ctx.global, ctx.errors);
+      // thd is in percent: `check dist < 1%` means 1, not the fraction 0.01 that `%` reads as.
+      return x !== null && unit === "%" && v.kind === "number" && v.unit === "%" ? x * 100 : x;
     };
     const value = limit(c.value);
     const value2 = c.value2 ? limit(c.value2) : undefined;
