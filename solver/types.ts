@@ -289,6 +289,42 @@ export interface SensitivityResult {
   value: number | null;
 }
 
+/** One probe of the steady oscillation (NETLIST.md "Steady oscillation"). */
+export interface SteadyProbe {
+  probe: string;
+  /** Peak amplitude of harmonics 1…N (one-sided: a sine of peak A has amplitudes[0] = A). */
+  amplitudes: number[];
+  /** Phase of harmonics 1…N in degrees, cosine reference, the cut node's fundamental at 0°. */
+  phasesDeg: number[];
+  /** The mean (harmonic 0). */
+  dc: number;
+  thdPercent: number;
+  /** One period, uniformly sampled (t from 0 to T exclusive). */
+  waveform: { t: number[]; value: number[] };
+}
+
+/** The steady oscillation of a loop; null figures come with their reason. */
+export interface SteadyResult {
+  loop: string;
+  /** null when there is no steady oscillation (reason says why). */
+  frequencyHz: number | null;
+  harmonics: number;
+  startup: { sigma: number; seconds: number | null; cycles: number | null; from: number } | null;
+  probes: SteadyProbe[];
+  /** Newton's final residual (largest harmonic mismatch relative to the largest harmonic), and steps. */
+  residual: number | null;
+  iterations: number;
+  /** Why there is no result (it does not start, nothing limits it, Newton did not converge), else null. */
+  reason: string | null;
+  /** The verdict in one sentence. */
+  summary: string;
+  /** The describing-function estimate the solve started from (fundamental only), when found. */
+  estimate: { frequencyHz: number; amplitude: number; node: string } | null;
+  /** Envelope growth at the cut node: time (s) and peak level (V), from the start level to the steady amplitude. */
+  envelope: { t: number[]; level: number[] } | null;
+  notes: string[];
+}
+
 export interface SolveStats {
   nodes: number;
   unknowns: number;
@@ -310,6 +346,7 @@ export interface SolveSuccess {
   monteCarlo?: MonteCarloResult;
   poles?: PoleResult[];
   sensitivity?: SensitivityResult[];
+  steady?: SteadyResult;
 }
 
 export interface SolveFailure {

@@ -211,7 +211,8 @@ function elaborate(
   const shows = resolveShows(byType(st, "show"), ctx, traces);
   const loops = resolveLoops(byType(st, "loop"), ctx, traces);
   const measureStatements = byType(st, "measure");
-  const measures = resolveMeasures(measureStatements, ctx, traces);
+  const steady = resolveSteady(once(byType(st, "steady"), "steady", errors), ctx, loops);
+  const measures = resolveMeasures(measureStatements, ctx, traces, steady);
   const checks = resolveChecks(byType(st, "check"), ctx, measureStatements);
   const varyStatement = once(byType(st, "vary"), "vary", errors);
   const vary = varyStatement ? resolveVary(varyStatement, ctx) : null;
@@ -243,7 +244,7 @@ function elaborate(
     poles: byType(st, "poles").length > 0,
     sensitivity,
     temperature: kelvin,
-    steady: resolveSteady(once(byType(st, "steady"), "steady", errors), ctx, loops),
+    steady,
   };
 }
 

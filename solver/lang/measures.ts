@@ -1,22 +1,29 @@
 /** Resolution of measure, check, vary and monte-carlo statements: names, units, limits, order. */
-import type { CheckDef, MeasureDef, MonteCarloDef, SourceSpan, VaryDef } from "../types";
+import type { CheckDef, MeasureDef, MonteCarloDef, SourceSpan, SteadyDef, VaryDef } from "../types";
 import type { ValueNode } from "./ast";
 import { evaluate } from "./expr";
 import { didYouMean } from "./hints";
-import { measureUnit } from "./kinds";
+import { measureUnit, STEADY_FUNCTIONS } from "./kinds";
 import { type Place, UNIT_NAMES } from "./numbers";
 import { claim, count, type DirectiveContext, err, frequency, num, type Of } from "./resolve";
+import { resolveSteadyMeasure } from "./steady";
 
 export function resolveMeasures(
   list: Of<"measure">[],
   ctx: DirectiveContext,
   traces: Map<string, SourceSpan>,
+  steady: SteadyDef | null = null,
 ): MeasureDef[] {
   const out: MeasureDef[] = [];
   const all = new Map(list.map((m) => [m.name.name, m]));
   const names = new Map<string, SourceSpan>();
   for (const m of list) {
     if (!claim(ctx, names, m.name, "measure")) continue;
+    if (STEADY_FUNCTIONS.has(m.fn)) {
+      const def = resolveSteadyMeasure(m, ctx, steady);
+      if (def) out.push(def);
+      continue;
+    }
     if (!traces.has(m.target.name)) {
       err(
         ctx,
