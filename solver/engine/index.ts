@@ -7,6 +7,7 @@ import type {
   Probe,
   SolveResult,
   SourceSpan,
+  SteadyResult,
   TraceResult,
   Warning,
 } from "../types";
@@ -18,6 +19,8 @@ import { computeMeasures } from "./measures";
 import { buildMna, type MnaSystem } from "./mna";
 import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
+import { solveSteady } from "./steady";
+import { steadyMeasure } from "./steady/measures";
 import { sweepFrequencies } from "./sweep";
 import { makeTrace } from "./trace";
 
@@ -55,6 +58,7 @@ export interface SweepOutcome {
   checks: CheckResult[];
   samplers: Map<string, TraceSampler>;
   system: MnaSystem;
+  steady?: SteadyResult;
 }
 
 /**
@@ -254,9 +258,22 @@ export function sweepCircuit(
     [...circuit.shows.map((s) => s.name), ...circuit.loops.map((l) => l.name)].map((n, i) => [n, i]),
   );
   traces.sort((a, b) => (order.get(a.name) ?? 0) - (order.get(b.name) ?? 0));
-  const measures = computeMeasures(circuit.measures, samplers);
+  const steady = circuit.steady
+    ? solveSteady(circuit, circuit.steady, samplers.get(circuit.steady.loop), middleHz(freqs))
+    : undefined;
+  const measures = computeMeasures(circuit.measures, samplers, (def) => steadyMeasure(def, steady));
   const checks = evaluateChecks(circuit.checks, measures);
-  return { ok: true, outcome: { traces, measures, checks, samplers, system: main } };
+  return {
+    ok: true,
+    outcome: { traces, measures, checks, samplers, system: main, ...(steady ? { steady } : {}) },
+  };
+}
+
+/** The geometric middle of a sweep (the scale of the pole search). */
+export function middleHz(freqs: number[]): number {
+  const a = freqs[0] ?? 1;
+  const b = freqs[freqs.length - 1] ?? a;
+  return Math.sqrt(a * b);
 }
 
 /**
@@ -316,6 +333,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
     measures: outcome.measures,
     checks: outcome.checks,
     warnings: warn,
+    ...(outcome.steady ? { steady: outcome.steady } : {}),
     stats: {
       nodes: circuit.nodes.length,
       unknowns: outcome.system.n,

@@ -7,7 +7,7 @@
 import { type Port, portLaw } from "./ports";
 import type { Transfer } from "./transfer";
 
-const DF_SAMPLES = 1024;
+const DF_SAMPLES = 256;
 
 /** Equivalent gain of a port's law for w = A·cos θ: the fundamental of u divided by A. */
 export function describingGain(port: Port, amplitude: number, samples = DF_SAMPLES): number {
@@ -30,7 +30,7 @@ function loopAt(t: Transfer, omega: number): { re: number; im: number } | null {
  * refined by bisection), searched over a decade each way; null if there is none.
  */
 export function zeroPhaseNear(t: Transfer, omega0: number): { omega: number; gain: number } | null {
-  const steps = 400;
+  const steps = 80;
   let best: { omega: number; gain: number } | null = null;
   let prev: { w: number; v: { re: number; im: number } } | null = null;
   for (let i = 0; i <= steps; i++) {
@@ -44,7 +44,7 @@ export function zeroPhaseNear(t: Transfer, omega0: number): { omega: number; gai
       let lo = prev.w;
       let hi = w;
       let flo = prev.v.im;
-      for (let b = 0; b < 80; b++) {
+      for (let b = 0; b < 60 && hi / lo > 1 + 1e-12; b++) {
         const mid = Math.sqrt(lo * hi);
         const fm = loopAt(t, mid);
         if (fm === null) break;
@@ -69,7 +69,7 @@ export function zeroPhaseNear(t: Transfer, omega0: number): { omega: number; gai
 
 /** The amplitude A with N(A) = target, by bisection on log A over 1e-6…1e9; null if none. */
 export function amplitudeFor(port: Port, target: number): number | null {
-  const grid = Array.from({ length: 15 * 12 + 1 }, (_, i) => 10 ** (-6 + i / 12));
+  const grid = Array.from({ length: 15 * 4 + 1 }, (_, i) => 10 ** (-6 + i / 4));
   let prevA = grid[0]!;
   let prevF = describingGain(port, prevA) - target;
   for (const a of grid.slice(1)) {
@@ -78,7 +78,7 @@ export function amplitudeFor(port: Port, target: number): number | null {
       let lo = prevA;
       let hi = a;
       let flo = prevF;
-      for (let b = 0; b < 100; b++) {
+      for (let b = 0; b < 60 && hi / lo > 1 + 1e-9; b++) {
         const mid = Math.sqrt(lo * hi);
         const fm = describingGain(port, mid) - target;
         if (Math.sign(fm) === Math.sign(flo)) {

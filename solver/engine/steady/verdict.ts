@@ -48,7 +48,7 @@ export function summary(
   thdPercent: number,
   start: { seconds: number | null; cycles: number | null } | null,
 ): string {
-  const head = `settles at ${sig(amplitude, 2)} V peak at ${node}, ${hz(frequencyHz)}, ${sig(thdPercent, 2)} % distortion`;
+  const head = `settles at ${amplitude.toPrecision(2)} V peak at ${node}, ${hz(frequencyHz)}, ${sig(thdPercent, 2)} % distortion`;
   if (!start || start.seconds === null) return head;
   return `${head}; reaches that in about ${seconds(start.seconds)} (${Math.round(start.cycles ?? 0)} cycles)`;
 }
