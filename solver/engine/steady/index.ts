@@ -53,6 +53,32 @@ export function solveSteady(
   loopTrace: TraceSampler | undefined,
   scaleHz: number,
 ): SteadyResult {
+  return solveSteadyFrom(circuit, def, loopTrace, scaleHz, null).result;
+}
+
+/**
+ * The same, optionally started from an earlier solution's unknowns (a Monte Carlo sample starts
+ * from the nominal solution: no describing-function search, a few Newton steps); `x` is the
+ * solution to start the next one from (null without a result).
+ */
+export function solveSteadyFrom(
+  circuit: Circuit,
+  def: SteadyDef,
+  loopTrace: TraceSampler | undefined,
+  scaleHz: number,
+  seed: Float64Array | null,
+): { result: SteadyResult; x: Float64Array | null } {
+  const r = steadyUnwrapped(circuit, def, loopTrace, scaleHz, seed);
+  return "result" in r ? r : { result: r, x: null };
+}
+
+function steadyUnwrapped(
+  circuit: Circuit,
+  def: SteadyDef,
+  loopTrace: TraceSampler | undefined,
+  scaleHz: number,
+  seed: Float64Array | null,
+): SteadyResult | { result: SteadyResult; x: Float64Array } {
   const notes: string[] = [];
   const loop = circuit.loops.find((l) => l.name === def.loop);
   if (!loop) return without(def, `no loop named ${def.loop}`, notes);
@@ -70,20 +96,27 @@ export function solveSteady(
   notes.push(...net.notes);
   const transfer = new Transfer(net.sys, net.ports);
   if (!scaleSwingPorts(transfer, omega0)) return without(def, "the network has no solution at DC", notes);
-  const est = describingEstimate(transfer, net.ports, omega0);
-  if ("reason" in est) return without(def, est.reason, notes);
-  // Harmonic balance with the fundamental alone (the describing-function solution), then all N.
-  const one = new HbSystem(transfer, net.ports, 1);
-  const x0 = new Float64Array(one.size);
-  x0[1] = est.amplitude / 2;
-  x0[2] = est.omega;
-  let sys = one;
-  let out = newton(one, x0);
-  let iterations = out.iterations;
-  if (out.converged && def.harmonics > 1) {
-    sys = new HbSystem(transfer, net.ports, def.harmonics);
-    out = newton(sys, extend(one, out.x, sys));
+  let sys = new HbSystem(transfer, net.ports, def.harmonics);
+  let out = seed && seed.length === sys.size ? newton(sys, seed) : null;
+  let iterations = out?.iterations ?? 0;
+  let est: { omega: number; amplitude: number } | null = null;
+  if (!out?.converged) {
+    const df = describingEstimate(transfer, net.ports, omega0);
+    if ("reason" in df) return without(def, df.reason, notes);
+    est = df;
+    // Harmonic balance with the fundamental alone (the describing-function solution), then all N.
+    const one = new HbSystem(transfer, net.ports, 1);
+    const x0 = new Float64Array(one.size);
+    x0[1] = df.amplitude / 2;
+    x0[2] = df.omega;
+    sys = one;
+    out = newton(one, x0);
     iterations += out.iterations;
+    if (out.converged && def.harmonics > 1) {
+      sys = new HbSystem(transfer, net.ports, def.harmonics);
+      out = newton(sys, extend(one, out.x, sys));
+      iterations += out.iterations;
+    }
   }
   const residual = out.residual;
   if (!out.converged)
@@ -105,7 +138,7 @@ export function solveSteady(
     `harmonic balance: ${def.harmonics} harmonics, ${sys.samples} samples per period, ${iterations} Newton steps, residual ${residual.toExponential(1)}`,
     `phases are referred to the fundamental at ${cut} (0°); ${cutNodeName(cut)} is not used: the loop is closed`,
   );
-  return {
+  const result: SteadyResult = {
     loop: def.loop,
     frequencyHz,
     harmonics: def.harmonics,
@@ -115,7 +148,7 @@ export function solveSteady(
     iterations,
     reason: null,
     summary: summary(amplitude, cut, frequencyHz, cutProbe.thdPercent, start),
-    estimate: {
+    estimate: est && {
       frequencyHz: est.omega / (2 * Math.PI),
       amplitude: est.amplitude,
       node: portName(net.ports[0]!),
@@ -123,6 +156,7 @@ export function solveSteady(
     envelope: envelope(sigma, amplitude, def.from),
     notes,
   };
+  return { result, x: out.x };
 }
 
 function portName(port: import("./ports").Port): string {

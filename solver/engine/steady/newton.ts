@@ -50,7 +50,7 @@ export function denseSolve(a: Float64Array, b: Float64Array, n: number): boolean
 }
 
 /** Largest port harmonic (every unknown but ω). */
-export function scaleOf(sys: HbSystem, x: Float64Array): number {
+export function scaleOf(x: Float64Array): number {
   let s = 0;
   for (let i = 0; i < x.length; i++) if (i !== 2) s = Math.max(s, Math.abs(x[i]!));
   return s;
@@ -59,7 +59,7 @@ export function scaleOf(sys: HbSystem, x: Float64Array): number {
 function norm(sys: HbSystem, r: Float64Array, x: Float64Array): number {
   let m = 0;
   for (const v of r) m = Math.max(m, Math.abs(v));
-  return m / Math.max(scaleOf(sys, x), 1e-300);
+  return m / Math.max(scaleOf(x), 1e-300);
 }
 
 export const TOLERANCE = 1e-9;
