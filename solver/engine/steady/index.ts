@@ -6,7 +6,7 @@
 import type { Circuit, SteadyDef, SteadyResult } from "../../types";
 import { cutNodeName } from "../loops";
 import type { TraceSampler } from "../refine";
-import { describingEstimate } from "./describing-function";
+import { describingEstimate, type Estimate } from "./describing-function";
 import { HbSystem } from "./hb-system";
 import { newton } from "./newton";
 import { buildPorts } from "./ports";
@@ -99,15 +99,23 @@ function steadyUnwrapped(
   let sys = new HbSystem(transfer, net.ports, def.harmonics);
   let out = seed && seed.length === sys.size ? newton(sys, seed) : null;
   let iterations = out?.iterations ?? 0;
-  let est: { omega: number; amplitude: number } | null = null;
-  if (!out?.converged) {
-    const df = describingEstimate(transfer, net.ports, omega0);
-    if ("reason" in df) return without(def, df.reason, notes);
+  let est: Estimate | null = null;
+  // Each limiter in turn as the describing-function port (the others linear), until one converges.
+  let reason = "";
+  for (let e = 0; e < net.ports.length && !out?.converged; e++) {
+    const df = describingEstimate(transfer, e, omega0);
+    if ("reason" in df) {
+      reason ||= df.reason;
+      continue;
+    }
     est = df;
     // Harmonic balance with the fundamental alone (the describing-function solution), then all N.
     const one = new HbSystem(transfer, net.ports, 1);
     const x0 = new Float64Array(one.size);
-    x0[1] = df.amplitude / 2;
+    df.fundamentals.forEach((f, j) => {
+      x0[j * one.block + 1] = f.re;
+      if (j > 0) x0[j * one.block + 2] = f.im;
+    });
     x0[2] = df.omega;
     sys = one;
     out = newton(one, x0);
@@ -118,6 +126,7 @@ function steadyUnwrapped(
       iterations += out.iterations;
     }
   }
+  if (!out) return without(def, reason, notes);
   const residual = out.residual;
   if (!out.converged)
     return without(def, `harmonic balance did not converge: ${out.reason}`, notes, { iterations, residual });
@@ -151,7 +160,7 @@ function steadyUnwrapped(
     estimate: est && {
       frequencyHz: est.omega / (2 * Math.PI),
       amplitude: est.amplitude,
-      node: portName(net.ports[0]!),
+      node: portName(net.ports[est.port]!),
     },
     envelope: envelope(sigma, amplitude, def.from),
     notes,
