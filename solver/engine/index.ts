@@ -19,7 +19,7 @@ import { computeMeasures } from "./measures";
 import { buildMna, type MnaSystem } from "./mna";
 import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
-import { solveSteady } from "./steady";
+import { deferredSteady, solveSteady } from "./steady";
 import { steadyMeasure } from "./steady/measures";
 import { sweepFrequencies } from "./sweep";
 import { makeTrace } from "./trace";
@@ -30,6 +30,8 @@ export const ENGINE_VERSION = "1.0.0";
 export interface AnalyzeOptions {
   /** Refuse sweeps with more points than this (the service's per-request limit). */
   maxPoints?: number;
+  /** Leave the steady oscillation out, with this reason (a preview over the service's budget). */
+  deferSteady?: string;
 }
 
 export const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
@@ -216,6 +218,7 @@ export function sweepCircuit(
   circuit: Circuit,
   freqs: number[],
   warnings: Warning[],
+  deferSteady?: string,
 ): { ok: true; outcome: SweepOutcome } | { ok: false; errors: NetlistError[] } {
   const planned = planSystems(circuit, warnings);
   if (!planned.ok) return planned;
@@ -258,9 +261,11 @@ export function sweepCircuit(
     [...circuit.shows.map((s) => s.name), ...circuit.loops.map((l) => l.name)].map((n, i) => [n, i]),
   );
   traces.sort((a, b) => (order.get(a.name) ?? 0) - (order.get(b.name) ?? 0));
-  const steady = circuit.steady
-    ? solveSteady(circuit, circuit.steady, samplers.get(circuit.steady.loop), middleHz(freqs))
-    : undefined;
+  const steady = !circuit.steady
+    ? undefined
+    : deferSteady !== undefined
+      ? deferredSteady(circuit.steady, deferSteady)
+      : solveSteady(circuit, circuit.steady, samplers.get(circuit.steady.loop), middleHz(freqs));
   const measures = computeMeasures(circuit.measures, samplers, (def) => steadyMeasure(def, steady));
   const checks = evaluateChecks(circuit.checks, measures);
   return {
@@ -321,7 +326,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
       warnings: warn,
     };
   }
-  const run = sweepCircuit(circuit, freqs, warn);
+  const run = sweepCircuit(circuit, freqs, warn, options.deferSteady);
   if (!run.ok) return { ok: false, errors: run.errors, warnings: warn };
   const { outcome } = run;
   return {

@@ -39,6 +39,11 @@ function without(
   };
 }
 
+/** A steady result left out on purpose (the reason says why and where it will be solved). */
+export function deferredSteady(def: SteadyDef, reason: string): SteadyResult {
+  return without(def, reason, []);
+}
+
 /** Grow a solution of `from` harmonics into the layout of `to` (higher harmonics start at 0). */
 function extend(from: HbSystem, x: Float64Array, to: HbSystem): Float64Array {
   const y = new Float64Array(to.size);
