@@ -12,6 +12,7 @@ import { ExportButtons } from "@/components/run/export-buttons";
 import { NetlistView } from "@/components/run/netlist-view";
 import { WarningsList } from "@/components/run/warnings-list";
 import { RunWorkspace } from "@/components/runs/run-workspace";
+import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { Panel, PanelHeader } from "@/components/ui/panel";
 import { listComments } from "@/lib/comments";
@@ -56,7 +57,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
     </Panel>
   );
   return (
-    <div className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
+    <div className="mx-auto max-w-[90rem] px-4 py-8 sm:px-6">
       <nav aria-label="Breadcrumb" className="text-ink-500 mb-2 text-sm">
         <Link href="/projects" className="hover:underline">
           Projects
@@ -99,7 +100,21 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             </p>
           ) : null}
         </div>
-        {result ? <ExportButtons runId={run.id} plotId={plotId} fileName={run.title} /> : null}
+        <div className="flex flex-wrap items-center gap-2">
+          {run.permissions.createRun ? (
+            <Link
+              href={`/projects/${run.projectId}/new?revise=${run.id}`}
+              className={buttonClass({
+                variant: run.reviewState === "sent_back" ? "primary" : "secondary",
+                size: "sm",
+              })}
+              title="Open this netlist in the editor; the run you save supersedes this one"
+            >
+              Revise
+            </Link>
+          ) : null}
+          {result ? <ExportButtons runId={run.id} plotId={plotId} fileName={run.title} /> : null}
+        </div>
       </header>
 
       {result ? (
