@@ -185,10 +185,26 @@ function solveHarmonics(
     sys = one;
     out = newton(one, x0);
     iterations += out.iterations;
-    if (out.converged && harmonics > 1) {
-      sys = new HbSystem(transfer, ports, harmonics);
-      out = newton(sys, extend(one, out.x, sys));
-      iterations += out.iterations;
+    // All N at once; if Newton stalls there (a hard limit), by steps of 2k+1 harmonics from the last solution.
+    let from = one;
+    let x = out.x;
+    for (let k = 1; out.converged && from.harmonics < harmonics; ) {
+      const next = new HbSystem(transfer, ports, harmonics);
+      const tried = newton(next, extend(from, x, next));
+      iterations += tried.iterations;
+      if (tried.converged || k >= harmonics) {
+        sys = next;
+        out = tried;
+        break;
+      }
+      k = Math.min(harmonics, 2 * k + 1);
+      const step = new HbSystem(transfer, ports, k);
+      const partial = newton(step, extend(from, x, step));
+      iterations += partial.iterations;
+      sys = step;
+      out = partial;
+      from = step;
+      x = partial.x;
     }
   }
   return { sys, out, iterations, est, reason };
