@@ -74,7 +74,7 @@ export function parseMeasurementCsv(text: string): ParsedMeasurement {
       });
       return;
     }
-    const bad = values.findIndex((v) => v === null);
+    const bad = values.indexOf(null);
     if (bad >= 0) {
       const expected = [
         "a frequency (e.g. 1500, 1.5k or 1.5 kHz)",

@@ -18,7 +18,19 @@ export interface BodeFigureInput {
   compact: boolean;
   /** Readout cursors A and B (vertical lines with their letter). */
   cursors?: readonly BodeCursor[];
+  /** The span the frequency axis shows when not focused (the run's sweep), in Hz. */
+  xRangeHz?: readonly [number, number] | null;
 }
+
+/** Bench data sets in turn: each its own open symbol, so two sets never look alike. */
+const BENCH_SYMBOLS = [
+  "circle-open",
+  "square-open",
+  "diamond-open",
+  "triangle-up-open",
+  "x-thin-open",
+  "star-open",
+];
 
 function lineTrace(
   s: BodeSeries,
@@ -72,7 +84,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
     data.push(lineTrace(s, 1, { ...common, showLegend: true }));
     data.push(lineTrace(s, 2, { ...common, showLegend: false }));
   });
-  input.measurements.forEach((s) => {
+  input.measurements.forEach((s, i) => {
     for (const row of [1, 2] as const) {
       data.push({
         type: s.frequencies.length > GL_THRESHOLD ? "scattergl" : "scatter",
@@ -85,7 +97,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
         y: row === 1 ? s.magnitudeDb : s.phaseDeg,
         xaxis: row === 1 ? "x" : "x2",
         yaxis: row === 1 ? "y" : "y2",
-        marker: { color: plotColors.measurement, size: 5, symbol: "circle-open" },
+        marker: { color: plotColors.measurement, size: 6, symbol: BENCH_SYMBOLS[i % BENCH_SYMBOLS.length] },
         text: hoverTexts(s.frequencies, row === 1 ? s.magnitudeDb : s.phaseDeg, row),
         hovertemplate: "%{text}<extra>bench: %{meta[0]}</extra>",
       } as Data);
@@ -190,7 +202,9 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
           autorange: false,
           range: [Math.log10(input.focusHz) - 0.5, Math.log10(input.focusHz) + 0.5],
         }
-      : { autorange: true }),
+      : input.xRangeHz && input.xRangeHz[0] > 0 && input.xRangeHz[1] > input.xRangeHz[0]
+        ? { autorange: false, range: [Math.log10(input.xRangeHz[0]), Math.log10(input.xRangeHz[1])] }
+        : { autorange: true }),
   };
   const hasDelta = input.overlays.some((o) => o.role === "difference");
   const layout: Partial<Layout> = {

@@ -11,6 +11,7 @@ import { CheckBadges } from "@/components/run/check-badges";
 import { ExportButtons } from "@/components/run/export-buttons";
 import { NetlistView } from "@/components/run/netlist-view";
 import { WarningsList } from "@/components/run/warnings-list";
+import { OverlayChooser } from "@/components/runs/overlay-chooser";
 import { RunWorkspace } from "@/components/runs/run-workspace";
 import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
@@ -19,6 +20,7 @@ import { listComments } from "@/lib/comments";
 import { NotFoundError } from "@/lib/errors";
 import { listMeasurements } from "@/lib/measurements";
 import { runPageMetadata } from "@/lib/page-titles";
+import { overlayIds, pickOverlays } from "@/lib/run-overlays";
 import { getRun } from "@/lib/runs";
 import { requireUser } from "@/lib/session";
 import { formatDate } from "@/lib/utils";
@@ -36,7 +38,11 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
       throw err;
     },
   );
-  const measurements = await listMeasurements(actor, run.projectId);
+  const [measurements, attached] = await Promise.all([
+    listMeasurements(actor, run.projectId),
+    overlayIds(run.id),
+  ]);
+  const overlaid = pickOverlays(measurements, attached);
   const result = run.result;
   const plotId = `run-plot-${run.id.slice(0, 8)}`;
   const stamp = { title: run.title, netlistHash: run.netlistHash };
@@ -130,7 +136,21 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             frequencies={result.frequencies}
             traces={result.traces}
             measures={result.measures}
-            measurements={measurements.slice(0, 4).map((m) => ({ name: `bench: ${m.name}`, ...m.data }))}
+            measurements={overlaid.map((m) => ({ name: m.name, ...m.data }))}
+            benchChooser={
+              <OverlayChooser
+                runId={run.id}
+                options={measurements.map(({ id, name, points, fromHz, toHz }) => ({
+                  id,
+                  name,
+                  points,
+                  fromHz,
+                  toHz,
+                }))}
+                selected={attached}
+                canChoose={run.permissions.createRun}
+              />
+            }
             comments={comments}
             canComment={run.permissions.comment}
             aside={reviewPanel}
