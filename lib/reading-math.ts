@@ -2,10 +2,11 @@
  * The arithmetic of a bench reading, pure and client-safe (the form shows it live, the server
  * stores and compares with it): what was read → the measured quantity, in words with the numbers
  * ("9.8 div × 10 µs/div = 98 µs → 10.2 kHz"), and how it stands against the run's prediction and
- * its Monte Carlo spread. Numbers are written by the one result formatter (components/run/format.ts).
+ * its Monte Carlo spread. Numbers are written by the one result formatter (solver/format.ts).
  */
-import { formatNumber, formatPercent, formatQuantity } from "@/components/run/format";
+
 import type { ReadingForm, ReadingQuantity } from "@/lib/reading-kinds";
+import { formatNumber, formatPercent, formatQuantity } from "@/solver/format";
 import type { MeasureResult, MeasureStats } from "@/solver/types";
 
 /** What a run predicted: its measures and, if it has Monte Carlo, their statistics. */

@@ -1,8 +1,8 @@
-import { formatPercent, formatQuantity } from "@/components/run/format";
 import type { ReadingCompareRow } from "@/lib/compare-readings";
 import { QUANTITY_LABEL } from "@/lib/reading-kinds";
 import type { Comparison } from "@/lib/reading-math";
 import { cn } from "@/lib/utils";
+import { formatPercent, formatQuantity } from "@/solver/format";
 
 /** One run's prediction of a reading: value, deviation and, with Monte Carlo, inside/outside p1…p99. */
 function Against({ c }: { c: Comparison }) {

@@ -2,7 +2,6 @@
 
 import { useRouter } from "next/navigation";
 import { useId, useRef, useState } from "react";
-import { formatPercent, formatQuantity } from "@/components/run/format";
 import { Button } from "@/components/ui/button";
 import { FieldErrors, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
@@ -18,6 +17,7 @@ import {
 } from "@/lib/reading-kinds";
 import { comparableMeasures, compareReading, deriveReading, percentileWords } from "@/lib/reading-math";
 import { cn } from "@/lib/utils";
+import { formatPercent, formatQuantity } from "@/solver/format";
 import type { MeasureResult, MeasureStats } from "@/solver/types";
 import { DEFAULT_UNIT, toSi, UNIT_CHOICES } from "./units";
 

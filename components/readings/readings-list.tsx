@@ -2,13 +2,13 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import { formatPercent, formatQuantity } from "@/components/run/format";
 import { Button } from "@/components/ui/button";
 import { Notice } from "@/components/ui/notice";
 import { QUANTITY_LABEL } from "@/lib/reading-kinds";
 import { percentileWords } from "@/lib/reading-math";
 import type { ReadingView } from "@/lib/readings";
 import { formatDate } from "@/lib/utils";
+import { formatPercent, formatQuantity } from "@/solver/format";
 
 const sizeText = (bytes: number) =>
   bytes >= 1024 * 1024
