@@ -72,7 +72,19 @@ export interface Part {
   /** ccvs/cccs: full name of the sensing vsource or inductor. */
   sense?: string;
   /** opamp options; all absent means the ideal nullor. */
-  opamp?: { gain?: number; gbw?: number; rout?: number };
+  opamp?: {
+    gain?: number;
+    gbw?: number;
+    rout?: number;
+    /** Second pole, Hz (LANGUAGE-NEXT §6). */
+    pole2?: number;
+    /** Input noise voltage density at the + input, V/√Hz. */
+    en?: number;
+    /** Input noise current density into each input, A/√Hz. */
+    in?: number;
+    /** 1/f corner of en and in, Hz. */
+    fc?: number;
+  };
   /** Where the part line is (for block instances: the line inside the block). */
   span: SourceSpan;
 }

@@ -82,7 +82,7 @@ export const KINDS: Record<PartKind, KindInfo> = {
     terminals: ["in+", "in-", "out"],
     value: "none",
     defaultValue: 0,
-    options: { gain: "gain", gbw: "gbw", rout: "rout" },
+    options: { gain: "gain", gbw: "gbw", rout: "rout", pole2: "pole2", en: "en", in: "in", fc: "fc" },
     usage: "U1: opamp pos neg out gbw=1M",
   },
 };
