@@ -146,7 +146,10 @@ export type MeasureFunction =
   | "gain-margin"
   | "mag"
   | "db"
-  | "phase";
+  | "phase"
+  | "group-delay"
+  | "noise"
+  | "input-noise";
 
 export interface MeasureDef {
   name: string;
@@ -156,6 +159,26 @@ export interface MeasureDef {
   level?: Level;
   /** `mag/db/phase … at F`: a frequency in Hz or the name of an earlier measure. */
   at?: { hz: number } | { measure: string };
+  /** `noise/input-noise … from F1 to F2`: the band integrated over. */
+  band?: { from: { hz: number } | { measure: string }; to: { hz: number } | { measure: string } };
+  span: SourceSpan;
+}
+
+/** `noise NAME = PROBE [input SOURCE]` (NETLIST.md "Noise"). */
+export interface NoiseDef {
+  name: string;
+  /** A voltage probe: volts(NODE) or volts(A, B). */
+  probe: Probe;
+  text: string;
+  /** The independent source the density is referred to, if any. */
+  input?: string;
+  span: SourceSpan;
+}
+
+/** `zeros PROBE`: the transfer's finite zeros from the one independent source to PROBE. */
+export interface ZerosDef {
+  probe: Probe;
+  text: string;
   span: SourceSpan;
 }
 
@@ -205,6 +228,10 @@ export interface Circuit {
   monteCarlo: MonteCarloDef | null;
   poles: boolean;
   sensitivity: { measure: string; span: SourceSpan }[];
+  /** `noise` statements (absent or empty: none). */
+  noise?: NoiseDef[];
+  /** `zeros` statements (absent or empty: none). */
+  zeros?: ZerosDef[];
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -217,6 +244,37 @@ export interface TraceResult {
   im: number[];
   magnitudeDb: number[];
   phaseDeg: number[];
+  /** −d∠X/dω in seconds at each frequency, exact from dX/ds; null where |X| = 0. */
+  groupDelay?: (number | null)[];
+}
+
+export interface NoiseContribution {
+  part: string;
+  /** Which noise of the part: a resistor's thermal noise, an op-amp's `en` or `in`. */
+  source: "thermal" | "en" | "in";
+  /** This source's share of the output density, V/√Hz (shares add in power); null where infinite. */
+  density: (number | null)[];
+}
+
+export interface NoiseResult {
+  name: string;
+  probe: string;
+  /** Output noise density, V/√Hz, at each frequency of the sweep (null where infinite: 1/f at 0 Hz). */
+  density: (number | null)[];
+  /** Input-referred density (output ÷ |gain from the input source|), or null without `input`. */
+  inputDensity: (number | null)[] | null;
+  input: string | null;
+  contributions: NoiseContribution[];
+  /** Kelvin the resistors' noise was computed at. */
+  temperature: number;
+}
+
+export interface ZeroResult {
+  probe: string;
+  re: number;
+  im: number;
+  frequencyHz: number;
+  q: number | null;
 }
 
 export interface MeasureResult {
@@ -299,6 +357,8 @@ export interface SolveSuccess {
   monteCarlo?: MonteCarloResult;
   poles?: PoleResult[];
   sensitivity?: SensitivityResult[];
+  noise?: NoiseResult[];
+  zeros?: ZeroResult[];
 }
 
 export interface SolveFailure {

@@ -95,6 +95,14 @@ export class AcSolver {
     return null;
   }
 
+  /**
+   * z with A(s)ᵀ·z = d at the last solved frequency (requires a successful solveAt): the adjoint
+   * solve of noise analysis (noise.ts), reusing the factors. z may alias d. Cost: one solve.
+   */
+  adjoint(dRe: Float64Array, dIm: Float64Array, zRe: Float64Array, zIm: Float64Array): void {
+    this.lu!.solveTransposed(dRe, dIm, zRe, zIm);
+  }
+
   /** dx/ds at the last solved frequency (requires a successful solveAt). Cost: one solve. */
   derivative(): void {
     this.derive(this.xRe, this.xIm, this.dxRe, this.dxIm);

@@ -1,5 +1,6 @@
 import type { MeasureDef, MeasureResult } from "../types";
 import { formatHz } from "./ac";
+import { type NoiseSampler, noiseMeasure } from "./noise-measures";
 import {
   at,
   bandwidth,
@@ -14,6 +15,7 @@ import {
   type TraceSampler,
   wrapDeg,
 } from "./refine";
+import { groupDelayOf } from "./trace";
 
 const UNITS: Record<MeasureDef["fn"], string> = {
   "zero-phase": "Hz",
@@ -28,7 +30,13 @@ const UNITS: Record<MeasureDef["fn"], string> = {
   mag: "",
   db: "dB",
   phase: "deg",
+  "group-delay": "s",
+  noise: "V/√Hz",
+  "input-noise": "V/√Hz",
 };
+
+/** The unit of one measure's value (a noise over a band is volts rms, at a frequency V/√Hz). */
+const unitOf = (def: MeasureDef) => (def.band ? "V" : UNITS[def.fn]);
 
 /** The function of one measure (no `at` resolution); F is the resolved frequency if any. */
 function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outcome {
@@ -79,6 +87,18 @@ function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outco
       const x = at(tr, f);
       return { value: -20 * Math.log10(mag(x.re, x.im)) };
     }
+    case "group-delay": {
+      if (atHz === null) return { reason: `group-delay(${tr.name}) needs "at" and a frequency` };
+      if (!(atHz > 0) || !Number.isFinite(atHz))
+        return { reason: `${formatHz(atHz)} is not a positive frequency` };
+      const tau = groupDelayOf(at(tr, atHz, true));
+      return tau === null
+        ? { reason: `${tr.name} is zero at ${formatHz(atHz)}: its phase has no slope` }
+        : { value: tau };
+    }
+    case "noise":
+    case "input-noise":
+      return { reason: `${def.target} is not a noise` };
     case "mag":
     case "db":
     case "phase": {
@@ -97,30 +117,41 @@ function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outco
  * Every measure in order (a measure may name an earlier one as its frequency). Never throws:
  * a measure without an answer gets value null and a reason.
  */
-export function computeMeasures(defs: MeasureDef[], traces: Map<string, TraceSampler>): MeasureResult[] {
+export function computeMeasures(
+  defs: MeasureDef[],
+  traces: Map<string, TraceSampler>,
+  noises: Map<string, NoiseSampler> = new Map(),
+): MeasureResult[] {
   const out: MeasureResult[] = [];
   const byName = new Map<string, MeasureResult>();
+  const hzOf = (ref: { hz: number } | { measure: string }): number | string => {
+    if ("hz" in ref) return ref.hz;
+    const m = byName.get(ref.measure);
+    if (!m) return `no earlier measure named ${ref.measure}`;
+    if (m.value === null) return `${m.name} has no value (${m.reason})`;
+    return m.value;
+  };
   for (const def of defs) {
-    const unit = UNITS[def.fn];
+    const unit = unitOf(def);
     let res: MeasureResult;
     const tr = traces.get(def.target);
-    if (!tr) {
+    const ns = noises.get(def.target);
+    if (!tr && !ns) {
       res = { name: def.name, value: null, unit, reason: `no trace or loop named ${def.target}` };
     } else {
-      let atHz: number | null = null;
-      let reason: string | null = null;
-      if (def.at && "hz" in def.at) atHz = def.at.hz;
-      else if (def.at) {
-        const ref = byName.get(def.at.measure);
-        if (!ref) reason = `no earlier measure named ${def.at.measure}`;
-        else if (ref.value === null) reason = `${ref.name} has no value (${ref.reason})`;
-        else atHz = ref.value;
-      }
+      const atRef = def.at ? hzOf(def.at) : null;
+      const from = def.band ? hzOf(def.band.from) : null;
+      const to = def.band ? hzOf(def.band.to) : null;
+      const reason = [atRef, from, to].find((x): x is string => typeof x === "string") ?? null;
+      const atHz = typeof atRef === "number" ? atRef : null;
       if (reason !== null) res = { name: def.name, value: null, unit, reason };
       else {
         let o: Outcome;
         try {
-          o = evaluate(def, tr, atHz);
+          if (ns) {
+            const band = typeof from === "number" && typeof to === "number" ? { from, to } : null;
+            o = noiseMeasure(ns, def.fn === "input-noise", atHz, band);
+          } else o = evaluate(def, tr!, atHz);
         } catch (e) {
           if (!(e instanceof SolveFailed)) throw e;
           o = { reason: e.message };

@@ -85,6 +85,7 @@ export type Statement =
       target: Named;
       level?: LevelNode;
       at?: ValueNode;
+      band?: { from: ValueNode; to: ValueNode };
       span: SourceSpan;
     }
   | {
@@ -104,7 +105,9 @@ export type Statement =
     }
   | { type: "monte-carlo"; samples: ValueNode; seed?: ValueNode; dist?: Named; span: SourceSpan }
   | { type: "poles"; span: SourceSpan }
-  | { type: "sensitivity"; measure: Named; span: SourceSpan };
+  | { type: "sensitivity"; measure: Named; span: SourceSpan }
+  | { type: "noise"; name: Named; probe: ProbeNode; text: string; input?: Named; span: SourceSpan }
+  | { type: "zeros"; probe: ProbeNode; text: string; span: SourceSpan };
 
 export interface ParseTree {
   statements: Statement[];

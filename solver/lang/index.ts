@@ -15,6 +15,7 @@ import { resolveLoops, resolveShows, resolveSweep } from "./directives";
 import { addFixes } from "./fixes";
 import { didYouMean } from "./hints";
 import { resolveChecks, resolveMeasures, resolveMonteCarlo, resolveVary } from "./measures";
+import { resolveNoise, resolveZeros } from "./noise-zeros";
 import { parseNetlist } from "./parser";
 import { flatten } from "./parts";
 import type { DirectiveContext } from "./resolve";
@@ -205,7 +206,9 @@ function elaborate(
   const shows = resolveShows(byType(st, "show"), ctx, traces);
   const loops = resolveLoops(byType(st, "loop"), ctx, traces);
   const measureStatements = byType(st, "measure");
-  const measures = resolveMeasures(measureStatements, ctx, traces);
+  const noise = resolveNoise(byType(st, "noise"), ctx, traces);
+  const zeros = resolveZeros(byType(st, "zeros"), ctx);
+  const measures = resolveMeasures(measureStatements, ctx, traces, new Set(noise.map((n) => n.name)));
   const checks = resolveChecks(byType(st, "check"), ctx, measureStatements);
   const varyStatement = once(byType(st, "vary"), "vary", errors);
   const vary = varyStatement ? resolveVary(varyStatement, ctx) : null;
@@ -236,6 +239,8 @@ function elaborate(
     monteCarlo,
     poles: byType(st, "poles").length > 0,
     sensitivity,
+    ...(noise.length > 0 ? { noise } : {}),
+    ...(zeros.length > 0 ? { zeros } : {}),
   };
 }
 

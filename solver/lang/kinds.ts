@@ -108,6 +108,8 @@ export const KEYWORDS = [
   "monte-carlo",
   "poles",
   "sensitivity",
+  "noise",
+  "zeros",
 ];
 
 /** The ways a loop gain is measured (`loop … method=…`); the first is the default. */
@@ -126,14 +128,21 @@ export const MEASURE_FUNCTIONS: MeasureFunction[] = [
   "mag",
   "db",
   "phase",
+  "group-delay",
+  "noise",
+  "input-noise",
 ];
 
 /** The unit of each measure's result ("" for plain numbers). */
-export function measureUnit(fn: MeasureFunction): "Hz" | "dB" | "deg" | "" {
+export function measureUnit(fn: MeasureFunction): "Hz" | "dB" | "deg" | "V" | "" {
   switch (fn) {
     case "q":
     case "mag":
+    case "group-delay": // seconds: a check's limit is written without a unit
       return "";
+    case "noise":
+    case "input-noise":
+      return "V";
     case "db":
     case "gain-margin":
       return "dB";

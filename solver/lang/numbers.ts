@@ -211,7 +211,7 @@ export const PLACES = {
   level: ["dB", "deg"],
   count: [],
   any: ["ohm", "F", "H", "V", "A", "S", "Hz", "%", "deg"],
-  limit: ["Hz", "dB", "deg"],
+  limit: ["Hz", "dB", "deg", "V"],
 } as const satisfies Record<string, readonly Unit[]>;
 
 /** Plain words for a place, used in "… takes …" messages. */
@@ -239,7 +239,7 @@ export const PLACE_WORDS: Record<Place, string> = {
   level: "a level is a magnitude, a dB value or a phase in degrees",
   count: "a count is a plain whole number",
   any: "this value",
-  limit: "a limit is in Hz, dB, degrees or a plain number",
+  limit: "a limit is in Hz, dB, degrees, volts or a plain number",
 };
 
 /** Null when `unit` fits `place`, else a message and a hint. */
