@@ -48,7 +48,8 @@ export type PartKind =
   | "vccs"
   | "ccvs"
   | "cccs"
-  | "opamp";
+  | "opamp"
+  | "diode";
 
 /** Ground's name (the only spelling the language accepts). */
 export const GROUND = "gnd";
@@ -76,6 +77,8 @@ export interface Part {
     gain?: number;
     gbw?: number;
     rout?: number;
+    /** Output limit ±V (steady oscillation only). */
+    swing?: number;
     /** Second pole, Hz (LANGUAGE-NEXT §6). */
     pole2?: number;
     /** Input noise voltage density at the + input, V/√Hz. */
@@ -85,6 +88,8 @@ export interface Part {
     /** 1/f corner of en and in, Hz. */
     fc?: number;
   };
+  /** diode options: saturation current (A), emission coefficient, and the junction temperature (K). */
+  diode?: { is: number; n: number; kelvin: number };
   /** Where the part line is (for block instances: the line inside the block). */
   span: SourceSpan;
 }
@@ -149,13 +154,19 @@ export type MeasureFunction =
   | "phase"
   | "group-delay"
   | "noise"
-  | "input-noise";
+  | "input-noise"
+  | "frequency"
+  | "amplitude"
+  | "thd"
+  | "startup";
 
 export interface MeasureDef {
   name: string;
   fn: MeasureFunction;
-  /** The trace or loop name the function reads. */
+  /** The trace or loop name the function reads (`amplitude`/`thd`: the probe's text). */
   target: string;
+  /** `amplitude`/`thd`: the probe read from the steady state. */
+  probe?: Probe;
   level?: Level;
   /** `mag/db/phase … at F`: a frequency in Hz or the name of an earlier measure. */
   at?: { hz: number } | { measure: string };
@@ -232,6 +243,20 @@ export interface Circuit {
   noise?: NoiseDef[];
   /** `zeros` statements (absent or empty: none). */
   zeros?: ZerosDef[];
+  /** Temperature in kelvin (`temperature`, default 27 °C = 300.15 K): diodes and noise. */
+  temperature: number;
+  /** `steady LOOP …`: the steady oscillation of a loop, or null. */
+  steady: SteadyDef | null;
+}
+
+/** `steady LOOP [harmonics=N] [from=LEVEL]` (NETLIST.md "Steady oscillation"). */
+export interface SteadyDef {
+  loop: string;
+  /** Number of harmonics N (default 15). */
+  harmonics: number;
+  /** Start level of the envelope at the cut node, volts (default 1 µV). */
+  from: number;
+  span: SourceSpan;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -336,6 +361,42 @@ export interface SensitivityResult {
   value: number | null;
 }
 
+/** One probe of the steady oscillation (NETLIST.md "Steady oscillation"). */
+export interface SteadyProbe {
+  probe: string;
+  /** Peak amplitude of harmonics 1…N (one-sided: a sine of peak A has amplitudes[0] = A). */
+  amplitudes: number[];
+  /** Phase of harmonics 1…N in degrees, cosine reference, the cut node's fundamental at 0°. */
+  phasesDeg: number[];
+  /** The mean (harmonic 0). */
+  dc: number;
+  thdPercent: number;
+  /** One period, uniformly sampled (t from 0 to T exclusive). */
+  waveform: { t: number[]; value: number[] };
+}
+
+/** The steady oscillation of a loop; null figures come with their reason. */
+export interface SteadyResult {
+  loop: string;
+  /** null when there is no steady oscillation (reason says why). */
+  frequencyHz: number | null;
+  harmonics: number;
+  startup: { sigma: number; seconds: number | null; cycles: number | null; from: number } | null;
+  probes: SteadyProbe[];
+  /** Newton's final residual (largest harmonic mismatch relative to the largest harmonic), and steps. */
+  residual: number | null;
+  iterations: number;
+  /** Why there is no result (it does not start, nothing limits it, Newton did not converge), else null. */
+  reason: string | null;
+  /** The verdict in one sentence. */
+  summary: string;
+  /** The describing-function estimate the solve started from (fundamental only), when found. */
+  estimate: { frequencyHz: number; amplitude: number; node: string } | null;
+  /** Envelope growth at the cut node: time (s) and peak level (V), from the start level to the steady amplitude. */
+  envelope: { t: number[]; level: number[] } | null;
+  notes: string[];
+}
+
 export interface SolveStats {
   nodes: number;
   unknowns: number;
@@ -359,6 +420,7 @@ export interface SolveSuccess {
   sensitivity?: SensitivityResult[];
   noise?: NoiseResult[];
   zeros?: ZeroResult[];
+  steady?: SteadyResult;
 }
 
 export interface SolveFailure {

@@ -124,6 +124,8 @@ export function oscillatorVerdict(result: SolveSuccess): OscillatorVerdict | nul
   } else {
     parts.push("Add `poles` to the netlist to see the growth per cycle.");
   }
+  // The steady oscillation (harmonic balance) says how it ends: the same start decision, from the poles.
+  if (result.steady) parts.push(`Steady state: ${result.steady.summary}.`);
   return { kind, headline, loop, pole, detail: parts.join(" ") };
 }
 

@@ -8,6 +8,7 @@ import type {
   Probe,
   SolveResult,
   SourceSpan,
+  SteadyResult,
   TraceResult,
   Warning,
 } from "../types";
@@ -21,6 +22,8 @@ import { kelvinOf, NoiseProbe, NoiseSweep } from "./noise";
 import type { NoiseSampler } from "./noise-measures";
 import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
+import { solveSteady } from "./steady";
+import { steadyMeasure } from "./steady/measures";
 import { sweepFrequencies } from "./sweep";
 import { groupDelayOf, makeTrace } from "./trace";
 
@@ -60,6 +63,7 @@ export interface SweepOutcome {
   system: MnaSystem;
   /** The `noise` statements' densities over the sweep (only when `full`). */
   noise: NoiseResult[];
+  steady?: SteadyResult;
 }
 
 /**
@@ -285,11 +289,29 @@ export function sweepCircuit(
     [...circuit.shows.map((s) => s.name), ...circuit.loops.map((l) => l.name)].map((n, i) => [n, i]),
   );
   traces.sort((a, b) => (order.get(a.name) ?? 0) - (order.get(b.name) ?? 0));
+  const steady = circuit.steady
+    ? solveSteady(circuit, circuit.steady, samplers.get(circuit.steady.loop), middleHz(freqs))
+    : undefined;
   const noiseSamplers = new Map(noiseProbes.map((p) => [p.def.name, noiseSampler(mainSolver, p)]));
-  const measures = computeMeasures(circuit.measures, samplers, noiseSamplers);
+  const measures = computeMeasures(
+    circuit.measures,
+    samplers,
+    (def) => steadyMeasure(def, steady),
+    noiseSamplers,
+  );
   const checks = evaluateChecks(circuit.checks, measures);
   const noise = noiseSweeps.map((ns) => ns.result(kelvin));
-  return { ok: true, outcome: { traces, measures, checks, samplers, system: main, noise } };
+  return {
+    ok: true,
+    outcome: { traces, measures, checks, samplers, system: main, noise, ...(steady ? { steady } : {}) },
+  };
+}
+
+/** The geometric middle of a sweep (the scale of the pole search). */
+export function middleHz(freqs: number[]): number {
+  const a = freqs[0] ?? 1;
+  const b = freqs[freqs.length - 1] ?? a;
+  return Math.sqrt(a * b);
 }
 
 /**
@@ -350,6 +372,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
     checks: outcome.checks,
     warnings: warn,
     ...(outcome.noise.length > 0 ? { noise: outcome.noise } : {}),
+    ...(outcome.steady ? { steady: outcome.steady } : {}),
     stats: {
       nodes: circuit.nodes.length,
       unknowns: outcome.system.n,

@@ -33,6 +33,10 @@ const UNITS: Record<MeasureDef["fn"], string> = {
   "group-delay": "s",
   noise: "V/√Hz",
   "input-noise": "V/√Hz",
+  frequency: "Hz",
+  amplitude: "V",
+  thd: "%",
+  startup: "s",
 };
 
 /** The unit of one measure's value (a noise over a band is volts rms, at a frequency V/√Hz). */
@@ -110,6 +114,9 @@ function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outco
       if (def.fn === "db") return { value: 20 * Math.log10(mag(x.re, x.im)) };
       return { value: deg(x.re, x.im) };
     }
+    default:
+      // frequency, amplitude, thd, startup: read from the steady oscillation (engine/steady).
+      return { reason: `${def.fn} is read from the steady oscillation: add \`steady LOOP\`` };
   }
 }
 
@@ -120,6 +127,8 @@ function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outco
 export function computeMeasures(
   defs: MeasureDef[],
   traces: Map<string, TraceSampler>,
+  /** The steady measures' outcomes (engine/steady/measures.ts); null for every other measure. */
+  steady: (def: MeasureDef) => Outcome | null = () => null,
   noises: Map<string, NoiseSampler> = new Map(),
 ): MeasureResult[] {
   const out: MeasureResult[] = [];
@@ -136,7 +145,18 @@ export function computeMeasures(
     let res: MeasureResult;
     const tr = traces.get(def.target);
     const ns = noises.get(def.target);
-    if (!tr && !ns) {
+    const fromSteady = steady(def);
+    if (fromSteady !== null) {
+      res =
+        "value" in fromSteady && Number.isFinite(fromSteady.value)
+          ? { name: def.name, value: fromSteady.value, unit, reason: null }
+          : {
+              name: def.name,
+              value: null,
+              unit,
+              reason: "reason" in fromSteady ? fromSteady.reason : "no finite value",
+            };
+    } else if (!tr && !ns) {
       res = { name: def.name, value: null, unit, reason: `no trace or loop named ${def.target}` };
     } else {
       const atRef = def.at ? hzOf(def.at) : null;

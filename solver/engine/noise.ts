@@ -13,19 +13,15 @@
  * Densities: a resistor R is a current source of 4kT/R A²/Hz across it (Johnson–Nyquist; k exact,
  * SI Brochure 9th ed.), an op-amp's en² and in² (in into each input, uncorrelated) times (1 + fc/f).
  */
+import { BOLTZMANN, DEFAULT_KELVIN } from "../physics";
 import type { Circuit, NoiseDef, NoiseResult, Part } from "../types";
 import type { AcSolver } from "./ac";
 import type { MnaSystem } from "./mna";
 import { controlRow } from "./opamp";
 
-/** Boltzmann's constant, J/K (exact since the 2019 SI). */
-export const BOLTZMANN = 1.380649e-23;
-/** The netlist's temperature when it names none: 27 °C (LANGUAGE-NEXT §1). */
-export const DEFAULT_KELVIN = 300.15;
-
-/** The circuit's temperature in kelvin (the `temperature` statement, else 27 °C). */
+/** The circuit's temperature in kelvin (the `temperature` statement; the language defaults it to 27 °C). */
 export function kelvinOf(circuit: Circuit): number {
-  const t = (circuit as Circuit & { temperature?: number }).temperature;
+  const t = circuit.temperature;
   return typeof t === "number" && t > 0 ? t : DEFAULT_KELVIN;
 }
 

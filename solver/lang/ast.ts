@@ -83,6 +83,8 @@ export type Statement =
       name: Named;
       fn: MeasureFunction;
       target: Named;
+      /** `amplitude(PROBE)` / `thd(PROBE)`: the probe as written (target is its text). */
+      probe?: ProbeNode;
       level?: LevelNode;
       at?: ValueNode;
       band?: { from: ValueNode; to: ValueNode };
@@ -107,7 +109,9 @@ export type Statement =
   | { type: "poles"; span: SourceSpan }
   | { type: "sensitivity"; measure: Named; span: SourceSpan }
   | { type: "noise"; name: Named; probe: ProbeNode; text: string; input?: Named; span: SourceSpan }
-  | { type: "zeros"; probe: ProbeNode; text: string; span: SourceSpan };
+  | { type: "zeros"; probe: ProbeNode; text: string; span: SourceSpan }
+  | { type: "temperature"; kelvin: number; span: SourceSpan }
+  | { type: "steady"; loop: Named; harmonics?: ValueNode; from?: ValueNode; span: SourceSpan };
 
 export interface ParseTree {
   statements: Statement[];

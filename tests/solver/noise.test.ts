@@ -31,10 +31,10 @@ describe("thermal noise √(4kTR) (CHECKS §10; OAFE §10.3.2 Eq. 10-11)", () =>
       ["1k", 4.070355e-9],
     ] as const) {
       const res = solve(
-        `Vin: vsource in gnd 1\nR1: resistor in out ${r}\nRl: capacitor out gnd 1p\n` +
+        `temperature 300K\nVin: vsource in gnd 1\nR1: resistor in out ${r}\nRl: capacitor out gnd 1p\n` +
           "sweep 1Hz to 10Hz log 5 per decade\nnoise N = volts(out)\nmeasure n1 = noise(N) at 1Hz\n",
-        300,
       );
+      expect(res.noise![0]!.temperature).toBe(300);
       expectClose(value(res, "n1"), want, 1e-6); // CHECKS §10
       expectClose(res.noise![0]!.density[0]!, want, 1e-6);
       expect(res.noise![0]!.contributions.map((c) => c.part)).toEqual(["R1"]);
