@@ -3,6 +3,8 @@
  * 9th ed., 2019). OAFE = Texas Instruments, "Op Amps For Everyone — Design Reference", SLOD006B, 2002.
  */
 import { describe, expect, it } from "vitest";
+import { toSummary } from "@/solver/cli";
+import { resultToCsv } from "@/solver/csv";
 import { analyze } from "@/solver/engine";
 import { compile } from "@/solver/lang";
 import type { SolveSuccess } from "@/solver/types";
@@ -124,6 +126,34 @@ measure iband = input-noise(N) from 10Hz to 10kHz
     const want = Math.sqrt(opamp2 * (f2 - f1 + fc * Math.log(f2 / f1)) + resist2 * (f2 - f1));
     expectClose(value(res, "band"), want, 1e-9);
     expectClose(value(res, "iband"), want / g, 1e-9);
+  });
+});
+
+describe("noise in the CSV export and the command's summary", () => {
+  it("adds N_noise_v_per_rthz and N_input_noise_v_per_rthz columns and a Noise block naming the largest source", () => {
+    const res = solve(`Vin: vsource src gnd 1
+Rs: resistor src pos 5k
+U1: opamp pos neg out en=8n in=2p
+Rf: resistor out neg 99k
+Rg: resistor neg gnd 1k
+sweep 1kHz to 10kHz log 1 per decade
+show H = volts(out)
+noise N = volts(out) input Vin
+`);
+    const rows = resultToCsv(res).trim().split("\r\n");
+    expect(rows[0]).toBe(
+      "frequency_hz,H_re,H_im,H_db,H_deg,H_delay_s,N_noise_v_per_rthz,N_input_noise_v_per_rthz",
+    );
+    const cells = rows[1]!.split(",").map(Number);
+    expectClose(cells[6]!, res.noise![0]!.density[0]!, 1e-15);
+    expectClose(cells[7]! * 100, cells[6]!, 1e-12); // G = 100
+    const text = toSummary(res);
+    expect(text).toContain("Noise N at volts(out)");
+    // The op-amp's current noise leads: √((in·Rs·G)² + (in·Rf)²) = √((1 µV)² + (198 nV)²) = 1.01941 µV/√Hz
+    // (OAFE §10.5 model, as above), ahead of en·G = 800 nV/√Hz.
+    const lines = text.split("\n");
+    const first = lines.findIndex((l) => l.startsWith("Noise N"));
+    expect(lines[first + 3]).toMatch(/^ {2}U1 in: 1\.01941 µV\/√Hz/);
   });
 });
 
