@@ -13,6 +13,7 @@ import { assemble, buildMna, type MnaSystem } from "../solver/engine/mna";
 import { sweepFrequencies } from "../solver/engine/sweep";
 import { solveNetlistParallel, stopSampleWorkers, workersUnavailableReason } from "../solver/parallel";
 import type { Part } from "../solver/types";
+import { noiseCase } from "./bench-noise";
 
 export interface BenchRow {
   name: string;
@@ -216,6 +217,7 @@ function monteCarloCase(label: string, threads: number): BenchCase {
 }
 
 BENCH_CASES.push(
+  noiseCase(100),
   monteCarloCase("in-thread", 0),
   monteCarloCase("2 worker threads, cold (incl. start)", 2),
   monteCarloCase("2 worker threads, warm", 2),

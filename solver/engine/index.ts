@@ -242,7 +242,7 @@ export function sweepCircuit(
   const kelvin = kelvinOf(circuit);
   const mainSolver = runs[0]!.solver;
   const noiseProbes = (circuit.noise ?? []).map((d) => new NoiseProbe(d, mainSolver.sys, kelvin));
-  const noiseSweeps = full ? noiseProbes.map((p) => new NoiseSweep(p)) : [];
+  const noiseSweeps = full ? noiseProbes.map((p) => new NoiseSweep(p, freqs.length)) : [];
   const traces: TraceResult[] = [];
   const samplers = new Map<string, TraceSampler>();
   for (const [r, run] of runs.entries()) {

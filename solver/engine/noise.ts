@@ -30,8 +30,9 @@ interface Source {
   part: string;
   source: "thermal" | "en" | "in";
   terms: [number, number][];
-  /** Density² at f: V²/Hz or A²/Hz. */
-  psd: (f: number) => number;
+  /** Density² is white·(1 + fc/f): V²/Hz or A²/Hz. */
+  white: number;
+  fc: number;
 }
 
 function sourcesOf(sys: MnaSystem, kelvin: number): Source[] {
@@ -39,12 +40,13 @@ function sourcesOf(sys: MnaSystem, kelvin: number): Source[] {
   const out: Source[] = [];
   for (const p of sys.parts) {
     if (p.kind === "resistor" && p.value !== 0) {
-      const g = (4 * BOLTZMANN * kelvin) / Math.abs(p.value);
+      const white = (4 * BOLTZMANN * kelvin) / Math.abs(p.value);
       out.push({
         part: p.name,
         source: "thermal",
         terms: [[ix(p.nodes[0]!), ix(p.nodes[1]!)]],
-        psd: () => g,
+        white,
+        fc: 0,
       });
     } else if (p.kind === "opamp") out.push(...opampSources(p, sys, ix));
   }
@@ -54,25 +56,17 @@ function sourcesOf(sys: MnaSystem, kelvin: number): Source[] {
 function opampSources(p: Part, sys: MnaSystem, ix: (n: string) => number): Source[] {
   const o = p.opamp ?? {};
   const fc = o.fc ?? 0;
-  const flicker = (x: number) => (f: number) => x * x * (1 + fc / f);
   const out: Source[] = [];
-  if (o.en)
-    out.push({
-      part: p.name,
-      source: "en",
-      terms: [[controlRow(p, sys.branchIndex), -1]],
-      psd: flicker(o.en),
-    });
+  if (o.en) {
+    const terms: [number, number][] = [[controlRow(p, sys.branchIndex), -1]];
+    out.push({ part: p.name, source: "en", terms, white: o.en * o.en, fc });
+  }
   if (o.in) {
-    out.push({
-      part: p.name,
-      source: "in",
-      terms: [
-        [ix(p.nodes[0]!), -1],
-        [ix(p.nodes[1]!), -1],
-      ],
-      psd: flicker(o.in),
-    });
+    const terms: [number, number][] = [
+      [ix(p.nodes[0]!), -1],
+      [ix(p.nodes[1]!), -1],
+    ];
+    out.push({ part: p.name, source: "in", terms, white: o.in * o.in, fc });
   }
   return out;
 }
@@ -82,7 +76,7 @@ export interface NoisePoint {
   /** Output density², V²/Hz. */
   total: number;
   /** Each source's density², in the order of `NoiseProbe.sources`. */
-  parts: number[];
+  parts: Float64Array;
   /** |gain from the input source to the probe|², or null without `input`. */
   gain2: number | null;
 }
@@ -93,8 +87,15 @@ export class NoiseProbe {
   readonly sources: Source[];
   private readonly dRe: Float64Array;
   private readonly dIm: Float64Array;
+  /** z with one more slot (index n, always 0) standing for gnd. */
   private readonly zRe: Float64Array;
   private readonly zIm: Float64Array;
+  /** Sources flattened for the per-point loop: terms of source s are termStart[s]…termStart[s+1]−1. */
+  private readonly termStart: Int32Array;
+  private readonly termA: Int32Array;
+  private readonly termB: Int32Array;
+  private readonly white: Float64Array;
+  private readonly fc: Float64Array;
   private readonly input: { row: number } | { from: number; to: number } | null;
 
   constructor(def: NoiseDef, sys: MnaSystem, kelvin: number) {
@@ -103,8 +104,18 @@ export class NoiseProbe {
     const n = sys.n;
     this.dRe = new Float64Array(n);
     this.dIm = new Float64Array(n);
-    this.zRe = new Float64Array(n);
-    this.zIm = new Float64Array(n);
+    this.zRe = new Float64Array(n + 1);
+    this.zIm = new Float64Array(n + 1);
+    const g = (i: number) => (i < 0 ? n : i);
+    const flat = this.sources.flatMap((x) => x.terms);
+    this.termA = Int32Array.from(flat, ([a]) => g(a));
+    this.termB = Int32Array.from(flat, ([, b]) => g(b));
+    this.termStart = new Int32Array(this.sources.length + 1);
+    this.sources.forEach((x, i) => {
+      this.termStart[i + 1] = this.termStart[i]! + x.terms.length;
+    });
+    this.white = Float64Array.from(this.sources, (x) => x.white);
+    this.fc = Float64Array.from(this.sources, (x) => x.fc);
     if (def.probe.op === "v") {
       const a = sys.nodeIndex.get(def.probe.node);
       const b = def.probe.ref === undefined ? undefined : sys.nodeIndex.get(def.probe.ref);
@@ -116,35 +127,42 @@ export class NoiseProbe {
     else if (src.kind === "vsource") this.input = { row: sys.branchIndex.get(src.name)! };
     else
       this.input = {
-        from: sys.nodeIndex.get(src.nodes[0]!) ?? -1,
-        to: sys.nodeIndex.get(src.nodes[1]!) ?? -1,
+        from: g(sys.nodeIndex.get(src.nodes[0]!) ?? -1),
+        to: g(sys.nodeIndex.get(src.nodes[1]!) ?? -1),
       };
   }
 
-  /** The densities at frequency f; `solver` must have just solved at f. Cost: one transposed solve. */
-  evaluate(solver: AcSolver, f: number): NoisePoint {
-    const { zRe, zIm } = this;
-    solver.adjoint(this.dRe, this.dIm, zRe, zIm);
-    const zr = (i: number) => (i < 0 ? 0 : zRe[i]!);
-    const zi = (i: number) => (i < 0 ? 0 : zIm[i]!);
+  /**
+   * The densities at frequency f; `solver` must have just solved at f. Cost: one transposed solve
+   * and O(sources). `parts` receives each source's density² (a new array when not given).
+   */
+  evaluate(
+    solver: AcSolver,
+    f: number,
+    parts: Float64Array = new Float64Array(this.sources.length),
+  ): NoisePoint {
+    const { zRe, zIm, termStart, termA, termB, white, fc } = this;
+    const n = zRe.length - 1;
+    solver.adjoint(this.dRe, this.dIm, zRe.subarray(0, n), zIm.subarray(0, n));
     let total = 0;
-    const parts = new Array<number>(this.sources.length);
-    for (let s = 0; s < this.sources.length; s++) {
-      const src = this.sources[s]!;
+    for (let s = 0; s < white.length; s++) {
       let g2 = 0;
-      for (const [a, b] of src.terms) {
-        const r = zr(a) - zr(b);
-        const i = zi(a) - zi(b);
+      for (let q = termStart[s]!; q < termStart[s + 1]!; q++) {
+        const a = termA[q]!;
+        const b = termB[q]!;
+        const r = zRe[a]! - zRe[b]!;
+        const i = zIm[a]! - zIm[b]!;
         g2 += r * r + i * i;
       }
-      const v = g2 * src.psd(f);
+      const fcs = fc[s]!;
+      const v = g2 * white[s]! * (fcs === 0 ? 1 : 1 + fcs / f);
       parts[s] = v;
       total += v;
     }
     let gain2: number | null = null;
     const inp = this.input;
-    if (inp && "row" in inp) gain2 = zr(inp.row) ** 2 + zi(inp.row) ** 2;
-    else if (inp) gain2 = (zr(inp.to) - zr(inp.from)) ** 2 + (zi(inp.to) - zi(inp.from)) ** 2;
+    if (inp && "row" in inp) gain2 = zRe[inp.row]! ** 2 + zIm[inp.row]! ** 2;
+    else if (inp) gain2 = (zRe[inp.to]! - zRe[inp.from]!) ** 2 + (zIm[inp.to]! - zIm[inp.from]!) ** 2;
     return { total, parts, gain2 };
   }
 }
@@ -154,32 +172,49 @@ const root = (x: number): number | null => (Number.isFinite(x) && x >= 0 ? Math.
 /** Collects a noise statement's densities over a sweep (filled point by point, in order). */
 export class NoiseSweep {
   readonly probe: NoiseProbe;
-  private readonly points: NoisePoint[] = [];
+  private readonly total: Float64Array;
+  private readonly gain2: Float64Array;
+  /** Point-major density² of every source: parts[k·S + s]. */
+  private readonly parts: Float64Array;
+  private k = 0;
 
-  constructor(probe: NoiseProbe) {
+  constructor(probe: NoiseProbe, points: number) {
     this.probe = probe;
+    this.total = new Float64Array(points);
+    this.gain2 = new Float64Array(points);
+    this.parts = new Float64Array(points * probe.sources.length);
   }
 
   record(solver: AcSolver, f: number): void {
-    this.points.push(this.probe.evaluate(solver, f));
+    const S = this.probe.sources.length;
+    const p = this.probe.evaluate(solver, f, this.parts.subarray(this.k * S, (this.k + 1) * S));
+    this.total[this.k] = p.total;
+    this.gain2[this.k] = p.gain2 ?? 0;
+    this.k++;
   }
 
   result(kelvin: number): NoiseResult {
     const { def, sources } = this.probe;
-    const pts = this.points;
+    const S = sources.length;
+    const pts = this.k;
+    const column = (get: (k: number) => number | null) => {
+      const out = new Array<number | null>(pts);
+      for (let k = 0; k < pts; k++) out[k] = get(k);
+      return out;
+    };
     return {
       name: def.name,
       probe: def.text,
-      density: pts.map((p) => root(p.total)),
+      density: column((k) => root(this.total[k]!)),
       inputDensity:
         def.input === undefined
           ? null
-          : pts.map((p) => (p.gain2 !== null && p.gain2 > 0 ? root(p.total / p.gain2) : null)),
+          : column((k) => (this.gain2[k]! > 0 ? root(this.total[k]! / this.gain2[k]!) : null)),
       input: def.input ?? null,
-      contributions: sources.map((s, i) => ({
-        part: s.part,
-        source: s.source,
-        density: pts.map((p) => root(p.parts[i]!)),
+      contributions: sources.map((src, s) => ({
+        part: src.part,
+        source: src.source,
+        density: column((k) => root(this.parts[k * S + s]!)),
       })),
       temperature: kelvin,
     };
