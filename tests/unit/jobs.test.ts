@@ -25,7 +25,8 @@ describe("solveWork = points × (1 + samples + variants)", () => {
     expect(solveWork(circuit(net("")))).toBe(400);
   });
   it("a noise density rides on the sweep (not priced); each integrated noise measure adds NOISE_BAND_WORK per variant", () => {
-    const noise = "noise N = volts(out)\nmeasure a = noise(N) at 1kHz\nmeasure b = noise(N) from 10Hz to 20kHz";
+    const noise =
+      "noise N = volts(out)\nmeasure a = noise(N) at 1kHz\nmeasure b = noise(N) from 10Hz to 20kHz";
     expect(solveWork(circuit(net(noise)))).toBe(400 + NOISE_BAND_WORK);
     expect(solveWork(circuit(net(`${noise}\nvary R1 over 1k, 2k`)))).toBe(400 * 3 + NOISE_BAND_WORK * 3);
   });
