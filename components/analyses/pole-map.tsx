@@ -120,32 +120,6 @@ export function PoleMap({ poles, zeros = [] }: { poles: PoleResult[]; zeros?: Ze
             style={{ width: "100%", height: "100%" }}
           />
         </figure>
-        <div className="text-caption text-ink-500 space-y-1 lg:col-span-2" data-testid="far-roots">
-          {view.far.length > 0 ? (
-            <p>
-              {all ? "Showing every root. " : `Zoomed to the dominant roots; beyond the view: `}
-              {all
-                ? null
-                : view.far
-                    .map((r) => `${r.kind} at ${formatQuantity(r.frequencyHz, "Hz", 4)}`)
-                    .join(", ")}{" "}
-              <button type="button" className="text-copper-700 underline" onClick={() => setAll(!all)}>
-                {all ? "zoom to the dominant roots" : "show all"}
-              </button>
-            </p>
-          ) : null}
-          {zeros.length > 0 ? (
-            <p>
-              Zeros ({zeros[0]!.probe}):{" "}
-              {zeros
-                .map(
-                  (z) =>
-                    `${formatQuantity(z.re, "", 4)} ${z.im < 0 ? "−" : "+"} j${formatQuantity(Math.abs(z.im), "", 5)} (${formatQuantity(z.frequencyHz, "Hz", 4)})`,
-                )
-                .join("; ")}
-            </p>
-          ) : null}
-        </div>
         <div className="overflow-x-auto">
           <table className="w-full text-sm">
             <caption className="sr-only">Poles with frequency, quality factor and growth per cycle</caption>
@@ -202,6 +176,32 @@ export function PoleMap({ poles, zeros = [] }: { poles: PoleResult[]; zeros?: Ze
           <p className="text-caption text-ink-500 mt-2">
             Amplitude change per cycle is e^(2πσ/ω); above ×1 an oscillation grows, below it dies away.
           </p>
+        </div>
+        <div className="text-caption text-ink-500 space-y-1 lg:col-span-2" data-testid="far-roots">
+          {view.far.length > 0 ? (
+            <p>
+              {all ? "Showing every root. " : `Zoomed to the dominant roots; beyond the view: `}
+              {all
+                ? null
+                : view.far
+                    .map((r) => `${r.kind} at ${formatQuantity(r.frequencyHz, "Hz", 4)}`)
+                    .join(", ")}{" "}
+              <button type="button" className="text-copper-700 underline" onClick={() => setAll(!all)}>
+                {all ? "zoom to the dominant roots" : "show all"}
+              </button>
+            </p>
+          ) : null}
+          {zeros.length > 0 ? (
+            <p>
+              Zeros ({zeros[0]!.probe}):{" "}
+              {zeros
+                .map(
+                  (z) =>
+                    `${formatQuantity(z.re, "", 4)} ${z.im < 0 ? "−" : "+"} j${formatQuantity(Math.abs(z.im), "", 5)} (${formatQuantity(z.frequencyHz, "Hz", 4)})`,
+                )
+                .join("; ")}
+            </p>
+          ) : null}
         </div>
       </div>
     </section>
