@@ -31,7 +31,7 @@ import {
   type RunJobView,
   requestCancel,
 } from "@/lib/run-lifecycle";
-import { analyze, compile, SOLVER_VERSION } from "@/solver";
+import { analyze, compile, SOLVER_VERSION, type SolveOptions } from "@/solver";
 import { sweepLength } from "@/solver/engine/sweep";
 import type { Circuit, NetlistError } from "@/solver/types";
 
@@ -61,6 +61,20 @@ export function solveWork(circuit: Circuit): number {
   if (!circuit.steady) return sweeps;
   const sampled = circuit.measures.some((m) => STEADY_MEASURES.has(m.fn)) ? samples : 0;
   return sweeps + steadyWork(circuit.steady.harmonics) * (1 + variants + sampled);
+}
+
+/**
+ * Solve options of a live preview: a steady oscillation that alone would exceed the inline budget is
+ * left out with the reason (saving the run queues it).
+ */
+export function previewOptions(netlist: string, maxPoints: number): SolveOptions {
+  const compiled = compile(netlist);
+  const steady = compiled.ok ? compiled.circuit.steady : null;
+  if (!steady || steadyWork(steady.harmonics) <= MAX_INLINE_WORK) return { maxPoints };
+  return {
+    maxPoints,
+    deferSteady: `the steady oscillation with ${steady.harmonics} harmonics is too large for a preview: save the run to solve it (queued)`,
+  };
 }
 
 const STEADY_MEASURES = new Set(["frequency", "amplitude", "thd", "startup"]);

@@ -3,7 +3,7 @@
 import type { Data, Layout } from "plotly.js";
 import { useMemo, useState } from "react";
 import { plotColors, plotFonts, plotHoverLabel, traceColor } from "@/components/plot/palette";
-import { formatQuantity } from "@/components/run/format";
+import { formatQuantity } from "@/solver/format";
 import type { NoiseResult } from "@/solver/types";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
 import { bandRms, noiseShares } from "./noise-math";

@@ -20,9 +20,10 @@ import { computeMeasures } from "./measures";
 import { buildMna, type MnaSystem } from "./mna";
 import { kelvinOf, NoiseProbe, NoiseSweep } from "./noise";
 import type { NoiseSampler } from "./noise-measures";
+import { loopsAtZeroPhase } from "./oscillation";
 import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
-import { solveSteady } from "./steady";
+import { deferredSteady, solveSteady } from "./steady";
 import { steadyMeasure } from "./steady/measures";
 import { sweepFrequencies } from "./sweep";
 import { groupDelayOf, makeTrace } from "./trace";
@@ -33,6 +34,8 @@ export const ENGINE_VERSION = "1.0.0";
 export interface AnalyzeOptions {
   /** Refuse sweeps with more points than this (the service's per-request limit). */
   maxPoints?: number;
+  /** Leave the steady oscillation out, with this reason (a preview over the service's budget). */
+  deferSteady?: string;
 }
 
 export const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
@@ -203,16 +206,18 @@ export function planSystems(
       showRun = runs[1]!;
       rename = (p) => renameNode(p, firstLoop.node, cutNodeName(firstLoop.node));
       // With double injection the shows read the 1 V series injection (the first right-hand side).
-      warnings.push({
-        line: firstLoop.span.line,
-        message:
-          firstLoop.method === "injection"
-            ? `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s 1 V series ` +
-              `test source at ${firstLoop.node} as the excitation, volts(${firstLoop.node}) being read on the side ` +
-              "of the listed parts"
-            : `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s test signal ` +
-              `as the excitation (the loop opened at ${firstLoop.node}, volts(${firstLoop.node}) being the injected side)`,
-      });
+      // Ratios such as volts(pos)/volts(amp_out) do not depend on the excitation: no warning for them.
+      if (!circuit.shows.every((sh) => excitationDegree(sh.probe) === 0))
+        warnings.push({
+          line: firstLoop.span.line,
+          message:
+            firstLoop.method === "injection"
+              ? `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s 1 V series ` +
+                `test source at ${firstLoop.node} as the excitation, volts(${firstLoop.node}) being read on the side ` +
+                "of the listed parts"
+              : `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s test signal ` +
+                `as the excitation (the loop opened at ${firstLoop.node}, volts(${firstLoop.node}) being the injected side)`,
+        });
     }
   }
   for (const show of circuit.shows) {
@@ -233,6 +238,7 @@ export function sweepCircuit(
   circuit: Circuit,
   freqs: number[],
   warnings: Warning[],
+  deferSteady?: string,
   full = false,
 ): { ok: true; outcome: SweepOutcome } | { ok: false; errors: NetlistError[] } {
   const planned = planSystems(circuit, warnings);
@@ -289,9 +295,11 @@ export function sweepCircuit(
     [...circuit.shows.map((s) => s.name), ...circuit.loops.map((l) => l.name)].map((n, i) => [n, i]),
   );
   traces.sort((a, b) => (order.get(a.name) ?? 0) - (order.get(b.name) ?? 0));
-  const steady = circuit.steady
-    ? solveSteady(circuit, circuit.steady, samplers.get(circuit.steady.loop), middleHz(freqs))
-    : undefined;
+  const steady = !circuit.steady
+    ? undefined
+    : deferSteady !== undefined
+      ? deferredSteady(circuit.steady, deferSteady)
+      : solveSteady(circuit, circuit.steady, samplers.get(circuit.steady.loop), middleHz(freqs));
   const noiseSamplers = new Map(noiseProbes.map((p) => [p.def.name, noiseSampler(mainSolver, p)]));
   const measures = computeMeasures(
     circuit.measures,
@@ -359,7 +367,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
       warnings: warn,
     };
   }
-  const run = sweepCircuit(circuit, freqs, warn, true);
+  const run = sweepCircuit(circuit, freqs, warn, options.deferSteady, true);
   if (!run.ok) return { ok: false, errors: run.errors, warnings: warn };
   const { outcome } = run;
   return {
@@ -370,6 +378,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
     traces: outcome.traces,
     measures: outcome.measures,
     checks: outcome.checks,
+    ...(circuit.loops.length > 0 ? { zeroPhase: loopsAtZeroPhase(circuit, outcome.samplers) } : {}),
     warnings: warn,
     ...(outcome.noise.length > 0 ? { noise: outcome.noise } : {}),
     ...(outcome.steady ? { steady: outcome.steady } : {}),
@@ -380,4 +389,33 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
       solveMs: Math.round((performance.now() - t0) * 1000) / 1000,
     },
   };
+}
+
+/**
+ * How a probe scales with the circuit's excitation: 0 for ratios of responses (independent of the
+ * source's level), 1 for a voltage or current, null when the terms of a sum scale differently.
+ */
+export function excitationDegree(p: Probe): number | null {
+  switch (p.op) {
+    case "num":
+      return 0;
+    case "v":
+    case "i":
+      return 1;
+    case "neg":
+      return excitationDegree(p.arg);
+    case "+":
+    case "-": {
+      const a = excitationDegree(p.left);
+      const b = excitationDegree(p.right);
+      return a !== null && a === b ? a : null;
+    }
+    case "*":
+    case "/": {
+      const a = excitationDegree(p.left);
+      const b = excitationDegree(p.right);
+      if (a === null || b === null) return null;
+      return p.op === "*" ? a + b : a - b;
+    }
+  }
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { oscillatorVerdict } from "@/components/analyses/analysis-math";
+import { oscillatorVerdict } from "@/components/analyses/oscillator-grade";
 import { solveNetlist } from "@/solver";
+import { describingGain } from "@/solver/engine/steady/describing-function";
 import type { SolveSuccess } from "@/solver/types";
 import { integrateBridge } from "./steady-reference";
 
@@ -65,6 +66,30 @@ function dfAmplitude(K: number, a: number): number {
 }
 
 describe("steady oscillation limited by the op-amp's swing", () => {
+  it("evaluates the equivalent gain of a ±a limit as the published describing function", () => {
+    const port = {
+      kind: "swing" as const,
+      part: {
+        name: "U1",
+        kind: "opamp" as const,
+        nodes: [],
+        value: 0,
+        span: { line: 1, column: 1, endColumn: 2 },
+      },
+      swing: 1,
+      gain: 1e6,
+      tau: 0,
+      row: 0,
+      inP: -1,
+      inN: -1,
+      c: 1,
+    };
+    for (const A of [0.5, 1, 1.277822, 2, 5, 20]) {
+      const expected = A <= 1 ? 1 : saturationDf(1 / A);
+      expect(describingGain(port, A, 4096)).toBeCloseTo(expected, 5);
+    }
+  });
+
   it("harmonic balance with one harmonic is the describing-function solution (K = 3.4, ±12 V)", () => {
     // CHECKS.md §12: N = 3/K = 0.882353 → A/a = 1.277822, fundamental 13.5299 V peak, at f0 = 1591.549 Hz.
     expect(dfAmplitude(3.4, 12)).toBeCloseTo(13.5299, 3);
@@ -77,7 +102,7 @@ describe("steady oscillation limited by the op-amp's swing", () => {
       }),
     );
     expect(r.steady!.reason).toBeNull();
-    expect(measure(r, "amp").value!).toBeCloseTo(13.5299, 2);
+    expect(measure(r, "amp").value!).toBeCloseTo(13.5299, 3);
     expect(measure(r, "fosc").value!).toBeCloseTo(1591.549, 1);
     expect(r.steady!.notes.join(" ")).toMatch(/gain of 1e6/);
   });
@@ -156,7 +181,9 @@ describe("steady oscillation of a diode-limited bridge", () => {
       /^settles at 4\.\d V peak at out, 1\.585 kHz, 4\.1 % distortion; reaches that in about 15 ms \(24 cycles\)$/,
     );
     // The oscillation verdict of the run page says the same: it grows.
-    expect(oscillatorVerdict(r)!.kind).toBe("grows");
+    const verdict = oscillatorVerdict(r)!;
+    expect(verdict.kind).toBe("starts");
+    expect(verdict.detail).toContain(`Steady state: ${s.summary}.`);
     expect(s.probes[0]!.waveform.value.length).toBeGreaterThanOrEqual(256);
   });
 });

@@ -8,8 +8,8 @@ import { cutNodeName } from "../loops";
 import type { TraceSampler } from "../refine";
 import { describingEstimate, type Estimate } from "./describing-function";
 import { HbSystem } from "./hb-system";
-import { newton } from "./newton";
-import { buildPorts } from "./ports";
+import { type NewtonOutcome, newton } from "./newton";
+import { buildPorts, type Port } from "./ports";
 import { readProbes, steadyProbeList } from "./readings";
 import { notStarting, startInfo } from "./small-signal";
 import { scaleSwingPorts, Transfer } from "./transfer";
@@ -37,6 +37,11 @@ function without(
     notes,
     ...extra,
   };
+}
+
+/** A steady result left out on purpose (the reason says why and where it will be solved). */
+export function deferredSteady(def: SteadyDef, reason: string): SteadyResult {
+  return without(def, reason, []);
 }
 
 /** Grow a solution of `from` harmonics into the layout of `to` (higher harmonics start at 0). */
@@ -96,36 +101,13 @@ function steadyUnwrapped(
   notes.push(...net.notes);
   const transfer = new Transfer(net.sys, net.ports);
   if (!scaleSwingPorts(transfer, omega0)) return without(def, "the network has no solution at DC", notes);
-  let sys = new HbSystem(transfer, net.ports, def.harmonics);
-  let out = seed && seed.length === sys.size ? newton(sys, seed) : null;
-  let iterations = out?.iterations ?? 0;
-  let est: Estimate | null = null;
-  // Each limiter in turn as the describing-function port (the others linear), until one converges.
-  let reason = "";
-  for (let e = 0; e < net.ports.length && !out?.converged; e++) {
-    const df = describingEstimate(transfer, e, omega0);
-    if ("reason" in df) {
-      reason ||= df.reason;
-      continue;
-    }
-    est = df;
-    // Harmonic balance with the fundamental alone (the describing-function solution), then all N.
-    const one = new HbSystem(transfer, net.ports, 1);
-    const x0 = new Float64Array(one.size);
-    df.fundamentals.forEach((f, j) => {
-      x0[j * one.block + 1] = f.re;
-      if (j > 0) x0[j * one.block + 2] = f.im;
-    });
-    x0[2] = df.omega;
-    sys = one;
-    out = newton(one, x0);
-    iterations += out.iterations;
-    if (out.converged && def.harmonics > 1) {
-      sys = new HbSystem(transfer, net.ports, def.harmonics);
-      out = newton(sys, extend(one, out.x, sys));
-      iterations += out.iterations;
-    }
-  }
+  const { sys, out, iterations, est, reason } = solveHarmonics(
+    transfer,
+    net.ports,
+    def.harmonics,
+    omega0,
+    seed,
+  );
   if (!out) return without(def, reason, notes);
   const residual = out.residual;
   if (!out.converged)
@@ -168,7 +150,67 @@ function steadyUnwrapped(
   return { result, x: out.x };
 }
 
-function portName(port: import("./ports").Port): string {
+/**
+ * Newton from the seed (when given), else from each limiter's describing-function estimate in turn
+ * (the others linear) until one converges: first the fundamental alone, then all harmonics.
+ */
+function solveHarmonics(
+  transfer: Transfer,
+  ports: Port[],
+  harmonics: number,
+  omega0: number,
+  seed: Float64Array | null,
+): { sys: HbSystem; out: NewtonOutcome | null; iterations: number; est: Estimate | null; reason: string } {
+  let sys = new HbSystem(transfer, ports, harmonics);
+  let out = seed && seed.length === sys.size ? newton(sys, seed) : null;
+  let iterations = out?.iterations ?? 0;
+  let est: Estimate | null = null;
+  // Each limiter in turn as the describing-function port (the others linear), until one converges.
+  let reason = "";
+  for (let e = 0; e < ports.length && !out?.converged; e++) {
+    const df = describingEstimate(transfer, e, omega0);
+    if ("reason" in df) {
+      reason ||= df.reason;
+      continue;
+    }
+    est = df;
+    // Harmonic balance with the fundamental alone (the describing-function solution), then all N.
+    const one = new HbSystem(transfer, ports, 1);
+    const x0 = new Float64Array(one.size);
+    df.fundamentals.forEach((f, j) => {
+      x0[j * one.block + 1] = f.re;
+      if (j > 0) x0[j * one.block + 2] = f.im;
+    });
+    x0[2] = df.omega;
+    sys = one;
+    out = newton(one, x0);
+    iterations += out.iterations;
+    // All N at once; if Newton stalls there (a hard limit), by steps of 2k+1 harmonics from the last solution.
+    let from = one;
+    let x = out.x;
+    for (let k = 1; out.converged && from.harmonics < harmonics; ) {
+      const next = new HbSystem(transfer, ports, harmonics);
+      const tried = newton(next, extend(from, x, next));
+      iterations += tried.iterations;
+      if (tried.converged || k >= harmonics) {
+        sys = next;
+        out = tried;
+        break;
+      }
+      k = Math.min(harmonics, 2 * k + 1);
+      const step = new HbSystem(transfer, ports, k);
+      const partial = newton(step, extend(from, x, step));
+      iterations += partial.iterations;
+      sys = step;
+      out = partial;
+      from = step;
+      x = partial.x;
+    }
+  }
+  return { sys, out, iterations, est, reason };
+}
+
+function portName(port: Port): string {
   return port.kind === "swing"
     ? `${port.part.name} (output before its limit)`
     : `volts(${port.a}, ${port.b})`;

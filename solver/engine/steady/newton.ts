@@ -56,7 +56,7 @@ export function scaleOf(x: Float64Array): number {
   return s;
 }
 
-function norm(sys: HbSystem, r: Float64Array, x: Float64Array): number {
+function norm(r: Float64Array, x: Float64Array): number {
   let m = 0;
   for (const v of r) m = Math.max(m, Math.abs(v));
   return m / Math.max(scaleOf(x), 1e-300);
@@ -70,7 +70,7 @@ export function newton(sys: HbSystem, x0: Float64Array): NewtonOutcome {
   let x = Float64Array.from(x0);
   let ev = sys.evaluate(x, true);
   if (ev === null) return fail(x, 0, Number.NaN, "the network is singular at the starting frequency");
-  let res = norm(sys, ev.r, x);
+  let res = norm(ev.r, x);
   for (let it = 1; it <= MAX_ITERATIONS; it++) {
     const step = Float64Array.from(ev.r);
     if (!denseSolve(ev.j!, step, sys.size))
@@ -82,7 +82,7 @@ export function newton(sys: HbSystem, x0: Float64Array): NewtonOutcome {
       if (!(sys.omega(trial) > 0)) continue;
       const tev = sys.evaluate(trial, false);
       if (tev === null) continue;
-      const tres = norm(sys, tev.r, trial);
+      const tres = norm(tev.r, trial);
       if (tres < res || tres < TOLERANCE) {
         x = trial;
         res = tres;
