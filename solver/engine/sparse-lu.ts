@@ -1,10 +1,11 @@
+import { Equilibration } from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 export interface SparseLUOptions {
   /** Threshold τ of threshold pivoting (Duff, Erisman & Reid recommend 0.1). */
   pivotThreshold?: number;
-  /** A pivot counts as zero below this multiple of the largest |entry| of the matrix. */
+  /** A pivot counts as zero below this multiple of the largest |entry| of the equilibrated matrix. */
   singularTolerance?: number;
 }
 
@@ -24,9 +25,16 @@ export interface SparseLUOptions {
  * is kept as an alternate for later frequencies that fail too); every `refactor` tries the sweep's
  * ordering first.
  *
- * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern, solve O(nnz(L)+nnz(U)).
+ * Equilibration: every (re)factorization first scales rows and columns (`Equilibration`, Ruiz's
+ * max-norm scaling with power-of-two factors, so exact) and factors D_r·A·D_c; ordering, threshold
+ * test and zero-pivot test all see the scaled matrix, and `solve` applies D_r to b and D_c to the
+ * result. So a "singular" verdict means: the equilibrated matrix is singular to working precision —
+ * never merely "values far apart" (1 fF beside 1 TΩ, 1 F at 1 GHz).
+ *
+ * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern plus a few O(nnz) scaling sweeps,
+ * solve O(nnz(L)+nnz(U)+n).
  * Assumes: A square, values given in A's CSR order. A pivot is zero when |pivot| ≤
- * singularTolerance·max|a_ij|; then `isSingular()` is true and `solve` must not be called.
+ * singularTolerance·max|(D_r·A·D_c)_ij|; then `isSingular()` is true and `solve` must not be called.
  */
 export class SparseComplexLU {
   readonly n: number;
@@ -43,6 +51,9 @@ export class SparseComplexLU {
   private readonly invIm: Float64Array;
   private readonly wRe: Float64Array;
   private readonly wIm: Float64Array;
+  private readonly eq: Equilibration;
+  /** Zero-pivot bound of the current values: singularRel · max |scaled entry|. */
+  private absTol = 0;
   private singular = false;
   private failedStep = -1;
   private failedCols: number[] = [];
@@ -68,6 +79,8 @@ export class SparseComplexLU {
     this.invIm = new Float64Array(a.n);
     this.wRe = new Float64Array(a.n);
     this.wIm = new Float64Array(a.n);
+    this.eq = new Equilibration(a.n);
+    this.scale(a.re, a.im);
     this.analyse(a.re, a.im, true);
   }
 
@@ -76,6 +89,11 @@ export class SparseComplexLU {
   /** True when the last (re)factorization met a zero pivot. */
   isSingular(): boolean {
     return this.singular;
+  }
+
+  /** Row and column scale factors of the last (re)factorization (D_r, D_c of the original indices). */
+  get scaling(): { row: Float64Array; col: Float64Array } {
+    return { row: this.eq.row, col: this.eq.col };
   }
 
   /** Original column indices left unpivoted when the factorization failed (diagnostics). */
@@ -104,7 +122,9 @@ export class SparseComplexLU {
   }
 
   /**
-   * The factors as dense re/im arrays (tests only; O(n²) memory): L unit lower, U upper.
+   * The factors of P·A·Q (unscaled: L = R⁻¹·L′·R, U = R⁻¹·U′·C⁻¹ from the factors L′, U′ of the
+   * equilibrated matrix, R and C its row and column factors in pivot order) as dense re/im arrays
+   * (tests only; O(n²) memory): L unit lower, U upper.
    */
   denseFactors(): { lRe: number[][]; lIm: number[][]; uRe: number[][]; uIm: number[][] } {
     const n = this.n;
@@ -112,18 +132,23 @@ export class SparseComplexLU {
     const out = { lRe: z(), lIm: z(), uRe: z(), uIm: z() };
     const s = this.sym;
     if (!s) return out;
+    const r = (k: number) => this.eq.row[s.rowPerm[k]!]!;
+    const c = (k: number) => this.eq.col[s.colPerm[k]!]!;
     for (let k = 0; k < n; k++) {
       out.lRe[k]![k] = 1;
       for (let q = s.lPtr[k]!; q < s.lPtr[k + 1]!; q++) {
-        out.lRe[k]![s.lIdx[q]!] = this.lRe[q]!;
-        out.lIm[k]![s.lIdx[q]!] = this.lIm[q]!;
+        const j = s.lIdx[q]!;
+        out.lRe[k]![j] = (this.lRe[q]! * r(j)) / r(k);
+        out.lIm[k]![j] = (this.lIm[q]! * r(j)) / r(k);
       }
       const d = this.invRe[k]! ** 2 + this.invIm[k]! ** 2;
-      out.uRe[k]![k] = this.invRe[k]! / d;
-      out.uIm[k]![k] = -this.invIm[k]! / d;
+      const u = r(k) * c(k);
+      out.uRe[k]![k] = this.invRe[k]! / d / u;
+      out.uIm[k]![k] = -this.invIm[k]! / d / u;
       for (let t = s.uPtr[k]!; t < s.uPtr[k + 1]!; t++) {
-        out.uRe[k]![s.uIdx[t]!] = this.uRe[t]!;
-        out.uIm[k]![s.uIdx[t]!] = this.uIm[t]!;
+        const j = s.uIdx[t]!;
+        out.uRe[k]![j] = this.uRe[t]! / (r(k) * c(j));
+        out.uIm[k]![j] = this.uIm[t]! / (r(k) * c(j));
       }
     }
     return out;
@@ -138,6 +163,7 @@ export class SparseComplexLU {
     if (re.length !== this.a.colIdx.length || im.length !== this.a.colIdx.length) {
       throw new RangeError("dimension mismatch: values and pattern differ in length");
     }
+    this.scale(re, im);
     if (!this.base) return this.analyse(re, im, true);
     if (this.base !== this.sym) this.use(this.base);
     if (this.numeric(re, im)) return true;
@@ -156,9 +182,25 @@ export class SparseComplexLU {
     return ok;
   }
 
+  /** Equilibrate the values re/im: factors into `eq`, the zero-pivot bound into `absTol`. */
+  private scale(re: Float64Array, im: Float64Array): void {
+    this.absTol = this.singularRel * this.eq.compute(this.a, re, im);
+  }
+
   private analyse(re: Float64Array, im: Float64Array, asBase: boolean): boolean {
-    const tol = this.singularRel * maxAbs(re, im);
-    const res = markowitzOrder(this.a, re, im, { ...this.opt, absTolerance: tol });
+    // The ordering sees the scaled values (a copy: analysis is rare, once per sweep or re-pivot).
+    const { rowPtr, colIdx } = this.a;
+    const { row, col } = this.eq;
+    const sRe = new Float64Array(re.length);
+    const sIm = new Float64Array(im.length);
+    for (let i = 0; i < this.n; i++) {
+      for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
+        const f = row[i]! * col[colIdx[p]!]!;
+        sRe[p] = re[p]! * f;
+        sIm[p] = im[p]! * f;
+      }
+    }
+    const res = markowitzOrder(this.a, sRe, sIm, { ...this.opt, absTolerance: this.absTol });
     if (!res.ok) {
       this.singular = true;
       this.failedStep = res.step;
@@ -190,11 +232,11 @@ export class SparseComplexLU {
   /** Numeric factorization over the current pattern; false on a failed pivot. */
   private numeric(re: Float64Array, im: Float64Array, lenient = false): boolean {
     const s = this.sym!;
-    const { rowPtr } = this.a;
+    const { rowPtr, colIdx } = this.a;
     const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
-    const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = this;
+    const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, absTol } = this;
+    const { row, col } = this.eq;
     const tau = lenient ? 0 : this.opt.pivotThreshold;
-    const absTol = this.singularRel * maxAbs(re, im);
     this.singular = false;
     this.failedStep = -1;
     this.failedCols = [];
@@ -210,10 +252,12 @@ export class SparseComplexLU {
       // Scatter row rowPerm[k] of A (w is zero here: every entry of the row's pattern is zeroed as
       // it is read below, and every entry written lies in that pattern).
       const r = rowPerm[k]!;
+      const rs = row[r]!;
       for (let p = rowPtr[r]!; p < rowPtr[r + 1]!; p++) {
         const j = aPos[p]!;
-        wRe[j] = wRe[j]! + re[p]!;
-        wIm[j] = wIm[j]! + im[p]!;
+        const f = rs * col[colIdx[p]!]!;
+        wRe[j] = wRe[j]! + re[p]! * f;
+        wIm[j] = wIm[j]! + im[p]! * f;
       }
       // Eliminate with earlier rows, in ascending order of the L pattern.
       for (let q = l0; q < l1; q++) {
@@ -281,9 +325,11 @@ export class SparseComplexLU {
     }
     const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = this.sym;
     const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = this;
+    const { row, col } = this.eq;
     for (let k = 0; k < n; k++) {
-      let yr = bRe[rowPerm[k]!]!;
-      let yi = bIm[rowPerm[k]!]!;
+      const r = rowPerm[k]!;
+      let yr = bRe[r]! * row[r]!;
+      let yi = bIm[r]! * row[r]!;
       for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
         const j = lIdx[q]!;
         yr -= lRe[q]! * wRe[j]! - lIm[q]! * wIm[j]!;
@@ -304,17 +350,9 @@ export class SparseComplexLU {
       wIm[k] = yr * invIm[k]! + yi * invRe[k]!;
     }
     for (let k = 0; k < n; k++) {
-      xRe[colPerm[k]!] = wRe[k]!;
-      xIm[colPerm[k]!] = wIm[k]!;
+      const c = colPerm[k]!;
+      xRe[c] = wRe[k]! * col[c]!;
+      xIm[c] = wIm[k]! * col[c]!;
     }
   }
-}
-
-function maxAbs(re: Float64Array, im: Float64Array): number {
-  let m = 0;
-  for (let p = 0; p < re.length; p++) {
-    const v = Math.abs(re[p]!) + Math.abs(im[p]!);
-    if (v > m) m = v;
-  }
-  return m;
 }
