@@ -25,13 +25,17 @@ export interface SparseLUOptions {
  * is kept as an alternate for later frequencies that fail too); every `refactor` tries the sweep's
  * ordering first.
  *
- * Equilibration: every (re)factorization first scales rows and columns (`Equilibration`, Ruiz's
- * max-norm scaling with power-of-two factors, so exact) and factors D_r·A·D_c; ordering, threshold
- * test and zero-pivot test all see the scaled matrix, and `solve` applies D_r to b and D_c to the
- * result. So a "singular" verdict means: the equilibrated matrix is singular to working precision —
- * never merely "values far apart" (1 fF beside 1 TΩ, 1 F at 1 GHz).
+ * Equilibration: every (re)factorization first computes row and column factors D_r, D_c
+ * (`Equilibration`: Ruiz's max-norm scaling — iterated to convergence in powers of two before an
+ * ordering is analysed, one step per frequency on the fast refactor path) and pivots as if it
+ * factored D_r·A·D_c: the ordering sees the scaled values, and the threshold and zero-pivot tests
+ * compare scaled quantities (the pivot of step k of D_r·A·D_c is u_kk·r_k·c_k for the same order).
+ * The numbers themselves are factored unscaled, so `solve` needs no scaling. A "singular" verdict therefore
+ * means: the equilibrated matrix is singular to working precision — never merely "values far
+ * apart" (1 fF beside 1 TΩ, 1 F at 1 GHz).
  *
- * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern plus a few O(nnz) scaling sweeps,
+ * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern plus one O(nnz) scaling pass
+ * (a few before an analysis),
  * solve O(nnz(L)+nnz(U)+n).
  * Assumes: A square, values given in A's CSR order. A pivot is zero when |pivot| ≤
  * singularTolerance·max|(D_r·A·D_c)_ij|; then `isSingular()` is true and `solve` must not be called.
@@ -52,6 +56,7 @@ export class SparseComplexLU {
   private readonly wRe: Float64Array;
   private readonly wIm: Float64Array;
   private readonly eq: Equilibration;
+  private readonly colStep: Float64Array;
   /** Zero-pivot bound of the current values: singularRel · max |scaled entry|. */
   private absTol = 0;
   private singular = false;
@@ -80,6 +85,7 @@ export class SparseComplexLU {
     this.wRe = new Float64Array(a.n);
     this.wIm = new Float64Array(a.n);
     this.eq = new Equilibration(a.n);
+    this.colStep = new Float64Array(a.n);
     this.scale(a.re, a.im);
     this.analyse(a.re, a.im, true);
   }
@@ -122,9 +128,7 @@ export class SparseComplexLU {
   }
 
   /**
-   * The factors of P·A·Q (unscaled: L = R⁻¹·L′·R, U = R⁻¹·U′·C⁻¹ from the factors L′, U′ of the
-   * equilibrated matrix, R and C its row and column factors in pivot order) as dense re/im arrays
-   * (tests only; O(n²) memory): L unit lower, U upper.
+   * The factors as dense re/im arrays (tests only; O(n²) memory): L unit lower, U upper.
    */
   denseFactors(): { lRe: number[][]; lIm: number[][]; uRe: number[][]; uIm: number[][] } {
     const n = this.n;
@@ -132,23 +136,18 @@ export class SparseComplexLU {
     const out = { lRe: z(), lIm: z(), uRe: z(), uIm: z() };
     const s = this.sym;
     if (!s) return out;
-    const r = (k: number) => this.eq.row[s.rowPerm[k]!]!;
-    const c = (k: number) => this.eq.col[s.colPerm[k]!]!;
     for (let k = 0; k < n; k++) {
       out.lRe[k]![k] = 1;
       for (let q = s.lPtr[k]!; q < s.lPtr[k + 1]!; q++) {
-        const j = s.lIdx[q]!;
-        out.lRe[k]![j] = (this.lRe[q]! * r(j)) / r(k);
-        out.lIm[k]![j] = (this.lIm[q]! * r(j)) / r(k);
+        out.lRe[k]![s.lIdx[q]!] = this.lRe[q]!;
+        out.lIm[k]![s.lIdx[q]!] = this.lIm[q]!;
       }
       const d = this.invRe[k]! ** 2 + this.invIm[k]! ** 2;
-      const u = r(k) * c(k);
-      out.uRe[k]![k] = this.invRe[k]! / d / u;
-      out.uIm[k]![k] = -this.invIm[k]! / d / u;
+      out.uRe[k]![k] = this.invRe[k]! / d;
+      out.uIm[k]![k] = -this.invIm[k]! / d;
       for (let t = s.uPtr[k]!; t < s.uPtr[k + 1]!; t++) {
-        const j = s.uIdx[t]!;
-        out.uRe[k]![j] = this.uRe[t]! / (r(k) * c(j));
-        out.uIm[k]![j] = this.uIm[t]! / (r(k) * c(j));
+        out.uRe[k]![s.uIdx[t]!] = this.uRe[t]!;
+        out.uIm[k]![s.uIdx[t]!] = this.uIm[t]!;
       }
     }
     return out;
@@ -163,8 +162,12 @@ export class SparseComplexLU {
     if (re.length !== this.a.colIdx.length || im.length !== this.a.colIdx.length) {
       throw new RangeError("dimension mismatch: values and pattern differ in length");
     }
-    this.scale(re, im);
-    if (!this.base) return this.analyse(re, im, true);
+    if (!this.base) {
+      this.scale(re, im);
+      return this.analyse(re, im, true);
+    }
+    // One scaling step per frequency (one pass over the values); a re-pivot equilibrates fully.
+    this.absTol = this.singularRel * this.eq.step(this.a, re, im);
     if (this.base !== this.sym) this.use(this.base);
     if (this.numeric(re, im)) return true;
     // The sweep's order failed here: try the orders earlier frequencies needed (newest first),
@@ -174,6 +177,7 @@ export class SparseComplexLU {
       if (this.numeric(re, im)) return true;
     }
     this.repivots++;
+    this.scale(re, im);
     const ok = this.analyse(re, im, false);
     if (ok && this.sym) {
       this.alternates.push(this.sym);
@@ -232,10 +236,13 @@ export class SparseComplexLU {
   /** Numeric factorization over the current pattern; false on a failed pivot. */
   private numeric(re: Float64Array, im: Float64Array, lenient = false): boolean {
     const s = this.sym!;
-    const { rowPtr, colIdx } = this.a;
-    const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
+    const { rowPtr } = this.a;
+    const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = s;
     const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, absTol } = this;
     const { row, col } = this.eq;
+    // Column factors in pivot order, for the tests below.
+    const cs = this.colStep;
+    for (let k = 0; k < this.n; k++) cs[k] = col[colPerm[k]!]!;
     const tau = lenient ? 0 : this.opt.pivotThreshold;
     this.singular = false;
     this.failedStep = -1;
@@ -252,12 +259,10 @@ export class SparseComplexLU {
       // Scatter row rowPerm[k] of A (w is zero here: every entry of the row's pattern is zeroed as
       // it is read below, and every entry written lies in that pattern).
       const r = rowPerm[k]!;
-      const rs = row[r]!;
       for (let p = rowPtr[r]!; p < rowPtr[r + 1]!; p++) {
         const j = aPos[p]!;
-        const f = rs * col[colIdx[p]!]!;
-        wRe[j] = wRe[j]! + re[p]! * f;
-        wIm[j] = wIm[j]! + im[p]! * f;
+        wRe[j] = wRe[j]! + re[p]!;
+        wIm[j] = wIm[j]! + im[p]!;
       }
       // Eliminate with earlier rows, in ascending order of the L pattern.
       for (let q = l0; q < l1; q++) {
@@ -289,7 +294,7 @@ export class SparseComplexLU {
         uIm[t] = vi;
         wRe[c] = 0;
         wIm[c] = 0;
-        const m = Math.abs(vr) + Math.abs(vi);
+        const m = (Math.abs(vr) + Math.abs(vi)) * cs[c]!;
         if (m > rowMax) rowMax = m;
       }
       const pr = wRe[k]!;
@@ -299,9 +304,11 @@ export class SparseComplexLU {
       // |pivot|² is needed for its reciprocal anyway; √ of it instead of Math.hypot (which guards
       // against an overflow that the reciprocal would meet regardless) is a quarter of the refactor.
       const d = pr * pr + pi * pi;
-      const pm = Math.sqrt(d);
+      // |pivot| of the equilibrated matrix: the row factor cancels in the threshold test.
+      const pc = Math.sqrt(d) * cs[k]!;
+      const pm = pc * row[rowPerm[k]!]!;
       // |x|₁/√2 ≤ |x|₂: a cheap lower bound keeps the comparison conservative.
-      if (pm <= absTol || pm < tau * rowMax * Math.SQRT1_2) {
+      if (pm <= absTol || pc < tau * rowMax * Math.SQRT1_2) {
         this.singular = pm <= absTol;
         this.failedStep = k;
         this.failedCols = Array.from(s.colPerm.subarray(k));
@@ -325,11 +332,9 @@ export class SparseComplexLU {
     }
     const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = this.sym;
     const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = this;
-    const { row, col } = this.eq;
     for (let k = 0; k < n; k++) {
-      const r = rowPerm[k]!;
-      let yr = bRe[r]! * row[r]!;
-      let yi = bIm[r]! * row[r]!;
+      let yr = bRe[rowPerm[k]!]!;
+      let yi = bIm[rowPerm[k]!]!;
       for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
         const j = lIdx[q]!;
         yr -= lRe[q]! * wRe[j]! - lIm[q]! * wIm[j]!;
@@ -350,9 +355,8 @@ export class SparseComplexLU {
       wIm[k] = yr * invIm[k]! + yi * invRe[k]!;
     }
     for (let k = 0; k < n; k++) {
-      const c = colPerm[k]!;
-      xRe[c] = wRe[k]! * col[c]!;
-      xIm[c] = wIm[k]! * col[c]!;
+      xRe[colPerm[k]!] = wRe[k]!;
+      xIm[colPerm[k]!] = wIm[k]!;
     }
   }
 }
