@@ -20,7 +20,7 @@ export interface Quantity {
 }
 
 /** Most bend-only candidates (local maxima of |second difference|, largest first) refined per search. */
-const MAX_BENDS = 16;
+const MAX_BENDS = 8;
 /** Deepest bisection of a candidate interval (2 sample steps / 2^12: a 26 % step resolves 0.01 %). */
 const MAX_DEPTH = 12;
 /** Most midpoints solved per candidate interval. */
@@ -44,7 +44,8 @@ interface Probe {
  * is bisected on ln f wherever the solved midpoint departs from the cubic Hermite interpolant of its
  * ends' values and slopes (dX/ds from one extra solve) — smooth stretches cost one solve, a feature
  * narrower than the grid is zoomed in on — and every sign change of the slope between neighbouring
- * probes is refined to its root by Brent's method on ln f to 1e-12 relative.
+ * probes is refined to its root by Brent's method on ln f to 1e-12 relative. Only candidates up to
+ * sample `last` are searched (a first crossing needs nothing beyond the samples' own first one).
  */
 export function hiddenExtrema(pts: Pt[], q: Quantity, at: (f: number, deriv: boolean) => Dual): Pt[] {
   const n = pts.length;

@@ -118,6 +118,23 @@ function firstCrossing(
 }
 
 /** ln|X|: its extrema are those of |X|, and its bends are read on a scale fit for many decades. */
+/** Index after which the samples' first (valid, beyond rounding) sign change of g lies; the last index if none. */
+function firstSignChange(
+  pts: Pt[],
+  gp: (p: Pt) => number,
+  valid: (a: Pt, b: Pt) => boolean = () => true,
+): number {
+  let prev = 0;
+  for (let k = 0; k < pts.length; k++) {
+    const g = gp(pts[k]!);
+    if (g === 0) continue;
+    if (prev * g < 0 && Math.max(Math.abs(prev), Math.abs(g)) > ROUNDING && valid(pts[k - 1]!, pts[k]!))
+      return k;
+    prev = g;
+  }
+  return pts.length - 1;
+}
+
 const magnitude: Quantity = { value: (re, im) => Math.log(mag(re, im)), slope: lnMagnitudeSlope };
 
 /** |X| over the sweep is flat to within rounding: no peak, dip or band to speak of. */
