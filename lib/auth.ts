@@ -8,7 +8,6 @@ import { createTeamWithOwner } from "@/lib/teams";
 import { type SignUpInput, signInSchema } from "@/lib/validations/auth";
 
 /** One message whether the e-mail is unknown or the password wrong, so accounts can't be probed. */
-export const WRONG_CREDENTIALS = "E-mail or password is wrong.";
 
 let dummyHash: string | undefined;
 
