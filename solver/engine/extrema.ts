@@ -47,8 +47,13 @@ interface Probe {
  * probes is refined to its root by Brent's method on ln f to 1e-12 relative. Only candidates up to
  * sample `last` are searched (a first crossing needs nothing beyond the samples' own first one).
  */
-export function hiddenExtrema(pts: Pt[], q: Quantity, at: (f: number, deriv: boolean) => Dual): Pt[] {
-  const n = pts.length;
+export function hiddenExtrema(
+  pts: Pt[],
+  q: Quantity,
+  at: (f: number, deriv: boolean) => Dual,
+  last = pts.length - 1,
+): Pt[] {
+  const n = Math.min(pts.length, last + 2);
   if (n < 3) return [];
   const v = pts.map((p) => q.value(p.re, p.im));
   const cand = new Set<number>();

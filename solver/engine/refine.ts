@@ -117,7 +117,6 @@ function firstCrossing(
   return { f: null, rounding };
 }
 
-/** ln|X|: its extrema are those of |X|, and its bends are read on a scale fit for many decades. */
 /** Index after which the samples' first (valid, beyond rounding) sign change of g lies; the last index if none. */
 function firstSignChange(
   pts: Pt[],
@@ -135,6 +134,7 @@ function firstSignChange(
   return pts.length - 1;
 }
 
+/** ln|X|: its extrema are those of |X|, and its bends are read on a scale fit for many decades. */
 const magnitude: Quantity = { value: (re, im) => Math.log(mag(re, im)), slope: lnMagnitudeSlope };
 
 /** |X| over the sweep is flat to within rounding: no peak, dip or band to speak of. */
@@ -177,18 +177,16 @@ function levelScale(level: Level | undefined): number | null {
 export function magnitudeCrossing(tr: TraceSampler, target: number): { f: number | null; rounding: boolean } {
   const lt = Math.log(target);
   const pts0 = samplePts(tr);
+  const gp = (p: Pt) => Math.log(mag(p.re, p.im)) - lt;
+  const last = firstSignChange(pts0, gp);
   const pts = merged(
     pts0,
-    hiddenExtrema(pts0, magnitude, (f, d) => at(tr, f, d)),
+    hiddenExtrema(pts0, magnitude, (f, d) => at(tr, f, d), last),
   );
-  return firstCrossing(
-    pts,
-    (p) => Math.log(mag(p.re, p.im)) - lt,
-    (f) => {
-      const x = at(tr, f);
-      return Math.log(mag(x.re, x.im)) - lt;
-    },
-  );
+  return firstCrossing(pts, gp, (f) => {
+    const x = at(tr, f);
+    return Math.log(mag(x.re, x.im)) - lt;
+  });
 }
 
 export function phaseCrossing(tr: TraceSampler, levelDeg: number): { f: number | null; rounding: boolean } {
@@ -204,9 +202,11 @@ export function phaseCrossing(tr: TraceSampler, levelDeg: number): { f: number |
   };
   const d = (p: Pt) => wrapDeg(deg(p.re, p.im) - levelDeg);
   const pts0 = samplePts(tr);
+  const valid = (a: Pt, b: Pt) => Math.abs(d(a) - d(b)) < 180;
+  const last = firstSignChange(pts0, (p) => s(p.re, p.im), valid);
   const pts = merged(
     pts0,
-    hiddenExtrema(pts0, q, (f, dv) => at(tr, f, dv)),
+    hiddenExtrema(pts0, q, (f, dv) => at(tr, f, dv), last),
   );
   return firstCrossing(
     pts,
@@ -215,7 +215,7 @@ export function phaseCrossing(tr: TraceSampler, levelDeg: number): { f: number |
       const x = at(tr, f);
       return s(x.re, x.im);
     },
-    (a, b) => Math.abs(d(a) - d(b)) < 180,
+    valid,
   );
 }
 
