@@ -130,6 +130,8 @@ function summarize(p: Part): PartSummary {
   if (p.sense !== undefined) options.push(`sense=${p.sense}`);
   if (p.opamp?.gain !== undefined) options.push(`gain=${p.opamp.gain}`);
   if (p.opamp?.gbw !== undefined) options.push(`gbw=${p.opamp.gbw}`);
+  if (p.opamp?.swing !== undefined) options.push(`swing=${p.opamp.swing}`);
+  if (p.diode !== undefined) options.push(`is=${p.diode.is}`, `n=${p.diode.n}`);
   if (p.opamp?.rout !== undefined) options.push(`rout=${p.opamp.rout}`);
   return { kind: p.kind, nodes: [...p.nodes], value: p.value, options };
 }

@@ -13,7 +13,15 @@
  */
 import type { PgBoss } from "pg-boss";
 import { env } from "@/lib/env";
-import { JOB_EXPIRE_SECONDS, MAX_INLINE_WORK, MAX_MC_INLINE_SAMPLES, MAX_QUEUED_SAMPLES } from "@/lib/limits";
+import {
+  JOB_EXPIRE_SECONDS,
+  MAX_INLINE_WORK,
+  MAX_MC_INLINE_SAMPLES,
+  MAX_QUEUED_SAMPLES,
+  STEADY_BASE_WORK,
+  STEADY_CUBE_DIVISOR,
+  STEADY_WORK_PER_HARMONIC,
+} from "@/lib/limits";
 import {
   attachQueueJob,
   fail,
@@ -22,7 +30,7 @@ import {
   type RunJobView,
   requestCancel,
 } from "@/lib/run-lifecycle";
-import { analyze, compile, SOLVER_VERSION } from "@/solver";
+import { analyze, compile, SOLVER_VERSION, type SolveOptions } from "@/solver";
 import { sweepLength } from "@/solver/engine/sweep";
 import type { Circuit, NetlistError } from "@/solver/types";
 
@@ -36,12 +44,43 @@ export interface RunSolveJobData {
   runId: string;
 }
 
-/** Solver work in sweep points: points × (1 + Monte Carlo samples + vary values). */
+/**
+ * Solver work in sweep points: points × (1 + Monte Carlo samples + vary values), plus the steady
+ * oscillation's price (steadyWork) once per solve that computes it.
+ */
 export function solveWork(circuit: Circuit): number {
   const points = sweepLength(circuit.sweep);
   const samples = circuit.monteCarlo?.samples ?? 0;
   const variants = circuit.vary?.values.length ?? 0;
-  return (Number.isFinite(points) ? points : 0) * (1 + samples + variants);
+  const sweeps = (Number.isFinite(points) ? points : 0) * (1 + samples + variants);
+  if (!circuit.steady) return sweeps;
+  const sampled = circuit.measures.some((m) => STEADY_MEASURES.has(m.fn)) ? samples : 0;
+  return sweeps + steadyWork(circuit.steady.harmonics) * (1 + variants + sampled);
+}
+
+/**
+ * Solve options of a live preview: a steady oscillation that alone would exceed the inline budget is
+ * left out with the reason (saving the run queues it).
+ */
+export function previewOptions(netlist: string, maxPoints: number): SolveOptions {
+  const compiled = compile(netlist);
+  const steady = compiled.ok ? compiled.circuit.steady : null;
+  if (!steady || steadyWork(steady.harmonics) <= MAX_INLINE_WORK) return { maxPoints };
+  return {
+    maxPoints,
+    deferSteady: `the steady oscillation with ${steady.harmonics} harmonics is too large for a preview: save the run to solve it (queued)`,
+  };
+}
+
+const STEADY_MEASURES = new Set(["frequency", "amplitude", "thd", "startup"]);
+
+/** One steady-oscillation solve of N harmonics, in sweep points (lib/limits.ts). */
+export function steadyWork(harmonics: number): number {
+  return (
+    STEADY_BASE_WORK +
+    STEADY_WORK_PER_HARMONIC * harmonics +
+    Math.round((2 * harmonics + 1) ** 3 / STEADY_CUBE_DIVISOR)
+  );
 }
 
 /** True when a run of this circuit goes to the job queue instead of being solved in the request. */

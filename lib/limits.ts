@@ -25,6 +25,17 @@ export const SOLVE_RATE_PER_MINUTE = 120;
  */
 export const MAX_INLINE_WORK = 200_000;
 
+/**
+ * Price of one steady-oscillation solve (`steady LOOP harmonics=N`) in the same "sweep points":
+ * STEADY_BASE_WORK (poles, describing-function search) + STEADY_WORK_PER_HARMONIC·N (the linear
+ * solves at each harmonic) + (2N+1)³/STEADY_CUBE_DIVISOR (the dense Newton steps). About 50 000 at
+ * 15 harmonics (~0.1 s), 170 000 at 63, 1.9 M at 255 (queued). It is paid again per vary value and,
+ * when a steady measure is sampled, per Monte Carlo sample.
+ */
+export const STEADY_BASE_WORK = 20_000;
+export const STEADY_WORK_PER_HARMONIC = 2_000;
+export const STEADY_CUBE_DIVISOR = 100;
+
 /** Most Monte Carlo samples a queued run may ask for. */
 export const MAX_QUEUED_SAMPLES = 20_000;
 

@@ -39,6 +39,11 @@ export const OPTIONS: Record<string, string> = {
   gain: "Open-loop DC gain A0 of an `opamp`: `gain=100k`.",
   gbw: "Gain-bandwidth of an `opamp` (single pole): `gbw=1MHz`. Alone it means A(s) = 2π·F/s.",
   rout: "Output resistance of an `opamp`: `rout=50`.",
+  swing:
+    "Output limit of an `opamp`: `swing=12V` keeps the output within ±12 V in the steady oscillation; small-signal analyses ignore it.",
+  is: "Saturation current of a `diode` in amperes (default 1e-14): `is=2n`.",
+  n: "Emission coefficient of a `diode` (default 1): `n=1.8`.",
+  harmonics: "Harmonics of a `steady` analysis (default 15, at most 255): `harmonics=31`.",
   seed: "Random seed of `monte-carlo` (the same seed gives the same result): `seed=7`.",
   dist: "Distribution of `monte-carlo` samples: `dist=uniform` (within ±tol) or `dist=normal` (tol = 3σ).",
   method:
@@ -63,7 +68,9 @@ const KIND_DOCS: Record<PartKind, string> = {
   ccvs: "Current-controlled voltage source: volts(p, n) = r · amps(SENSE); SENSE is a vsource or inductor.",
   cccs: "Current-controlled current source: k · amps(SENSE) flows from p through the part to n.",
   opamp:
-    "Operational amplifier, pins in+ in− out. Ideal without options; `gain=A0` finite gain, `gbw=F` single pole, `rout=R` output resistance.",
+    "Operational amplifier, pins in+ in− out. Ideal without options; `gain=A0` finite gain, `gbw=F` single pole, `rout=R` output resistance, `swing=V` output limit (steady oscillation only).",
+  diode:
+    "Diode, anode to cathode: i = is·(e^(v/(n·Vt)) − 1), Vt = kT/q at the netlist's `temperature`. Options `is=` (default 1e-14 A), `n=` (default 1). Practically open in small-signal analyses (unbiased).",
 };
 
 const STATEMENT_DOCS: Record<string, string> = {
@@ -86,6 +93,10 @@ const STATEMENT_DOCS: Record<string, string> = {
     "`monte-carlo N [seed=S] [dist=uniform|normal]` — N random samples of every part with `tol`.",
   poles: "`poles` — natural frequencies of the network with its sources zeroed (f, Q, growth per cycle).",
   sensitivity: "`sensitivity MEASURE` — normalized sensitivity of a measure to each part value.",
+  temperature:
+    "`temperature 27C` or `temperature 300.15K` — the temperature of diodes and noise (default 27 °C).",
+  steady:
+    "`steady LOOP [harmonics=N] [from=LEVEL]` — the periodic state the oscillator of LOOP settles into once its limiters act (harmonic balance): frequency, amplitude, waveform, distortion, start-up time.",
 };
 
 const FUNCTION_DOCS: Record<string, string> = {
@@ -104,6 +115,12 @@ const FUNCTION_DOCS: Record<string, string> = {
   mag: "`mag(X) at F` — |X| at frequency F (a number or a measure's name).",
   db: "`db(X) at F` — 20·log10|X| at frequency F.",
   phase: "`phase(X) at F` — ∠X in degrees at frequency F.",
+  frequency: "`frequency(LOOP)` — frequency of the steady oscillation of LOOP (needs `steady LOOP`), Hz.",
+  amplitude:
+    "`amplitude(PROBE)` — peak amplitude of the fundamental of `volts(…)`/`amps(…)` in the steady oscillation.",
+  thd: "`thd(PROBE)` — total harmonic distortion of the probe in the steady oscillation, percent.",
+  startup:
+    "`startup(LOOP)` — seconds for the small-signal envelope to grow from the `from=` level to the steady amplitude.",
   volts: "`volts(NODE)` or `volts(A, B)` — node voltage to `gnd`, or the voltage of A against B.",
   amps: "`amps(PART)` — current entering the part's first terminal and leaving its second.",
   gnd: "`gnd` — ground, the reference node (0 V) of every voltage.",

@@ -100,6 +100,15 @@ export function toSummary(r: SolveSuccess): string {
       );
     }
   }
+  if (r.steady) {
+    const st = r.steady;
+    out.push("", `Steady oscillation of loop ${st.loop}: ${st.summary}`);
+    for (const p of st.probes)
+      out.push(
+        `  ${p.probe}: ${formatSi(p.amplitudes[0] ?? 0, p.probe.startsWith("amps") ? "A" : "V")} peak, THD ${Number(p.thdPercent.toPrecision(3))} %`,
+      );
+    for (const n of st.notes) out.push(`  note: ${n}`);
+  }
   if (r.sensitivity?.length) {
     out.push("", "Sensitivity");
     for (const s of r.sensitivity)

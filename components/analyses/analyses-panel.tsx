@@ -8,6 +8,7 @@ import { oscillatorVerdict } from "./oscillator-grade";
 import { OscillatorVerdictCard } from "./oscillator-verdict";
 import { PoleMap } from "./pole-map";
 import { SensitivityChart } from "./sensitivity-chart";
+import { SteadyView } from "./steady-view";
 import { VariantsView } from "./variants-view";
 
 export interface AnalysesPanelProps {
@@ -37,6 +38,8 @@ export function AnalysesPanel({ result, runId, status, canCancel = true }: Analy
       const verdict = oscillatorVerdict(result);
       if (verdict) sections.push(<OscillatorVerdictCard key="verdict" verdict={verdict} />);
     }
+    if (section === "steady" && result.steady)
+      sections.push(<SteadyView key="steady" steady={result.steady} />);
     if (section === "poles" && result.poles) sections.push(<PoleMap key="poles" poles={result.poles} />);
     if (section === "variants" && result.variants) {
       sections.push(

@@ -35,7 +35,14 @@ export function sortedPoles(poles: PoleResult[]): PoleResult[] {
   return [...poles].sort((a, b) => a.frequencyHz - b.frequencyHz || b.im - a.im);
 }
 
-export type AnalysisSection = "job" | "verdict" | "poles" | "variants" | "monteCarlo" | "sensitivity";
+export type AnalysisSection =
+  | "job"
+  | "verdict"
+  | "steady"
+  | "poles"
+  | "variants"
+  | "monteCarlo"
+  | "sensitivity";
 
 /**
  * Which sections the analyses panel shows for a run, in order — one rule for the panel and for the
@@ -51,6 +58,7 @@ export function analysisSections(result: SolveSuccess | null | undefined, status
   // The verdict is about oscillators: shown for a circuit with a loop or a growing pole.
   const verdict = hasLoop || growing ? oscillatorVerdict(result) : null;
   if (verdict && (verdict.pole || verdict.loop?.gain != null)) out.push("verdict");
+  if (result.steady) out.push("steady");
   if (result.poles && result.poles.length > 0) out.push("poles");
   if (result.variants && result.variants.length > 0) out.push("variants");
   if (result.monteCarlo) out.push("monteCarlo");

@@ -7,6 +7,7 @@ import type {
   Probe,
   SolveResult,
   SourceSpan,
+  SteadyResult,
   TraceResult,
   Warning,
 } from "../types";
@@ -19,6 +20,8 @@ import { buildMna, type MnaSystem } from "./mna";
 import { loopsAtZeroPhase } from "./oscillation";
 import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
+import { deferredSteady, solveSteady } from "./steady";
+import { steadyMeasure } from "./steady/measures";
 import { sweepFrequencies } from "./sweep";
 import { makeTrace } from "./trace";
 
@@ -28,6 +31,8 @@ export const ENGINE_VERSION = "1.0.0";
 export interface AnalyzeOptions {
   /** Refuse sweeps with more points than this (the service's per-request limit). */
   maxPoints?: number;
+  /** Leave the steady oscillation out, with this reason (a preview over the service's budget). */
+  deferSteady?: string;
 }
 
 export const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
@@ -56,6 +61,7 @@ export interface SweepOutcome {
   checks: CheckResult[];
   samplers: Map<string, TraceSampler>;
   system: MnaSystem;
+  steady?: SteadyResult;
 }
 
 /**
@@ -215,6 +221,7 @@ export function sweepCircuit(
   circuit: Circuit,
   freqs: number[],
   warnings: Warning[],
+  deferSteady?: string,
 ): { ok: true; outcome: SweepOutcome } | { ok: false; errors: NetlistError[] } {
   const planned = planSystems(circuit, warnings);
   if (!planned.ok) return planned;
@@ -257,9 +264,24 @@ export function sweepCircuit(
     [...circuit.shows.map((s) => s.name), ...circuit.loops.map((l) => l.name)].map((n, i) => [n, i]),
   );
   traces.sort((a, b) => (order.get(a.name) ?? 0) - (order.get(b.name) ?? 0));
-  const measures = computeMeasures(circuit.measures, samplers);
+  const steady = !circuit.steady
+    ? undefined
+    : deferSteady !== undefined
+      ? deferredSteady(circuit.steady, deferSteady)
+      : solveSteady(circuit, circuit.steady, samplers.get(circuit.steady.loop), middleHz(freqs));
+  const measures = computeMeasures(circuit.measures, samplers, (def) => steadyMeasure(def, steady));
   const checks = evaluateChecks(circuit.checks, measures);
-  return { ok: true, outcome: { traces, measures, checks, samplers, system: main } };
+  return {
+    ok: true,
+    outcome: { traces, measures, checks, samplers, system: main, ...(steady ? { steady } : {}) },
+  };
+}
+
+/** The geometric middle of a sweep (the scale of the pole search). */
+export function middleHz(freqs: number[]): number {
+  const a = freqs[0] ?? 1;
+  const b = freqs[freqs.length - 1] ?? a;
+  return Math.sqrt(a * b);
 }
 
 /**
@@ -307,7 +329,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
       warnings: warn,
     };
   }
-  const run = sweepCircuit(circuit, freqs, warn);
+  const run = sweepCircuit(circuit, freqs, warn, options.deferSteady);
   if (!run.ok) return { ok: false, errors: run.errors, warnings: warn };
   const { outcome } = run;
   return {
@@ -320,6 +342,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
     checks: outcome.checks,
     ...(circuit.loops.length > 0 ? { zeroPhase: loopsAtZeroPhase(circuit, outcome.samplers) } : {}),
     warnings: warn,
+    ...(outcome.steady ? { steady: outcome.steady } : {}),
     stats: {
       nodes: circuit.nodes.length,
       unknowns: outcome.system.n,

@@ -30,6 +30,10 @@ const UNITS: Record<MeasureDef["fn"], string> = {
   mag: "",
   db: "dB",
   phase: "deg",
+  frequency: "Hz",
+  amplitude: "V",
+  thd: "%",
+  startup: "s",
 };
 
 /** A crossing's outcome: the frequency, or why there is none (rounding named as such). */
@@ -93,6 +97,9 @@ function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outco
       if (def.fn === "db") return { value: 20 * Math.log10(mag(x.re, x.im)) };
       return { value: deg(x.re, x.im) };
     }
+    default:
+      // frequency, amplitude, thd, startup: read from the steady oscillation (engine/steady).
+      return { reason: `${def.fn} is read from the steady oscillation: add \`steady LOOP\`` };
   }
 }
 
@@ -100,14 +107,30 @@ function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outco
  * Every measure in order (a measure may name an earlier one as its frequency). Never throws:
  * a measure without an answer gets value null and a reason.
  */
-export function computeMeasures(defs: MeasureDef[], traces: Map<string, TraceSampler>): MeasureResult[] {
+export function computeMeasures(
+  defs: MeasureDef[],
+  traces: Map<string, TraceSampler>,
+  /** The steady measures' outcomes (engine/steady/measures.ts); null for every other measure. */
+  steady: (def: MeasureDef) => Outcome | null = () => null,
+): MeasureResult[] {
   const out: MeasureResult[] = [];
   const byName = new Map<string, MeasureResult>();
   for (const def of defs) {
     const unit = UNITS[def.fn];
     let res: MeasureResult;
     const tr = traces.get(def.target);
-    if (!tr) {
+    const fromSteady = steady(def);
+    if (fromSteady !== null) {
+      res =
+        "value" in fromSteady && Number.isFinite(fromSteady.value)
+          ? { name: def.name, value: fromSteady.value, unit, reason: null }
+          : {
+              name: def.name,
+              value: null,
+              unit,
+              reason: "reason" in fromSteady ? fromSteady.reason : "no finite value",
+            };
+    } else if (!tr) {
       res = { name: def.name, value: null, unit, reason: `no trace or loop named ${def.target}` };
     } else {
       let atHz: number | null = null;

@@ -1,3 +1,4 @@
+import { DEFAULT_KELVIN, thermalVoltage } from "../physics";
 import { GROUND, type NetlistError, type Part } from "../types";
 import { stampOpamp } from "./opamp";
 import { patternFromTriplets, type SparseComplexMatrix } from "./sparse-matrix";
@@ -125,6 +126,7 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
     ccvs: 2,
     cccs: 2,
     opamp: 3,
+    diode: 2,
   };
 
   for (const p of parts) {
@@ -191,6 +193,10 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
         stamp(b, s, -p.value, 0);
         break;
       }
+      case "diode":
+        // Unbiased: the small-signal conductance is/(n·Vt), practically open (NETLIST.md).
+        twoTerm(a, b, diodeConductance(p), 0);
+        break;
       case "opamp":
         for (const problem of stampOpamp(p, k, a, b, c, stamp)) errors.push(partError(p, problem));
         break;
@@ -249,6 +255,12 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
       second: secondRhs,
     },
   };
+}
+
+/** The small-signal conductance of an unbiased diode, is/(n·Vt). */
+export function diodeConductance(p: Part): number {
+  const d = p.diode ?? { is: 1e-14, n: 1, kelvin: DEFAULT_KELVIN };
+  return d.is / (d.n * thermalVoltage(d.kelvin));
 }
 
 /** A current source of `value`∠`phase` flowing from node a through the source to node b (−1 = gnd). */

@@ -2,6 +2,8 @@
  * The netlist language: text → parse tree → flat `Circuit` (solver/types.ts), with every error of
  * the netlist at once (line, column, endColumn, message, hint) and warnings about the structure.
  */
+
+import { DEFAULT_KELVIN } from "../physics";
 import type { Circuit, NetlistError, Warning } from "../types";
 import type {
   BlockStatement,
@@ -19,6 +21,7 @@ import { parseNetlist } from "./parser";
 import { flatten } from "./parts";
 import type { DirectiveContext } from "./resolve";
 import { LetScope } from "./scope";
+import { resolveSteady } from "./steady";
 import { checkTopology } from "./topology";
 
 export type { ParseTree, Statement } from "./ast";
@@ -171,6 +174,8 @@ function elaborate(
   const global = new LetScope([...lets.values()], fixed, null, errors);
   global.evaluateAll();
   const aliases = new Map<string, string>();
+  const temperature = once(byType(st, "temperature"), "temperature", errors);
+  const kelvin = temperature?.kelvin ?? DEFAULT_KELVIN;
   const parts = flatten(byType(st, "part") as PartStatement[], {
     blocks,
     presets,
@@ -179,6 +184,7 @@ function elaborate(
     errors,
     warnings,
     aliases,
+    kelvin,
   });
   for (const name of Object.keys(overrides.parts ?? {})) {
     if (!parts.some((p) => p.name === name))
@@ -205,7 +211,8 @@ function elaborate(
   const shows = resolveShows(byType(st, "show"), ctx, traces);
   const loops = resolveLoops(byType(st, "loop"), ctx, traces);
   const measureStatements = byType(st, "measure");
-  const measures = resolveMeasures(measureStatements, ctx, traces);
+  const steady = resolveSteady(once(byType(st, "steady"), "steady", errors), ctx, loops);
+  const measures = resolveMeasures(measureStatements, ctx, traces, steady);
   const checks = resolveChecks(byType(st, "check"), ctx, measureStatements);
   const varyStatement = once(byType(st, "vary"), "vary", errors);
   const vary = varyStatement ? resolveVary(varyStatement, ctx) : null;
@@ -236,6 +243,8 @@ function elaborate(
     monteCarlo,
     poles: byType(st, "poles").length > 0,
     sensitivity,
+    temperature: kelvin,
+    steady,
   };
 }
 

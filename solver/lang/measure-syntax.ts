@@ -4,6 +4,10 @@ import type { LevelNode, Statement, ValueNode } from "./ast";
 import { type Cursor, spanOf, words } from "./cursor";
 import { didYouMean } from "./hints";
 import { MEASURE_FUNCTIONS } from "./kinds";
+import { parseReading } from "./probe";
+
+/** Steady measures that read a probe rather than a trace: `amplitude(volts(out))`. */
+const PROBE_FUNCTIONS = new Set<MeasureFunction>(["amplitude", "thd"]);
 
 const AT_FUNCTIONS = new Set<MeasureFunction>(["mag", "db", "phase"]);
 
@@ -28,6 +32,15 @@ export function parseMeasure(c: Cursor): Statement | null {
   const usage =
     fn === "crossing" ? "crossing(T, -3dB)" : AT_FUNCTIONS.has(fn) ? `${fn}(T) at 1kHz` : `${fn}(T)`;
   if (c.expectOp("(", `expected \`(\` after ${fn}`, usage) === null) return null;
+  if (PROBE_FUNCTIONS.has(fn)) {
+    const probeUsage = `${fn}(volts(out)), ${fn}(volts(a, b)) or ${fn}(amps(R1))`;
+    const first = c.peek();
+    const probe = parseReading(c, probeUsage);
+    if (probe === null || first === undefined) return null;
+    const text = c.rawFrom(first).replace(/\)\s*$/, "");
+    if (c.expectOp(")", "expected `)`", probeUsage) === null || !c.expectEnd()) return null;
+    return { type: "measure", name, fn, target: { name: text, span: probe.span }, probe, span: c.span };
+  }
   const target = c.expectName("a trace or loop name", false, usage);
   if (target === null) return null;
   let level: LevelNode | undefined;

@@ -1,22 +1,29 @@
 /** Resolution of measure, check, vary and monte-carlo statements: names, units, limits, order. */
-import type { CheckDef, MeasureDef, MonteCarloDef, SourceSpan, VaryDef } from "../types";
+import type { CheckDef, MeasureDef, MonteCarloDef, SourceSpan, SteadyDef, VaryDef } from "../types";
 import type { ValueNode } from "./ast";
 import { evaluate } from "./expr";
 import { didYouMean } from "./hints";
-import { measureUnit } from "./kinds";
+import { measureUnit, STEADY_FUNCTIONS } from "./kinds";
 import { type Place, UNIT_NAMES } from "./numbers";
 import { claim, count, type DirectiveContext, err, frequency, num, type Of } from "./resolve";
+import { resolveSteadyMeasure } from "./steady";
 
 export function resolveMeasures(
   list: Of<"measure">[],
   ctx: DirectiveContext,
   traces: Map<string, SourceSpan>,
+  steady: SteadyDef | null = null,
 ): MeasureDef[] {
   const out: MeasureDef[] = [];
   const all = new Map(list.map((m) => [m.name.name, m]));
   const names = new Map<string, SourceSpan>();
   for (const m of list) {
     if (!claim(ctx, names, m.name, "measure")) continue;
+    if (STEADY_FUNCTIONS.has(m.fn)) {
+      const def = resolveSteadyMeasure(m, ctx, steady);
+      if (def) out.push(def);
+      continue;
+    }
     if (!traces.has(m.target.name)) {
       err(
         ctx,
@@ -93,15 +100,20 @@ export function resolveChecks(
     const unit = measureUnit(m.fn);
     const limit = (v: ValueNode): number | null => {
       if (v.kind === "number" && v.unit !== null && v.unit !== unit) {
-        const measured = unit === "" ? "a plain number" : `in ${UNIT_NAMES[unit]}`;
+        const measured =
+          unit === "" ? "a plain number" : unit === "s" ? "in seconds" : `in ${UNIT_NAMES[unit]}`;
         return err(
           ctx,
           v.span,
           `\`${m.name.name}\` is ${measured}; this limit is in ${UNIT_NAMES[v.unit]}`,
-          unit === "" ? "write the limit without a unit" : `write it in ${unit} or without a unit`,
+          unit === "" || unit === "s"
+            ? "write the limit without a unit"
+            : `write it in ${unit} or without a unit`,
         );
       }
-      return evaluate(v, ctx.global, ctx.errors);
+      const x = evaluate(v, ctx.global, ctx.errors);
+      // thd is in percent: `check dist < 1%` means 1, not the fraction 0.01 that `%` reads as.
+      return x !== null && unit === "%" && v.kind === "number" && v.unit === "%" ? x * 100 : x;
     };
     const value = limit(c.value);
     const value2 = c.value2 ? limit(c.value2) : undefined;

@@ -198,6 +198,10 @@ export const PLACES = {
   ccvs: ["ohm"],
   cccs: [],
   opamp: [],
+  diode: [],
+  is: ["A"],
+  n: [],
+  swing: ["V"],
   tol: ["%"],
   phase: ["deg"],
   gain: ["dB"],
@@ -207,7 +211,7 @@ export const PLACES = {
   level: ["dB", "deg"],
   count: [],
   any: ["ohm", "F", "H", "V", "A", "S", "Hz", "%", "deg"],
-  limit: ["Hz", "dB", "deg"],
+  limit: ["Hz", "dB", "deg", "V", "A", "%"],
 } as const satisfies Record<string, readonly Unit[]>;
 
 /** Plain words for a place, used in "… takes …" messages. */
@@ -222,6 +226,10 @@ export const PLACE_WORDS: Record<Place, string> = {
   ccvs: "a transresistance is in ohms",
   cccs: "a current gain has no unit",
   opamp: "an opamp takes no value",
+  diode: "a diode takes no value (its options are is= and n=)",
+  is: "a saturation current is in amperes",
+  n: "an emission coefficient has no unit",
+  swing: "an output swing is in volts",
   tol: "a tolerance is a percentage or a fraction",
   phase: "a phase is in degrees",
   gain: "a gain is a plain number or in dB",

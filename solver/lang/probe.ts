@@ -68,6 +68,13 @@ function primary(c: Cursor): ProbeNode | null {
   return c.fail(t, `\`${t.text}\` can't be read in a probe`, PROBE_HINT);
 }
 
+/** One reading only: `volts(NODE)`, `volts(A, B)` or `amps(PART)` (the steady measures' argument). */
+export function parseReading(c: Cursor, usage: string): ProbeNode | null {
+  const t = c.peek();
+  if (t?.kind === "word" && PROBE_WORDS.has(t.text) && c.isOp("(", 1)) return reading(c);
+  return c.fail(t, t ? `expected volts(…) or amps(…), found \`${t.text}\`` : "the probe is missing", usage);
+}
+
 /** `volts(…)` or `amps(…)` at the cursor (or an earlier word for them, recorded with its fix). */
 function reading(c: Cursor): ProbeNode | null {
   const t = c.next()!;

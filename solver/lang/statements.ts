@@ -5,6 +5,7 @@ import { didYouMean } from "./hints";
 import { LOOP_METHODS } from "./kinds";
 import { parseCheck, parseMeasure } from "./measure-syntax";
 import { parseProbe } from "./probe";
+import { parseSteady, parseTemperature } from "./steady-syntax";
 
 /** Dispatch on the statement keyword at the cursor. */
 export function parseAnalysis(c: Cursor): Statement | null {
@@ -26,6 +27,10 @@ export function parseAnalysis(c: Cursor): Statement | null {
       return parseMonteCarlo(c);
     case "poles":
       return c.expectEnd("`poles` takes nothing after it") ? { type: "poles", span: c.span } : null;
+    case "temperature":
+      return parseTemperature(c);
+    case "steady":
+      return parseSteady(c);
     case "sensitivity": {
       const measure = c.expectName("a measure name", false, "sensitivity f0");
       return measure && c.expectEnd("`sensitivity` takes one measure")

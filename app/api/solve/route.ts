@@ -1,5 +1,6 @@
 import { json, withApi } from "@/lib/api";
 import { BadRequestError, RateLimitError, TooLargeError } from "@/lib/errors";
+import { previewOptions } from "@/lib/jobs";
 import { MAX_NETLIST_BYTES, MAX_PREVIEW_POINTS, SOLVE_RATE_PER_MINUTE } from "@/lib/limits";
 import { createRateLimiter } from "@/lib/rate-limit";
 import { requireActor } from "@/lib/session";
@@ -44,7 +45,7 @@ export const POST = withApi(async (req: Request) => {
   const { netlist } = solveRequestSchema.parse(body);
   if (Buffer.byteLength(netlist, "utf8") > MAX_NETLIST_BYTES) throw tooLarge();
 
-  return json(solveNetlist(netlist, { maxPoints: MAX_PREVIEW_POINTS }));
+  return json(solveNetlist(netlist, previewOptions(netlist, MAX_PREVIEW_POINTS)));
 });
 
 function tooLarge(): TooLargeError {
