@@ -1,4 +1,4 @@
-import { floatingNodes } from "./floating";
+import { floatingNodes, voltageLoop } from "./floating";
 import { assemble, type MnaSystem } from "./mna";
 import { SparseComplexLU } from "./sparse-lu";
 
@@ -137,14 +137,22 @@ export class AcSolver {
         `${list} ${floating.length > 1 ? "have" : "has"} no path to gnd through parts that conduct at this frequency`
       );
     }
+    const loop = voltageLoop(this.sys, f);
+    if (loop.length > 0) {
+      return (
+        `at ${formatHz(f)} the circuit equations are singular: ${loop.join(", ")} form a loop of parts that ` +
+        "each fix a voltage (voltage sources, controlled sources, op-amp outputs), so their currents are undetermined"
+      );
+    }
     const cols = this.lu?.singularColumns ?? [];
     const names = cols
       .slice(0, 4)
       .map((j) => this.sys.unknownLabels[j] ?? `unknown ${j}`)
       .join(", ");
     return (
-      `at ${formatHz(f)} the circuit equations are singular (a loop of voltage sources, a cut set of current ` +
-      `sources, or an op-amp without feedback?)${names ? `; undetermined: ${names}` : ""}`
+      `at ${formatHz(f)} the circuit equations are singular to working precision, even with rows and columns ` +
+      `scaled (a cut set of current sources, an op-amp without feedback, or a natural frequency exactly here?)` +
+      `${names ? `; undetermined: ${names}` : ""}`
     );
   }
 }

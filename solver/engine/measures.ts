@@ -6,6 +6,8 @@ import {
   bandwidth,
   deg,
   extremum,
+  flatReason,
+  isFlat,
   mag,
   magnitudeCrossing,
   type Outcome,
@@ -42,30 +44,33 @@ const UNITS: Record<MeasureDef["fn"], string> = {
 /** The unit of one measure's value (a noise over a band is volts rms, at a frequency V/√Hz). */
 const unitOf = (def: MeasureDef) => (def.band ? "V" : UNITS[def.fn]);
 
+/** A crossing's outcome: the frequency, or why there is none (rounding named as such). */
+function crossed(c: { f: number | null; rounding: boolean }, none: string): Outcome {
+  if (c.f !== null) return { value: c.f };
+  if (c.rounding) return { reason: `${none}: it meets the level only within rounding (about 1e-10)` };
+  return { reason: none };
+}
+
 /** The function of one measure (no `at` resolution); F is the resolved frequency if any. */
 function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outcome {
   switch (def.fn) {
-    case "zero-phase": {
-      const f = phaseCrossing(tr, 0);
-      return f === null ? { reason: `∠${tr.name} does not cross 0° ${range(tr)}` } : { value: f };
-    }
+    case "zero-phase":
+      return crossed(phaseCrossing(tr, 0), `∠${tr.name} does not cross 0° ${range(tr)}`);
     case "crossing": {
       const lv = def.level;
       if (!lv) return { reason: "crossing needs a level" };
       if (lv.kind === "deg") {
-        const f = phaseCrossing(tr, lv.value);
-        return f === null ? { reason: `∠${tr.name} does not cross ${lv.value}° ${range(tr)}` } : { value: f };
+        return crossed(phaseCrossing(tr, lv.value), `∠${tr.name} does not cross ${lv.value}° ${range(tr)}`);
       }
       const target = lv.kind === "db" ? 10 ** (lv.value / 20) : lv.kind === "mag" ? lv.value : Math.SQRT1_2;
       if (!(target > 0)) return { reason: "a magnitude level must be positive" };
-      const f = magnitudeCrossing(tr, target);
       const text = lv.kind === "db" ? `${lv.value} dB` : lv.kind === "mag" ? `${lv.value}` : "half power";
-      return f === null ? { reason: `|${tr.name}| does not cross ${text} ${range(tr)}` } : { value: f };
+      return crossed(magnitudeCrossing(tr, target), `|${tr.name}| does not cross ${text} ${range(tr)}`);
     }
     case "peak":
-      return { value: extremum(tr, 1).f };
+      return isFlat(tr) ? { reason: flatReason(tr, "no peak") } : { value: extremum(tr, 1).f };
     case "dip":
-      return { value: extremum(tr, -1).f };
+      return isFlat(tr) ? { reason: flatReason(tr, "no dip") } : { value: extremum(tr, -1).f };
     case "bandwidth":
       return bandwidth(tr, def.level);
     case "q": {
@@ -73,21 +78,19 @@ function evaluate(def: MeasureDef, tr: TraceSampler, atHz: number | null): Outco
       if ("reason" in bw) return bw;
       return { value: extremum(tr, 1).f / bw.value };
     }
-    case "unity": {
-      const f = magnitudeCrossing(tr, 1);
-      return f === null ? { reason: `|${tr.name}| does not cross 1 ${range(tr)}` } : { value: f };
-    }
+    case "unity":
+      return crossed(magnitudeCrossing(tr, 1), `|${tr.name}| does not cross 1 ${range(tr)}`);
     case "phase-margin": {
-      const f = magnitudeCrossing(tr, 1);
-      if (f === null)
-        return { reason: `|${tr.name}| does not cross 1 ${range(tr)}, so there is no phase margin` };
+      const c = crossed(magnitudeCrossing(tr, 1), `|${tr.name}| does not cross 1 ${range(tr)}`);
+      if ("reason" in c) return { reason: `${c.reason}, so there is no phase margin` };
+      const f = c.value;
       const x = at(tr, f);
       return { value: Math.abs(wrapDeg(deg(x.re, x.im))) };
     }
     case "gain-margin": {
-      const f = phaseCrossing(tr, 0);
-      if (f === null)
-        return { reason: `∠${tr.name} does not cross 0° ${range(tr)}, so there is no gain margin` };
+      const c = crossed(phaseCrossing(tr, 0), `∠${tr.name} does not cross 0° ${range(tr)}`);
+      if ("reason" in c) return { reason: `${c.reason}, so there is no gain margin` };
+      const f = c.value;
       const x = at(tr, f);
       return { value: -20 * Math.log10(mag(x.re, x.im)) };
     }
