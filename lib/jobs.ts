@@ -18,6 +18,7 @@ import {
   MAX_INLINE_WORK,
   MAX_MC_INLINE_SAMPLES,
   MAX_QUEUED_SAMPLES,
+  NOISE_BAND_WORK,
   STEADY_BASE_WORK,
   STEADY_CUBE_DIVISOR,
   STEADY_WORK_PER_HARMONIC,
@@ -45,14 +46,18 @@ export interface RunSolveJobData {
 }
 
 /**
- * Solver work in sweep points: points × (1 + Monte Carlo samples + vary values), plus the steady
- * oscillation's price (steadyWork) once per solve that computes it.
+ * Solver work in sweep points: points × (1 + Monte Carlo samples + vary values), plus each integrated
+ * noise measure's price (NOISE_BAND_WORK per variant), plus the steady oscillation's price
+ * (steadyWork) once per solve that computes it.
  */
 export function solveWork(circuit: Circuit): number {
   const points = sweepLength(circuit.sweep);
   const samples = circuit.monteCarlo?.samples ?? 0;
   const variants = circuit.vary?.values.length ?? 0;
-  const sweeps = (Number.isFinite(points) ? points : 0) * (1 + samples + variants);
+  const bands = circuit.measures.filter((m) => m.band).length;
+  const sweeps =
+    (Number.isFinite(points) ? points : 0) * (1 + samples + variants) +
+    bands * NOISE_BAND_WORK * (1 + variants);
   if (!circuit.steady) return sweeps;
   const sampled = circuit.measures.some((m) => STEADY_MEASURES.has(m.fn)) ? samples : 0;
   return sweeps + steadyWork(circuit.steady.harmonics) * (1 + variants + sampled);

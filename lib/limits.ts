@@ -36,6 +36,15 @@ export const STEADY_BASE_WORK = 20_000;
 export const STEADY_WORK_PER_HARMONIC = 2_000;
 export const STEADY_CUBE_DIVISOR = 100;
 
+/**
+ * Price of one integrated noise measure (`noise(N) from F1 to F2`, `input-noise(…) from …`) in sweep
+ * points: the adaptive quadrature solves at its own nodes, typically a few hundred (15 per panel, one
+ * panel per decade and the splits), at most 6 000 (MAX_NOISE_EVALUATIONS in
+ * solver/engine/noise-measures.ts). A `noise` statement's densities ride on the sweep's factors
+ * (about 1.0× the plain sweep, `npm run bench`) and are not priced.
+ */
+export const NOISE_BAND_WORK = 1_000;
+
 /** Most Monte Carlo samples a queued run may ask for. */
 export const MAX_QUEUED_SAMPLES = 20_000;
 

@@ -13,6 +13,7 @@ import { assemble, buildMna, type MnaSystem } from "../solver/engine/mna";
 import { sweepFrequencies } from "../solver/engine/sweep";
 import { solveNetlistParallel, stopSampleWorkers, workersUnavailableReason } from "../solver/parallel";
 import type { Part } from "../solver/types";
+import { noiseCase } from "./bench-noise";
 import { steadyCase } from "./bench-steady";
 
 export interface BenchRow {
@@ -217,6 +218,7 @@ function monteCarloCase(label: string, threads: number): BenchCase {
 }
 
 BENCH_CASES.push(
+  noiseCase(100),
   steadyCase(15, 200),
   steadyCase(63, 2000),
   monteCarloCase("in-thread", 0),

@@ -222,6 +222,11 @@ async function seedBenchSweep(t: Transaction, project: Project, uploader: User, 
     { transaction: t },
   );
   await backdate(t, "measurements", m.id, 8);
+  // Drawn on rev A's plot: bench data shows on a run only when attached to it.
+  await sequelize.query(
+    "INSERT INTO run_bench_overlays (run_id, measurement_id) VALUES (:run, :m) ON CONFLICT DO NOTHING",
+    { replacements: { run: run.id, m: m.id }, transaction: t },
+  );
 }
 
 async function seedFilter(t: Transaction, project: Project, users: SeedUsers): Promise<void> {

@@ -73,7 +73,21 @@ export interface Part {
   /** ccvs/cccs: full name of the sensing vsource or inductor. */
   sense?: string;
   /** opamp options; all absent means the ideal nullor. */
-  opamp?: { gain?: number; gbw?: number; rout?: number; swing?: number };
+  opamp?: {
+    gain?: number;
+    gbw?: number;
+    rout?: number;
+    /** Output limit ±V (steady oscillation only). */
+    swing?: number;
+    /** Second pole, Hz (LANGUAGE-NEXT §6). */
+    pole2?: number;
+    /** Input noise voltage density at the + input, V/√Hz. */
+    en?: number;
+    /** Input noise current density into each input, A/√Hz. */
+    in?: number;
+    /** 1/f corner of en and in, Hz. */
+    fc?: number;
+  };
   /** diode options: saturation current (A), emission coefficient, and the junction temperature (K). */
   diode?: { is: number; n: number; kelvin: number };
   /** Where the part line is (for block instances: the line inside the block). */
@@ -138,6 +152,9 @@ export type MeasureFunction =
   | "mag"
   | "db"
   | "phase"
+  | "group-delay"
+  | "noise"
+  | "input-noise"
   | "frequency"
   | "amplitude"
   | "thd"
@@ -153,6 +170,26 @@ export interface MeasureDef {
   level?: Level;
   /** `mag/db/phase … at F`: a frequency in Hz or the name of an earlier measure. */
   at?: { hz: number } | { measure: string };
+  /** `noise/input-noise … from F1 to F2`: the band integrated over. */
+  band?: { from: { hz: number } | { measure: string }; to: { hz: number } | { measure: string } };
+  span: SourceSpan;
+}
+
+/** `noise NAME = PROBE [input SOURCE]` (NETLIST.md "Noise"). */
+export interface NoiseDef {
+  name: string;
+  /** A voltage probe: volts(NODE) or volts(A, B). */
+  probe: Probe;
+  text: string;
+  /** The independent source the density is referred to, if any. */
+  input?: string;
+  span: SourceSpan;
+}
+
+/** `zeros PROBE`: the transfer's finite zeros from the one independent source to PROBE. */
+export interface ZerosDef {
+  probe: Probe;
+  text: string;
   span: SourceSpan;
 }
 
@@ -202,6 +239,10 @@ export interface Circuit {
   monteCarlo: MonteCarloDef | null;
   poles: boolean;
   sensitivity: { measure: string; span: SourceSpan }[];
+  /** `noise` statements (absent or empty: none). */
+  noise?: NoiseDef[];
+  /** `zeros` statements (absent or empty: none). */
+  zeros?: ZerosDef[];
   /** Temperature in kelvin (`temperature`, default 27 °C = 300.15 K): diodes and noise. */
   temperature: number;
   /** `steady LOOP …`: the steady oscillation of a loop, or null. */
@@ -228,6 +269,37 @@ export interface TraceResult {
   im: number[];
   magnitudeDb: number[];
   phaseDeg: number[];
+  /** −d∠X/dω in seconds at each frequency, exact from dX/ds; null where |X| = 0. */
+  groupDelay?: (number | null)[];
+}
+
+export interface NoiseContribution {
+  part: string;
+  /** Which noise of the part: a resistor's thermal noise, an op-amp's `en` or `in`. */
+  source: "thermal" | "en" | "in";
+  /** This source's share of the output density, V/√Hz (shares add in power); null where infinite. */
+  density: (number | null)[];
+}
+
+export interface NoiseResult {
+  name: string;
+  probe: string;
+  /** Output noise density, V/√Hz, at each frequency of the sweep (null where infinite: 1/f at 0 Hz). */
+  density: (number | null)[];
+  /** Input-referred density (output ÷ |gain from the input source|), or null without `input`. */
+  inputDensity: (number | null)[] | null;
+  input: string | null;
+  contributions: NoiseContribution[];
+  /** Kelvin the resistors' noise was computed at. */
+  temperature: number;
+}
+
+export interface ZeroResult {
+  probe: string;
+  re: number;
+  im: number;
+  frequencyHz: number;
+  q: number | null;
 }
 
 export interface MeasureResult {
@@ -371,6 +443,8 @@ export interface SolveSuccess {
   /** Each loop's refined gain at zero phase (the oscillator verdict reads these). */
   zeroPhase?: ZeroPhaseLoop[];
   sensitivity?: SensitivityResult[];
+  noise?: NoiseResult[];
+  zeros?: ZeroResult[];
   steady?: SteadyResult;
 }
 

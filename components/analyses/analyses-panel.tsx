@@ -4,6 +4,7 @@ import type { SolveSuccess } from "@/solver/types";
 import { analysisSections } from "./analysis-math";
 import { JobProgress } from "./job-progress";
 import { MonteCarloView } from "./monte-carlo-view";
+import { NoiseView } from "./noise-view";
 import { oscillatorVerdict } from "./oscillator-grade";
 import { OscillatorVerdictCard } from "./oscillator-verdict";
 import { PoleMap } from "./pole-map";
@@ -40,7 +41,12 @@ export function AnalysesPanel({ result, runId, status, canCancel = true }: Analy
     }
     if (section === "steady" && result.steady)
       sections.push(<SteadyView key="steady" steady={result.steady} />);
-    if (section === "poles" && result.poles) sections.push(<PoleMap key="poles" poles={result.poles} />);
+    if (section === "poles")
+      sections.push(<PoleMap key="poles" poles={result.poles ?? []} zeros={result.zeros ?? []} />);
+    if (section === "noise")
+      for (const n of result.noise ?? [])
+        sections.push(<NoiseView key={`noise-${n.name}`} noise={n} frequencies={result.frequencies} />);
+
     if (section === "variants" && result.variants) {
       sections.push(
         <VariantsView

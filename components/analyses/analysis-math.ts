@@ -40,6 +40,7 @@ export type AnalysisSection =
   | "verdict"
   | "steady"
   | "poles"
+  | "noise"
   | "variants"
   | "monteCarlo"
   | "sensitivity";
@@ -59,7 +60,9 @@ export function analysisSections(result: SolveSuccess | null | undefined, status
   const verdict = hasLoop || growing ? oscillatorVerdict(result) : null;
   if (verdict && (verdict.pole || verdict.loop?.gain != null)) out.push("verdict");
   if (result.steady) out.push("steady");
-  if (result.poles && result.poles.length > 0) out.push("poles");
+  if ((result.poles && result.poles.length > 0) || (result.zeros && result.zeros.length > 0))
+    out.push("poles");
+  if (result.noise && result.noise.length > 0) out.push("noise");
   if (result.variants && result.variants.length > 0) out.push("variants");
   if (result.monteCarlo) out.push("monteCarlo");
   if (result.sensitivity && result.sensitivity.length > 0) out.push("sensitivity");

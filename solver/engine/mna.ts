@@ -1,6 +1,6 @@
 import { DEFAULT_KELVIN, thermalVoltage } from "../physics";
 import { GROUND, type NetlistError, type Part } from "../types";
-import { stampOpamp } from "./opamp";
+import { pole2Key, stampOpamp } from "./opamp";
 import { patternFromTriplets, type SparseComplexMatrix } from "./sparse-matrix";
 
 /**
@@ -70,6 +70,13 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
     if (BRANCH_KINDS.has(p.kind)) {
       branchIndex.set(p.name, nodeCount + branchIndex.size);
       labels.push(p.kind === "opamp" ? `output current of ${p.name}` : `current of ${p.name}`);
+    }
+  }
+  // An op-amp with a second pole has one internal unknown: its first stage's output (opamp.ts).
+  for (const p of parts) {
+    if (p.kind === "opamp" && p.opamp?.pole2 !== undefined) {
+      branchIndex.set(pole2Key(p.name), nodeCount + branchIndex.size);
+      labels.push(`first-stage output of ${p.name}`);
     }
   }
   const n = nodeCount + branchIndex.size;
@@ -198,7 +205,8 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
         twoTerm(a, b, diodeConductance(p), 0);
         break;
       case "opamp":
-        for (const problem of stampOpamp(p, k, a, b, c, stamp)) errors.push(partError(p, problem));
+        for (const problem of stampOpamp(p, k, branchIndex.get(pole2Key(p.name)) ?? -1, a, b, c, stamp))
+          errors.push(partError(p, problem));
         break;
     }
   }

@@ -87,6 +87,7 @@ export type Statement =
       probe?: ProbeNode;
       level?: LevelNode;
       at?: ValueNode;
+      band?: { from: ValueNode; to: ValueNode };
       span: SourceSpan;
     }
   | {
@@ -107,6 +108,8 @@ export type Statement =
   | { type: "monte-carlo"; samples: ValueNode; seed?: ValueNode; dist?: Named; span: SourceSpan }
   | { type: "poles"; span: SourceSpan }
   | { type: "sensitivity"; measure: Named; span: SourceSpan }
+  | { type: "noise"; name: Named; probe: ProbeNode; text: string; input?: Named; span: SourceSpan }
+  | { type: "zeros"; probe: ProbeNode; text: string; span: SourceSpan }
   | { type: "temperature"; kelvin: number; span: SourceSpan }
   | { type: "steady"; loop: Named; harmonics?: ValueNode; from?: ValueNode; span: SourceSpan };
 

@@ -17,6 +17,7 @@ import { resolveLoops, resolveShows, resolveSweep } from "./directives";
 import { addFixes } from "./fixes";
 import { didYouMean } from "./hints";
 import { resolveChecks, resolveMeasures, resolveMonteCarlo, resolveVary } from "./measures";
+import { resolveNoise, resolveZeros } from "./noise-zeros";
 import { parseNetlist } from "./parser";
 import { flatten } from "./parts";
 import type { DirectiveContext } from "./resolve";
@@ -211,8 +212,10 @@ function elaborate(
   const shows = resolveShows(byType(st, "show"), ctx, traces);
   const loops = resolveLoops(byType(st, "loop"), ctx, traces);
   const measureStatements = byType(st, "measure");
+  const noise = resolveNoise(byType(st, "noise"), ctx, traces);
+  const zeros = resolveZeros(byType(st, "zeros"), ctx);
   const steady = resolveSteady(once(byType(st, "steady"), "steady", errors), ctx, loops);
-  const measures = resolveMeasures(measureStatements, ctx, traces, steady);
+  const measures = resolveMeasures(measureStatements, ctx, traces, steady, new Set(noise.map((n) => n.name)));
   const checks = resolveChecks(byType(st, "check"), ctx, measureStatements);
   const varyStatement = once(byType(st, "vary"), "vary", errors);
   const vary = varyStatement ? resolveVary(varyStatement, ctx) : null;
@@ -243,6 +246,8 @@ function elaborate(
     monteCarlo,
     poles: byType(st, "poles").length > 0,
     sensitivity,
+    ...(noise.length > 0 ? { noise } : {}),
+    ...(zeros.length > 0 ? { zeros } : {}),
     temperature: kelvin,
     steady,
   };

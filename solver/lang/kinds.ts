@@ -82,7 +82,16 @@ export const KINDS: Record<PartKind, KindInfo> = {
     terminals: ["in+", "in-", "out"],
     value: "none",
     defaultValue: 0,
-    options: { gain: "gain", gbw: "gbw", rout: "rout", swing: "swing" },
+    options: {
+      gain: "gain",
+      gbw: "gbw",
+      rout: "rout",
+      swing: "swing",
+      pole2: "pole2",
+      en: "en",
+      in: "in",
+      fc: "fc",
+    },
     usage: "U1: opamp pos neg out gbw=1M",
   },
   diode: {
@@ -115,6 +124,8 @@ export const KEYWORDS = [
   "monte-carlo",
   "poles",
   "sensitivity",
+  "noise",
+  "zeros",
   "temperature",
   "steady",
 ];
@@ -135,6 +146,9 @@ export const MEASURE_FUNCTIONS: MeasureFunction[] = [
   "mag",
   "db",
   "phase",
+  "group-delay",
+  "noise",
+  "input-noise",
   "frequency",
   "amplitude",
   "thd",
@@ -161,6 +175,11 @@ export function measureUnit(fn: MeasureFunction): "Hz" | "dB" | "deg" | "V" | "%
     case "q":
     case "mag":
       return "";
+    case "group-delay":
+      return "s";
+    case "noise":
+    case "input-noise":
+      return "V";
     case "db":
     case "gain-margin":
       return "dB";

@@ -207,6 +207,10 @@ export const PLACES = {
   gain: ["dB"],
   gbw: ["Hz"],
   rout: ["ohm"],
+  pole2: ["Hz"],
+  en: ["V"],
+  in: ["A"],
+  fc: ["Hz"],
   frequency: ["Hz"],
   level: ["dB", "deg"],
   count: [],
@@ -235,11 +239,15 @@ export const PLACE_WORDS: Record<Place, string> = {
   gain: "a gain is a plain number or in dB",
   gbw: "a gain-bandwidth product is in hertz",
   rout: "an output resistance is in ohms",
+  pole2: "a second pole is a frequency in hertz",
+  en: "a noise voltage density is in volts per root hertz (write 10n or 10nV)",
+  in: "a noise current density is in amperes per root hertz (write 1p or 1pA)",
+  fc: "a 1/f noise corner is a frequency in hertz",
   frequency: "a frequency is in hertz",
   level: "a level is a magnitude, a dB value or a phase in degrees",
   count: "a count is a plain whole number",
   any: "this value",
-  limit: "a limit is in Hz, dB, degrees or a plain number",
+  limit: "a limit is in Hz, dB, degrees, volts or a plain number",
 };
 
 /** Null when `unit` fits `place`, else a message and a hint. */

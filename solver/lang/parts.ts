@@ -227,6 +227,19 @@ function applyOption(part: Part, key: string, v: number, node: ValueNode, errors
       if (v < 0) return fail("an output resistance can't be negative");
       part.opamp = { ...part.opamp, rout: v };
       return true;
+    case "pole2":
+      if (!(v > 0)) return fail("a second pole's frequency must be above zero");
+      part.opamp = { ...part.opamp, pole2: v };
+      return true;
+    case "en":
+    case "in":
+      if (!(v >= 0)) return fail(`a noise density (${key}=) can't be negative`);
+      part.opamp = { ...part.opamp, [key]: v };
+      return true;
+    case "fc":
+      if (!(v >= 0)) return fail("a 1/f noise corner can't be negative");
+      part.opamp = { ...part.opamp, fc: v };
+      return true;
     case "swing":
       if (!(v > 0))
         return fail("an output swing must be above zero", "swing=12V: the output stays within ±12 V");

@@ -12,10 +12,11 @@ const PROBE_HINT =
 const PROBE_WORDS = new Set(["volts", "amps", ...Object.keys(PROBE_RENAMES)]);
 
 /** Parse a whole probe; null (with an error recorded) when it is malformed. */
-export function parseProbe(c: Cursor): ProbeNode | null {
+export function parseProbe(c: Cursor, stopWord?: string): ProbeNode | null {
   const probe = sum(c);
   if (probe === null) return null;
-  if (!c.atEnd()) return c.fail(c.peek(), `unexpected \`${c.peek()!.text}\` in the probe`, PROBE_HINT);
+  if (!c.atEnd() && !(stopWord !== undefined && c.isWord(stopWord)))
+    return c.fail(c.peek(), `unexpected \`${c.peek()!.text}\` in the probe`, PROBE_HINT);
   return probe;
 }
 

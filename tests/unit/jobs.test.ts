@@ -1,7 +1,7 @@
 /** When a run goes to the job queue (lib/jobs.ts) — pure, no database. */
 import { describe, expect, it } from "vitest";
 import { previewOptions, shouldQueue, solveWork, steadyWork } from "@/lib/jobs";
-import { MAX_INLINE_WORK, MAX_MC_INLINE_SAMPLES } from "@/lib/limits";
+import { MAX_INLINE_WORK, MAX_MC_INLINE_SAMPLES, NOISE_BAND_WORK } from "@/lib/limits";
 import { compile, solveNetlist } from "@/solver";
 
 const net = (extra: string, sweep = "sweep 100Hz to 20kHz linear 400 points") => `
@@ -23,6 +23,12 @@ function circuit(text: string) {
 describe("solveWork = points × (1 + samples + variants)", () => {
   it("one sweep of 400 points is 400", () => {
     expect(solveWork(circuit(net("")))).toBe(400);
+  });
+  it("a noise density rides on the sweep (not priced); each integrated noise measure adds NOISE_BAND_WORK per variant", () => {
+    const noise =
+      "noise N = volts(out)\nmeasure a = noise(N) at 1kHz\nmeasure b = noise(N) from 10Hz to 20kHz";
+    expect(solveWork(circuit(net(noise)))).toBe(400 + NOISE_BAND_WORK);
+    expect(solveWork(circuit(net(`${noise}\nvary R1 over 1k, 2k`)))).toBe(400 * 3 + NOISE_BAND_WORK * 3);
   });
   it("1 000 samples × 400 points is 400 400 and goes to the queue", () => {
     const c = circuit(net("monte-carlo 1000 seed=2"));

@@ -21,7 +21,7 @@ const fmt = (x: number, d = 3) => String(Number(x.toPrecision(d)));
 export function loopAtZeroPhase(tr: TraceSampler | undefined): StartInfo["loop"] {
   if (!tr) return null;
   try {
-    const f = phaseCrossing(tr, 0);
+    const { f } = phaseCrossing(tr, 0);
     if (f === null) return null;
     const x = at(tr, f);
     return { frequencyHz: f, magnitude: mag(x.re, x.im) };
