@@ -4,8 +4,10 @@ import CredentialsProvider from "next-auth/providers/credentials";
 import { UniqueConstraintError } from "sequelize";
 import { env } from "@/lib/env";
 import { BadRequestError, withDb } from "@/lib/errors";
+import { deliverSoon } from "@/lib/mail/outbox";
 import { createTeamWithOwner } from "@/lib/teams";
 import { type SignUpInput, signInSchema } from "@/lib/validations/auth";
+import { issueVerification } from "@/lib/verification";
 
 /** One message whether the e-mail is unknown or the password wrong, so accounts can't be probed. */
 export const WRONG_CREDENTIALS = "E-mail or password is wrong.";
@@ -68,8 +70,8 @@ export const BCRYPT_COST = 10;
 export const EMAIL_TAKEN = "An account with this e-mail already exists. Sign in instead.";
 
 /**
- * Creates a user (e-mail lower-cased, password hashed) and a personal team the user owns, in one
- * transaction. A taken e-mail → BadRequestError with `fields.email`.
+ * Creates a user (e-mail lower-cased, password hashed, address not yet verified) and a personal team
+ * the user owns, and writes the verification e-mail, in one transaction. A taken e-mail → BadRequestError with `fields.email`.
  */
 export async function registerUser(input: SignUpInput): Promise<{ userId: string; teamId: string }> {
   const { User, sequelize } = await import("@/lib/db");
@@ -77,7 +79,7 @@ export async function registerUser(input: SignUpInput): Promise<{ userId: string
   if (await withDb(() => User.findOne({ where: { email: input.email }, attributes: ["id"] }))) throw taken();
   const passwordHash = await bcrypt.hash(input.password, BCRYPT_COST);
   try {
-    return await withDb(() =>
+    const created = await withDb(() =>
       sequelize.transaction(async (transaction) => {
         const user = await User.create(
           { name: input.name, email: input.email, passwordHash },
@@ -85,9 +87,12 @@ export async function registerUser(input: SignUpInput): Promise<{ userId: string
         );
         const first = input.name.split(/\s+/)[0] || input.name;
         const team = await createTeamWithOwner(user.id, `${first}'s workbench`, transaction);
+        await issueVerification(user, transaction);
         return { userId: user.id, teamId: team.id };
       }),
     );
+    deliverSoon();
+    return created;
   } catch (err) {
     if (err instanceof UniqueConstraintError) throw taken();
     throw err;
