@@ -10,7 +10,8 @@ TEST_PORT="${E2E_PORT:-3101}"
 TEST_SMTP_PORT="${E2E_SMTP_PORT:-2527}"
 export APP_ENV=test
 export DATABASE_URL="$(db_url phasewright_test)"
-export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-phasewright-test-secret-0123456789}"
+# A fresh secret per test run (shared by the test server and the tests through the environment).
+export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-$(node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))')}"
 
 ensure_data_dir
 ensure_node_modules
