@@ -5,6 +5,7 @@ import { UniqueConstraintError } from "sequelize";
 import { env } from "@/lib/env";
 import { BadRequestError, withDb } from "@/lib/errors";
 import { deliverSoon } from "@/lib/mail/outbox";
+import { safeCallback } from "@/lib/safe-callback";
 import { createTeamWithOwner } from "@/lib/teams";
 import { type SignUpInput, signInSchema } from "@/lib/validations/auth";
 import { issueVerification } from "@/lib/verification";
@@ -58,6 +59,10 @@ export const authOptions: NextAuthOptions = {
         token.email = user.email;
       }
       return token;
+    },
+    /** Only same-origin destinations after sign-in and sign-out (lib/safe-callback.ts). */
+    redirect({ url, baseUrl }) {
+      return `${baseUrl}${safeCallback(url, { origin: baseUrl, fallback: "/projects" })}`;
     },
     session({ session, token }) {
       return { ...session, user: { ...session.user, id: token.sub } };

@@ -3,6 +3,7 @@ import { redirect } from "next/navigation";
 import { decode } from "next-auth/jwt";
 import { env } from "@/lib/env";
 import { UnauthorizedError, withDb } from "@/lib/errors";
+import { safeCallback } from "@/lib/safe-callback";
 import { verifyBearerToken } from "@/lib/tokens";
 
 /** Who is calling: from the next-auth session cookie or an `Authorization: Bearer <api token>` header. */
@@ -90,8 +91,8 @@ export async function requireActor(req?: Request): Promise<Actor> {
 export async function requireUser(): Promise<Actor> {
   const actor = await getActor();
   if (!actor) {
-    const back = (await headers()).get("x-pw-path");
-    redirect(back?.startsWith("/") ? `/signin?callbackUrl=${encodeURIComponent(back)}` : "/signin");
+    const back = safeCallback((await headers()).get("x-pw-path"), { fallback: "" });
+    redirect(back ? `/signin?callbackUrl=${encodeURIComponent(back)}` : "/signin");
   }
   return actor;
 }

@@ -1,7 +1,7 @@
 import bcrypt from "bcryptjs";
 import { encode } from "next-auth/jwt";
 import { describe, expect, it } from "vitest";
-import { registerUser, verifyCredentials } from "@/lib/auth";
+import { authOptions, registerUser, verifyCredentials } from "@/lib/auth";
 import { authorizeProject, authorizeRun, authorizeTeam } from "@/lib/authz";
 import { Membership, Run, Team, User } from "@/lib/db";
 import { env } from "@/lib/env";
@@ -189,5 +189,21 @@ describe("authorization against the database", () => {
     await expectAppError(authorizeProject(viewer.id, fx.project.id, "run:create"), ForbiddenError, 403);
     await expectAppError(authorizeRun(reviewer.id, run.id, "run:request_review"), ForbiddenError, 403);
     await expectAppError(authorizeTeam(fx.users.designer.id, fx.team.id, "team:manage"), ForbiddenError, 403);
+  });
+});
+
+describe("next-auth's redirect callback", () => {
+  it("keeps same-origin destinations and sends every bypass shape to /projects", async () => {
+    const redirect = authOptions.callbacks?.redirect;
+    if (!redirect) throw new Error("no redirect callback");
+    const baseUrl = "http://localhost:3000";
+    const go = (url: string) => redirect({ url, baseUrl });
+    expect(await go("/runs/abc")).toBe(`${baseUrl}/runs/abc`);
+    expect(await go(`${baseUrl}/invite/tok_123456789012345678901`)).toBe(
+      `${baseUrl}/invite/tok_123456789012345678901`,
+    );
+    for (const shape of ["/%09/evil.test", "/%0A/x", "//evil.test", "/\\evil.test", "https://evil.test/"]) {
+      expect(await go(shape)).toBe(`${baseUrl}/projects`);
+    }
   });
 });
