@@ -5,6 +5,7 @@ import { UniqueConstraintError } from "sequelize";
 import { env } from "@/lib/env";
 import { BadRequestError, withDb } from "@/lib/errors";
 import { deliverSoon } from "@/lib/mail/outbox";
+import { recordSignIn, signInWait } from "@/lib/rate-limit";
 import { safeCallback } from "@/lib/safe-callback";
 import { createTeamWithOwner } from "@/lib/teams";
 import { type SignUpInput, signInSchema } from "@/lib/validations/auth";
@@ -33,6 +34,27 @@ export async function verifyCredentials(
   return { id: String(user.get("id")), email: String(user.get("email")), name: String(user.get("name")) };
 }
 
+function toHeaders(raw: Record<string, unknown> | undefined): Headers {
+  const h = new Headers();
+  for (const [k, v] of Object.entries(raw ?? {})) if (typeof v === "string") h.set(k, v);
+  return h;
+}
+
+/**
+ * A credential check behind the lockouts of lib/rate-limit.ts: while the account or the peer address is
+ * locked, not even the right password signs in; every failure counts against both, success frees the account.
+ */
+export async function guardedSignIn(
+  headers: Headers,
+  email: string,
+  password: string,
+): Promise<{ id: string; email: string; name: string } | null> {
+  if (signInWait(headers, email) > 0) return null;
+  const user = await verifyCredentials(email, password);
+  recordSignIn(headers, email, user !== null);
+  return user;
+}
+
 export const authOptions: NextAuthOptions = {
   secret: env.NEXTAUTH_SECRET,
   session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
@@ -44,10 +66,10 @@ export const authOptions: NextAuthOptions = {
         email: { label: "E-mail", type: "email" },
         password: { label: "Password", type: "password" },
       },
-      async authorize(credentials) {
+      async authorize(credentials, req) {
         const parsed = signInSchema.safeParse(credentials ?? {});
         if (!parsed.success) return null;
-        return verifyCredentials(parsed.data.email, parsed.data.password);
+        return guardedSignIn(toHeaders(req?.headers), parsed.data.email, parsed.data.password);
       },
     }),
   ],
