@@ -2,7 +2,7 @@ import { cookies, headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { decode } from "next-auth/jwt";
 import { env } from "@/lib/env";
-import { UnauthorizedError, withDb } from "@/lib/errors";
+import { ForbiddenError, UnauthorizedError, withDb } from "@/lib/errors";
 import { safeCallback } from "@/lib/safe-callback";
 import { verifyBearerToken } from "@/lib/tokens";
 
@@ -82,6 +82,19 @@ export async function requireActor(req?: Request): Promise<Actor> {
   const actor = await getActor(req);
   if (!actor) throw new UnauthorizedError();
   return actor;
+}
+
+/**
+ * The caller signed in through the browser session only: a request carrying an API token is refused
+ * (403), so a leaked token cannot mint more tokens. For routes that manage tokens.
+ */
+export async function requireSessionActor(req: Request): Promise<Actor> {
+  if (bearerFrom(req.headers)) {
+    throw new ForbiddenError(
+      "API tokens cannot create tokens. Sign in to Phasewright and create one in Settings.",
+    );
+  }
+  return requireActor(req);
 }
 
 /**

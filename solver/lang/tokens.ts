@@ -56,7 +56,7 @@ export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[
     if (current === null) current = { line: lineNo, tokens: [], segments: [] };
     if (starting && TITLE_LINE.test(raw)) current.verbatim = true;
     const hash = current.verbatim ? raw.search(TITLE_COMMENT) : raw.indexOf("#");
-    let body = (hash >= 0 ? raw.slice(0, hash) : raw).replace(/[ \t]+$/, "");
+    let body = trimBlanksEnd(hash >= 0 ? raw.slice(0, hash) : raw);
     const continues = body.endsWith("\\");
     if (continues) body = body.slice(0, -1);
     current.segments.push({ line: lineNo, column: 1, text: body });
@@ -71,6 +71,34 @@ export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[
   const last = current as LogicalLine | null;
   if (last !== null && last.tokens.length > 0) lines.push(last);
   return { lines, errors };
+}
+
+/**
+ * The text without trailing blanks (spaces, tabs). A loop from the end: the regex `/[ \t]+$/` it
+ * replaces is quadratic on a long run of blanks followed by anything else (120 kB took 21 s).
+ */
+export function trimBlanksEnd(text: string): string {
+  let end = text.length;
+  while (end > 0) {
+    const k = text.charCodeAt(end - 1);
+    if (k !== 32 && k !== 9) break;
+    end--;
+  }
+  return end === text.length ? text : text.slice(0, end);
+}
+
+/** Parentheses deeper than this on one statement are refused with line and column (no stack overflow). */
+export const MAX_NESTING = 100;
+
+/** The first `(` that opens level MAX_NESTING + 1 on a logical line, or null. */
+export function tooDeep(tokens: Token[]): Token | null {
+  let depth = 0;
+  for (const t of tokens) {
+    if (t.kind !== "op") continue;
+    if (t.text === "(" && ++depth > MAX_NESTING) return t;
+    if (t.text === ")") depth = Math.max(0, depth - 1);
+  }
+  return null;
 }
 
 /** A title line's text after the keyword: continued lines joined by a space, `\#` read as `#`. */
