@@ -58,6 +58,8 @@ export async function guardedSignIn(
 export const authOptions: NextAuthOptions = {
   secret: env.NEXTAUTH_SECRET,
   session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
+  // Secure (and __Secure-) cookies whenever the public origin is https.
+  useSecureCookies: env.NEXTAUTH_URL.startsWith("https://"),
   pages: { signIn: "/signin", error: "/signin" },
   providers: [
     CredentialsProvider({

@@ -2,6 +2,7 @@ import type { Annotation, Data, Layout, LayoutAxis, Shape } from "plotly.js";
 import { sampleTrace } from "@/lib/trace-math";
 import { type BodeCursor, cursorShapes } from "./cursors";
 import { formatHz, hoverTexts } from "./hover-format";
+import { plotText } from "./plot-text";
 import { plotColors, plotFonts, plotHoverLabel, traceColor } from "./palette";
 import type { BodeMarker, BodeOverlay, BodePin, BodeSeries } from "./types";
 
@@ -37,10 +38,10 @@ function lineTrace(
   return {
     type: gl ? "scattergl" : "scatter",
     mode: "lines",
-    name: opts.legendName,
+    name: plotText(opts.legendName),
     legendgroup: opts.group,
     showlegend: opts.showLegend,
-    meta: [s.name],
+    meta: [plotText(s.name)],
     x: s.frequencies,
     y,
     xaxis: row === 1 ? "x" : "x2",
@@ -75,10 +76,10 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
       data.push({
         type: s.frequencies.length > GL_THRESHOLD ? "scattergl" : "scatter",
         mode: "markers",
-        name: s.name,
+        name: plotText(s.name),
         legendgroup: `m:${s.name}`,
         showlegend: row === 1,
-        meta: [s.name],
+        meta: [plotText(s.name)],
         x: s.frequencies,
         y: row === 1 ? s.magnitudeDb : s.phaseDeg,
         xaxis: row === 1 ? "x" : "x2",
@@ -102,7 +103,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
     if (!sample) continue;
     pinX.push(pin.frequencyHz);
     pinY.push(sample.db);
-    pinText.push(`${formatHz(pin.frequencyHz)}<br>${pin.label ?? "comment"}`);
+    pinText.push(`${formatHz(pin.frequencyHz)}<br>${plotText(pin.label ?? "comment")}`);
   }
   if (pinX.length > 0) {
     data.push({
@@ -142,7 +143,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
       yshift: 4 + (i % 2) * 14,
       yanchor: "bottom",
       showarrow: false,
-      text: m.label,
+      text: plotText(m.label),
       font: { size: 11, color: plotColors.marker },
     });
   });

@@ -47,3 +47,33 @@ describe("malformed percent-encoding in ids (issue 13: 500 on every [id] route)"
     expect(proxy(new NextRequest("http://localhost/projects/%C3%A9")).status).toBe(200);
   });
 });
+
+describe("security headers (issue 13: no CSP, framing allowed)", () => {
+  it("pages: a nonce CSP without unsafe-eval, no framing, nosniff, referrer policy; a fresh nonce each time", () => {
+    const a = proxy(new NextRequest("http://localhost/projects"));
+    const b = proxy(new NextRequest("http://localhost/projects"));
+    const csp = a.headers.get("content-security-policy") ?? "";
+    const nonce = /'nonce-([A-Za-z0-9+/=]+)'/.exec(csp)?.[1];
+    expect(nonce).toBeTruthy();
+    expect(b.headers.get("content-security-policy")).not.toContain(`'nonce-${nonce}'`);
+    expect(csp).toContain("'strict-dynamic'");
+    expect(csp).toContain("frame-ancestors 'none'");
+    expect(csp).toContain("object-src 'none'");
+    expect(csp).toContain("worker-src 'self' blob:");
+    expect(csp).not.toContain("unsafe-eval");
+    expect(a.headers.get("x-frame-options")).toBe("DENY");
+    expect(a.headers.get("x-content-type-options")).toBe("nosniff");
+    expect(a.headers.get("referrer-policy")).toBe("strict-origin-when-cross-origin");
+    // HSTS only over https.
+    expect(a.headers.get("strict-transport-security")).toBeNull();
+    const secure = proxy(new NextRequest("https://phasewright.example/projects"));
+    expect(secure.headers.get("strict-transport-security")).toMatch(/^max-age=\d+/);
+  });
+
+  it("API answers: nothing may load or frame them", () => {
+    const res = proxy(new NextRequest("http://localhost/api/runs/abc"));
+    expect(res.headers.get("content-security-policy")).toBe("default-src 'none'; frame-ancestors 'none'");
+    expect(res.headers.get("x-frame-options")).toBe("DENY");
+    expect(res.headers.get("x-content-type-options")).toBe("nosniff");
+  });
+});
