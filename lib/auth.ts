@@ -16,11 +16,11 @@ export const WRONG_CREDENTIALS = "E-mail or password is wrong.";
 
 let dummyHash: string | undefined;
 
+/** Who signed in; `sessionVersion` goes into the session token as `sv` (lib/session-version.ts). */
+export type SignedInUser = { id: string; email: string; name: string; sessionVersion: number };
+
 /** Checks an e-mail and password against the stored bcrypt hash. */
-export async function verifyCredentials(
-  email: string,
-  password: string,
-): Promise<{ id: string; email: string; name: string } | null> {
+export async function verifyCredentials(email: string, password: string): Promise<SignedInUser | null> {
   const { User } = await import("@/lib/db");
   const user = await withDb(() => User.findOne({ where: { email: email.trim().toLowerCase() } }));
   if (!user) {
@@ -31,7 +31,12 @@ export async function verifyCredentials(
   }
   const ok = await bcrypt.compare(password, String(user.get("passwordHash")));
   if (!ok) return null;
-  return { id: String(user.get("id")), email: String(user.get("email")), name: String(user.get("name")) };
+  return {
+    id: String(user.get("id")),
+    email: String(user.get("email")),
+    name: String(user.get("name")),
+    sessionVersion: Number(user.get("sessionVersion") ?? 0),
+  };
 }
 
 function toHeaders(raw: Record<string, unknown> | undefined): Headers {
@@ -48,7 +53,7 @@ export async function guardedSignIn(
   headers: Headers,
   email: string,
   password: string,
-): Promise<{ id: string; email: string; name: string } | null> {
+): Promise<SignedInUser | null> {
   if (signInWait(headers, email) > 0) return null;
   const user = await verifyCredentials(email, password);
   recordSignIn(headers, email, user !== null);
@@ -81,6 +86,7 @@ export const authOptions: NextAuthOptions = {
         token.sub = user.id;
         token.name = user.name;
         token.email = user.email;
+        token.sv = (user as Partial<SignedInUser>).sessionVersion ?? 0;
       }
       return token;
     },

@@ -2,8 +2,8 @@ import type { Annotation, Data, Layout, LayoutAxis, Shape } from "plotly.js";
 import { sampleTrace } from "@/lib/trace-math";
 import { type BodeCursor, cursorShapes } from "./cursors";
 import { formatHz, hoverTexts } from "./hover-format";
-import { plotText } from "./plot-text";
 import { plotColors, plotFonts, plotHoverLabel, traceColor } from "./palette";
+import { plotText } from "./plot-text";
 import type { BodeMarker, BodeOverlay, BodePin, BodeSeries } from "./types";
 
 /** Above this many points a trace is drawn with WebGL. */

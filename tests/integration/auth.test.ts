@@ -14,6 +14,8 @@ import {
 } from "@/lib/errors";
 import { clientAddress, throttleSignIn } from "@/lib/rate-limit";
 import { getActor, requireActor } from "@/lib/session";
+import { bumpSessionVersion } from "@/lib/session-version";
+import { changeMemberRole } from "@/lib/teams";
 import { createFixtures, FIXTURE_PASSWORD, useTestDb } from "./setup";
 
 useTestDb();
@@ -36,6 +38,7 @@ describe("credentials", () => {
       id: fx.users.designer.id,
       email: "designer@fixture.test",
       name: "Fixture designer",
+      sessionVersion: 0,
     });
   });
 
@@ -87,26 +90,52 @@ describe("session", () => {
   }
 
   it("reads the actor from next-auth's session cookie", async () => {
-    const token = await cookieFor({
-      sub: "6f1c2a4e-0b7d-4c35-9a0e-2d3f4b5c6d7e",
-      email: "a@b.test",
-      name: "Ada",
-    });
+    const fx = await createFixtures();
+    const token = await cookieFor({ sub: fx.users.viewer.id, email: "a@b.test", name: "Ada", sv: 0 });
     const req = new Request("http://localhost/api/x", {
       headers: { cookie: `other=1; next-auth.session-token=${token}` },
     });
-    expect(await getActor(req)).toEqual({
-      userId: "6f1c2a4e-0b7d-4c35-9a0e-2d3f4b5c6d7e",
-      email: "a@b.test",
-      name: "Ada",
-    });
+    expect(await getActor(req)).toEqual({ userId: fx.users.viewer.id, email: "a@b.test", name: "Ada" });
   });
 
   it("joins a chunked cookie", async () => {
-    const token = await cookieFor({ sub: "u-1", email: "c@d.test", name: "Chunk" });
+    const fx = await createFixtures();
+    const token = await cookieFor({ sub: fx.users.owner.id, email: "c@d.test", name: "Chunk", sv: 0 });
     const half = Math.floor(token.length / 2);
     const cookie = `next-auth.session-token.0=${token.slice(0, half)}; next-auth.session-token.1=${token.slice(half)}`;
-    expect((await getActor(new Request("http://localhost/", { headers: { cookie } })))?.userId).toBe("u-1");
+    expect((await getActor(new Request("http://localhost/", { headers: { cookie } })))?.userId).toBe(
+      fx.users.owner.id,
+    );
+  });
+
+  it("session version: sign out everywhere and a role change end older sessions at once; unknown users have none", async () => {
+    const fx = await createFixtures();
+    const asCookie = async (sub: string, sv: number) => ({
+      headers: {
+        cookie: `next-auth.session-token=${await cookieFor({ sub, email: "x@y.test", name: "X", sv })}`,
+      },
+    });
+    const reviewer = fx.users.reviewer.id;
+    expect(await getActor(new Request("http://localhost/", await asCookie(reviewer, 0)))).not.toBeNull();
+    await bumpSessionVersion(reviewer); // what Settings → "Sign out everywhere" does
+    expect(await getActor(new Request("http://localhost/", await asCookie(reviewer, 0)))).toBeNull();
+    expect(await getActor(new Request("http://localhost/", await asCookie(reviewer, 1)))).not.toBeNull();
+    // A role change by an owner ends the member's sessions too.
+    const membership = await Membership.findOne({ where: { teamId: fx.team.id, userId: reviewer } });
+    await changeMemberRole(fx.users.owner.id, fx.team.id, String(membership?.id), "viewer");
+    expect(await getActor(new Request("http://localhost/", await asCookie(reviewer, 1)))).toBeNull();
+    expect((await User.findByPk(reviewer))?.sessionVersion).toBe(2);
+    // Sign-in puts the current version into the token.
+    const jwt = authOptions.callbacks?.jwt;
+    const user = await verifyCredentials("reviewer@fixture.test", FIXTURE_PASSWORD);
+    const claims = await jwt?.({ token: {}, user: user as never, account: null, trigger: "signIn" } as never);
+    expect(claims?.sv).toBe(2);
+    expect(await getActor(new Request("http://localhost/", await asCookie("u-1", 0)))).toBeNull();
+    expect(
+      await getActor(
+        new Request("http://localhost/", await asCookie("6f1c2a4e-0b7d-4c35-9a0e-2d3f4b5c6d7e", 0)),
+      ),
+    ).toBeNull();
   });
 
   it("rejects a cookie sealed with another secret, and no cookie at all", async () => {

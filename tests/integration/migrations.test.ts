@@ -69,6 +69,7 @@ describe("migrations", () => {
       "202612021400-run-result-json-lz4",
       "202612022010-netlist-probe-names",
       "202612022020-review-words",
+      "202612030300-email-verification",
     ]);
   });
 

@@ -66,7 +66,10 @@ describe("buildBodeFigure", () => {
     // Rendered text only (legendgroup is an identifier, never drawn).
     const json = JSON.stringify({ data, layout }, (k, v) => (k === "legendgroup" ? undefined : v));
     expect(json).not.toMatch(/<a |<img|<script|<b>x/);
-    const bench = data.find((d) => (d as { name?: string }).name?.includes("bench")) as { name: string; meta: string[] };
+    const bench = data.find((d) => (d as { name?: string }).name?.includes("bench")) as {
+      name: string;
+      meta: string[];
+    };
     expect(bench.name).toBe('&lt;a href="https://evil.test"&gt;bench&lt;/a&gt;');
     expect(bench.meta[0]).toBe(bench.name);
     const pins = data.at(-1) as { text: string[] };
