@@ -13,7 +13,13 @@
  */
 import type { PgBoss } from "pg-boss";
 import { env } from "@/lib/env";
-import { JOB_EXPIRE_SECONDS, MAX_INLINE_WORK, MAX_MC_INLINE_SAMPLES, MAX_QUEUED_SAMPLES } from "@/lib/limits";
+import {
+  JOB_EXPIRE_SECONDS,
+  MAX_INLINE_WORK,
+  MAX_MC_INLINE_SAMPLES,
+  MAX_QUEUED_SAMPLES,
+  solveWork,
+} from "@/lib/limits";
 import {
   attachQueueJob,
   fail,
@@ -23,7 +29,6 @@ import {
   requestCancel,
 } from "@/lib/run-lifecycle";
 import { analyze, compile, SOLVER_VERSION } from "@/solver";
-import { sweepLength } from "@/solver/engine/sweep";
 import type { Circuit, NetlistError } from "@/solver/types";
 
 export const RUN_SOLVE_QUEUE = "run-solve";
@@ -36,13 +41,8 @@ export interface RunSolveJobData {
   runId: string;
 }
 
-/** Solver work in sweep points: points × (1 + Monte Carlo samples + vary values). */
-export function solveWork(circuit: Circuit): number {
-  const points = sweepLength(circuit.sweep);
-  const samples = circuit.monteCarlo?.samples ?? 0;
-  const variants = circuit.vary?.values.length ?? 0;
-  return (Number.isFinite(points) ? points : 0) * (1 + samples + variants);
-}
+/** The price of a compiled netlist: defined once in lib/limits.ts. */
+export { solveWork };
 
 /** True when a run of this circuit goes to the job queue instead of being solved in the request. */
 export function shouldQueue(circuit: Circuit): boolean {
