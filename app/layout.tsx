@@ -4,6 +4,7 @@ import "@fontsource/jetbrains-mono/600.css";
 import "./globals.css";
 import type { Metadata, Viewport } from "next";
 import type { ReactNode } from "react";
+import { QueryProvider } from "@/components/providers/query-provider";
 import { RouteFocus } from "@/components/shell/route-focus";
 import { SiteFooter } from "@/components/shell/site-footer";
 import { SiteHeader } from "@/components/shell/site-header";
@@ -40,7 +41,7 @@ export default async function RootLayout({ children }: { children: ReactNode }) 
         </a>
         <SiteHeader actor={actor && profile ? { ...actor, ...profile } : actor} />
         <main id="main" tabIndex={-1} className="flex-1 outline-none">
-          {children}
+          <QueryProvider>{children}</QueryProvider>
         </main>
         <SiteFooter />
         <RouteFocus />

@@ -12,7 +12,6 @@ import { type SignUpInput, signInSchema } from "@/lib/validations/auth";
 import { issueVerification } from "@/lib/verification";
 
 /** One message whether the e-mail is unknown or the password wrong, so accounts can't be probed. */
-export const WRONG_CREDENTIALS = "E-mail or password is wrong.";
 
 let dummyHash: string | undefined;
 

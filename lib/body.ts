@@ -6,20 +6,19 @@ import { BadRequestError, TooLargeError } from "@/lib/errors";
  * buffered whole (issue 13: 60 MB were read before the 413). A declared Content-Length over the limit
  * is refused before reading anything.
  */
-export async function readBodyText(
+export async function readBodyBytes(
   req: Request,
   maxBytes: number,
   what = "The request body",
-): Promise<string> {
+): Promise<Uint8Array> {
   const tooLarge = () =>
     new TooLargeError(`${what} is larger than ${formatBytes(maxBytes)}.`, { limitBytes: maxBytes });
   const declared = Number(req.headers.get("content-length") ?? "");
   if (Number.isFinite(declared) && declared > maxBytes) throw tooLarge();
-  if (!req.body) return "";
+  if (!req.body) return new Uint8Array(0);
   const reader = req.body.getReader();
-  const decoder = new TextDecoder("utf-8");
+  const chunks: Uint8Array[] = [];
   let received = 0;
-  let text = "";
   for (;;) {
     const { done, value } = await reader.read();
     if (done) break;
@@ -28,9 +27,33 @@ export async function readBodyText(
       await reader.cancel().catch(() => undefined);
       throw tooLarge();
     }
-    text += decoder.decode(value, { stream: true });
+    chunks.push(value);
   }
-  return text + decoder.decode();
+  const out = new Uint8Array(new ArrayBuffer(received));
+  let at = 0;
+  for (const c of chunks) {
+    out.set(c, at);
+    at += c.byteLength;
+  }
+  return out;
+}
+
+/** `readBodyBytes` decoded as UTF-8. */
+export async function readBodyText(req: Request, maxBytes: number, what?: string): Promise<string> {
+  return new TextDecoder("utf-8").decode(await readBodyBytes(req, maxBytes, what));
+}
+
+/** Form data read under the byte limit (multipart or urlencoded); unreadable → 400. */
+export async function readFormData(req: Request, maxBytes: number, what?: string): Promise<FormData> {
+  const bytes = await readBodyBytes(req, maxBytes, what);
+  const copy = new Request(req.url, {
+    method: "POST",
+    headers: req.headers,
+    body: bytes as Uint8Array<ArrayBuffer>,
+  });
+  return copy.formData().catch(() => {
+    throw new BadRequestError("The form data could not be read.");
+  });
 }
 
 /** Reads and parses a JSON body under the byte limit; malformed JSON → 400. */

@@ -6,7 +6,7 @@ import { AppError, BadRequestError, ForbiddenError, NotFoundError, withDb } from
 import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
 import { invitationMail } from "@/lib/mail/templates";
 import type { Actor } from "@/lib/session";
-import type { InvitationCreateInput } from "@/lib/validations/invitation";
+import { type InvitationCreateInput, invitationCreateSchema } from "@/lib/validations/invitation";
 import { requireVerifiedEmail } from "@/lib/verification";
 
 /** An invitation link works for seven days. */
@@ -105,6 +105,38 @@ export async function listInvitations(actor: Actor, teamId: string): Promise<Inv
     }),
   );
   return rows.map(toView);
+}
+
+/** A pending invitation of the team (owner only), or NotFoundError. */
+async function pendingInvitation(actor: Actor, teamId: string, invitationId: string): Promise<Invitation> {
+  await authorizeTeam(actor.userId, teamId, "team:manage");
+  const inv = await withDb(() =>
+    Invitation.findOne({
+      where: { id: invitationId, teamId, acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
+    }),
+  );
+  if (!inv) throw new NotFoundError("No open invitation with that id in this team.");
+  return inv;
+}
+
+/** Withdraws a pending invitation (owner only): its link stops working at once. */
+export async function revokeInvitation(actor: Actor, teamId: string, invitationId: string): Promise<void> {
+  const inv = await pendingInvitation(actor, teamId, invitationId);
+  await withDb(() => inv.update({ expiresAt: new Date() }));
+}
+
+/**
+ * Sends a pending invitation again (owner only) with a fresh link and seven more days; the earlier
+ * link stops working (the same rule as inviting the address again).
+ */
+export async function resendInvitation(
+  actor: Actor,
+  teamId: string,
+  invitationId: string,
+): Promise<InvitationView> {
+  const inv = await pendingInvitation(actor, teamId, invitationId);
+  const role = invitationCreateSchema.shape.role.parse(inv.role);
+  return createInvitation(actor, teamId, { email: inv.email, role });
 }
 
 export type InvitationPreview = {

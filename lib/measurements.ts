@@ -10,11 +10,43 @@ export const MAX_MEASUREMENT_ROWS = 20_000;
 export type CsvLineError = { line: number; message: string };
 export type ParsedMeasurement = { ok: true; data: MeasurementData } | { ok: false; errors: CsvLineError[] };
 
-const NUMBER = /^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/;
+const CELL = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)\s*([A-Za-zµ°]*)$/;
+const PREFIX: Record<string, number> = {
+  f: 1e-15,
+  p: 1e-12,
+  n: 1e-9,
+  u: 1e-6,
+  µ: 1e-6,
+  m: 1e-3,
+  k: 1e3,
+  M: 1e6,
+  G: 1e9,
+  T: 1e12,
+};
+/** The unit words each column accepts after its number (none is fine too). */
+const UNITS = [["Hz"], ["dB"], ["°", "deg"]] as const;
+
+/**
+ * A cell as a number: plain ("1591.5", "1.5e3"), with an SI prefix in the frequency column ("1k",
+ * "1.5 kHz", "2M"), with its unit ("−3.01 dB", "45°", "45 deg"). Null when it is not one of those.
+ */
+export function readCell(text: string, column: number): number | null {
+  const m = CELL.exec(text.replace(/\u2212/g, "-"));
+  if (!m) return null;
+  const value = Number(m[1]);
+  let rest = m[2] ?? "";
+  const unit = (UNITS[column] ?? []).find((u) => rest.endsWith(u));
+  if (unit) rest = rest.slice(0, -unit.length);
+  if (rest === "") return value;
+  // Only frequencies take a prefix (a magnitude in dB or a phase in degrees never does).
+  const scale = column === 0 ? PREFIX[rest] : undefined;
+  return scale === undefined ? null : value * scale;
+}
 
 /**
  * Parses bench data: one row per frequency with three columns — frequency in Hz, magnitude in dB,
- * phase in degrees — separated by commas, semicolons or tabs. An optional header line (any first
+ * phase in degrees — separated by commas, semicolons or tabs; a frequency may carry an SI prefix and
+ * each cell its unit (`1.5k`, `1.5 kHz`, `-3.01 dB`, `45°`). An optional header line (any first
  * line that isn't numeric), blank lines and `#` comments are skipped. Frequencies must be positive
  * and rise strictly. Every bad line is reported with its 1-based line number.
  */
@@ -28,7 +60,8 @@ export function parseMeasurementCsv(text: string): ParsedMeasurement {
     const trimmed = raw.trim();
     if (trimmed === "" || trimmed.startsWith("#")) return;
     const cells = trimmed.split(/[,;\t]/).map((c) => c.trim().replace(/^"(.*)"$/, "$1"));
-    const numeric = cells.every((c) => NUMBER.test(c));
+    const values = cells.map((c, k) => readCell(c, k));
+    const numeric = values.every((v) => v !== null);
     if (!sawData && !numeric) {
       sawData = true; // a header line
       return;
@@ -41,12 +74,17 @@ export function parseMeasurementCsv(text: string): ParsedMeasurement {
       });
       return;
     }
-    const bad = cells.findIndex((c) => !NUMBER.test(c));
+    const bad = values.indexOf(null);
     if (bad >= 0) {
-      errors.push({ line, message: `Column ${bad + 1} is not a number: "${cells[bad]}".` });
+      const expected = [
+        "a frequency (e.g. 1500, 1.5k or 1.5 kHz)",
+        "a magnitude in dB",
+        "a phase in degrees",
+      ][bad];
+      errors.push({ line, message: `Column ${bad + 1} is not ${expected}: "${cells[bad]}".` });
       return;
     }
-    const [f, db, deg] = cells.map(Number) as [number, number, number];
+    const [f, db, deg] = values as [number, number, number];
     if (!(f > 0)) {
       errors.push({ line, message: "The frequency must be above 0 Hz." });
       return;

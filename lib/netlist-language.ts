@@ -50,7 +50,6 @@ const LOOP_METHOD_DOCS: Record<LoopMethod, string> = {
   injection:
     "Double injection on the closed loop (a series voltage and a shunt current test at NODE): exact whatever drives NODE, including its output resistance.",
 };
-export const SI_PREFIXES = ["f", "p", "n", "u", "µ", "m", "k", "M", "G", "T"];
 export const UNITS = ["Ω", "ohm", "F", "H", "V", "A", "S", "Hz", "%", "dB", "deg", "°"];
 
 const KIND_DOCS: Record<PartKind, string> = {

@@ -72,3 +72,30 @@ export function nextReviewState(from: ReviewState, step: ReviewStep): ReviewStat
 export function stepsFrom(state: ReviewState): ReviewStep[] {
   return (Object.keys(REVIEW_TRANSITIONS) as ReviewStep[]).filter((s) => nextReviewState(state, s) !== null);
 }
+
+/**
+ * Why the review panel offers no step to this viewer, in words ("the author has not asked for
+ * sign-off yet" rather than a statement about roles).
+ */
+export function reviewWaitSentence(opts: {
+  reviewState: ReviewState;
+  isAuthor: boolean;
+  canReview: boolean;
+}): string {
+  const { reviewState, isAuthor, canReview } = opts;
+  switch (reviewState) {
+    case "draft":
+      return isAuthor
+        ? "A draft. Your role cannot ask for sign-off; a designer or owner can."
+        : "A draft: the author has not asked for sign-off yet.";
+    case "awaiting_signoff":
+      if (canReview && isAuthor) return "Another reviewer signs off or sends back your own run.";
+      return canReview ? "Waiting for sign-off." : "Waiting for a reviewer to sign off or send it back.";
+    case "sent_back":
+      return isAuthor
+        ? "Sent back. Revise it, then ask for sign-off again."
+        : "Sent back: waiting for the author's revision.";
+    case "signed_off":
+      return "Signed off. A revision is saved as a new run.";
+  }
+}

@@ -133,3 +133,16 @@ export function pairLets(
 ) {
   return `let ${names.r} = ${netlistNumber(pair.r)}\nlet ${names.c} = ${netlistNumber(pair.c)}\n`;
 }
+
+/**
+ * Names for an inserted pair that no part, node, let or block of the netlist already uses: `R`/`C`
+ * when free, else `R_snap`/`C_snap`, `R_snap2`/`C_snap2`, … (both of a pair share the suffix).
+ */
+export function freePairNames(netlist: string, base: { r: string; c: string } = { r: "R", c: "C" }) {
+  const used = new Set(netlist.match(/[A-Za-z_][A-Za-z0-9_.]*/g) ?? []);
+  for (let k = 0; ; k++) {
+    const suffix = k === 0 ? "" : k === 1 ? "_snap" : `_snap${k}`;
+    const names = { r: `${base.r}${suffix}`, c: `${base.c}${suffix}` };
+    if (!used.has(names.r) && !used.has(names.c)) return names;
+  }
+}

@@ -245,11 +245,23 @@ export interface MeasureStats {
   histogram: { edges: number[]; counts: number[] };
 }
 
+export interface MonteCarloCheck {
+  /** The measure the check reads. */
+  name: string;
+  expression: string;
+  op: CheckDef["op"];
+  value: number;
+  value2?: number;
+  yield: number;
+}
+
 export interface MonteCarloResult {
   samples: number;
   seed: number;
   yield: number;
   measures: MeasureStats[];
+  /** Each check's share of passing samples (a failed sample fails every check), with its limits. */
+  checks?: MonteCarloCheck[];
 }
 
 export interface PoleResult {
@@ -264,6 +276,17 @@ export interface SensitivityResult {
   measure: string;
   part: string;
   value: number | null;
+}
+
+/** A loop's gain where its phase crosses 0°, refined on the circuit (null with a reason when it does not cross). */
+export interface ZeroPhaseLoop {
+  loop: string;
+  frequencyHz: number | null;
+  /** |T| there. */
+  gain: number | null;
+  reason: string | null;
+  /** The checks (as written) that read a measure of this loop: the verdict names their Monte Carlo yield. */
+  checks: string[];
 }
 
 export interface SolveStats {
@@ -286,6 +309,8 @@ export interface SolveSuccess {
   variants?: VariantResult[];
   monteCarlo?: MonteCarloResult;
   poles?: PoleResult[];
+  /** Each loop's refined gain at zero phase (the oscillator verdict reads these). */
+  zeroPhase?: ZeroPhaseLoop[];
   sensitivity?: SensitivityResult[];
 }
 

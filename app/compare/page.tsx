@@ -78,13 +78,16 @@ async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; 
           <PanelHeader
             id="overlay-h"
             title="Response overlay"
-            description="B solid, A dashed, and the difference B − A."
+            description="B solid, A dashed; the difference B − A dotted on its own axes at the right."
           />
           <div className="p-2 sm:p-4">
             <CompareOverlayPlot
               traces={comparison.traces}
               labelA={labelA}
               labelB={labelB}
+              markers={comparison.measures
+                .filter((m) => m.unit === "Hz" && m.b !== null && m.b > 0)
+                .map((m) => ({ frequencyHz: m.b as number, label: `${m.name} (B)` }))}
               exportName="compare"
             />
           </div>

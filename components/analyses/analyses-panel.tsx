@@ -1,9 +1,10 @@
 "use client";
 
 import type { SolveSuccess } from "@/solver/types";
-import { analysisSections, oscillatorVerdict } from "./analysis-math";
+import { analysisSections } from "./analysis-math";
 import { JobProgress } from "./job-progress";
 import { MonteCarloView } from "./monte-carlo-view";
+import { oscillatorVerdict } from "./oscillator-grade";
 import { OscillatorVerdictCard } from "./oscillator-verdict";
 import { PoleMap } from "./pole-map";
 import { SensitivityChart } from "./sensitivity-chart";

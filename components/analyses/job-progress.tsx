@@ -1,7 +1,8 @@
 "use client";
 
+import { useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useCallback, useEffect, useRef, useState } from "react";
+import { useEffect, useRef } from "react";
 import { Button } from "@/components/ui/button";
 
 interface JobState {
@@ -18,6 +19,24 @@ const POLL_MS = 1000;
  * Progress of a queued or running solve: polls GET /api/runs/:id/job every second, offers Cancel
  * (DELETE), and refreshes the page when the job ends so the result appears.
  */
+async function readJob(runId: string, signal: AbortSignal): Promise<JobState> {
+  const res = await fetch(`/api/runs/${runId}/job`, { cache: "no-store", signal });
+  if (!res.ok) throw new Error(`the progress could not be read (HTTP ${res.status})`);
+  return (await res.json()) as JobState;
+}
+
+async function cancelJob(runId: string): Promise<JobState> {
+  const res = await fetch(`/api/runs/${runId}/job`, { method: "DELETE" });
+  const body = (await res.json().catch(() => null)) as (JobState & { error?: { message?: string } }) | null;
+  if (!res.ok || !body) throw new Error(body?.error?.message ?? `cancel failed (HTTP ${res.status})`);
+  return { ...body, error: null };
+}
+
+/**
+ * Progress of a queued or running solve through the query cache: polls GET /api/runs/:id/job every
+ * second while the job is active (`refetchInterval` stops at a final state), offers Cancel (a mutation
+ * that writes its answer into the cache), and refreshes the page when the job ends so the result appears.
+ */
 export function JobProgress({
   runId,
   initialState,
@@ -30,65 +49,32 @@ export function JobProgress({
   onFinished?: (state: string) => void;
 }) {
   const router = useRouter();
-  const [job, setJob] = useState<JobState>({ state: initialState, progress: 0 });
-  const [problem, setProblem] = useState<string | null>(null);
-  const [cancelling, setCancelling] = useState(false);
-  const finished = useRef(false);
-
-  const apply = useCallback(
-    (next: JobState) => {
-      setJob(next);
-      if (!ACTIVE.has(next.state) && !finished.current) {
-        finished.current = true;
-        onFinished?.(next.state);
-        router.refresh();
-      }
-    },
-    [onFinished, router],
-  );
-
+  const client = useQueryClient();
+  const key = ["run-job", runId] as const;
+  const query = useQuery({
+    queryKey: key,
+    queryFn: ({ signal }) => readJob(runId, signal),
+    initialData: { state: initialState, progress: 0 },
+    initialDataUpdatedAt: 0,
+    enabled: ACTIVE.has(initialState),
+    refetchInterval: (q) =>
+      q.state.data && !ACTIVE.has(q.state.data.state) ? false : q.state.error ? POLL_MS * 3 : POLL_MS,
+    retry: false,
+  });
+  const cancel = useMutation({
+    mutationFn: () => cancelJob(runId),
+    onSuccess: (next) => client.setQueryData(key, next),
+  });
+  const job = query.data;
+  const finished = useRef(!ACTIVE.has(initialState));
   useEffect(() => {
-    if (!ACTIVE.has(initialState)) return;
-    let stop = false;
-    let timer: ReturnType<typeof setTimeout> | undefined;
-    const poll = async () => {
-      try {
-        const res = await fetch(`/api/runs/${runId}/job`, { cache: "no-store" });
-        if (!res.ok) throw new Error(`the progress could not be read (HTTP ${res.status})`);
-        const body = (await res.json()) as JobState;
-        if (stop) return;
-        setProblem(null);
-        apply(body);
-        if (ACTIVE.has(body.state)) timer = setTimeout(poll, POLL_MS);
-      } catch (error) {
-        if (stop) return;
-        setProblem(error instanceof Error ? error.message : String(error));
-        timer = setTimeout(poll, POLL_MS * 3);
-      }
-    };
-    void poll();
-    return () => {
-      stop = true;
-      if (timer) clearTimeout(timer);
-    };
-  }, [runId, initialState, apply]);
-
-  const cancel = async () => {
-    setCancelling(true);
-    try {
-      const res = await fetch(`/api/runs/${runId}/job`, { method: "DELETE" });
-      const body = (await res.json()) as unknown;
-      if (!res.ok) {
-        const err = (body as { error?: { message?: string } } | null)?.error;
-        throw new Error(err?.message ?? `cancel failed (HTTP ${res.status})`);
-      }
-      apply({ ...(body as JobState), error: null });
-    } catch (error) {
-      setProblem(error instanceof Error ? error.message : String(error));
-    } finally {
-      setCancelling(false);
-    }
-  };
+    if (ACTIVE.has(job.state) || finished.current) return;
+    finished.current = true;
+    onFinished?.(job.state);
+    router.refresh();
+  }, [job.state, onFinished, router]);
+  const problem = cancel.error?.message ?? (query.isError ? query.error.message : null);
+  const cancelling = cancel.isPending;
 
   const pct = Math.round(Math.max(0, Math.min(1, job.progress)) * 100);
   const active = ACTIVE.has(job.state);
@@ -114,7 +100,7 @@ export function JobProgress({
           <Button
             variant="danger"
             size="sm"
-            onClick={() => void cancel()}
+            onClick={() => cancel.mutate()}
             disabled={cancelling || job.cancelRequested}
           >
             {cancelling ? "Cancelling…" : "Cancel"}

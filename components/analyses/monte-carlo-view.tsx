@@ -2,9 +2,9 @@
 
 import type { Layout } from "plotly.js";
 import { plotColors, traceColor } from "@/components/plot/palette";
-import { formatQuantity } from "@/components/run/format";
-import type { MeasureResult, MeasureStats, MonteCarloResult } from "@/solver/types";
-import { histogramBars } from "./analysis-math";
+import { formatQuantity } from "@/solver/format";
+import type { MeasureResult, MeasureStats, MonteCarloCheck, MonteCarloResult } from "@/solver/types";
+import { histogramBars, histogramMarks } from "./analysis-math";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
 import { SectionTitle } from "./section";
 
@@ -42,6 +42,19 @@ export function MonteCarloView({ mc, measures }: { mc: MonteCarloResult; measure
           <span className="tabular-nums">{mc.samples}</span> samples pass every check
           {mc.samples - passed > 0 ? `; ${mc.samples - passed} fail at least one` : ""}.
         </p>
+        {(mc.checks ?? []).length > 0 ? (
+          <ul className="text-ink-700 basis-full pb-1 text-sm" aria-label="Yield of each check">
+            {(mc.checks ?? []).map((c) => (
+              <li key={c.expression}>
+                <code className="text-ink-900">{c.expression}</code>:{" "}
+                <span className={`tabular-nums ${c.yield < 1 ? "text-signal-warn font-semibold" : ""}`}>
+                  {(c.yield * 100).toFixed(1)} %
+                </span>{" "}
+                of samples pass
+              </li>
+            ))}
+          </ul>
+        ) : null}
       </div>
       <div>
         <div className="overflow-x-auto">
@@ -89,7 +102,14 @@ export function MonteCarloView({ mc, measures }: { mc: MonteCarloResult; measure
         {mc.measures
           .filter((s) => s.histogram.counts.length > 0)
           .map((s, i) => (
-            <Histogram key={s.name} stats={s} unit={unitOf(s.name)} nominal={nominalOf(s.name)} index={i} />
+            <Histogram
+              key={s.name}
+              stats={s}
+              unit={unitOf(s.name)}
+              nominal={nominalOf(s.name)}
+              limits={(mc.checks ?? []).filter((c) => c.name === s.name)}
+              index={i}
+            />
           ))}
       </div>
     </section>
@@ -100,13 +120,16 @@ function Histogram({
   stats,
   unit,
   nominal,
+  limits,
   index,
 }: {
   stats: MeasureStats;
   unit: string;
   nominal: number | null;
+  limits: MonteCarloCheck[];
   index: number;
 }) {
+  const marks = histogramMarks(nominal, limits);
   const bars = histogramBars(stats.histogram.edges, stats.histogram.counts);
   const axisUnit = unit === "deg" ? "°" : unit;
   const layout: Partial<Layout> = {
@@ -129,34 +152,28 @@ function Histogram({
     },
     bargap: 0.04,
     showlegend: false,
-    shapes:
-      nominal !== null
-        ? [
-            {
-              type: "line",
-              x0: nominal,
-              x1: nominal,
-              yref: "paper",
-              y0: 0,
-              y1: 1,
-              line: { color: plotColors.pin, width: 1.5, dash: "dash" },
-            },
-          ]
-        : [],
-    annotations:
-      nominal !== null
-        ? [
-            {
-              x: nominal,
-              yref: "paper",
-              y: 1,
-              text: "nominal",
-              showarrow: false,
-              yanchor: "bottom",
-              font: { size: 10, color: plotColors.pin },
-            },
-          ]
-        : [],
+    shapes: marks.map((m) => ({
+      type: "line" as const,
+      x0: m.x,
+      x1: m.x,
+      yref: "paper" as const,
+      y0: 0,
+      y1: 1,
+      line: {
+        color: m.limit ? plotColors.limit : plotColors.pin,
+        width: 1.5,
+        dash: m.limit ? "solid" : "dash",
+      },
+    })),
+    annotations: marks.map((m) => ({
+      x: m.x,
+      yref: "paper" as const,
+      y: 1,
+      text: m.label,
+      showarrow: false,
+      yanchor: "bottom" as const,
+      font: { size: 10, color: m.limit ? plotColors.limit : plotColors.pin },
+    })),
   };
   return (
     <figure

@@ -1,9 +1,9 @@
 import { TickedText } from "@/components/ui/ticked-text";
-import type { OscillatorVerdict as Verdict } from "./analysis-math";
+import type { OscillatorVerdict as Verdict } from "./oscillator-grade";
 
 const TONES: Record<Verdict["kind"], { box: string; badge: string; label: string }> = {
-  grows: { box: "border-signal-ok/40 bg-signal-ok-soft", badge: "bg-signal-ok text-white", label: "Starts" },
-  sustained: {
+  starts: { box: "border-signal-ok/40 bg-signal-ok-soft", badge: "bg-signal-ok text-white", label: "Starts" },
+  marginal: {
     box: "border-signal-warn/40 bg-signal-warn-soft",
     badge: "bg-signal-warn text-white",
     label: "Marginal",
@@ -11,7 +11,7 @@ const TONES: Record<Verdict["kind"], { box: string; badge: string; label: string
   decays: {
     box: "border-signal-fault/40 bg-signal-fault-soft",
     badge: "bg-signal-fault text-white",
-    label: "Dies out",
+    label: "Won't start",
   },
   unknown: { box: "border-paper-300 bg-paper-50", badge: "bg-ink-500 text-white", label: "Unclear" },
 };

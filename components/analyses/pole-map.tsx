@@ -2,7 +2,7 @@
 
 import type { Layout } from "plotly.js";
 import { plotColors } from "@/components/plot/palette";
-import { formatQuantity } from "@/components/run/format";
+import { formatQuantity } from "@/solver/format";
 import type { PoleResult } from "@/solver/types";
 import { sortedPoles } from "./analysis-math";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";

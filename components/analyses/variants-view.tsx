@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { BodePlot } from "@/components/plot/bode-plot";
-import { formatQuantity } from "@/components/run/format";
+import { formatQuantity } from "@/solver/format";
 import type { MeasureResult, VariantResult } from "@/solver/types";
 import { SectionTitle } from "./section";
 

@@ -4,12 +4,13 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import type { CommentView } from "@/lib/comments";
+import { usePostComment } from "./comments-query";
 import { PinIcon } from "./pin-icon";
 import { PinPicker } from "./pin-picker";
 
 export type PinDraft = { frequencyHz: number; trace: string | null };
 
-/** Writes a comment or a reply; a pin (picked on the plot) rides along and can be removed. */
+/** Writes a comment or a reply (a query-cache mutation); a pin picked on the plot rides along. */
 export function CommentForm({
   runId,
   parentId,
@@ -28,43 +29,32 @@ export function CommentForm({
   /** Offers the typed pin (keyboard alternative to clicking the plot) when given. */
   onPin?: (pin: PinDraft) => void;
   traces?: string[];
-  onPosted: (c: CommentView) => void;
+  /** Called after the comment is saved (the cache already holds it). */
+  onPosted?: (c: CommentView) => void;
   label?: string;
   compact?: boolean;
 }) {
   const id = useId();
   const [body, setBody] = useState("");
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const post = usePostComment(runId);
+  const busy = post.isPending;
+  const error = post.error?.message ?? null;
 
-  async function submit() {
-    setBusy(true);
-    setError(null);
-    try {
-      const res = await fetch(`/api/runs/${runId}/comments`, {
-        method: "POST",
-        headers: { "Content-Type": "application/json" },
-        body: JSON.stringify({
-          body,
-          ...(parentId ? { parentId } : {}),
-          ...(pin ? { frequencyHz: pin.frequencyHz, trace: pin.trace } : {}),
-        }),
-      });
-      const data = await res.json().catch(() => null);
-      if (!res.ok) {
-        const fields = data?.error?.details?.fields as Record<string, string[]> | undefined;
-        const first = fields ? Object.values(fields)[0]?.[0] : undefined;
-        setError(first ?? data?.error?.message ?? `Not saved (${res.status}).`);
-        return;
-      }
-      setBody("");
-      onClearPin?.();
-      onPosted(data.comment as CommentView);
-    } catch {
-      setError("The comment did not reach the server; your text is still here. Try again.");
-    } finally {
-      setBusy(false);
-    }
+  function submit() {
+    post.mutate(
+      {
+        body,
+        ...(parentId ? { parentId } : {}),
+        ...(pin ? { frequencyHz: pin.frequencyHz, trace: pin.trace } : {}),
+      },
+      {
+        onSuccess: (c) => {
+          setBody("");
+          onClearPin?.();
+          onPosted?.(c);
+        },
+      },
+    );
   }
 
   return (
@@ -72,7 +62,7 @@ export function CommentForm({
       className="space-y-2"
       onSubmit={(e) => {
         e.preventDefault();
-        void submit();
+        submit();
       }}
     >
       <label htmlFor={id} className={compact ? "sr-only" : "text-ink-700 block text-sm font-medium"}>

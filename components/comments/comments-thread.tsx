@@ -7,12 +7,12 @@ import type { CommentView } from "@/lib/comments";
 import { THREAD_STATE_LABELS, type ThreadState } from "@/lib/review-states";
 import { cn, formatDate } from "@/lib/utils";
 import { CommentForm, formatPin, type PinDraft } from "./comment-form";
+import { useThreadState } from "./comments-query";
 import { PinIcon } from "./pin-icon";
 
 export type CommentsThreadProps = {
   runId: string;
   comments: CommentView[];
-  onChange: (next: CommentView[]) => void;
   canComment: boolean;
   pin: PinDraft | null;
   onClearPin: () => void;
@@ -25,13 +25,9 @@ export type CommentsThreadProps = {
 
 /** Comment threads (a first comment and its replies), with pins, replies, settle and open again. */
 export function CommentsThread(props: CommentsThreadProps) {
-  const { runId, comments, onChange, canComment, pin, onClearPin, onPin, traces, onFocusPin } = props;
+  const { runId, comments, canComment, pin, onClearPin, onPin, traces, onFocusPin } = props;
   const roots = comments.filter((c) => !c.parentId);
   const replies = (id: string) => comments.filter((c) => c.parentId === id);
-  const upsert = (c: CommentView) => {
-    const i = comments.findIndex((x) => x.id === c.id);
-    onChange(i >= 0 ? comments.map((x) => (x.id === c.id ? c : x)) : [...comments, c]);
-  };
   return (
     <div className="space-y-5">
       {roots.length === 0 ? (
@@ -47,7 +43,6 @@ export function CommentsThread(props: CommentsThreadProps) {
                 replies={replies(c.id)}
                 runId={runId}
                 canComment={canComment}
-                onUpsert={upsert}
                 onFocusPin={onFocusPin}
               />
             </li>
@@ -56,14 +51,7 @@ export function CommentsThread(props: CommentsThreadProps) {
       )}
       {canComment ? (
         <div className="border-paper-200 border-t pt-4">
-          <CommentForm
-            runId={runId}
-            pin={pin}
-            onClearPin={onClearPin}
-            onPin={onPin}
-            traces={traces}
-            onPosted={upsert}
-          />
+          <CommentForm runId={runId} pin={pin} onClearPin={onClearPin} onPin={onPin} traces={traces} />
         </div>
       ) : null}
     </div>
@@ -75,28 +63,15 @@ function Thread(props: {
   replies: CommentView[];
   runId: string;
   canComment: boolean;
-  onUpsert: (c: CommentView) => void;
   onFocusPin: (hz: number) => void;
 }) {
-  const { root, replies, runId, canComment, onUpsert, onFocusPin } = props;
+  const { root, replies, runId, canComment, onFocusPin } = props;
   const [replying, setReplying] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const change = useThreadState(runId, root.id);
+  const error = change.error?.message ?? null;
   const settled = root.state === "settled";
 
-  async function setState(state: ThreadState) {
-    setError(null);
-    const res = await fetch(`/api/runs/${runId}/comments/${root.id}`, {
-      method: "PATCH",
-      headers: { "Content-Type": "application/json" },
-      body: JSON.stringify({ state }),
-    }).catch(() => null);
-    const data = res ? await res.json().catch(() => null) : null;
-    if (!res?.ok) {
-      setError(data?.error?.message ?? "Could not change the thread. Try again.");
-      return;
-    }
-    onUpsert(data.comment as CommentView);
-  }
+  const setState = (state: ThreadState) => change.mutate(state);
 
   return (
     <article
@@ -160,10 +135,7 @@ function Thread(props: {
             parentId={root.id}
             compact
             label={`Reply to ${root.authorName}`}
-            onPosted={(c) => {
-              onUpsert(c);
-              setReplying(false);
-            }}
+            onPosted={() => setReplying(false)}
           />
         </div>
       ) : null}

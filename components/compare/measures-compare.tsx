@@ -1,6 +1,6 @@
-import { formatDelta, formatPercent, formatQuantity } from "@/components/run/format";
 import type { MeasureComparison } from "@/lib/compare";
 import { cn } from "@/lib/utils";
+import { formatDelta, formatPercent, formatQuantity } from "@/solver/format";
 
 export interface MeasuresCompareProps {
   measures: MeasureComparison[];

@@ -6,16 +6,14 @@ import { plotColors } from "@/components/plot/palette";
 import type { BodeMarker, BodeOverlay, BodeSeries } from "@/components/plot/types";
 import type { TraceComparison } from "@/lib/compare";
 
-/** Legend entries stay short: long run titles are cut. */
-function short(label: string, max = 24): string {
-  return label.length > max ? `${label.slice(0, max - 1).trimEnd()}…` : label;
-}
-
 export interface CompareOverlayPlotProps {
   /** From `compareRuns(...).traces`: both runs' traces on the second run's grid, with b − a. */
   traces: TraceComparison[];
   labelA?: string;
   labelB?: string;
+  /** Short names of the sides in the legend (default A and B). */
+  letterA?: string;
+  letterB?: string;
   /** Frequency markers (e.g. the second run's zero-phase), optional. */
   markers?: BodeMarker[];
   /** Bench measurements to draw as points. */
@@ -24,11 +22,17 @@ export interface CompareOverlayPlotProps {
   exportName?: string;
 }
 
-/** The second run's traces solid, the first run's dashed, and b − a dotted (dB and degrees). */
+/**
+ * The second run's traces solid, the first run's dashed, and b − a dotted on its own Δ axes (dB and
+ * degrees, right-hand side), so a small difference is not flattened by the response's scale. Legend
+ * entries name the side by its letter ("H · A"); the titles are in the plot's stamp and on the page.
+ */
 export function CompareOverlayPlot({
   traces,
   labelA = "before",
   labelB = "after",
+  letterA = "A",
+  letterB = "B",
   markers,
   measurements,
   plotId = "compare-overlay",
@@ -38,12 +42,12 @@ export function CompareOverlayPlot({
   const stamp = useMemo(() => ({ title: `${labelB} against ${labelA}` }), [labelA, labelB]);
   const frequencies = traces[0]?.frequencies ?? [];
   const main = useMemo(
-    () => traces.map((t) => ({ name: `${t.name} (${short(labelB)})`, magnitudeDb: t.bDb, phaseDeg: t.bDeg })),
-    [traces, labelB],
+    () => traces.map((t) => ({ name: `${t.name} · ${letterB}`, magnitudeDb: t.bDb, phaseDeg: t.bDeg })),
+    [traces, letterB],
   );
   const overlays = useMemo<BodeOverlay[]>(() => {
     const out: BodeOverlay[] = traces.map((t) => ({
-      name: `${t.name} (${short(labelA)})`,
+      name: `${t.name} · ${letterA}`,
       frequencies: t.frequencies,
       magnitudeDb: t.aDb,
       phaseDeg: t.aDeg,
@@ -53,7 +57,7 @@ export function CompareOverlayPlot({
     if (showDiff) {
       traces.forEach((t, i) => {
         out.push({
-          name: `${t.name} difference`,
+          name: `${t.name} Δ (${letterB} − ${letterA})`,
           color: plotColors.differences[i % plotColors.differences.length],
           frequencies: t.frequencies,
           magnitudeDb: t.diffDb,
@@ -63,7 +67,7 @@ export function CompareOverlayPlot({
       });
     }
     return out;
-  }, [traces, labelA, showDiff]);
+  }, [traces, letterA, letterB, showDiff]);
 
   if (traces.length === 0) {
     return (
@@ -74,7 +78,7 @@ export function CompareOverlayPlot({
     <div>
       <label className="text-ink-700 mb-1 flex items-center gap-2 text-sm">
         <input type="checkbox" checked={showDiff} onChange={(e) => setShowDiff(e.target.checked)} />
-        Show the difference ({labelB} − {labelA}, dB and degrees)
+        Show the difference {letterB} − {letterA} (dB and degrees, on its own axes at the right)
       </label>
       <BodePlot
         frequencies={frequencies}

@@ -1,6 +1,6 @@
-import { formatQuantity } from "@/components/run/format";
 import type { PartChange, PartSummary } from "@/lib/compare";
 import { cn } from "@/lib/utils";
+import { formatQuantity } from "@/solver/format";
 import type { NetlistError, PartKind } from "@/solver/types";
 
 export interface PartsChangesProps {

@@ -1,14 +1,12 @@
 "use client";
 
-import Editor, { loader, type Monaco } from "@monaco-editor/react";
+import Editor, { type Monaco } from "@monaco-editor/react";
 import type * as MonacoNs from "monaco-editor";
 import { forwardRef, useEffect, useImperativeHandle, useRef, useState } from "react";
 import { LANGUAGE_ID } from "@/lib/netlist-language";
 import type { NetlistError, Warning } from "@/solver/types";
+import { loadMonaco } from "./load-monaco";
 import { registerNetlistLanguage, setNetlistMarkers, THEME_ID } from "./monaco-setup";
-
-// The editor is served by the app itself (scripts/copy-monaco.mjs copies it to public/monaco/vs): no CDN.
-loader.config({ paths: { vs: "/monaco/vs" } });
 
 export interface CodeEditorHandle {
   /** Replaces the whole text as one undoable edit (upload, example, restored draft). */
@@ -38,6 +36,22 @@ export const CodeEditor = forwardRef<CodeEditorHandle, CodeEditorProps>(function
   const monacoRef = useRef<Monaco | null>(null);
   const editorRef = useRef<MonacoNs.editor.IStandaloneCodeEditor | null>(null);
   const [mounted, setMounted] = useState(false);
+  // The editor's own script (public/monaco, no CDN) loads once; until then a placeholder, on failure why.
+  const [engine, setEngine] = useState<"loading" | "ready" | string>("loading");
+  useEffect(() => {
+    let live = true;
+    loadMonaco().then(
+      () => live && setEngine("ready"),
+      (err: unknown) =>
+        live &&
+        setEngine(
+          `The editor could not load (${err instanceof Error ? err.message : "unknown"}). Reload the page to try again; your draft is kept.`,
+        ),
+    );
+    return () => {
+      live = false;
+    };
+  }, []);
   const valueRef = useRef(value);
   valueRef.current = value;
 
@@ -84,6 +98,13 @@ export const CodeEditor = forwardRef<CodeEditorHandle, CodeEditorProps>(function
     if (mounted && monaco && model) setNetlistMarkers(monaco, model, errors, warnings);
   }, [errors, warnings, mounted]);
 
+  if (engine !== "ready") {
+    return (
+      <div role={engine === "loading" ? "status" : "alert"} className="text-ink-500 p-4 text-sm">
+        {engine === "loading" ? "Loading editor…" : engine}
+      </div>
+    );
+  }
   return (
     <Editor
       defaultValue={value}

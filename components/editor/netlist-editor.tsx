@@ -5,10 +5,12 @@ import { BodePlot } from "@/components/plot/bode-plot";
 import type { BodeMarker, BodeOverlay } from "@/components/plot/types";
 import { variantOverlays } from "@/components/plot/variants";
 import { MAX_NETLIST_BYTES } from "@/lib/limits";
-import type { NetlistError, SolveSuccess } from "@/solver/types";
+import { freePairNames } from "@/lib/snap-pairs";
+import type { NetlistError } from "@/solver/types";
 import { CodeEditor, type CodeEditorHandle } from "./code-editor";
 import { ExamplePicker, type NetlistExample } from "./example-picker";
 import { PreviewPanel } from "./preview-panel";
+import { previewView } from "./preview-view";
 import { SaveRunForm } from "./save-run-form";
 import { SnapHelper } from "./snap-helper";
 import { useLiveSolve } from "./use-live-solve";
@@ -19,13 +21,24 @@ export interface NetlistEditorProps {
   examples: NetlistExample[];
   /** Text to start with when there is no draft (default: the first example). */
   initialNetlist?: string;
+  /** Revising a saved run: its netlist is the starting text and the saved run supersedes it. */
+  revise?: { id: string; title: string; netlist: string };
 }
 
-const draftKey = (projectId: string) => `phasewright:draft:${projectId}`;
+/** The unsaved draft of a project — or of one revision, so revising never picks up another draft. */
+const draftKey = (projectId: string, reviseId?: string) =>
+  reviseId ? `phasewright:draft:${projectId}:revise:${reviseId}` : `phasewright:draft:${projectId}`;
 
 /** The editor page's interactive part: netlist text, live preview, upload, examples and "Save run". */
-export function NetlistEditor({ projectId, projectName, examples, initialNetlist }: NetlistEditorProps) {
-  const [netlist, setNetlist] = useState(initialNetlist ?? examples[0]?.text ?? "");
+export function NetlistEditor({
+  projectId,
+  projectName,
+  examples,
+  initialNetlist,
+  revise,
+}: NetlistEditorProps) {
+  const [netlist, setNetlist] = useState(revise?.netlist ?? initialNetlist ?? examples[0]?.text ?? "");
+  const key = draftKey(projectId, revise?.id);
   const [saveErrors, setSaveErrors] = useState<NetlistError[]>([]);
   const [notice, setNotice] = useState<string | null>(null);
   const [dragging, setDragging] = useState(false);
@@ -43,18 +56,18 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
 
   // Keep an unsaved draft per project in this browser, so a reload loses nothing.
   useEffect(() => {
-    const draft = window.localStorage.getItem(draftKey(projectId));
+    const draft = window.localStorage.getItem(key);
     if (draft) replaceNetlist(draft);
-  }, [projectId, replaceNetlist]);
+  }, [key, replaceNetlist]);
   useEffect(() => {
-    const t = setTimeout(() => window.localStorage.setItem(draftKey(projectId), netlist), 500);
+    const t = setTimeout(() => window.localStorage.setItem(key, netlist), 500);
     return () => clearTimeout(t);
-  }, [netlist, projectId]);
+  }, [netlist, key]);
 
-  const current = live.status === "done" ? live.result : live.status === "idle" ? null : live.last;
-  const errors = saveErrors.length > 0 ? saveErrors : current && !current.ok ? current.errors : [];
-  const warnings = current?.warnings ?? [];
-  const lastGood = useLastGood(current?.ok ? current : null);
+  const view = previewView({ ...live, saveErrors });
+  const errors = view.kind === "errors" ? view.errors : [];
+  const lastGood = view.kind === "result" ? view.result : null;
+  const warnings = lastGood?.warnings ?? [];
 
   const markers = useMemo<BodeMarker[]>(
     () =>
@@ -171,6 +184,7 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
           netlist={netlist}
           onNetlistErrors={setSaveErrors}
           disabled={netlist.trim() === ""}
+          supersedes={revise ? { id: revise.id, title: revise.title } : undefined}
         />
         <details className="rounded-panel border-paper-200 group border bg-white">
           <summary className="text-ink-800 hover:bg-paper-50 rounded-panel cursor-pointer px-4 py-3 text-sm font-medium">
@@ -178,6 +192,7 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
           </summary>
           <div className="border-paper-200 border-t p-4">
             <SnapHelper
+              names={freePairNames(netlist)}
               onInsert={(text) => {
                 editorRef.current?.insertLines(text);
                 setNotice("Inserted the pair above the cursor. Undo (Ctrl+Z) takes it out again.");
@@ -203,9 +218,7 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
           ) : null}
         </div>
         <PreviewPanel
-          state={live}
-          errors={errors}
-          lastGood={lastGood}
+          view={view}
           onGoToLine={(line, column) => editorRef.current?.revealLine(line, column)}
           onSelectFrequency={(hz) => {
             setFocusHz(hz);
@@ -231,13 +244,4 @@ export function NetlistEditor({ projectId, projectName, examples, initialNetlist
       </section>
     </div>
   );
-}
-
-/** The last successful result, kept on screen (faded) while the netlist has errors. */
-function useLastGood(result: SolveSuccess | null): SolveSuccess | null {
-  const [last, setLast] = useState<SolveSuccess | null>(result);
-  useEffect(() => {
-    if (result) setLast(result);
-  }, [result]);
-  return result ?? last;
 }

@@ -8,29 +8,24 @@ import { MeasuresTable } from "@/components/run/measures-table";
 import { WarningsList } from "@/components/run/warnings-list";
 import { TickedText } from "@/components/ui/ticked-text";
 import { cn } from "@/lib/utils";
-import type { NetlistError, SolveResult, SolveSuccess } from "@/solver/types";
-import type { LiveSolveState } from "./use-live-solve";
+import { type PreviewView, previewStatus } from "./preview-view";
 
 export interface PreviewPanelProps {
-  state: LiveSolveState;
-  errors: NetlistError[];
-  lastGood: SolveSuccess | null;
+  view: PreviewView;
   plot: ReactNode;
   onGoToLine: (line: number, column?: number) => void;
   onSelectFrequency: (hz: number) => void;
 }
 
-/** Status line, plot, errors, measures, checks, warnings and the caution of the live preview. */
-export function PreviewPanel({
-  state,
-  errors,
-  lastGood,
-  plot,
-  onGoToLine,
-  onSelectFrequency,
-}: PreviewPanelProps) {
-  const current = state.status === "done" ? state.result : null;
-  const stale = errors.length > 0 || state.status === "error";
+/**
+ * Status line, plot, errors, measures, checks, warnings and the caution of the live preview. What it
+ * may show comes from `previewView`: nothing of another text, except the last good result marked stale
+ * while an edit is on its way.
+ */
+export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency }: PreviewPanelProps) {
+  const result = view.kind === "result" ? view.result : null;
+  const stale = view.kind === "result" && view.stale;
+  const errors = view.kind === "errors" ? view.errors : [];
   return (
     <>
       <div
@@ -39,20 +34,20 @@ export function PreviewPanel({
         data-testid="preview-status"
         className={cn(
           "flex min-h-9 items-center gap-2 rounded-md border px-3 py-1.5 text-sm",
-          errors.length > 0
+          view.kind === "errors"
             ? "border-signal-fault/30 bg-signal-fault-soft text-signal-fault"
-            : state.status === "error"
+            : view.kind === "failed"
               ? "border-signal-warn/30 bg-signal-warn-soft text-signal-warn"
               : "border-paper-200 text-ink-600 bg-white",
         )}
       >
-        {state.status === "loading" ? (
+        {view.kind === "solving" || stale || (view.kind === "errors" && view.checking) ? (
           <span
             className="border-board-300 inline-block size-3 animate-spin rounded-full border-2 border-t-transparent"
             aria-hidden
           />
         ) : null}
-        <span>{statusText(state, errors, current)}</span>
+        <span>{previewStatus(view)}</span>
       </div>
 
       {errors.length > 0 ? (
@@ -82,52 +77,53 @@ export function PreviewPanel({
       ) : null}
 
       <div
+        data-testid="preview-plot"
+        data-stale={stale || undefined}
         className={cn(
           "rounded-panel border-paper-200 shadow-panel min-h-72 border bg-white p-2",
           stale && "opacity-60",
         )}
       >
-        {plot ?? (
-          <div className="text-ink-400 flex h-72 items-center justify-center px-6 text-center text-sm">
-            {state.status === "loading" ? "Solving…" : "The plot appears here once the netlist solves."}
+        {result ? (
+          plot
+        ) : (
+          <div className="text-ink-500 flex h-72 items-center justify-center px-6 text-center text-sm">
+            {emptyPlotText(view)}
           </div>
         )}
-        {plot && stale ? (
-          <p className="text-caption text-ink-500 px-2 pb-1">Showing the last preview that solved.</p>
+        {stale ? (
+          <p className="text-caption text-ink-600 px-2 pb-1">Stale: solved before your last edit.</p>
         ) : null}
       </div>
 
-      {lastGood ? (
-        <div className="grid gap-4 sm:grid-cols-2">
+      {result ? (
+        <div className={cn("grid gap-4 sm:grid-cols-2", stale && "opacity-60")}>
           <div>
             <h3 className="text-ink-800 mb-1 text-sm font-semibold">Measures</h3>
-            <MeasuresTable measures={lastGood.measures} onSelectFrequency={onSelectFrequency} />
+            <MeasuresTable measures={result.measures} onSelectFrequency={onSelectFrequency} />
           </div>
           <div>
             <h3 className="text-ink-800 mb-1 text-sm font-semibold">Checks</h3>
-            <CheckBadges checks={lastGood.checks} />
+            <CheckBadges checks={result.checks} />
           </div>
         </div>
       ) : null}
-      {lastGood ? <AnalysesPanel result={lastGood} /> : null}
-      <WarningsList
-        warnings={(current ?? lastGood)?.warnings ?? []}
-        onLineClick={(line) => onGoToLine(line)}
-      />
+      {result && !stale ? <AnalysesPanel result={result} /> : null}
+      <WarningsList warnings={result?.warnings ?? []} onLineClick={(line) => onGoToLine(line)} />
       <Caution />
     </>
   );
 }
 
-function statusText(state: LiveSolveState, errors: NetlistError[], current: SolveResult | null): string {
-  if (errors.length > 0)
-    return `The netlist has ${errors.length} ${errors.length === 1 ? "error" : "errors"}.`;
-  if (state.status === "error") return state.message;
-  if (state.status === "loading") return "Solving…";
-  if (state.status === "idle") return "Type a netlist to see its response.";
-  if (current?.ok) {
-    const s = current.stats;
-    return `Solved ${s.points.toLocaleString("en")} points, ${s.nodes} nodes, in ${s.solveMs.toFixed(1)} ms.`;
+function emptyPlotText(view: PreviewView): string {
+  switch (view.kind) {
+    case "solving":
+      return "Solving…";
+    case "errors":
+      return "No plot while the netlist has errors: fix the ones listed above.";
+    case "failed":
+      return "No plot: the preview could not be solved. Your netlist is unchanged.";
+    default:
+      return "The plot appears here once the netlist solves.";
   }
-  return "";
 }

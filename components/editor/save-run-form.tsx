@@ -12,6 +12,8 @@ export interface SaveRunFormProps {
   /** Called with the netlist errors of a 422 answer (shown as markers), or [] when saving again. */
   onNetlistErrors: (errors: NetlistError[]) => void;
   disabled?: boolean;
+  /** The run this one revises: saved with `supersedesId`, and the title field suggests a revision title. */
+  supersedes?: { id: string; title: string };
 }
 
 type SaveState =
@@ -20,10 +22,10 @@ type SaveState =
   | { status: "error"; message: string; field?: string };
 
 /** Title field and "Save run": POST /api/projects/:id/runs, then open the new run. The netlist is never cleared. */
-export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled }: SaveRunFormProps) {
+export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled, supersedes }: SaveRunFormProps) {
   const router = useRouter();
   const hydrated = useHydrated();
-  const [title, setTitle] = useState("");
+  const [title, setTitle] = useState(supersedes ? `${supersedes.title} (revised)`.slice(0, 200) : "");
   const [state, setState] = useState<SaveState>({ status: "idle" });
 
   async function save(e: React.FormEvent) {
@@ -38,7 +40,11 @@ export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled }: S
       const res = await fetch(`/api/projects/${encodeURIComponent(projectId)}/runs`, {
         method: "POST",
         headers: { "content-type": "application/json" },
-        body: JSON.stringify({ title: title.trim(), netlist }),
+        body: JSON.stringify({
+          title: title.trim(),
+          netlist,
+          ...(supersedes ? { supersedesId: supersedes.id } : {}),
+        }),
       });
       const body = (await res.json().catch(() => null)) as Record<string, unknown> | null;
       if (res.ok) {
@@ -93,7 +99,7 @@ export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled }: S
         className="border-paper-300 aria-invalid:border-signal-fault h-10 min-w-0 flex-1 rounded-md border bg-white px-3 text-sm"
       />
       <Button type="submit" disabled={disabled || !hydrated || state.status === "saving"}>
-        {state.status === "saving" ? "Saving…" : "Save run"}
+        {state.status === "saving" ? "Saving…" : supersedes ? "Save revision" : "Save run"}
       </Button>
       <p
         id="save-run-status"

@@ -1,7 +1,6 @@
 "use client";
 
 import { useId, useMemo, useState } from "react";
-import { formatQuantity } from "@/components/run/format";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import {
@@ -14,6 +13,7 @@ import {
   SNAP_NETWORKS,
   type SnapNetwork,
 } from "@/lib/snap-pairs";
+import { formatQuantity } from "@/solver/format";
 import type { SeriesName } from "@/solver/lang/eseries";
 import { parseNumberText } from "@/solver/lang/numbers";
 
@@ -30,7 +30,8 @@ export interface SnapHelperProps {
 function readValue(text: string, expect: string): { value: number } | { error: string } {
   const t = text.trim();
   if (t === "") return { error: "Enter a value." };
-  const r = parseNumberText(t.replace(/^\+/, ""));
+  // "2.74 kHz" as well as "2.74kHz": a blank between the number and its unit is fine here.
+  const r = parseNumberText(t.replace(/^\+/, "").replace(/\s+/g, ""));
   if (!r.ok) return { error: r.message.replace(/`/g, "") };
   if (r.unit !== null && r.unit !== expect) return { error: `Expected ${expect}, got ${r.unit}.` };
   if (!(r.value > 0)) return { error: "Must be above zero." };

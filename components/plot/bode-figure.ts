@@ -19,7 +19,19 @@ export interface BodeFigureInput {
   compact: boolean;
   /** Readout cursors A and B (vertical lines with their letter). */
   cursors?: readonly BodeCursor[];
+  /** The span the frequency axis shows when not focused (the run's sweep), in Hz. */
+  xRangeHz?: readonly [number, number] | null;
 }
+
+/** Bench data sets in turn: each its own open symbol, so two sets never look alike. */
+const BENCH_SYMBOLS = [
+  "circle-open",
+  "square-open",
+  "diamond-open",
+  "triangle-up-open",
+  "x-thin-open",
+  "star-open",
+];
 
 function lineTrace(
   s: BodeSeries,
@@ -31,6 +43,8 @@ function lineTrace(
     showLegend: boolean;
     legendName: string;
     width: number;
+    /** Differences go on their own Δ axes (right-hand side of each row). */
+    delta?: boolean;
   },
 ): Data {
   const gl = s.frequencies.length > GL_THRESHOLD;
@@ -45,10 +59,10 @@ function lineTrace(
     x: s.frequencies,
     y,
     xaxis: row === 1 ? "x" : "x2",
-    yaxis: row === 1 ? "y" : "y2",
+    yaxis: opts.delta ? (row === 1 ? "y3" : "y4") : row === 1 ? "y" : "y2",
     line: { color: opts.color, width: opts.width, dash: opts.dash },
     connectgaps: false,
-    // Our own label text ("1.698 kHz  ·  −3.01 dB"), built once per figure.
+    // Our own label text ("1.6982 kHz  ·  −3.01 dB"), built once per figure.
     text: hoverTexts(s.frequencies, y, row),
     hovertemplate: "%{text}<extra>%{meta[0]}</extra>",
   } as Data;
@@ -67,11 +81,11 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
     const difference = s.role === "difference";
     const color = s.color ?? (difference ? plotColors.difference : traceColor(i));
     const dash = s.dash ?? (difference ? "dot" : "dash");
-    const common = { color, dash, group: `o:${s.name}`, legendName: s.name, width: 1.5 };
+    const common = { color, dash, group: `o:${s.name}`, legendName: s.name, width: 1.5, delta: difference };
     data.push(lineTrace(s, 1, { ...common, showLegend: true }));
     data.push(lineTrace(s, 2, { ...common, showLegend: false }));
   });
-  input.measurements.forEach((s) => {
+  input.measurements.forEach((s, i) => {
     for (const row of [1, 2] as const) {
       data.push({
         type: s.frequencies.length > GL_THRESHOLD ? "scattergl" : "scatter",
@@ -84,7 +98,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
         y: row === 1 ? s.magnitudeDb : s.phaseDeg,
         xaxis: row === 1 ? "x" : "x2",
         yaxis: row === 1 ? "y" : "y2",
-        marker: { color: plotColors.measurement, size: 5, symbol: "circle-open" },
+        marker: { color: plotColors.measurement, size: 6, symbol: BENCH_SYMBOLS[i % BENCH_SYMBOLS.length] },
         text: hoverTexts(s.frequencies, row === 1 ? s.magnitudeDb : s.phaseDeg, row),
         hovertemplate: "%{text}<extra>bench: %{meta[0]}</extra>",
       } as Data);
@@ -143,7 +157,8 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
       yshift: 4 + (i % 2) * 14,
       yanchor: "bottom",
       showarrow: false,
-      text: plotText(m.label),
+      // The marker names its value: "f0 1.592 kHz".
+      text: `${plotText(m.label)} ${formatHz(m.frequencyHz)}`,
       font: { size: 11, color: plotColors.marker },
     });
   });
@@ -170,7 +185,12 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
   // Over a narrow band Plotly labels every minor tick (…500600700…); keep 1-2-5 labels there.
   const spanDecades = decadesOf([...input.series, ...input.overlays].flatMap((s) => [s.frequencies]));
   const xCommon: Partial<LayoutAxis> = {
-    ...(spanDecades !== null && spanDecades <= 3 ? { dtick: "D2" } : {}),
+    // On a phone only decades are labelled (minor labels collide: "50k100k"); else 1-2-5 over a narrow band.
+    ...(input.compact && spanDecades !== null && spanDecades > 1.5
+      ? { dtick: 1 }
+      : spanDecades !== null && spanDecades <= 3
+        ? { dtick: "D2" }
+        : {}),
     type: "log",
     gridcolor: plotColors.grid,
     linecolor: plotColors.axis,
@@ -183,11 +203,19 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
           autorange: false,
           range: [Math.log10(input.focusHz) - 0.5, Math.log10(input.focusHz) + 0.5],
         }
-      : { autorange: true }),
+      : input.xRangeHz && input.xRangeHz[0] > 0 && input.xRangeHz[1] > input.xRangeHz[0]
+        ? { autorange: false, range: [Math.log10(input.xRangeHz[0]), Math.log10(input.xRangeHz[1])] }
+        : { autorange: true }),
   };
+  const hasDelta = input.overlays.some((o) => o.role === "difference");
   const layout: Partial<Layout> = {
     autosize: true,
-    margin: { l: input.compact ? 46 : 60, r: 12, t: input.markers.length > 0 ? 44 : 16, b: 44 },
+    margin: {
+      l: input.compact ? 46 : 60,
+      r: hasDelta ? (input.compact ? 44 : 56) : 12,
+      t: input.markers.length > 0 ? 44 : 16,
+      b: 44,
+    },
     paper_bgcolor: "rgba(0,0,0,0)",
     plot_bgcolor: plotColors.plotBg,
     font: { family: plotFonts.sans, color: plotColors.text, size: 12 },
@@ -224,7 +252,9 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
       linecolor: plotColors.axis,
       zerolinecolor: plotColors.axis,
       tickfont: axisFont,
+      ...phaseTicks([...input.series, ...input.overlays.filter((o) => o.role !== "difference")]),
     },
+    ...(hasDelta ? deltaAxes(axisFont) : {}),
     shapes,
     annotations,
   };
@@ -244,4 +274,48 @@ function decadesOf(grids: readonly (readonly number[])[]): number | null {
     }
   }
   return hi > lo ? Math.log10(hi / lo) : null;
+}
+
+/**
+ * Phase ticks at multiples of 45° (90° or 180° over a wider span), starting from 0°, so the
+ * zero-phase and ±90°/±180° lines an engineer reads are always labelled.
+ */
+export function phaseTicks(series: readonly Pick<BodeSeries, "phaseDeg">[]): Partial<LayoutAxis> {
+  let lo = Number.POSITIVE_INFINITY;
+  let hi = Number.NEGATIVE_INFINITY;
+  for (const s of series) {
+    for (const v of s.phaseDeg) {
+      if (v === null || !Number.isFinite(v)) continue;
+      lo = Math.min(lo, v);
+      hi = Math.max(hi, v);
+    }
+  }
+  if (!(hi >= lo)) return {};
+  const span = hi - lo;
+  const dtick = span <= 360 ? 45 : span <= 720 ? 90 : 180;
+  return { tick0: 0, dtick };
+}
+
+/** The difference's own axes on the right of each row: Δ dB and Δ°, their zero line drawn. */
+function deltaAxes(font: { color: string; size: number }): Partial<Layout> {
+  const common = {
+    side: "right" as const,
+    showgrid: false,
+    zeroline: true,
+    zerolinecolor: plotColors.difference,
+    linecolor: plotColors.axis,
+    tickfont: { ...font, color: plotColors.difference },
+  };
+  return {
+    yaxis3: {
+      ...common,
+      overlaying: "y",
+      title: { text: "Δ dB", font: { ...font, color: plotColors.difference } },
+    },
+    yaxis4: {
+      ...common,
+      overlaying: "y2",
+      title: { text: "Δ°", font: { ...font, color: plotColors.difference } },
+    },
+  } as Partial<Layout>;
 }

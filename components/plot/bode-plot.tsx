@@ -36,6 +36,8 @@ export interface BodePlotProps {
   pins?: BodePin[];
   /** Pans and zooms to this frequency (±half a decade) and highlights it. */
   focusHz?: number | null;
+  /** The frequency span the axis shows (e.g. the run's sweep), so bench data beyond it does not stretch it. */
+  xRangeHz?: readonly [number, number] | null;
   /** Called with the frequency and trace name of a clicked point (e.g. to pin a comment). */
   onPickFrequency?: (frequencyHz: number, trace: string) => void;
   /** Id for ExportButtons' PNG export; defaults to a generated one. */
@@ -68,6 +70,7 @@ export function BodePlot({
   markers = NO_MARKERS,
   pins = NO_PINS,
   focusHz = null,
+  xRangeHz = null,
   onPickFrequency,
   plotId,
   exportName = "phasewright-bode",
@@ -98,8 +101,9 @@ export function BodePlot({
     [traces, frequencies],
   );
   const figure = useMemo(
-    () => buildBodeFigure({ series, overlays, measurements, markers, pins, focusHz, compact, cursors }),
-    [series, overlays, measurements, markers, pins, focusHz, compact, cursors],
+    () =>
+      buildBodeFigure({ series, overlays, measurements, markers, pins, focusHz, compact, cursors, xRangeHz }),
+    [series, overlays, measurements, markers, pins, focusHz, compact, cursors, xRangeHz],
   );
 
   useEffect(() => () => unregisterPlot(id, graphRef.current ?? undefined), [id]);

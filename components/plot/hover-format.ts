@@ -1,15 +1,15 @@
-import { formatQuantity } from "@/components/run/format";
+import { formatQuantity } from "@/solver/format";
 
 /**
- * How the plot writes its numbers: a value, a space, then the SI-prefixed unit ("1.698 kHz",
+ * How the plot writes its numbers: a value, a space, then the SI-prefixed unit ("1.6982 kHz",
  * "−3.01 dB"), degrees straight after the number ("45.0°"), and a true minus sign. Client-safe.
  */
 
 const minus = (text: string) => text.replace(/^-/, "−");
 
-/** Frequency with 4 significant figures: "1.698 kHz", "20 Hz", "1 MHz". */
+/** Frequency with 5 significant figures like every measure on the page: "1.6982 kHz", "20 Hz", "1 MHz". */
 export function formatHz(hz: number): string {
-  return formatQuantity(hz, "Hz", 4);
+  return formatQuantity(hz, "Hz");
 }
 
 /** Magnitude with two decimals: "−3.01 dB", "0.00 dB". */
@@ -31,7 +31,7 @@ export function formatSigned(value: number | null, format: (v: number) => string
   return value > 0 ? `+${text}` : text;
 }
 
-/** One hover label per point: "1.698 kHz  ·  −3.01 dB" (magnitude row) or "… · 45.0°" (phase row). */
+/** One hover label per point: "1.6982 kHz  ·  −3.01 dB" (magnitude row) or "… · 45.0°" (phase row). */
 export function hoverTexts(
   frequencies: readonly number[],
   values: readonly (number | null)[],

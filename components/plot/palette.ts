@@ -16,6 +16,8 @@ export const plotColors = {
   /** Difference traces in turn, when several traces are compared. */
   differences: [c.signal.fault, c.ink[500], c.signal.warn, c.copper[700]],
   measurement: c.ink[900],
+  /** Check limits drawn on histograms. */
+  limit: c.signal.fault,
   /** The two readout cursors: copper and deep board green, never the trace colours' first pair. */
   cursorA: c.copper[600],
   cursorB: c.board[800],

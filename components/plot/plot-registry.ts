@@ -21,10 +21,6 @@ export function unregisterPlot(id: string, graphDiv?: HTMLElement): void {
   if (!graphDiv || plots.get(id)?.graphDiv === graphDiv) plots.delete(id);
 }
 
-export function hasPlot(id: string): boolean {
-  return plots.has(id);
-}
-
 /** Back to the full sweep on every axis (what a double click does too). */
 export async function resetPlotView(id: string): Promise<boolean> {
   const entry = plots.get(id);

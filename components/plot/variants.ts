@@ -1,4 +1,4 @@
-import { formatSiCompact } from "@/components/run/format";
+import { formatSiCompact } from "@/solver/format";
 import type { SolveSuccess } from "@/solver/types";
 import { traceColor } from "./palette";
 import type { BodeOverlay } from "./types";

@@ -10,6 +10,7 @@ import {
   REVIEW_ACTION_LABELS,
   type ReviewState,
   type ReviewStep,
+  reviewWaitSentence,
 } from "@/lib/review-states";
 
 export type ReviewActionsProps = {
@@ -55,15 +56,8 @@ export function ReviewActions({ runId, reviewState, isAuthor, canRequest, canRev
   }
 
   if (!mayRequest && !mayDecide) {
-    const why =
-      canReview && isAuthor && reviewState === "awaiting_signoff"
-        ? "Another reviewer signs off or sends back your own run."
-        : reviewState === "awaiting_signoff"
-          ? "Waiting for a reviewer to sign off or send it back."
-          : reviewState === "signed_off"
-            ? "Signed off. A revision is saved as a new run."
-            : "Your role can read this run.";
-    return <p className="text-ink-500 text-sm">{why}</p>;
+    const why = reviewWaitSentence({ reviewState, isAuthor, canReview });
+    return <p className="text-ink-600 text-sm">{why}</p>;
   }
 
   return (

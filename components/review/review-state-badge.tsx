@@ -44,10 +44,6 @@ function StateMark({ state }: { state: ReviewState }) {
   }
 }
 
-export function reviewStateLabel(state: string): string {
-  return isReviewState(state) ? REVIEW_STATE_LABELS[state] : state;
-}
-
 /** The run's review state as a revision-block tag. */
 export function ReviewStateBadge({ state, className }: { state: string; className?: string }) {
   const s: ReviewState = isReviewState(state) ? state : "draft";

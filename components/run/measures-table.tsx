@@ -1,6 +1,6 @@
 import { cn } from "@/lib/utils";
+import { formatQuantity } from "@/solver/format";
 import type { MeasureResult } from "@/solver/types";
-import { formatQuantity } from "./format";
 
 export interface MeasuresTableProps {
   measures: MeasureResult[];

@@ -2,13 +2,13 @@
 
 import { useRouter } from "next/navigation";
 import { useRef, useState } from "react";
-import { formatQuantity } from "@/components/run/format";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useHydrated } from "@/components/ui/use-hydrated";
 import { formatDate } from "@/lib/utils";
+import { formatQuantity } from "@/solver/format";
 
 export type MeasurementRow = {
   id: string;

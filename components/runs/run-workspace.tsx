@@ -2,6 +2,7 @@
 
 import { type ReactNode, useMemo, useState } from "react";
 import type { PinDraft } from "@/components/comments/comment-form";
+import { useComments } from "@/components/comments/comments-query";
 import { CommentsThread } from "@/components/comments/comments-thread";
 import { BodePlot } from "@/components/plot/bode-plot";
 import type { PlotStamp } from "@/components/plot/plot-registry";
@@ -25,6 +26,8 @@ export type RunWorkspaceProps = {
   canComment: boolean;
   /** Server-rendered panels for the right column under the measures (e.g. the review panel). */
   aside?: ReactNode;
+  /** The control choosing which bench data sets the plot draws. */
+  benchChooser?: ReactNode;
 };
 
 /**
@@ -33,9 +36,21 @@ export type RunWorkspaceProps = {
  * or a frequency measure zooms the plot to it.
  */
 export function RunWorkspace(props: RunWorkspaceProps) {
-  const { runId, plotId, exportName, stamp, frequencies, traces, measures, measurements, canComment, aside } =
-    props;
-  const [comments, setComments] = useState(props.comments);
+  const {
+    runId,
+    plotId,
+    exportName,
+    stamp,
+    frequencies,
+    traces,
+    measures,
+    measurements,
+    canComment,
+    aside,
+    benchChooser,
+  } = props;
+  // The comments live in the query cache (seeded by the server's list); posting and settling update it.
+  const { data: comments } = useComments(runId, props.comments);
   const [pin, setPin] = useState<PinDraft | null>(null);
   const [focusHz, setFocusHz] = useState<number | null>(null);
 
@@ -60,6 +75,14 @@ export function RunWorkspace(props: RunWorkspaceProps) {
     [comments, pin],
   );
 
+  // The axis spans the run's sweep: bench data outside it does not stretch the plot.
+  const first = frequencies[0];
+  const last = frequencies[frequencies.length - 1];
+  const xRange = useMemo(
+    () => (first !== undefined && last !== undefined ? ([first, last] as const) : null),
+    [first, last],
+  );
+
   const focus = (hz: number) => {
     setFocusHz(hz);
     document.getElementById(plotId)?.scrollIntoView({ behavior: "smooth", block: "center" });
@@ -77,6 +100,7 @@ export function RunWorkspace(props: RunWorkspaceProps) {
             frequencies={frequencies}
             traces={traces}
             measurements={measurements}
+            xRangeHz={xRange}
             markers={markers}
             pins={pins}
             focusHz={focusHz}
@@ -84,6 +108,17 @@ export function RunWorkspace(props: RunWorkspaceProps) {
               canComment ? (hz, trace) => setPin({ frequencyHz: hz, trace: trace || null }) : undefined
             }
           />
+          {benchChooser ? (
+            <details
+              className="border-paper-200 mt-2 rounded-md border px-3 py-2"
+              open={measurements.length > 0}
+            >
+              <summary className="text-ink-800 cursor-pointer text-sm font-medium">
+                Bench data on this plot ({measurements.length})
+              </summary>
+              <div className="pt-2">{benchChooser}</div>
+            </details>
+          ) : null}
         </div>
       </Panel>
       <div className="space-y-6 self-start lg:col-start-2 lg:row-span-2 lg:row-start-1">
@@ -105,7 +140,6 @@ export function RunWorkspace(props: RunWorkspaceProps) {
           <CommentsThread
             runId={runId}
             comments={comments}
-            onChange={setComments}
             canComment={canComment}
             pin={pin}
             onClearPin={() => setPin(null)}

@@ -11,10 +11,10 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
-import { formatQuantity } from "@/components/run/format";
 import { buttonClass } from "@/components/ui/button-class";
 import type { RunSummary } from "@/lib/run-types";
 import { cn, formatDate } from "@/lib/utils";
+import { formatQuantity } from "@/solver/format";
 import { RunsFilters, type RunsQueryState, runsHref } from "./runs-filters";
 
 export type RunsTableProps = {

@@ -2,10 +2,10 @@
 
 import { revalidatePath } from "next/cache";
 import { type FormState, failureState, formValues, issuesToFields } from "@/lib/actions/state";
-import { createInvitation } from "@/lib/invitations";
+import { createInvitation, resendInvitation, revokeInvitation } from "@/lib/invitations";
 import { requireUser } from "@/lib/session";
 import { changeMemberRole, removeMember } from "@/lib/teams";
-import { invitationCreateSchema } from "@/lib/validations/invitation";
+import { invitationCreateSchema, invitationRefSchema } from "@/lib/validations/invitation";
 import { memberRemoveSchema, memberRoleUpdateSchema } from "@/lib/validations/team";
 
 /** Form action (owner only, checked in lib/teams through lib/authz): change a member's role. */
@@ -57,4 +57,25 @@ export async function inviteMemberAction(_prev: FormState, formData: FormData): 
   }
   revalidatePath(`/teams/${teamId}`);
   return { ok: true, message: `Invitation sent to ${parsed.data.email}.` };
+}
+
+/** Form action (owner only, checked in lib/invitations): withdraw or send again a pending invitation. */
+export async function invitationAction(_prev: FormState, formData: FormData): Promise<FormState> {
+  const actor = await requireUser();
+  const parsed = invitationRefSchema.safeParse(Object.fromEntries(formData));
+  const intent = formData.get("intent");
+  if (!parsed.success || (intent !== "revoke" && intent !== "resend"))
+    return { ok: false, message: "That invitation is not valid." };
+  const { teamId, invitationId } = parsed.data;
+  try {
+    if (intent === "revoke") await revokeInvitation(actor, teamId, invitationId);
+    else await resendInvitation(actor, teamId, invitationId);
+  } catch (err) {
+    return failureState(err, intent === "revoke" ? "revokeInvitation" : "resendInvitation");
+  }
+  revalidatePath(`/teams/${teamId}`);
+  return {
+    ok: true,
+    message: intent === "revoke" ? "Invitation withdrawn." : "Invitation sent again with a new link.",
+  };
 }

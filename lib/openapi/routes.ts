@@ -4,16 +4,18 @@
  * (lib/validations). Add a route here when you add a `route.ts`; tests/unit/openapi.test.ts walks
  * app/api and fails on a route or method missing from this list.
  */
+
 import { z } from "zod";
 import { commentCreateSchema, commentPatchSchema } from "@/lib/validations/comment";
 import { invitationCreateSchema } from "@/lib/validations/invitation";
 import { measurementUploadSchema } from "@/lib/validations/measurement";
+import { overlaysSchema } from "@/lib/validations/overlays";
 import { projectCreateSchema, projectListQuerySchema, tokenCreateSchema } from "@/lib/validations/project";
 import { reviewActionSchema } from "@/lib/validations/review";
 import { compareQuerySchema, runCreateSchema, runListQuerySchema } from "@/lib/validations/run";
 import { solveRequestSchema } from "@/lib/validations/solve";
 
-export type Method = "get" | "post" | "patch" | "delete";
+export type Method = "get" | "post" | "put" | "patch" | "delete";
 
 export interface ApiRoute {
   /** OpenAPI path: `/api/runs/{id}` for app/api/runs/[id]/route.ts. */
@@ -233,6 +235,27 @@ export const API_ROUTES: ApiRoute[] = [
     errors: [400, 404],
   },
   {
+    path: "/api/runs/{id}/overlays",
+    method: "get",
+    tag: "runs",
+    summary: "The bench data sets drawn on a run's plot",
+    auth: "token",
+    params: id("run"),
+    ok: { status: 200, description: "`{measurementIds}`" },
+    errors: [404],
+  },
+  {
+    path: "/api/runs/{id}/overlays",
+    method: "put",
+    tag: "runs",
+    summary: "Choose the bench data sets (of the run's project) drawn on a run's plot (designers, owners)",
+    auth: "token",
+    params: id("run"),
+    body: overlaysSchema,
+    ok: { status: 200, description: "`{measurementIds}`" },
+    errors: [400, 403, 404],
+  },
+  {
     path: "/api/compare",
     method: "get",
     tag: "runs",
@@ -262,6 +285,26 @@ export const API_ROUTES: ApiRoute[] = [
     body: invitationCreateSchema,
     ok: { status: 201, description: "`{invitation}`" },
     errors: [400, 403, 404, 409],
+  },
+  {
+    path: "/api/teams/{id}/invitations/{invitationId}",
+    method: "delete",
+    tag: "teams",
+    summary: "Withdraw a pending invitation: its link stops working (owners)",
+    auth: "token",
+    params: z.object({ id: z.uuid(), invitationId: z.uuid() }),
+    ok: { status: 200, description: "`{revoked: true}`" },
+    errors: [400, 403, 404],
+  },
+  {
+    path: "/api/teams/{id}/invitations/{invitationId}/resend",
+    method: "post",
+    tag: "teams",
+    summary: "Send a pending invitation again with a new link and seven more days (owners)",
+    auth: "token",
+    params: z.object({ id: z.uuid(), invitationId: z.uuid() }),
+    ok: { status: 201, description: "`{invitation}`" },
+    errors: [400, 403, 404],
   },
   {
     path: "/api/tokens",

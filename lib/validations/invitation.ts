@@ -9,3 +9,9 @@ export const invitationCreateSchema = z.object({
   role: z.enum(["owner", "designer", "reviewer", "viewer"], "Choose owner, designer, reviewer or viewer."),
 });
 export type InvitationCreateInput = z.infer<typeof invitationCreateSchema>;
+
+/** The invitation a revoke/resend form or route acts on. */
+export const invitationRefSchema = z.object({
+  teamId: z.uuid("Not a team id."),
+  invitationId: z.uuid("Not an invitation id."),
+});

@@ -16,6 +16,7 @@ import { floatingNodes } from "./floating";
 import { buildLoop, cutNodeName } from "./loops";
 import { computeMeasures } from "./measures";
 import { buildMna, type MnaSystem } from "./mna";
+import { loopsAtZeroPhase } from "./oscillation";
 import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
 import { sweepFrequencies } from "./sweep";
@@ -182,16 +183,18 @@ export function planSystems(
       showRun = runs[1]!;
       rename = (p) => renameNode(p, firstLoop.node, cutNodeName(firstLoop.node));
       // With double injection the shows read the 1 V series injection (the first right-hand side).
-      warnings.push({
-        line: firstLoop.span.line,
-        message:
-          firstLoop.method === "injection"
-            ? `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s 1 V series ` +
-              `test source at ${firstLoop.node} as the excitation, volts(${firstLoop.node}) being read on the side ` +
-              "of the listed parts"
-            : `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s test signal ` +
-              `as the excitation (the loop opened at ${firstLoop.node}, volts(${firstLoop.node}) being the injected side)`,
-      });
+      // Ratios such as volts(pos)/volts(amp_out) do not depend on the excitation: no warning for them.
+      if (!circuit.shows.every((sh) => excitationDegree(sh.probe) === 0))
+        warnings.push({
+          line: firstLoop.span.line,
+          message:
+            firstLoop.method === "injection"
+              ? `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s 1 V series ` +
+                `test source at ${firstLoop.node} as the excitation, volts(${firstLoop.node}) being read on the side ` +
+                "of the listed parts"
+              : `the circuit has no independent source: shows are read with loop ${firstLoop.name}'s test signal ` +
+                `as the excitation (the loop opened at ${firstLoop.node}, volts(${firstLoop.node}) being the injected side)`,
+        });
     }
   }
   for (const show of circuit.shows) {
@@ -315,6 +318,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
     traces: outcome.traces,
     measures: outcome.measures,
     checks: outcome.checks,
+    ...(circuit.loops.length > 0 ? { zeroPhase: loopsAtZeroPhase(circuit, outcome.samplers) } : {}),
     warnings: warn,
     stats: {
       nodes: circuit.nodes.length,
@@ -323,4 +327,33 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
       solveMs: Math.round((performance.now() - t0) * 1000) / 1000,
     },
   };
+}
+
+/**
+ * How a probe scales with the circuit's excitation: 0 for ratios of responses (independent of the
+ * source's level), 1 for a voltage or current, null when the terms of a sum scale differently.
+ */
+export function excitationDegree(p: Probe): number | null {
+  switch (p.op) {
+    case "num":
+      return 0;
+    case "v":
+    case "i":
+      return 1;
+    case "neg":
+      return excitationDegree(p.arg);
+    case "+":
+    case "-": {
+      const a = excitationDegree(p.left);
+      const b = excitationDegree(p.right);
+      return a !== null && a === b ? a : null;
+    }
+    case "*":
+    case "/": {
+      const a = excitationDegree(p.left);
+      const b = excitationDegree(p.right);
+      if (a === null || b === null) return null;
+      return p.op === "*" ? a + b : a - b;
+    }
+  }
 }

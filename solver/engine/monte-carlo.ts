@@ -1,4 +1,13 @@
-import type { Circuit, MeasureStats, MonteCarloDef, MonteCarloResult, SolveSuccess, Warning } from "../types";
+import type {
+  Circuit,
+  MeasureStats,
+  MonteCarloCheck,
+  MonteCarloDef,
+  MonteCarloResult,
+  SolveSuccess,
+  Warning,
+} from "../types";
+import { evaluateChecks } from "./checks";
 import { type SampleBatch, SampleKernel, solveSampleRange } from "./samples";
 import type { StudyOptions } from "./studies";
 
@@ -103,6 +112,7 @@ export function summarizeSamples(
     seed: def.seed,
     yield: def.samples > 0 ? passed / def.samples : 0,
     measures: names.map((name, i) => stats(name, columns[i] ?? [])),
+    checks: checkYields(circuit, nominal, columns),
   };
 }
 
@@ -177,4 +187,28 @@ export function stats(name: string, list: (number | null)[]): MeasureStats {
     },
     histogram: { edges, counts },
   };
+}
+
+/**
+ * Each check's own yield: the share of samples whose measure values pass it (a sample that could not
+ * be solved, or whose measure has no value, fails it). Read from the measure columns the samples gave.
+ */
+function checkYields(
+  circuit: Circuit,
+  nominal: SolveSuccess,
+  columns: (number | null)[][],
+): MonteCarloCheck[] {
+  const samples = columns[0]?.length ?? 0;
+  return circuit.checks.map((c) => {
+    const i = nominal.measures.findIndex((m) => m.name === c.measure);
+    const unit = nominal.measures[i]?.unit ?? "";
+    let pass = 0;
+    for (let r = 0; r < samples; r++) {
+      const value = i >= 0 ? (columns[i]![r] ?? null) : null;
+      const [result] = evaluateChecks([c], [{ name: c.measure, value, unit, reason: null }]);
+      if (result?.pass) pass++;
+    }
+    const limits = { op: c.op, value: c.value, ...(c.value2 !== undefined ? { value2: c.value2 } : {}) };
+    return { name: c.measure, expression: c.expression, ...limits, yield: samples > 0 ? pass / samples : 0 };
+  });
 }

@@ -51,6 +51,11 @@ async function applyQuickFix(page: Page, label: RegExp): Promise<void> {
 describe("quick fixes from our hints", () => {
   it("old probe form → marker and our hover → quick fix → the rewritten netlist solves", async () => {
     const { context, page } = await signedIn(browser, "designer@demo.test");
+    // The editor loads only its own script and worker — no language-service workers it never uses.
+    const scripts: string[] = [];
+    page.on("request", (r) => {
+      if (r.url().includes("/monaco/")) scripts.push(new URL(r.url()).pathname);
+    });
     await context.grantPermissions(["clipboard-read", "clipboard-write"]);
     const projectId = await openProject(page, "Reference oscillator board");
     await page.goto(`/projects/${projectId}/new`);
@@ -105,6 +110,9 @@ describe("quick fixes from our hints", () => {
       .toBe(0);
     // The fixed netlist solves: the zero-phase frequency of the bridge, 1.5915 kHz.
     await expect.poll(() => page.getByText("1.5915 kHz").count(), { timeout: 60_000 }).toBeGreaterThan(0);
+    const js = [...new Set(scripts.filter((p) => p.endsWith(".js")))];
+    expect(js).toContain("/monaco/pw-editor.js");
+    expect(js.filter((p) => p !== "/monaco/pw-editor.js" && p !== "/monaco/editor.worker.js")).toEqual([]);
     await context.close();
   }, 240_000);
 });

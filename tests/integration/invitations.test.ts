@@ -1,5 +1,7 @@
 import { createHash } from "node:crypto";
 import { beforeAll, beforeEach, describe, expect, it } from "vitest";
+import { POST as resendRoute } from "@/app/api/teams/[id]/invitations/[invitationId]/resend/route";
+import { DELETE as revokeRoute } from "@/app/api/teams/[id]/invitations/[invitationId]/route";
 import { POST as inviteRoute, GET as listRoute } from "@/app/api/teams/[id]/invitations/route";
 import { Invitation, Membership, OutboxEmail, User } from "@/lib/db";
 import { acceptInvitation, INVITATION_TTL_MS, previewInvitation } from "@/lib/invitations";
@@ -112,5 +114,51 @@ describe("team invitations", () => {
     );
     await expect(acceptInvitation(late, second)).rejects.toMatchObject({ status: 410 });
     expect(await Membership.count({ where: { userId: late.userId } })).toBe(0);
+  });
+
+  it("owner sends an invitation again (new link, old one dead) or withdraws it; others may not", async () => {
+    const created = await invite("owner", { email: "again@example.test", role: "designer" });
+    const id = created.body.invitation.id as string;
+    const first = await tokenFromMail("again@example.test");
+    const ref = { id: fx.team.id, invitationId: id };
+
+    // Not the owner: designer 403, another team's owner 404 (the team is invisible to them).
+    expect((await call(resendRoute, { token: tokens.designer, params: ref, method: "POST" })).status).toBe(
+      403,
+    );
+    expect((await call(revokeRoute, { token: tokens.outsider, params: ref, method: "DELETE" })).status).toBe(
+      404,
+    );
+
+    await new Promise((r) => setTimeout(r, 5)); // the newest mail is the resent one
+    const again = await call(resendRoute, { token: tokens.owner, params: ref, method: "POST" });
+    expect(again.status).toBe(201);
+    expect(again.body.invitation).toMatchObject({ email: "again@example.test", role: "designer" });
+    const second = await tokenFromMail("again@example.test");
+    expect(second).not.toBe(first);
+    expect((await previewInvitation(first))?.state).toBe("expired");
+    expect((await previewInvitation(second))?.state).toBe("pending");
+
+    const newId = again.body.invitation.id as string;
+    // The first one is no longer open: revoking it is a 404; revoking the new one works.
+    expect((await call(revokeRoute, { token: tokens.owner, params: ref, method: "DELETE" })).status).toBe(
+      404,
+    );
+    const gone = await call(revokeRoute, {
+      token: tokens.owner,
+      params: { id: fx.team.id, invitationId: newId },
+      method: "DELETE",
+    });
+    expect(gone.status).toBe(200);
+    expect((await previewInvitation(second))?.state).toBe("expired");
+    const list = await call(listRoute, { token: tokens.owner, params: { id: fx.team.id } });
+    expect(list.body.invitations).toEqual([]);
+    // A malformed id is a 400 with the field named, never a 500.
+    const bad = await call(revokeRoute, {
+      token: tokens.owner,
+      params: { id: fx.team.id, invitationId: "nope" },
+      method: "DELETE",
+    });
+    expect(bad.status).toBe(400);
   });
 });

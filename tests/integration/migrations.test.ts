@@ -1,3 +1,5 @@
+import { readdirSync } from "node:fs";
+import path from "node:path";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { sequelize } from "@/lib/db";
 import { createMigrator } from "../../scripts/lib/migrator";
@@ -43,11 +45,21 @@ const ALL_TABLES = [
   "outbox_emails",
   "projects",
   "review_events",
+  "run_bench_overlays",
   "run_jobs",
   "runs",
   "teams",
   "users",
 ];
+
+/** The migration that creates each table added after the first three (the rest exist from the start). */
+const CREATED_BY: Record<string, string> = {
+  run_jobs: "202612021130-create-run-jobs",
+  run_bench_overlays: "202612030400-run-bench-overlays",
+};
+
+/** The tables that exist with every migration before `name` applied (and `name` itself reverted). */
+const tablesBefore = (name: string) => ALL_TABLES.filter((t) => (CREATED_BY[t] ?? "") < name);
 
 describe("migrations", () => {
   beforeAll(async () => {
@@ -61,7 +73,12 @@ describe("migrations", () => {
   it("create every table with nothing pending", async () => {
     expect(await tables()).toEqual(ALL_TABLES);
     expect(await migrator.pending()).toEqual([]);
-    expect((await migrator.executed()).map((m) => m.name)).toEqual([
+    // Every file in migrations/ ran, in the order of its timestamp (helpers such as _columns.ts aside).
+    const files = readdirSync(path.join(import.meta.dirname, "../../migrations"))
+      .filter((f) => /^\d{12}-.+\.ts$/.test(f))
+      .map((f) => f.replace(/\.ts$/, ""))
+      .sort();
+    expect(files.slice(0, 7)).toEqual([
       "202612021045-create-accounts",
       "202612021046-create-projects-runs",
       "202612021047-create-outbox-emails",
@@ -69,11 +86,16 @@ describe("migrations", () => {
       "202612021400-run-result-json-lz4",
       "202612022010-netlist-probe-names",
       "202612022020-review-words",
-      "202612030300-email-verification",
     ]);
+    expect(files).toContain("202612030300-email-verification");
+    expect((await migrator.executed()).map((m) => m.name)).toEqual(files);
   });
 
   it("set the foreign keys with cascades where a child cannot outlive its parent", async () => {
+    expect(await foreignKeys("run_bench_overlays")).toEqual({
+      run_id: "runs CASCADE",
+      measurement_id: "measurements CASCADE",
+    });
     expect(await foreignKeys("memberships")).toEqual({ team_id: "teams CASCADE", user_id: "users CASCADE" });
     expect(await foreignKeys("runs")).toEqual({
       project_id: "projects CASCADE",
@@ -159,7 +181,7 @@ describe("migrations", () => {
 
   it("drop the job table and its enum going down past it, and create them again going up", async () => {
     await downTo("202612021130-create-run-jobs");
-    expect(await tables()).toEqual(ALL_TABLES.filter((t) => t !== "run_jobs"));
+    expect(await tables()).toEqual(tablesBefore("202612021130-create-run-jobs"));
     const [types] = await sequelize.query("SELECT 1 FROM pg_type WHERE typname = 'enum_run_jobs_state'");
     expect(types).toHaveLength(0);
 

@@ -152,3 +152,25 @@ describe("POST /api/runs/:id/review", () => {
     );
   });
 });
+
+describe("waiting for my sign-off (lib/awaiting.ts)", () => {
+  it("lists runs awaiting sign-off to those who may sign off, never to their author or a viewer", async () => {
+    const { listAwaitingMySignOff } = await import("@/lib/awaiting");
+    const asked = await insertRun(fx.project.id, fx.users.designer.id, { title: "Asked run" });
+    await insertRun(fx.project.id, fx.users.designer.id, { title: "Draft run" });
+    expect((await review("designer", asked.id, { action: "submit" })).status).toBe(200);
+
+    const forReviewer = await listAwaitingMySignOff(fx.users.reviewer.id);
+    expect(forReviewer.map((r) => r.title)).toEqual(["Asked run"]);
+    expect(forReviewer[0]).toMatchObject({ projectId: fx.project.id, authorName: fx.users.designer.name });
+    expect(Number.isNaN(Date.parse(forReviewer[0]!.askedAt))).toBe(false);
+    expect((await listAwaitingMySignOff(fx.users.owner.id)).map((r) => r.title)).toEqual(["Asked run"]);
+    expect(await listAwaitingMySignOff(fx.users.designer.id)).toEqual([]);
+    expect(await listAwaitingMySignOff(fx.users.viewer.id)).toEqual([]);
+    expect(await listAwaitingMySignOff(fx.users.outsider.id)).toEqual([]);
+
+    // Signed off: off the list.
+    expect((await review("reviewer", asked.id, { action: "sign_off" })).status).toBe(200);
+    expect(await listAwaitingMySignOff(fx.users.reviewer.id)).toEqual([]);
+  });
+});

@@ -296,7 +296,7 @@ describe("run, export, compare, measurements", () => {
     expect(bad.status).toBe(400);
     expect(bad.body.error.details.errors).toEqual([
       { line: 3, message: "Frequencies must rise: 50 Hz follows 100 Hz." },
-      { line: 4, message: 'Column 2 is not a number: "x".' },
+      { line: 4, message: 'Column 2 is not a magnitude in dB: "x".' },
       { line: 5, message: "Expected 3 columns (frequency, magnitude dB, phase deg), found 2." },
     ]);
     expect(

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { buildBodeFigure, GL_THRESHOLD } from "@/components/plot/bode-figure";
+import { buildBodeFigure, GL_THRESHOLD, phaseTicks } from "@/components/plot/bode-figure";
 
 function series(name: string, n: number) {
   const frequencies = Array.from({ length: n }, (_, k) => 10 * 10 ** (k / 100));
@@ -34,7 +34,7 @@ describe("buildBodeFigure", () => {
       focusHz: 1000,
     });
     expect(layout.shapes?.[0]?.x0).toBe(1591.549430919);
-    expect(layout.annotations?.[0]?.text).toBe("f0");
+    expect(layout.annotations?.[0]?.text).toBe("f0 1.5915 kHz"); // the marker names its value
     // Log axes take their range in decades: 1 kHz ± half a decade.
     expect(layout.xaxis?.range).toEqual([2.5, 3.5]);
   });
@@ -75,5 +75,25 @@ describe("buildBodeFigure", () => {
     const pins = data.at(-1) as { text: string[] };
     expect(pins.text[0]).toMatch(/<br>&lt;script&gt;pin&lt;\/script&gt;$/);
     expect(JSON.stringify(layout.annotations)).toContain("&lt;img src=x&gt;");
+  });
+});
+
+describe("phase ticks and the difference axes", () => {
+  it("phase ticks fall on multiples of 45° over a half-turn, 90° over a wider span", () => {
+    expect(phaseTicks([{ phaseDeg: [-90, 0, 85] }])).toEqual({ tick0: 0, dtick: 45 });
+    expect(phaseTicks([{ phaseDeg: [-270, 0, 200] }])).toEqual({ tick0: 0, dtick: 90 });
+    expect(phaseTicks([{ phaseDeg: [null] }])).toEqual({});
+  });
+
+  it("draws a difference on its own Δ axes at the right of each row, the responses on the left", () => {
+    const a = series("h", 51);
+    const diff = { ...series("h Δ (B − A)", 51), role: "difference" as const };
+    diff.magnitudeDb = diff.magnitudeDb.map(() => 0.24);
+    const { data, layout } = buildBodeFigure({ ...base, series: [a], overlays: [diff] });
+    const axes = (data as { yaxis: string }[]).map((d) => d.yaxis);
+    expect(axes).toEqual(["y", "y2", "y3", "y4"]);
+    expect(layout.yaxis3).toMatchObject({ overlaying: "y", side: "right" });
+    expect(layout.yaxis4).toMatchObject({ overlaying: "y2", side: "right" });
+    expect((layout.yaxis3 as { title: { text: string } }).title.text).toBe("Δ dB");
   });
 });

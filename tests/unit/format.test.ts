@@ -1,11 +1,5 @@
 import { describe, expect, it } from "vitest";
-import {
-  formatDelta,
-  formatNumber,
-  formatPercent,
-  formatQuantity,
-  formatSiCompact,
-} from "@/components/run/format";
+import { formatDelta, formatNumber, formatPercent, formatQuantity, formatSiCompact } from "@/solver/format";
 
 describe("formatQuantity", () => {
   it("puts an SI prefix on physical units and none on dB, degrees or ratios", () => {

@@ -3,7 +3,7 @@ import { formatDb, formatDeg, formatHz, formatSigned, hoverTexts } from "@/compo
 
 describe("plot number formatting", () => {
   it("writes a space before an SI-prefixed unit", () => {
-    expect(formatHz(1698.2436)).toBe("1.698 kHz");
+    expect(formatHz(1698.2436)).toBe("1.6982 kHz");
     expect(formatHz(20)).toBe("20 Hz");
     expect(formatHz(1e6)).toBe("1 MHz");
     expect(formatHz(0.5)).toBe("500 mHz");

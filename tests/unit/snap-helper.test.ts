@@ -1,6 +1,13 @@
 /** Standard R/C pairs for a target frequency (lib/snap-pairs.ts), checked by hand arithmetic. */
 import { describe, expect, it } from "vitest";
-import { netlistNumber, networkFrequency, pairLets, rankPairs, seriesInRange } from "@/lib/snap-pairs";
+import {
+  freePairNames,
+  netlistNumber,
+  networkFrequency,
+  pairLets,
+  rankPairs,
+  seriesInRange,
+} from "@/lib/snap-pairs";
 
 describe("rankPairs", () => {
   it("1 kHz single RC from E24 R and E12 C: 16 kΩ with 10 nF, −0.528 %", () => {
@@ -85,5 +92,13 @@ describe("helpers", () => {
     expect(netlistNumber(1.5e6)).toBe("1.5M");
     expect(netlistNumber(220e-12)).toBe("220p");
     expect(pairLets({ r: 16_000, c: 10e-9 })).toBe("let R = 16k\nlet C = 10n\n");
+  });
+});
+
+describe("freePairNames", () => {
+  it("inserts R and C when free, else names no part, node or let of the netlist uses", () => {
+    expect(freePairNames("Vin: vsource in gnd 1\nRs: resistor in out 10k\n")).toEqual({ r: "R", c: "C" });
+    expect(freePairNames("let R = 10k\nC1: capacitor a gnd 1n\n")).toEqual({ r: "R_snap", c: "C_snap" });
+    expect(freePairNames("let R = 1\nlet C_snap = 2\n")).toEqual({ r: "R_snap2", c: "C_snap2" });
   });
 });

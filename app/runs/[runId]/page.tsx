@@ -11,13 +11,16 @@ import { CheckBadges } from "@/components/run/check-badges";
 import { ExportButtons } from "@/components/run/export-buttons";
 import { NetlistView } from "@/components/run/netlist-view";
 import { WarningsList } from "@/components/run/warnings-list";
+import { OverlayChooser } from "@/components/runs/overlay-chooser";
 import { RunWorkspace } from "@/components/runs/run-workspace";
+import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { Panel, PanelHeader } from "@/components/ui/panel";
 import { listComments } from "@/lib/comments";
 import { NotFoundError } from "@/lib/errors";
 import { listMeasurements } from "@/lib/measurements";
 import { runPageMetadata } from "@/lib/page-titles";
+import { overlayIds, pickOverlays } from "@/lib/run-overlays";
 import { getRun } from "@/lib/runs";
 import { requireUser } from "@/lib/session";
 import { formatDate } from "@/lib/utils";
@@ -35,7 +38,11 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
       throw err;
     },
   );
-  const measurements = await listMeasurements(actor, run.projectId);
+  const [measurements, attached] = await Promise.all([
+    listMeasurements(actor, run.projectId),
+    overlayIds(run.id),
+  ]);
+  const overlaid = pickOverlays(measurements, attached);
   const result = run.result;
   const plotId = `run-plot-${run.id.slice(0, 8)}`;
   const stamp = { title: run.title, netlistHash: run.netlistHash };
@@ -56,7 +63,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
     </Panel>
   );
   return (
-    <div className="mx-auto max-w-6xl px-4 py-8 sm:px-6">
+    <div className="mx-auto max-w-[90rem] px-4 py-8 sm:px-6">
       <nav aria-label="Breadcrumb" className="text-ink-500 mb-2 text-sm">
         <Link href="/projects" className="hover:underline">
           Projects
@@ -99,7 +106,21 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             </p>
           ) : null}
         </div>
-        {result ? <ExportButtons runId={run.id} plotId={plotId} fileName={run.title} /> : null}
+        <div className="flex flex-wrap items-center gap-2">
+          {run.permissions.createRun ? (
+            <Link
+              href={`/projects/${run.projectId}/new?revise=${run.id}`}
+              className={buttonClass({
+                variant: run.reviewState === "sent_back" ? "primary" : "secondary",
+                size: "sm",
+              })}
+              title="Open this netlist in the editor; the run you save supersedes this one"
+            >
+              Revise
+            </Link>
+          ) : null}
+          {result ? <ExportButtons runId={run.id} plotId={plotId} fileName={run.title} /> : null}
+        </div>
       </header>
 
       {result ? (
@@ -115,7 +136,21 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             frequencies={result.frequencies}
             traces={result.traces}
             measures={result.measures}
-            measurements={measurements.slice(0, 4).map((m) => ({ name: `bench: ${m.name}`, ...m.data }))}
+            measurements={overlaid.map((m) => ({ name: m.name, ...m.data }))}
+            benchChooser={
+              <OverlayChooser
+                runId={run.id}
+                options={measurements.map(({ id, name, points, fromHz, toHz }) => ({
+                  id,
+                  name,
+                  points,
+                  fromHz,
+                  toHz,
+                }))}
+                selected={attached}
+                canChoose={run.permissions.createRun}
+              />
+            }
             comments={comments}
             canComment={run.permissions.comment}
             aside={reviewPanel}

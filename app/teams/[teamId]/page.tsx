@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { InvitationControls } from "@/components/team/invitation-controls";
 import { InviteForm } from "@/components/team/invite-form";
 import { MemberList } from "@/components/team/member-list";
 import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
@@ -69,7 +70,8 @@ export default async function TeamPage({ params }: { params: Promise<{ teamId: s
                     <li key={i.id} className="flex flex-wrap items-center gap-2 px-4 py-2.5 text-sm">
                       <span className="text-ink-800 min-w-0 flex-1 truncate">{i.email}</span>
                       {isRole(i.role) ? <RoleBadge role={i.role} /> : null}
-                      <span className="text-caption text-ink-500">until {formatDate(i.expiresAt)}</span>
+                      <span className="text-caption text-ink-600">until {formatDate(i.expiresAt)}</span>
+                      <InvitationControls teamId={data.team.id} invitationId={i.id} email={i.email} />
                     </li>
                   ))}
                 </ul>

@@ -3,21 +3,36 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { NetlistEditor } from "@/components/editor/netlist-editor";
 import { Notice } from "@/components/ui/notice";
-import { authorizeProject } from "@/lib/authz";
+import { authorizeProject, isUuid } from "@/lib/authz";
 import { ForbiddenError, NotFoundError } from "@/lib/errors";
 import { listExamples } from "@/lib/examples";
 import { projectPageMetadata } from "@/lib/page-titles";
-import { requireUser } from "@/lib/session";
+import { getRun } from "@/lib/runs";
+import { type Actor, requireUser } from "@/lib/session";
 
 export function generateMetadata({ params }: { params: Promise<{ projectId: string }> }): Promise<Metadata> {
   return params.then(({ projectId }) => projectPageMetadata(projectId, "New run · "));
 }
 
-type Props = { params: Promise<{ projectId: string }> };
+type Props = {
+  params: Promise<{ projectId: string }>;
+  searchParams: Promise<{ revise?: string | string[] }>;
+};
 
-export default async function NewRunPage({ params }: Props) {
+/** The run to revise (`?revise=RUN_ID`): readable by the caller and in this project, else none. */
+async function runToRevise(actor: Actor, projectId: string, id: string | undefined) {
+  if (!id || !isUuid(id)) return null;
+  const run = await getRun(actor, id).catch((err: unknown) => {
+    if (err instanceof NotFoundError || err instanceof ForbiddenError) return null;
+    throw err;
+  });
+  return run && run.projectId === projectId ? { id: run.id, title: run.title, netlist: run.netlist } : null;
+}
+
+export default async function NewRunPage({ params, searchParams }: Props) {
   const actor = await requireUser();
   const { projectId } = await params;
+  const { revise } = await searchParams;
   const access = await authorizeProject(actor.userId, projectId, "run:create").catch((err: unknown) => {
     if (err instanceof NotFoundError) notFound();
     if (err instanceof ForbiddenError) return null;
@@ -36,7 +51,10 @@ export default async function NewRunPage({ params }: Props) {
       </div>
     );
   }
-  const examples = await listExamples();
+  const [examples, revising] = await Promise.all([
+    listExamples(),
+    runToRevise(actor, projectId, typeof revise === "string" ? revise : undefined),
+  ]);
   const projectName = String(access.project.get("name"));
   return (
     <div className="mx-auto max-w-[96rem] px-4 py-6 sm:px-6">
@@ -49,8 +67,22 @@ export default async function NewRunPage({ params }: Props) {
           {projectName}
         </Link>
       </nav>
-      <h1 className="text-ink-950 text-title mb-4 font-semibold">New run</h1>
-      <NetlistEditor projectId={projectId} projectName={projectName} examples={examples} />
+      <h1 className="text-ink-950 text-title mb-4 font-semibold">{revising ? "Revise a run" : "New run"}</h1>
+      {revising ? (
+        <p className="text-ink-700 -mt-2 mb-4 text-sm" data-testid="revising">
+          Editing the netlist of{" "}
+          <Link href={`/runs/${revising.id}`} className="text-board-700 underline">
+            {revising.title}
+          </Link>
+          . The run you save supersedes it; its review history stays with it.
+        </p>
+      ) : null}
+      <NetlistEditor
+        projectId={projectId}
+        projectName={projectName}
+        examples={examples}
+        revise={revising ?? undefined}
+      />
     </div>
   );
 }

@@ -1,0 +1,67 @@
+/**
+ * Bench data overlaid on a run's plot: chosen per run from its project's measurements (none by
+ * default). The table `run_bench_overlays` is read and written only here.
+ */
+import { authorizeRun } from "@/lib/authz";
+import { Measurement, sequelize } from "@/lib/db";
+import { BadRequestError, withDb } from "@/lib/errors";
+import type { MeasurementView } from "@/lib/measurements";
+import type { Actor } from "@/lib/session";
+
+/** At most this many data sets on one plot (each gets its own symbol). */
+export const MAX_OVERLAYS = 6;
+
+/** The ids of the measurements a run overlays, in the order they were attached. */
+export async function overlayIds(runId: string): Promise<string[]> {
+  const rows = (await withDb(() =>
+    sequelize.query(
+      "SELECT measurement_id AS id FROM run_bench_overlays WHERE run_id = :runId ORDER BY created_at, measurement_id",
+      { replacements: { runId }, type: "SELECT" },
+    ),
+  )) as { id: string }[];
+  return rows.map((r) => r.id);
+}
+
+/** The overlaid data sets of a run, from the project's list (which the caller already loaded). */
+export function pickOverlays(all: MeasurementView[], ids: readonly string[]): MeasurementView[] {
+  const byId = new Map(all.map((m) => [m.id, m]));
+  return ids.flatMap((id) => byId.get(id) ?? []);
+}
+
+/**
+ * Sets which measurements a run overlays (designers and owners: the right to upload bench data).
+ * Every id must be a measurement of the run's project; the list replaces the old one atomically.
+ */
+export async function setOverlays(actor: Actor, runId: string, ids: readonly string[]): Promise<string[]> {
+  const { run } = await authorizeRun(actor.userId, runId, "measurement:upload");
+  const unique = [...new Set(ids)];
+  if (unique.length > MAX_OVERLAYS) {
+    throw new BadRequestError(`At most ${MAX_OVERLAYS} bench data sets on one plot.`, {
+      fields: { measurementIds: [`Choose at most ${MAX_OVERLAYS}.`] },
+    });
+  }
+  await withDb(() =>
+    sequelize.transaction(async (transaction) => {
+      const found = unique.length
+        ? await Measurement.count({ where: { id: unique, projectId: run.projectId }, transaction })
+        : 0;
+      if (found !== unique.length) {
+        throw new BadRequestError("Only bench data of this run's project can be overlaid.", {
+          fields: { measurementIds: ["Not a measurement of this project."] },
+        });
+      }
+      await sequelize.query("DELETE FROM run_bench_overlays WHERE run_id = :runId", {
+        replacements: { runId },
+        transaction,
+      });
+      // Attachment order is kept: one insert per id, a microsecond apart.
+      for (const [k, id] of unique.entries()) {
+        await sequelize.query(
+          "INSERT INTO run_bench_overlays (run_id, measurement_id, created_at) VALUES (:runId, :id, now() + make_interval(secs => :k * 1e-6))",
+          { replacements: { runId, id, k }, transaction },
+        );
+      }
+    }),
+  );
+  return unique;
+}
