@@ -89,14 +89,33 @@ export function trimBlanksEnd(text: string): string {
 
 /** Parentheses deeper than this on one statement are refused with line and column (no stack overflow). */
 export const MAX_NESTING = 100;
+/** More arithmetic operators than this on one statement are refused too (the trees are walked recursively). */
+export const MAX_OPERATORS = 2000;
 
-/** The first `(` that opens level MAX_NESTING + 1 on a logical line, or null. */
-export function tooDeep(tokens: Token[]): Token | null {
+/**
+ * Where a logical line nests deeper than MAX_NESTING, or null. Each parser level is a recursion: an
+ * open parenthesis, each sign in a run (`- - - x`) and each `^` (right-associative) count; so does
+ * the length of a chain of operators (MAX_OPERATORS).
+ */
+export function tooDeep(tokens: Token[]): { token: Token; parens: boolean } | null {
   let depth = 0;
+  let signs = 0;
+  let powers = 0;
+  let operators = 0;
   for (const t of tokens) {
-    if (t.kind !== "op") continue;
-    if (t.text === "(" && ++depth > MAX_NESTING) return t;
+    if (t.kind !== "op") {
+      signs = 0;
+      continue;
+    }
+    if ("+-*/^".includes(t.text) && ++operators > MAX_OPERATORS) return { token: t, parens: false };
+    if (t.text === "+" || t.text === "-") {
+      if (depth + ++signs > MAX_NESTING) return { token: t, parens: false };
+      continue;
+    }
+    signs = 0;
+    if (t.text === "(" && ++depth > MAX_NESTING) return { token: t, parens: true };
     if (t.text === ")") depth = Math.max(0, depth - 1);
+    if (t.text === "^" && ++powers > MAX_NESTING) return { token: t, parens: false };
   }
   return null;
 }

@@ -4,7 +4,7 @@
 import { describe, expect, it } from "vitest";
 import { solveNetlist } from "@/solver/index";
 import { MAX_HINT_WORD, nearest } from "@/solver/lang/hints";
-import { MAX_NESTING, trimBlanksEnd } from "@/solver/lang/tokens";
+import { MAX_NESTING, MAX_OPERATORS, trimBlanksEnd } from "@/solver/lang/tokens";
 
 const RC = [
   "title bounds",
@@ -52,6 +52,27 @@ describe("adversarial netlists of 100–200 kB", () => {
         message: `parentheses are nested more than ${MAX_NESTING} deep`,
       }),
     ]);
+  });
+
+  it("50 000 signs in a row or 20 000 powers: an error at the sign or power past the limit", () => {
+    const r = solveNetlist(
+      `${RC}\nshow S = ${"- ".repeat(50_000)}volts(out)\nlet q = ${"2^".repeat(20_000)}1\n`,
+    );
+    expect(r.ok).toBe(false);
+    if (r.ok) return;
+    const message = `the expression is nested more than ${MAX_NESTING} deep or has more than ${MAX_OPERATORS} operators`;
+    expect(r.errors).toEqual([
+      expect.objectContaining({ line: 7, column: "show S = ".length + 2 * MAX_NESTING + 1, message }),
+      expect.objectContaining({ line: 8, column: "let q = ".length + 2 * MAX_NESTING + 2, message }),
+    ]);
+    // Ordinary expressions are far from it: a sum of 1 000 terms is fine.
+    const sum = solveNetlist(`${RC}\nlet k = ${Array.from({ length: 1000 }, () => "1").join(" + ")}\n`);
+    expect(sum.ok).toBe(true);
+    const long = solveNetlist(
+      `${RC}\nshow L = ${Array.from({ length: 20_000 }, () => "volts(out)").join(" + ")}\n`,
+    );
+    expect(long.ok).toBe(false);
+    if (!long.ok) expect(long.errors[0]).toMatchObject({ line: 7, message });
   });
 
   it("a valid 3 000-deep let chain is solved: x0 = x1 + 1 … x3000 = 1k gives R = 4 kΩ", () => {
