@@ -1,6 +1,7 @@
 import { diffArrays } from "diff";
 import { type NetlistDiffStats, type NetlistRow, netlistDiffStats, netlistRows } from "@/lib/netlist-diff";
 import { sampleTrace, wrapDeg } from "@/lib/trace-math";
+import { makeTrace } from "@/solver/engine/trace";
 import { compile } from "@/solver/lang";
 import type {
   CheckResult,
@@ -8,6 +9,7 @@ import type {
   NetlistError,
   Part,
   SolveResult,
+  SolveSuccess,
   TraceResult,
 } from "@/solver/types";
 
@@ -85,6 +87,8 @@ export interface TraceComparison {
   diffDeg: (number | null)[];
   /** True when the first run's trace had to be interpolated (the grids differ). */
   interpolated: boolean;
+  /** Group delay (s) of both runs and b − a, when both traces carry it (same grid only). */
+  delay?: { a: (number | null)[]; b: (number | null)[]; diff: (number | null)[] };
 }
 
 export interface RunComparison {
@@ -130,6 +134,8 @@ function summarize(p: Part): PartSummary {
   if (p.sense !== undefined) options.push(`sense=${p.sense}`);
   if (p.opamp?.gain !== undefined) options.push(`gain=${p.opamp.gain}`);
   if (p.opamp?.gbw !== undefined) options.push(`gbw=${p.opamp.gbw}`);
+  if (p.opamp?.swing !== undefined) options.push(`swing=${p.opamp.swing}`);
+  if (p.diode !== undefined) options.push(`is=${p.diode.is}`, `n=${p.diode.n}`);
   if (p.opamp?.rout !== undefined) options.push(`rout=${p.opamp.rout}`);
   return { kind: p.kind, nodes: [...p.nodes], value: p.value, options };
 }
@@ -256,9 +262,36 @@ export function compareTraces(
       diffDb: aDb.map((v, k) => (v === null ? null : b.magnitudeDb[k]! - v)),
       diffDeg: aDeg.map((v, k) => (v === null ? null : wrapDeg(b.phaseDeg[k]! - v))),
       interpolated: !same,
+      ...(same && a.groupDelay && b.groupDelay
+        ? {
+            delay: {
+              a: a.groupDelay,
+              b: b.groupDelay,
+              diff: b.groupDelay.map((v, k) => {
+                const u = a.groupDelay![k];
+                return v === null || u == null ? null : v - u;
+              }),
+            },
+          }
+        : {}),
     });
   }
   return out;
+}
+
+/**
+ * Each noise density of a result as a trace named "noise N" (dB = dBV/√Hz, phase 0), so compare
+ * overlays and differences it like any trace.
+ */
+export function noiseTraces(r: SolveSuccess): TraceResult[] {
+  return (r.noise ?? []).map((n) =>
+    makeTrace(
+      `noise ${n.name}`,
+      "probe",
+      n.density.map((d) => d ?? 0),
+      n.density.map(() => 0),
+    ),
+  );
 }
 
 /**
@@ -286,6 +319,12 @@ export function compareRuns(a: CompareSide, b: CompareSide): RunComparison {
     measures: compareMeasures(measuresOf(a.result), measuresOf(b.result)),
     checks,
     flippedChecks: checks.filter((c) => c.flipped),
-    traces: ra && rb ? compareTraces(ra.frequencies, ra.traces, rb.frequencies, rb.traces) : [],
+    traces:
+      ra && rb
+        ? compareTraces(ra.frequencies, [...ra.traces, ...noiseTraces(ra)], rb.frequencies, [
+            ...rb.traces,
+            ...noiseTraces(rb),
+          ])
+        : [],
   };
 }

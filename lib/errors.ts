@@ -53,7 +53,7 @@ export class NetlistInvalidError extends AppError {
   }
 }
 
-/** A preview whose solver work (lib/limits.ts `solveWork`) is over the budget of one request. */
+/** A preview whose solver work (lib/jobs.ts `solveWork`) is over the budget of one request. */
 export class WorkBudgetError extends AppError {
   constructor(work: number, budget: number) {
     super(

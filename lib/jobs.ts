@@ -18,7 +18,10 @@ import {
   MAX_INLINE_WORK,
   MAX_MC_INLINE_SAMPLES,
   MAX_QUEUED_SAMPLES,
-  solveWork,
+  NOISE_BAND_WORK,
+  STEADY_BASE_WORK,
+  STEADY_CUBE_DIVISOR,
+  STEADY_WORK_PER_HARMONIC,
 } from "@/lib/limits";
 import {
   attachQueueJob,
@@ -28,7 +31,8 @@ import {
   type RunJobView,
   requestCancel,
 } from "@/lib/run-lifecycle";
-import { analyze, compile, SOLVER_VERSION } from "@/solver";
+import { analyze, compile, SOLVER_VERSION, type SolveOptions } from "@/solver";
+import { sweepLength } from "@/solver/engine/sweep";
 import type { Circuit, NetlistError } from "@/solver/types";
 
 export const RUN_SOLVE_QUEUE = "run-solve";
@@ -41,8 +45,51 @@ export interface RunSolveJobData {
   runId: string;
 }
 
-/** The price of a compiled netlist: defined once in lib/limits.ts. */
-export { solveWork };
+/**
+ * Solver work in sweep points: points × (1 + Monte Carlo samples + vary values + 2 × sensitivity
+ * parts), plus each integrated
+ * noise measure's price (NOISE_BAND_WORK per variant), plus the steady oscillation's price
+ * (steadyWork) once per solve that computes it.
+ */
+export function solveWork(circuit: Circuit): number {
+  const points = sweepLength(circuit.sweep);
+  const samples = circuit.monteCarlo?.samples ?? 0;
+  const variants = circuit.vary?.values.length ?? 0;
+  const bands = circuit.measures.filter((m) => m.band).length;
+  // A sensitivity study re-solves the sweep twice per part (central differences; issue 13).
+  const sensitivityParts = (circuit.sensitivity?.length ?? 0) > 0 ? circuit.parts.length : 0;
+  const sweeps =
+    (Number.isFinite(points) ? points : 0) * (1 + samples + variants + 2 * sensitivityParts) +
+    bands * NOISE_BAND_WORK * (1 + variants);
+  if (!circuit.steady) return sweeps;
+  const sampled = circuit.measures.some((m) => STEADY_MEASURES.has(m.fn)) ? samples : 0;
+  return sweeps + steadyWork(circuit.steady.harmonics) * (1 + variants + sampled);
+}
+
+/**
+ * Solve options of a live preview: a steady oscillation that alone would exceed the inline budget is
+ * left out with the reason (saving the run queues it).
+ */
+export function previewOptions(netlist: string, maxPoints: number): SolveOptions {
+  const compiled = compile(netlist);
+  const steady = compiled.ok ? compiled.circuit.steady : null;
+  if (!steady || steadyWork(steady.harmonics) <= MAX_INLINE_WORK) return { maxPoints };
+  return {
+    maxPoints,
+    deferSteady: `the steady oscillation with ${steady.harmonics} harmonics is too large for a preview: save the run to solve it (queued)`,
+  };
+}
+
+const STEADY_MEASURES = new Set(["frequency", "amplitude", "thd", "startup"]);
+
+/** One steady-oscillation solve of N harmonics, in sweep points (lib/limits.ts). */
+export function steadyWork(harmonics: number): number {
+  return (
+    STEADY_BASE_WORK +
+    STEADY_WORK_PER_HARMONIC * harmonics +
+    Math.round((2 * harmonics + 1) ** 3 / STEADY_CUBE_DIVISOR)
+  );
+}
 
 /** True when a run of this circuit goes to the job queue instead of being solved in the request. */
 export function shouldQueue(circuit: Circuit): boolean {

@@ -1,8 +1,6 @@
 /**
  * Size limits of the service, in one place. Routes, the editor and the job queue read them from here.
  */
-import { sweepLength } from "@/solver/engine/sweep";
-import type { Circuit } from "@/solver/types";
 
 /** Largest netlist accepted by the solve and save endpoints, in UTF-8 bytes. */
 export const MAX_NETLIST_BYTES = 200_000;
@@ -20,29 +18,32 @@ export const MAX_MC_INLINE_SAMPLES = 200;
 export const SOLVE_RATE_PER_MINUTE = 120;
 
 /**
- * Solver work of a compiled netlist in "sweep points", the one price every limit below uses:
- * points × (1 + Monte Carlo samples + vary values + 2 × sensitivity parts). A sensitivity study
- * re-solves the sweep twice per part value (central differences); parts with a value of 0 are
- * counted too (a slight overestimate, so the price stays an upper bound).
- */
-export function solveWork(
-  circuit: Pick<Circuit, "sweep" | "monteCarlo" | "vary" | "sensitivity" | "parts">,
-): number {
-  const points = sweepLength(circuit.sweep);
-  const samples = circuit.monteCarlo?.samples ?? 0;
-  const variants = circuit.vary?.values.length ?? 0;
-  const sensitivityParts = (circuit.sensitivity?.length ?? 0) > 0 ? circuit.parts.length : 0;
-  return (Number.isFinite(points) ? points : 0) * (1 + samples + variants + 2 * sensitivityParts);
-}
-
-/**
- * The work budget of one request. A preview (`POST /api/solve`) over it answers 422 ("save it as a
- * run: it will be queued"); a saved run over it (or with more than MAX_MC_INLINE_SAMPLES samples) is
- * not solved inside the request: it is saved as 'queued' and solved by `npm run worker`
- * (lib/jobs.ts). 200 000 is about 0.3 s of solver time on one core here (a 400-point oscillator
- * with 500 samples).
+ * Solver work of a run in "sweep points": points × (1 + Monte Carlo samples + vary values).
+ * A run above this (or with more than MAX_MC_INLINE_SAMPLES samples) is not solved inside the
+ * request: it is saved as 'queued' and solved by `npm run worker` (lib/jobs.ts). 200 000 is about
+ * 0.3 s of solver time on one core here (a 400-point oscillator with 500 samples).
  */
 export const MAX_INLINE_WORK = 200_000;
+
+/**
+ * Price of one steady-oscillation solve (`steady LOOP harmonics=N`) in the same "sweep points":
+ * STEADY_BASE_WORK (poles, describing-function search) + STEADY_WORK_PER_HARMONIC·N (the linear
+ * solves at each harmonic) + (2N+1)³/STEADY_CUBE_DIVISOR (the dense Newton steps). About 50 000 at
+ * 15 harmonics (~0.1 s), 170 000 at 63, 1.9 M at 255 (queued). It is paid again per vary value and,
+ * when a steady measure is sampled, per Monte Carlo sample.
+ */
+export const STEADY_BASE_WORK = 20_000;
+export const STEADY_WORK_PER_HARMONIC = 2_000;
+export const STEADY_CUBE_DIVISOR = 100;
+
+/**
+ * Price of one integrated noise measure (`noise(N) from F1 to F2`, `input-noise(…) from …`) in sweep
+ * points: the adaptive quadrature solves at its own nodes, typically a few hundred (15 per panel, one
+ * panel per decade and the splits), at most 6 000 (MAX_NOISE_EVALUATIONS in
+ * solver/engine/noise-measures.ts). A `noise` statement's densities ride on the sweep's factors
+ * (about 1.0× the plain sweep, `npm run bench`) and are not priced.
+ */
+export const NOISE_BAND_WORK = 1_000;
 
 /** Largest JSON request body read by the API (a 2 MB measurement CSV, JSON-escaped), in bytes. */
 export const MAX_JSON_BODY_BYTES = 5_000_000;

@@ -39,6 +39,16 @@ export const OPTIONS: Record<string, string> = {
   gain: "Open-loop DC gain A0 of an `opamp`: `gain=100k`.",
   gbw: "Gain-bandwidth of an `opamp` (single pole): `gbw=1MHz`. Alone it means A(s) = 2π·F/s.",
   rout: "Output resistance of an `opamp`: `rout=50`.",
+  swing:
+    "Output limit of an `opamp`: `swing=12V` keeps the output within ±12 V in the steady oscillation; small-signal analyses ignore it.",
+  pole2:
+    "Second pole of an `opamp` (needs `gbw` or `gain`): `pole2=20MHz` makes A(s) = A0/((1 + s·A0/ωT)(1 + s/(2π·F))) in every small-signal analysis.",
+  en: "Input noise voltage density of an `opamp`, V/√Hz at in+: `en=4nV`.",
+  in: "Input noise current density of an `opamp`, A/√Hz into each input: `in=0.5pA`.",
+  fc: "1/f corner of an `opamp`'s `en` and `in`: density·√(1 + fc/f), `fc=20Hz`.",
+  is: "Saturation current of a `diode` in amperes (default 1e-14): `is=2n`.",
+  n: "Emission coefficient of a `diode` (default 1): `n=1.8`.",
+  harmonics: "Harmonics of a `steady` analysis (default 15, at most 255): `harmonics=31`.",
   seed: "Random seed of `monte-carlo` (the same seed gives the same result): `seed=7`.",
   dist: "Distribution of `monte-carlo` samples: `dist=uniform` (within ±tol) or `dist=normal` (tol = 3σ).",
   method:
@@ -63,7 +73,9 @@ const KIND_DOCS: Record<PartKind, string> = {
   ccvs: "Current-controlled voltage source: volts(p, n) = r · amps(SENSE); SENSE is a vsource or inductor.",
   cccs: "Current-controlled current source: k · amps(SENSE) flows from p through the part to n.",
   opamp:
-    "Operational amplifier, pins in+ in− out. Ideal without options; `gain=A0` finite gain, `gbw=F` single pole, `rout=R` output resistance.",
+    "Operational amplifier, pins in+ in− out. Ideal without options; `gain=A0` finite gain, `gbw=F` single pole, `rout=R` output resistance, `pole2=F` second pole, `swing=V` output limit (steady oscillation only), noise `en=`, `in=`, `fc=`.",
+  diode:
+    "Diode, anode to cathode: i = is·(e^(v/(n·Vt)) − 1), Vt = kT/q at the netlist's `temperature`. Options `is=` (default 1e-14 A), `n=` (default 1). Practically open in small-signal analyses (unbiased).",
 };
 
 const STATEMENT_DOCS: Record<string, string> = {
@@ -86,6 +98,14 @@ const STATEMENT_DOCS: Record<string, string> = {
     "`monte-carlo N [seed=S] [dist=uniform|normal]` — N random samples of every part with `tol`.",
   poles: "`poles` — natural frequencies of the network with its sources zeroed (f, Q, growth per cycle).",
   sensitivity: "`sensitivity MEASURE` — normalized sensitivity of a measure to each part value.",
+  noise:
+    "`noise NAME = volts(…) [input SOURCE]` — output noise density at every frequency, each resistor's and op-amp's share, input-referred with `input`; read it with `noise(NAME) at F` or `noise(NAME) from F1 to F2` (rms).",
+  zeros:
+    "`zeros PROBE` — finite zeros of the transfer from the netlist's one independent source to `volts(…)` or `amps(…)`, drawn with the poles.",
+  temperature:
+    "`temperature 27C` or `temperature 300.15K` — the temperature of diodes and noise (default 27 °C).",
+  steady:
+    "`steady LOOP [harmonics=N] [from=LEVEL]` — the periodic state the oscillator of LOOP settles into once its limiters act (harmonic balance): frequency, amplitude, waveform, distortion, start-up time.",
 };
 
 const FUNCTION_DOCS: Record<string, string> = {
@@ -104,6 +124,15 @@ const FUNCTION_DOCS: Record<string, string> = {
   mag: "`mag(X) at F` — |X| at frequency F (a number or a measure's name).",
   db: "`db(X) at F` — 20·log10|X| at frequency F.",
   phase: "`phase(X) at F` — ∠X in degrees at frequency F.",
+  "group-delay": "`group-delay(X) at F` — −d∠X/dω in seconds at F, exact from the solution's derivative.",
+  "input-noise":
+    "`input-noise(N) at F` or `input-noise(N) from F1 to F2` — noise N referred to its `input` source.",
+  frequency: "`frequency(LOOP)` — frequency of the steady oscillation of LOOP (needs `steady LOOP`), Hz.",
+  amplitude:
+    "`amplitude(PROBE)` — peak amplitude of the fundamental of `volts(…)`/`amps(…)` in the steady oscillation.",
+  thd: "`thd(PROBE)` — total harmonic distortion of the probe in the steady oscillation, percent.",
+  startup:
+    "`startup(LOOP)` — seconds for the small-signal envelope to grow from the `from=` level to the steady amplitude.",
   volts: "`volts(NODE)` or `volts(A, B)` — node voltage to `gnd`, or the voltage of A against B.",
   amps: "`amps(PART)` — current entering the part's first terminal and leaving its second.",
   gnd: "`gnd` — ground, the reference node (0 V) of every voltage.",

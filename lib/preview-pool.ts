@@ -3,7 +3,7 @@ import { availableParallelism } from "node:os";
 import path from "node:path";
 import { Worker } from "node:worker_threads";
 import { AppError } from "@/lib/errors";
-import { type SolveResult, solveNetlist } from "@/solver";
+import { type SolveOptions, type SolveResult, solveNetlist } from "@/solver";
 
 /**
  * Live previews solve on a small pool of worker threads, so a heavy one never blocks the event loop
@@ -19,7 +19,7 @@ export const PREVIEW_TIMEOUT_MS = 30_000;
 type Task = {
   id: number;
   netlist: string;
-  maxPoints: number;
+  options: SolveOptions;
   resolve: (r: SolveResult) => void;
   reject: (e: Error) => void;
 };
@@ -85,7 +85,7 @@ function startSlot(file: string): Slot {
 
 function runInline(task: Task): void {
   try {
-    task.resolve(solveNetlist(task.netlist, { maxPoints: task.maxPoints }));
+    task.resolve(solveNetlist(task.netlist, task.options));
   } catch (err) {
     task.reject(err instanceof Error ? err : new Error(String(err)));
   }
@@ -101,7 +101,7 @@ function dispatch(slot: Slot, task: Task): void {
     void slot.worker.terminate();
   }, PREVIEW_TIMEOUT_MS);
   slot.timer.unref();
-  slot.worker.postMessage({ id: task.id, netlist: task.netlist, maxPoints: task.maxPoints });
+  slot.worker.postMessage({ id: task.id, netlist: task.netlist, options: task.options });
 }
 
 function pump(): void {
@@ -130,10 +130,10 @@ function pump(): void {
 }
 
 /** Solves a preview on the pool (or inline when no thread can start). */
-export function solvePreview(netlist: string, maxPoints: number): Promise<SolveResult> {
+export function solvePreview(netlist: string, options: SolveOptions): Promise<SolveResult> {
   if (waiting.length >= MAX_WAITING) return Promise.reject(busy());
   return new Promise<SolveResult>((resolve, reject) => {
-    waiting.push({ id: nextId++, netlist, maxPoints, resolve, reject });
+    waiting.push({ id: nextId++, netlist, options, resolve, reject });
     pump();
   });
 }

@@ -13,6 +13,8 @@ import { assemble, buildMna, type MnaSystem } from "../solver/engine/mna";
 import { sweepFrequencies } from "../solver/engine/sweep";
 import { solveNetlistParallel, stopSampleWorkers, workersUnavailableReason } from "../solver/parallel";
 import type { Part } from "../solver/types";
+import { noiseCase } from "./bench-noise";
+import { steadyCase } from "./bench-steady";
 
 export interface BenchRow {
   name: string;
@@ -216,6 +218,9 @@ function monteCarloCase(label: string, threads: number): BenchCase {
 }
 
 BENCH_CASES.push(
+  noiseCase(100),
+  steadyCase(15, 200),
+  steadyCase(63, 2000),
   monteCarloCase("in-thread", 0),
   monteCarloCase("2 worker threads, cold (incl. start)", 2),
   monteCarloCase("2 worker threads, warm", 2),

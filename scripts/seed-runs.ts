@@ -2,7 +2,15 @@ import { createHash } from "node:crypto";
 import type { Transaction } from "sequelize";
 import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
 import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
-import { LINE_DRIVER, LOWPASS_STAGE2, PILOT_NOTCH, WIEN_1K, WIEN_REV_A, WIEN_REV_B } from "./demo/netlists";
+import {
+  LINE_DRIVER,
+  LOWPASS_STAGE2,
+  PILOT_NOTCH,
+  WIEN_1K,
+  WIEN_REV_A,
+  WIEN_REV_B,
+  WIEN_REV_C,
+} from "./demo/netlists";
 import type { DemoSeed } from "./seed";
 
 type SeedUsers = Pick<DemoSeed["users"], "owner" | "designer" | "reviewer">;
@@ -68,7 +76,38 @@ function measure(run: Run, name: string): number | null {
 export async function seedRuns(seed: Pick<DemoSeed, "users" | "projects" | "transaction">): Promise<void> {
   const { users, projects, transaction: t } = seed;
   await seedOscillator(t, projects.oscillator, users);
+  await seedLimitedOscillator(t, projects.oscillator, users);
   await seedFilter(t, projects.filter, users);
+}
+
+/** Title of the diode-limited demo run (bench readings of the demo attach to it). */
+export const LIMITED_OSCILLATOR_TITLE = "Bridge oscillator rev C, diode amplitude control";
+
+/**
+ * The diode-limited variant with its steady oscillation (harmonic balance) and a Monte Carlo of the
+ * steady measures. Added once, also to a project seeded before it existed.
+ */
+async function seedLimitedOscillator(
+  t: Transaction,
+  project: Project,
+  users: SeedUsers,
+): Promise<Run | null> {
+  const existing = await Run.findOne({
+    where: { projectId: project.id, title: LIMITED_OSCILLATOR_TITLE },
+    transaction: t,
+  });
+  if (existing) return null;
+  const run = await saveRun(t, project.id, users.designer, LIMITED_OSCILLATOR_TITLE, WIEN_REV_C, 1);
+  const note = await Comment.create(
+    {
+      runId: run.id,
+      authorId: users.designer.id,
+      body: "Diodes across part of the feedback resistor hold the level near 4 V; the steady analysis puts the distortion under 5 %.",
+    },
+    { transaction: t },
+  );
+  await backdate(t, "comments", note.id, 0.8);
+  return run;
 }
 
 async function seedOscillator(t: Transaction, project: Project, users: SeedUsers): Promise<void> {
@@ -181,6 +220,11 @@ async function seedBenchSweep(t: Transaction, project: Project, uploader: User, 
     { transaction: t },
   );
   await backdate(t, "measurements", m.id, 8);
+  // Drawn on rev A's plot: bench data shows on a run only when attached to it.
+  await sequelize.query(
+    "INSERT INTO run_bench_overlays (run_id, measurement_id) VALUES (:run, :m) ON CONFLICT DO NOTHING",
+    { replacements: { run: run.id, m: m.id }, transaction: t },
+  );
 }
 
 async function seedFilter(t: Transaction, project: Project, users: SeedUsers): Promise<void> {
@@ -249,6 +293,7 @@ export async function seedDemoRuns(): Promise<boolean> {
   if (!oscillator || !filter) return false;
   await sequelize.transaction(async (transaction) => {
     await seedOscillator(transaction, oscillator, users);
+    await seedLimitedOscillator(transaction, oscillator, users);
     await seedFilter(transaction, filter, users);
   });
   return true;

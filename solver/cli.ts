@@ -8,7 +8,7 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { resultToCsv } from "./csv";
 import { solveNetlist } from "./index";
-import type { SolveResult, SolveSuccess } from "./types";
+import type { NoiseResult, SolveResult, SolveSuccess } from "./types";
 
 const USAGE = "usage: npm run --silent solve -- FILE [--json | --csv]";
 
@@ -49,12 +49,34 @@ const PREFIXES: [number, string][] = [
 ];
 
 /** A number with an SI prefix and 6 significant digits: 1591.55 → "1.59155 k". */
-export function formatSi(value: number, unit: string): string {
+export function formatSi(value: number, unit: string, prefixed = unit === "Hz" || unit === "V/√Hz"): string {
   if (!Number.isFinite(value)) return `${value} ${unit}`.trim();
-  if (unit !== "Hz") return `${Number(value.toPrecision(6))}${unit ? ` ${unit}` : ""}`;
+  if (!prefixed) return `${Number(value.toPrecision(6))}${unit ? ` ${unit}` : ""}`;
   const abs = Math.abs(value);
   const [scale, prefix] = PREFIXES.find(([s]) => abs >= s) ?? [1, ""];
   return `${Number((value / scale).toPrecision(6))} ${prefix}${unit}`;
+}
+
+/** A noise statement in a few lines: density at the sweep's ends, the largest contributions at its middle. */
+function noiseSummary(n: NoiseResult, freqs: number[]): string[] {
+  const k = Math.floor(freqs.length / 2);
+  const d = (x: number | null | undefined) => (x == null ? "none" : formatSi(x, "V/√Hz"));
+  const out = [`Noise ${n.name} at ${n.probe} (${Number(n.temperature.toPrecision(6))} K)`];
+  out.push(
+    `  ${formatSi(freqs[0] ?? 0, "Hz")}: ${d(n.density[0])}; ${formatSi(freqs[k] ?? 0, "Hz")}: ${d(n.density[k])}; ${formatSi(freqs[freqs.length - 1] ?? 0, "Hz")}: ${d(n.density[freqs.length - 1])}`,
+  );
+  if (n.inputDensity)
+    out.push(`  referred to ${n.input} at ${formatSi(freqs[k] ?? 0, "Hz")}: ${d(n.inputDensity[k])}`);
+  const total = n.density[k] ?? 0;
+  const top = n.contributions
+    .map((c) => ({ label: c.source === "thermal" ? c.part : `${c.part} ${c.source}`, v: c.density[k] ?? 0 }))
+    .sort((a, b) => b.v - a.v)
+    .slice(0, 5);
+  for (const c of top) {
+    const share = total > 0 ? ` (${((c.v * c.v * 100) / (total * total)).toFixed(1)} %)` : "";
+    out.push(`  ${c.label}: ${d(c.v)}${share}`);
+  }
+  return out;
 }
 
 /** The readable summary: title, measures, checks, studies, warnings, stats. */
@@ -99,6 +121,34 @@ export function toSummary(r: SolveSuccess): string {
         `  s = ${Number(p.re.toPrecision(6))} ${p.im < 0 ? "-" : "+"} j${Number(Math.abs(p.im).toPrecision(6))} rad/s (${formatSi(p.frequencyHz, "Hz")}, Q ${p.q === null ? "none" : Number(p.q.toPrecision(4))}${grow})`,
       );
     }
+  }
+  if (r.zeros?.length) {
+    out.push("", "Zeros");
+    for (const z of r.zeros) {
+      out.push(
+        `  ${z.probe}: s = ${Number(z.re.toPrecision(6))} ${z.im < 0 ? "-" : "+"} j${Number(Math.abs(z.im).toPrecision(6))} rad/s (${formatSi(z.frequencyHz, "Hz")}, Q ${z.q === null ? "none" : Number(z.q.toPrecision(4))})`,
+      );
+    }
+  }
+  for (const n of r.noise ?? []) out.push("", ...noiseSummary(n, r.frequencies));
+  const delays = r.traces.filter((t) => t.groupDelay?.some((d) => d !== null));
+  if (delays.length > 0) {
+    out.push("", "Group delay (over the sweep)");
+    for (const t of delays) {
+      const d = t.groupDelay!.filter((x): x is number => x !== null);
+      out.push(
+        `  ${t.name}: ${formatSi(Math.min(...d), "s", true)} … ${formatSi(Math.max(...d), "s", true)}`,
+      );
+    }
+  }
+  if (r.steady) {
+    const st = r.steady;
+    out.push("", `Steady oscillation of loop ${st.loop}: ${st.summary}`);
+    for (const p of st.probes)
+      out.push(
+        `  ${p.probe}: ${formatSi(p.amplitudes[0] ?? 0, p.probe.startsWith("amps") ? "A" : "V")} peak, THD ${Number(p.thdPercent.toPrecision(3))} %`,
+      );
+    for (const n of st.notes) out.push(`  note: ${n}`);
   }
   if (r.sensitivity?.length) {
     out.push("", "Sensitivity");

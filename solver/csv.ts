@@ -1,4 +1,4 @@
-import type { SolveSuccess, TraceResult } from "./types";
+import type { NoiseResult, SolveSuccess, TraceResult } from "./types";
 
 /**
  * A text cell that a spreadsheet would run as a formula (starting with =, +, -, @, tab or CR) gets a
@@ -24,21 +24,34 @@ export function csvNumber(value: number | null | undefined): string {
   return typeof value === "number" && Number.isFinite(value) ? String(value) : "";
 }
 
-/** The CSV header for the given traces: frequency_hz, then re, im, dB and degrees per trace. */
-export function csvHeader(traces: Pick<TraceResult, "name">[]): string {
+type CsvTrace = Pick<TraceResult, "name"> & { groupDelay?: unknown };
+type CsvNoise = Pick<NoiseResult, "name" | "inputDensity">;
+
+/**
+ * The CSV header: frequency_hz, then re, im, dB and degrees per trace (and `_delay_s` when the trace
+ * has a group delay), then per noise `<name>_noise_v_per_rthz` (and `_input_noise_v_per_rthz`).
+ */
+export function csvHeader(traces: CsvTrace[], noise: CsvNoise[] = []): string {
   const cells = ["frequency_hz"];
   for (const t of traces) {
     for (const suffix of ["re", "im", "db", "deg"]) cells.push(csvField(`${t.name}_${suffix}`));
+    if (t.groupDelay) cells.push(csvField(`${t.name}_delay_s`));
+  }
+  for (const n of noise) {
+    cells.push(csvField(`${n.name}_noise_v_per_rthz`));
+    if (n.inputDensity) cells.push(csvField(`${n.name}_input_noise_v_per_rthz`));
   }
   return cells.join(",");
 }
 
 /**
  * A solved sweep as RFC 4180 CSV (CRLF line ends): one row per frequency, columns
- * `frequency_hz,<trace>_re,<trace>_im,<trace>_db,<trace>_deg,…` in the order of `result.traces`.
+ * `frequency_hz,<trace>_re,<trace>_im,<trace>_db,<trace>_deg[,<trace>_delay_s],…` in the order of
+ * `result.traces`, then the noise densities (V/√Hz) of `result.noise`.
  */
-export function resultToCsv(result: Pick<SolveSuccess, "frequencies" | "traces">): string {
-  const rows = [csvHeader(result.traces)];
+export function resultToCsv(result: Pick<SolveSuccess, "frequencies" | "traces" | "noise">): string {
+  const noise = result.noise ?? [];
+  const rows = [csvHeader(result.traces, noise)];
   result.frequencies.forEach((f, k) => {
     const cells = [csvNumber(f)];
     for (const t of result.traces) {
@@ -48,6 +61,11 @@ export function resultToCsv(result: Pick<SolveSuccess, "frequencies" | "traces">
         csvNumber(t.magnitudeDb[k]),
         csvNumber(t.phaseDeg[k]),
       );
+      if (t.groupDelay) cells.push(csvNumber(t.groupDelay[k]));
+    }
+    for (const n of noise) {
+      cells.push(csvNumber(n.density[k]));
+      if (n.inputDensity) cells.push(csvNumber(n.inputDensity[k]));
     }
     rows.push(cells.join(","));
   });

@@ -31,6 +31,8 @@ export interface SolveOptions {
   maxPoints?: number;
   /** Most Monte Carlo samples to run (the service's per-request limit). */
   maxSamples?: number;
+  /** Leave the steady oscillation out, with this reason (a preview over the service's budget). */
+  deferSteady?: string;
 }
 
 /** Compile and analyse netlist text; every failure is a `NetlistError` with line and column. */

@@ -6,7 +6,7 @@
 import { makeTrace } from "./engine/trace";
 import type { SolveSuccess, TraceResult, VariantResult } from "./types";
 
-export type StoredTrace = Pick<TraceResult, "name" | "kind" | "re" | "im">;
+export type StoredTrace = Pick<TraceResult, "name" | "kind" | "re" | "im" | "groupDelay">;
 
 export type StoredResult = Omit<SolveSuccess, "traces" | "variants"> & {
   /** Marks the compact form (results saved before it existed hold full traces). */
@@ -15,10 +15,17 @@ export type StoredResult = Omit<SolveSuccess, "traces" | "variants"> & {
   variants?: (Omit<VariantResult, "traces"> & { traces: StoredTrace[] })[];
 };
 
-const strip = (t: TraceResult): StoredTrace => ({ name: t.name, kind: t.kind, re: t.re, im: t.im });
+/** The group delay is kept: it comes from dX/ds, which re/im alone cannot give back. */
+const strip = (t: TraceResult): StoredTrace => ({
+  name: t.name,
+  kind: t.kind,
+  re: t.re,
+  im: t.im,
+  ...(t.groupDelay ? { groupDelay: t.groupDelay } : {}),
+});
 
 const rebuild = (t: StoredTrace | TraceResult): TraceResult =>
-  "magnitudeDb" in t && t.magnitudeDb ? t : makeTrace(t.name, t.kind, t.re, t.im);
+  "magnitudeDb" in t && t.magnitudeDb ? t : makeTrace(t.name, t.kind, t.re, t.im, t.groupDelay);
 
 /** The result without its derived trace columns. */
 export function compactResult(result: SolveSuccess): StoredResult {

@@ -48,7 +48,8 @@ export type PartKind =
   | "vccs"
   | "ccvs"
   | "cccs"
-  | "opamp";
+  | "opamp"
+  | "diode";
 
 /** Ground's name (the only spelling the language accepts). */
 export const GROUND = "gnd";
@@ -72,7 +73,23 @@ export interface Part {
   /** ccvs/cccs: full name of the sensing vsource or inductor. */
   sense?: string;
   /** opamp options; all absent means the ideal nullor. */
-  opamp?: { gain?: number; gbw?: number; rout?: number };
+  opamp?: {
+    gain?: number;
+    gbw?: number;
+    rout?: number;
+    /** Output limit ±V (steady oscillation only). */
+    swing?: number;
+    /** Second pole, Hz (LANGUAGE-NEXT §6). */
+    pole2?: number;
+    /** Input noise voltage density at the + input, V/√Hz. */
+    en?: number;
+    /** Input noise current density into each input, A/√Hz. */
+    in?: number;
+    /** 1/f corner of en and in, Hz. */
+    fc?: number;
+  };
+  /** diode options: saturation current (A), emission coefficient, and the junction temperature (K). */
+  diode?: { is: number; n: number; kelvin: number };
   /** Where the part line is (for block instances: the line inside the block). */
   span: SourceSpan;
 }
@@ -134,16 +151,45 @@ export type MeasureFunction =
   | "gain-margin"
   | "mag"
   | "db"
-  | "phase";
+  | "phase"
+  | "group-delay"
+  | "noise"
+  | "input-noise"
+  | "frequency"
+  | "amplitude"
+  | "thd"
+  | "startup";
 
 export interface MeasureDef {
   name: string;
   fn: MeasureFunction;
-  /** The trace or loop name the function reads. */
+  /** The trace or loop name the function reads (`amplitude`/`thd`: the probe's text). */
   target: string;
+  /** `amplitude`/`thd`: the probe read from the steady state. */
+  probe?: Probe;
   level?: Level;
   /** `mag/db/phase … at F`: a frequency in Hz or the name of an earlier measure. */
   at?: { hz: number } | { measure: string };
+  /** `noise/input-noise … from F1 to F2`: the band integrated over. */
+  band?: { from: { hz: number } | { measure: string }; to: { hz: number } | { measure: string } };
+  span: SourceSpan;
+}
+
+/** `noise NAME = PROBE [input SOURCE]` (NETLIST.md "Noise"). */
+export interface NoiseDef {
+  name: string;
+  /** A voltage probe: volts(NODE) or volts(A, B). */
+  probe: Probe;
+  text: string;
+  /** The independent source the density is referred to, if any. */
+  input?: string;
+  span: SourceSpan;
+}
+
+/** `zeros PROBE`: the transfer's finite zeros from the one independent source to PROBE. */
+export interface ZerosDef {
+  probe: Probe;
+  text: string;
   span: SourceSpan;
 }
 
@@ -193,6 +239,24 @@ export interface Circuit {
   monteCarlo: MonteCarloDef | null;
   poles: boolean;
   sensitivity: { measure: string; span: SourceSpan }[];
+  /** `noise` statements (absent or empty: none). */
+  noise?: NoiseDef[];
+  /** `zeros` statements (absent or empty: none). */
+  zeros?: ZerosDef[];
+  /** Temperature in kelvin (`temperature`, default 27 °C = 300.15 K): diodes and noise. */
+  temperature: number;
+  /** `steady LOOP …`: the steady oscillation of a loop, or null. */
+  steady: SteadyDef | null;
+}
+
+/** `steady LOOP [harmonics=N] [from=LEVEL]` (NETLIST.md "Steady oscillation"). */
+export interface SteadyDef {
+  loop: string;
+  /** Number of harmonics N (default 15). */
+  harmonics: number;
+  /** Start level of the envelope at the cut node, volts (default 1 µV). */
+  from: number;
+  span: SourceSpan;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -205,6 +269,37 @@ export interface TraceResult {
   im: number[];
   magnitudeDb: number[];
   phaseDeg: number[];
+  /** −d∠X/dω in seconds at each frequency, exact from dX/ds; null where |X| = 0. */
+  groupDelay?: (number | null)[];
+}
+
+export interface NoiseContribution {
+  part: string;
+  /** Which noise of the part: a resistor's thermal noise, an op-amp's `en` or `in`. */
+  source: "thermal" | "en" | "in";
+  /** This source's share of the output density, V/√Hz (shares add in power); null where infinite. */
+  density: (number | null)[];
+}
+
+export interface NoiseResult {
+  name: string;
+  probe: string;
+  /** Output noise density, V/√Hz, at each frequency of the sweep (null where infinite: 1/f at 0 Hz). */
+  density: (number | null)[];
+  /** Input-referred density (output ÷ |gain from the input source|), or null without `input`. */
+  inputDensity: (number | null)[] | null;
+  input: string | null;
+  contributions: NoiseContribution[];
+  /** Kelvin the resistors' noise was computed at. */
+  temperature: number;
+}
+
+export interface ZeroResult {
+  probe: string;
+  re: number;
+  im: number;
+  frequencyHz: number;
+  q: number | null;
 }
 
 export interface MeasureResult {
@@ -278,6 +373,42 @@ export interface SensitivityResult {
   value: number | null;
 }
 
+/** One probe of the steady oscillation (NETLIST.md "Steady oscillation"). */
+export interface SteadyProbe {
+  probe: string;
+  /** Peak amplitude of harmonics 1…N (one-sided: a sine of peak A has amplitudes[0] = A). */
+  amplitudes: number[];
+  /** Phase of harmonics 1…N in degrees, cosine reference, the cut node's fundamental at 0°. */
+  phasesDeg: number[];
+  /** The mean (harmonic 0). */
+  dc: number;
+  thdPercent: number;
+  /** One period, uniformly sampled (t from 0 to T exclusive). */
+  waveform: { t: number[]; value: number[] };
+}
+
+/** The steady oscillation of a loop; null figures come with their reason. */
+export interface SteadyResult {
+  loop: string;
+  /** null when there is no steady oscillation (reason says why). */
+  frequencyHz: number | null;
+  harmonics: number;
+  startup: { sigma: number; seconds: number | null; cycles: number | null; from: number } | null;
+  probes: SteadyProbe[];
+  /** Newton's final residual (largest harmonic mismatch relative to the largest harmonic), and steps. */
+  residual: number | null;
+  iterations: number;
+  /** Why there is no result (it does not start, nothing limits it, Newton did not converge), else null. */
+  reason: string | null;
+  /** The verdict in one sentence. */
+  summary: string;
+  /** The describing-function estimate the solve started from (fundamental only), when found. */
+  estimate: { frequencyHz: number; amplitude: number; node: string } | null;
+  /** Envelope growth at the cut node: time (s) and peak level (V), from the start level to the steady amplitude. */
+  envelope: { t: number[]; level: number[] } | null;
+  notes: string[];
+}
+
 /** A loop's gain where its phase crosses 0°, refined on the circuit (null with a reason when it does not cross). */
 export interface ZeroPhaseLoop {
   loop: string;
@@ -312,6 +443,9 @@ export interface SolveSuccess {
   /** Each loop's refined gain at zero phase (the oscillator verdict reads these). */
   zeroPhase?: ZeroPhaseLoop[];
   sensitivity?: SensitivityResult[];
+  noise?: NoiseResult[];
+  zeros?: ZeroResult[];
+  steady?: SteadyResult;
 }
 
 export interface SolveFailure {

@@ -4,10 +4,12 @@ import type { SolveSuccess } from "@/solver/types";
 import { analysisSections } from "./analysis-math";
 import { JobProgress } from "./job-progress";
 import { MonteCarloView } from "./monte-carlo-view";
+import { NoiseView } from "./noise-view";
 import { oscillatorVerdict } from "./oscillator-grade";
 import { OscillatorVerdictCard } from "./oscillator-verdict";
 import { PoleMap } from "./pole-map";
 import { SensitivityChart } from "./sensitivity-chart";
+import { SteadyView } from "./steady-view";
 import { VariantsView } from "./variants-view";
 
 export interface AnalysesPanelProps {
@@ -37,7 +39,14 @@ export function AnalysesPanel({ result, runId, status, canCancel = true }: Analy
       const verdict = oscillatorVerdict(result);
       if (verdict) sections.push(<OscillatorVerdictCard key="verdict" verdict={verdict} />);
     }
-    if (section === "poles" && result.poles) sections.push(<PoleMap key="poles" poles={result.poles} />);
+    if (section === "steady" && result.steady)
+      sections.push(<SteadyView key="steady" steady={result.steady} />);
+    if (section === "poles")
+      sections.push(<PoleMap key="poles" poles={result.poles ?? []} zeros={result.zeros ?? []} />);
+    if (section === "noise")
+      for (const n of result.noise ?? [])
+        sections.push(<NoiseView key={`noise-${n.name}`} noise={n} frequencies={result.frequencies} />);
+
     if (section === "variants" && result.variants) {
       sections.push(
         <VariantsView

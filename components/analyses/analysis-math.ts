@@ -35,7 +35,15 @@ export function sortedPoles(poles: PoleResult[]): PoleResult[] {
   return [...poles].sort((a, b) => a.frequencyHz - b.frequencyHz || b.im - a.im);
 }
 
-export type AnalysisSection = "job" | "verdict" | "poles" | "variants" | "monteCarlo" | "sensitivity";
+export type AnalysisSection =
+  | "job"
+  | "verdict"
+  | "steady"
+  | "poles"
+  | "noise"
+  | "variants"
+  | "monteCarlo"
+  | "sensitivity";
 
 /**
  * Which sections the analyses panel shows for a run, in order — one rule for the panel and for the
@@ -51,7 +59,10 @@ export function analysisSections(result: SolveSuccess | null | undefined, status
   // The verdict is about oscillators: shown for a circuit with a loop or a growing pole.
   const verdict = hasLoop || growing ? oscillatorVerdict(result) : null;
   if (verdict && (verdict.pole || verdict.loop?.gain != null)) out.push("verdict");
-  if (result.poles && result.poles.length > 0) out.push("poles");
+  if (result.steady) out.push("steady");
+  if ((result.poles && result.poles.length > 0) || (result.zeros && result.zeros.length > 0))
+    out.push("poles");
+  if (result.noise && result.noise.length > 0) out.push("noise");
   if (result.variants && result.variants.length > 0) out.push("variants");
   if (result.monteCarlo) out.push("monteCarlo");
   if (result.sensitivity && result.sensitivity.length > 0) out.push("sensitivity");

@@ -128,6 +128,8 @@ function detail(
   } else {
     parts.push("Add `poles` to the netlist to see the growth per cycle.");
   }
+  // The steady oscillation (harmonic balance) makes the same start decision, from the same poles.
+  if (result.steady) parts.push(`Steady state: ${result.steady.summary}.`);
   if (weak) {
     parts.push(
       `Monte Carlo: only ${pct(weak.yield)} of ${result.monteCarlo!.samples} samples pass \`${weak.expression}\` — some boards built to these tolerances would not start.`,

@@ -1,19 +1,29 @@
 "use client";
 
 import type { Layout } from "plotly.js";
+import { useState } from "react";
 import { plotColors } from "@/components/plot/palette";
 import { formatQuantity } from "@/solver/format";
-import type { PoleResult } from "@/solver/types";
+import type { PoleResult, ZeroResult } from "@/solver/types";
 import { sortedPoles } from "./analysis-math";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
+import { dominantView } from "./noise-math";
 import { SectionTitle } from "./section";
 
 const RHP_FILL = "rgba(176, 39, 31, 0.08)";
 
-/** Pole map: σ against jω with the right half-plane shaded, and a table of f, Q, growth per cycle. */
-export function PoleMap({ poles }: { poles: PoleResult[] }) {
+/**
+ * Pole–zero map: σ against jω with the right half-plane shaded (poles ×, zeros ○), zoomed to the
+ * dominant roots (within 100× the smallest |s|) with the far ones listed, and a table of f, Q,
+ * growth per cycle.
+ */
+export function PoleMap({ poles, zeros = [] }: { poles: PoleResult[]; zeros?: ZeroResult[] }) {
   const rows = sortedPoles(poles);
-  const reach = Math.max(1, ...poles.map((p) => Math.max(Math.abs(p.re), Math.abs(p.im))));
+  const [all, setAll] = useState(false);
+  const view = dominantView(poles, zeros);
+  const reach = all
+    ? Math.max(1, ...[...poles, ...zeros].map((p) => Math.max(Math.abs(p.re), Math.abs(p.im))))
+    : view.reach;
   const span = reach * 1.15;
   const unstable = poles.filter((p) => p.re > 0);
   const layout: Partial<Layout> = {
@@ -68,7 +78,7 @@ export function PoleMap({ poles }: { poles: PoleResult[] }) {
     <section aria-labelledby="poles-title" className="space-y-3">
       <SectionTitle
         id="poles-title"
-        title="Natural frequencies"
+        title={zeros.length > 0 ? "Poles and zeros" : "Natural frequencies"}
         note={
           unstable.length > 0 ? `${unstable.length} in the right half-plane` : "all in the left half-plane"
         }
@@ -93,7 +103,15 @@ export function PoleMap({ poles }: { poles: PoleResult[] }) {
                     color: poles.map((p) => (p.re > 0 ? plotColors.difference : plotColors.text)),
                   },
                 },
-                hovertemplate: "σ = %{x:.4g}<br>ω = %{y:.6g}<extra></extra>",
+                hovertemplate: "pole σ = %{x:.4g}<br>ω = %{y:.6g}<extra></extra>",
+              },
+              {
+                type: "scatter",
+                mode: "markers",
+                x: zeros.map((z) => z.re),
+                y: zeros.map((z) => z.im),
+                marker: { symbol: "circle-open", size: 11, line: { width: 2 }, color: plotColors.marker },
+                hovertemplate: "zero σ = %{x:.4g}<br>ω = %{y:.6g}<extra></extra>",
               },
             ]}
             layout={layout}
@@ -158,6 +176,32 @@ export function PoleMap({ poles }: { poles: PoleResult[] }) {
           <p className="text-caption text-ink-500 mt-2">
             Amplitude change per cycle is e^(2πσ/ω); above ×1 an oscillation grows, below it dies away.
           </p>
+        </div>
+        <div className="text-caption text-ink-500 space-y-1 lg:col-span-2" data-testid="far-roots">
+          {view.far.length > 0 ? (
+            <p>
+              {all ? "Showing every root. " : `Zoomed to the dominant roots; beyond the view: `}
+              {all
+                ? null
+                : view.far
+                    .map((r) => `${r.kind} at ${formatQuantity(r.frequencyHz, "Hz", 4)}`)
+                    .join(", ")}{" "}
+              <button type="button" className="text-copper-700 underline" onClick={() => setAll(!all)}>
+                {all ? "zoom to the dominant roots" : "show all"}
+              </button>
+            </p>
+          ) : null}
+          {zeros.length > 0 ? (
+            <p>
+              Zeros ({zeros[0]!.probe}):{" "}
+              {zeros
+                .map(
+                  (z) =>
+                    `${formatQuantity(z.re, "", 4)} ${z.im < 0 ? "−" : "+"} j${formatQuantity(Math.abs(z.im), "", 5)} (${formatQuantity(z.frequencyHz, "Hz", 4)})`,
+                )
+                .join("; ")}
+            </p>
+          ) : null}
         </div>
       </div>
     </section>

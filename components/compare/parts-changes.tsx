@@ -21,11 +21,12 @@ const UNIT: Record<PartKind, string> = {
   ccvs: "Ω",
   cccs: "",
   opamp: "",
+  diode: "",
 };
 
 function describe(p: PartSummary | null): string {
   if (!p) return "—";
-  const value = p.kind === "opamp" ? "" : ` ${formatQuantity(p.value, UNIT[p.kind])}`;
+  const value = p.kind === "opamp" || p.kind === "diode" ? "" : ` ${formatQuantity(p.value, UNIT[p.kind])}`;
   const options = p.options.length > 0 ? ` ${p.options.join(" ")}` : "";
   return `${p.kind} ${p.nodes.join(" ")}${value}${options}`;
 }

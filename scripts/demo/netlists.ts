@@ -121,3 +121,36 @@ measure pm        = phase-margin(T)
 measure peaking   = peak(A)
 check pm > 45deg
 `;
+
+export const WIEN_REV_C = `title CV-200 reference oscillator, rev C (diode amplitude control)
+
+let R = 10k
+let C = 10n                       # f0 about 1.59 kHz
+
+Rs:  resistor  amp_out mid     R   tol=1%
+Cs:  capacitor mid     pos     C   tol=5%
+Rp:  resistor  pos     gnd     R   tol=1%
+Cp:  capacitor pos     gnd     C   tol=5%
+U1:  opamp     pos     neg     amp_out gain=100k gbw=1MHz swing=13V
+Rg:  resistor  neg     gnd     10k tol=1%
+Rf1: resistor  neg     lim     15k tol=1%
+Rf2: resistor  lim     amp_out 7.5k tol=1%   # K = 3.25 small-signal, about 2.5 once D1/D2 conduct
+D1:  diode     lim     amp_out
+D2:  diode     amp_out lim
+
+temperature 27C
+sweep 10Hz to 100kHz log 100 per decade
+show  bridge = volts(pos) / volts(amp_out)
+loop  T cut amp_out before Rs
+steady T harmonics=15
+measure fosc   = frequency(T)
+measure level  = amplitude(volts(amp_out))
+measure purity = thd(volts(amp_out))
+measure settle = startup(T)
+check fosc between 1.5kHz and 1.7kHz
+check level between 3V and 6V
+check purity < 5%
+check settle < 50m
+poles
+monte-carlo 60 seed=23
+`;

@@ -1,4 +1,4 @@
-import { floatingNodes } from "./floating";
+import { floatingNodes, voltageLoop } from "./floating";
 import { assemble, type MnaSystem } from "./mna";
 import { SparseComplexLU } from "./sparse-lu";
 
@@ -95,6 +95,14 @@ export class AcSolver {
     return null;
   }
 
+  /**
+   * z with A(s)ᵀ·z = d at the last solved frequency (requires a successful solveAt): the adjoint
+   * solve of noise analysis (noise.ts), reusing the factors. z may alias d. Cost: one solve.
+   */
+  adjoint(dRe: Float64Array, dIm: Float64Array, zRe: Float64Array, zIm: Float64Array): void {
+    this.lu!.solveTransposed(dRe, dIm, zRe, zIm);
+  }
+
   /** dx/ds at the last solved frequency (requires a successful solveAt). Cost: one solve. */
   derivative(): void {
     this.derive(this.xRe, this.xIm, this.dxRe, this.dxIm);
@@ -129,14 +137,22 @@ export class AcSolver {
         `${list} ${floating.length > 1 ? "have" : "has"} no path to gnd through parts that conduct at this frequency`
       );
     }
+    const loop = voltageLoop(this.sys, f);
+    if (loop.length > 0) {
+      return (
+        `at ${formatHz(f)} the circuit equations are singular: ${loop.join(", ")} form a loop of parts that ` +
+        "each fix a voltage (voltage sources, controlled sources, op-amp outputs), so their currents are undetermined"
+      );
+    }
     const cols = this.lu?.singularColumns ?? [];
     const names = cols
       .slice(0, 4)
       .map((j) => this.sys.unknownLabels[j] ?? `unknown ${j}`)
       .join(", ");
     return (
-      `at ${formatHz(f)} the circuit equations are singular (a loop of voltage sources, a cut set of current ` +
-      `sources, or an op-amp without feedback?)${names ? `; undetermined: ${names}` : ""}`
+      `at ${formatHz(f)} the circuit equations are singular to working precision, even with rows and columns ` +
+      `scaled (a cut set of current sources, an op-amp without feedback, or a natural frequency exactly here?)` +
+      `${names ? `; undetermined: ${names}` : ""}`
     );
   }
 }

@@ -3,10 +3,12 @@ import type {
   Circuit,
   MeasureResult,
   NetlistError,
+  NoiseResult,
   Part,
   Probe,
   SolveResult,
   SourceSpan,
+  SteadyResult,
   TraceResult,
   Warning,
 } from "../types";
@@ -16,11 +18,15 @@ import { floatingNodes } from "./floating";
 import { buildLoop, cutNodeName } from "./loops";
 import { computeMeasures } from "./measures";
 import { buildMna, type MnaSystem } from "./mna";
+import { kelvinOf, NoiseProbe, NoiseSweep } from "./noise";
+import type { NoiseSampler } from "./noise-measures";
 import { loopsAtZeroPhase } from "./oscillation";
 import { probeProblem, type Reading, readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
+import { deferredSteady, solveSteady } from "./steady";
+import { steadyMeasure } from "./steady/measures";
 import { sweepFrequencies } from "./sweep";
-import { makeTrace } from "./trace";
+import { groupDelayOf, makeTrace } from "./trace";
 
 export const ENGINE_VERSION = "1.0.0";
 
@@ -28,6 +34,8 @@ export const ENGINE_VERSION = "1.0.0";
 export interface AnalyzeOptions {
   /** Refuse sweeps with more points than this (the service's per-request limit). */
   maxPoints?: number;
+  /** Leave the steady oscillation out, with this reason (a preview over the service's budget). */
+  deferSteady?: string;
 }
 
 export const spanError = (span: SourceSpan | undefined, message: string, hint?: string): NetlistError => ({
@@ -56,6 +64,9 @@ export interface SweepOutcome {
   checks: CheckResult[];
   samplers: Map<string, TraceSampler>;
   system: MnaSystem;
+  /** The `noise` statements' densities over the sweep (only when `full`). */
+  noise: NoiseResult[];
+  steady?: SteadyResult;
 }
 
 /**
@@ -93,6 +104,18 @@ export function sampler(
     },
   };
   return s;
+}
+
+/** A noise statement evaluated at any frequency: a solve of the main system, then the adjoint. */
+function noiseSampler(solver: AcSolver, probe: NoiseProbe): NoiseSampler {
+  return {
+    name: probe.def.name,
+    input: probe.def.input ?? null,
+    at(f) {
+      const err = solver.solveAt(f);
+      return err ?? probe.evaluate(solver, f);
+    },
+  };
 }
 
 /** The probe with every volts(from…) read at node `to` instead. */
@@ -215,16 +238,27 @@ export function sweepCircuit(
   circuit: Circuit,
   freqs: number[],
   warnings: Warning[],
+  deferSteady?: string,
+  full = false,
 ): { ok: true; outcome: SweepOutcome } | { ok: false; errors: NetlistError[] } {
   const planned = planSystems(circuit, warnings);
   if (!planned.ok) return planned;
   const { runs, main } = planned.plan;
+  const withDelay = full;
+  const kelvin = kelvinOf(circuit);
+  const mainSolver = runs[0]!.solver;
+  const noiseProbes = (circuit.noise ?? []).map((d) => new NoiseProbe(d, mainSolver.sys, kelvin));
+  const noiseSweeps = full ? noiseProbes.map((p) => new NoiseSweep(p, freqs.length)) : [];
   const traces: TraceResult[] = [];
   const samplers = new Map<string, TraceSampler>();
   for (const [r, run] of runs.entries()) {
     if (r > 0 && run.traces.length === 0) continue;
     const n = freqs.length;
-    const cols = run.traces.map(() => ({ re: new Array<number>(n), im: new Array<number>(n) }));
+    const cols = run.traces.map(() => ({
+      re: new Array<number>(n),
+      im: new Array<number>(n),
+      delay: withDelay ? new Array<number | null>(n) : null,
+    }));
     for (let k = 0; k < n; k++) {
       const f = freqs[k]!;
       const err = run.solver.solveAt(f);
@@ -234,21 +268,25 @@ export function sweepCircuit(
         const msg = r > 0 ? `loop ${run.traces[0]!.name}: ${runError(run, err)}` : err;
         return { ok: false, errors: [spanError(span, msg)] };
       }
+      if (withDelay) run.solver.derivative();
+      if (r === 0) for (const ns of noiseSweeps) ns.record(run.solver, f);
       for (const [t, tr] of run.traces.entries()) {
         const v = readTrace(tr.reading, run.solver);
-        cols[t]!.re[k] = v.re;
-        cols[t]!.im[k] = v.im;
+        const col = cols[t]!;
+        col.re[k] = v.re;
+        col.im[k] = v.im;
+        if (col.delay) col.delay[k] = groupDelayOf(v);
       }
     }
     for (const [t, tr] of run.traces.entries()) {
-      const { re, im } = cols[t]!;
+      const { re, im, delay } = cols[t]!;
       if (re.some((x, k) => !Number.isFinite(x) || !Number.isFinite(im[k]!))) {
         return {
           ok: false,
           errors: [spanError(tr.span, `${tr.name}: the probe divides by zero somewhere in the sweep`)],
         };
       }
-      traces.push(makeTrace(tr.name, tr.kind, re, im));
+      traces.push(makeTrace(tr.name, tr.kind, re, im, delay ?? undefined));
       samplers.set(tr.name, sampler(run, tr.name, tr.reading, freqs, re, im));
     }
   }
@@ -257,9 +295,31 @@ export function sweepCircuit(
     [...circuit.shows.map((s) => s.name), ...circuit.loops.map((l) => l.name)].map((n, i) => [n, i]),
   );
   traces.sort((a, b) => (order.get(a.name) ?? 0) - (order.get(b.name) ?? 0));
-  const measures = computeMeasures(circuit.measures, samplers);
+  const steady = !circuit.steady
+    ? undefined
+    : deferSteady !== undefined
+      ? deferredSteady(circuit.steady, deferSteady)
+      : solveSteady(circuit, circuit.steady, samplers.get(circuit.steady.loop), middleHz(freqs));
+  const noiseSamplers = new Map(noiseProbes.map((p) => [p.def.name, noiseSampler(mainSolver, p)]));
+  const measures = computeMeasures(
+    circuit.measures,
+    samplers,
+    (def) => steadyMeasure(def, steady),
+    noiseSamplers,
+  );
   const checks = evaluateChecks(circuit.checks, measures);
-  return { ok: true, outcome: { traces, measures, checks, samplers, system: main } };
+  const noise = noiseSweeps.map((ns) => ns.result(kelvin));
+  return {
+    ok: true,
+    outcome: { traces, measures, checks, samplers, system: main, noise, ...(steady ? { steady } : {}) },
+  };
+}
+
+/** The geometric middle of a sweep (the scale of the pole search). */
+export function middleHz(freqs: number[]): number {
+  const a = freqs[0] ?? 1;
+  const b = freqs[freqs.length - 1] ?? a;
+  return Math.sqrt(a * b);
 }
 
 /**
@@ -307,7 +367,7 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
       warnings: warn,
     };
   }
-  const run = sweepCircuit(circuit, freqs, warn);
+  const run = sweepCircuit(circuit, freqs, warn, options.deferSteady, true);
   if (!run.ok) return { ok: false, errors: run.errors, warnings: warn };
   const { outcome } = run;
   return {
@@ -320,6 +380,8 @@ function analyzeUnguarded(circuit: Circuit, warnings: Warning[], options: Analyz
     checks: outcome.checks,
     ...(circuit.loops.length > 0 ? { zeroPhase: loopsAtZeroPhase(circuit, outcome.samplers) } : {}),
     warnings: warn,
+    ...(outcome.noise.length > 0 ? { noise: outcome.noise } : {}),
+    ...(outcome.steady ? { steady: outcome.steady } : {}),
     stats: {
       nodes: circuit.nodes.length,
       unknowns: outcome.system.n,

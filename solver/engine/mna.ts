@@ -1,5 +1,6 @@
+import { DEFAULT_KELVIN, thermalVoltage } from "../physics";
 import { GROUND, type NetlistError, type Part } from "../types";
-import { stampOpamp } from "./opamp";
+import { pole2Key, stampOpamp } from "./opamp";
 import { patternFromTriplets, type SparseComplexMatrix } from "./sparse-matrix";
 
 /**
@@ -71,6 +72,13 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
       labels.push(p.kind === "opamp" ? `output current of ${p.name}` : `current of ${p.name}`);
     }
   }
+  // An op-amp with a second pole has one internal unknown: its first stage's output (opamp.ts).
+  for (const p of parts) {
+    if (p.kind === "opamp" && p.opamp?.pole2 !== undefined) {
+      branchIndex.set(pole2Key(p.name), nodeCount + branchIndex.size);
+      labels.push(`first-stage output of ${p.name}`);
+    }
+  }
   const n = nodeCount + branchIndex.size;
   const rows: number[] = [];
   const cols: number[] = [];
@@ -125,6 +133,7 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
     ccvs: 2,
     cccs: 2,
     opamp: 3,
+    diode: 2,
   };
 
   for (const p of parts) {
@@ -191,8 +200,13 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
         stamp(b, s, -p.value, 0);
         break;
       }
+      case "diode":
+        // Unbiased: the small-signal conductance is/(n·Vt), practically open (NETLIST.md).
+        twoTerm(a, b, diodeConductance(p), 0);
+        break;
       case "opamp":
-        for (const problem of stampOpamp(p, k, a, b, c, stamp)) errors.push(partError(p, problem));
+        for (const problem of stampOpamp(p, k, branchIndex.get(pole2Key(p.name)) ?? -1, a, b, c, stamp))
+          errors.push(partError(p, problem));
         break;
     }
   }
@@ -249,6 +263,12 @@ export function buildMna(parts: Part[], nodes: string[], second: Part[] = []): M
       second: secondRhs,
     },
   };
+}
+
+/** The small-signal conductance of an unbiased diode, is/(n·Vt). */
+export function diodeConductance(p: Part): number {
+  const d = p.diode ?? { is: 1e-14, n: 1, kelvin: DEFAULT_KELVIN };
+  return d.is / (d.n * thermalVoltage(d.kelvin));
 }
 
 /** A current source of `value`∠`phase` flowing from node a through the source to node b (−1 = gnd). */

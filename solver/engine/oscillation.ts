@@ -14,13 +14,14 @@ export function loopsAtZeroPhase(circuit: Circuit, samplers: Map<string, TraceSa
     const measures = new Set(circuit.measures.filter((m) => m.target === loop.name).map((m) => m.name));
     const checks = circuit.checks.filter((c) => measures.has(c.measure)).map((c) => c.expression);
     try {
-      const f = phaseCrossing(tr, 0);
+      const { f, rounding } = phaseCrossing(tr, 0);
       if (f === null) {
+        const none = `∠${loop.name} does not cross 0° ${range(tr)}`;
         out.push({
           loop: loop.name,
           frequencyHz: null,
           gain: null,
-          reason: `∠${loop.name} does not cross 0° ${range(tr)}`,
+          reason: rounding ? `${none}: it meets 0° only within rounding (about 1e-10)` : none,
           checks,
         });
         continue;

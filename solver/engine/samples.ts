@@ -4,14 +4,16 @@
  * over the same sparsity pattern, refactors with the pivot order already analysed, sweeps just the
  * systems whose traces a measure reads, and keeps no trace arrays (only measures and checks).
  */
-import type { Circuit, Part } from "../types";
+import type { Circuit, Part, SteadyResult } from "../types";
 import { AcSolver } from "./ac";
 import { evaluateChecks } from "./checks";
-import { planSystems, type SystemRun, sampler } from "./index";
+import { middleHz, planSystems, type SystemRun, sampler } from "./index";
 import { computeMeasures } from "./measures";
 import { buildMna } from "./mna";
 import { readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
+import { solveSteadyFrom } from "./steady";
+import { steadyMeasure } from "./steady/measures";
 
 /** One sample's outcome: measure values in `circuit.measures` order (NaN = no value), checks passed. */
 export interface SampleOutcome {
@@ -36,6 +38,10 @@ export class SampleKernel {
   readonly error: string | null = null;
   private readonly active: ActiveRun[] = [];
   private readonly samplers = new Map<string, TraceSampler>();
+  /** Index in circuit.parts of each toleranced part, when a steady measure needs the steady state. */
+  private readonly steadySlots: Int32Array | null = null;
+  /** The nominal steady solution each sample starts from (computed at the first sample). */
+  private steadySeed: Float64Array | null | undefined;
 
   constructor(
     private readonly circuit: Circuit,
@@ -43,6 +49,10 @@ export class SampleKernel {
     names: string[],
   ) {
     this.measureCount = circuit.measures.length;
+    if (circuit.steady && circuit.measures.some((m) => steadyMeasure(m, undefined) !== null)) {
+      const index = new Map(circuit.parts.map((p, i) => [p.name, i]));
+      this.steadySlots = Int32Array.from(names, (nm) => index.get(nm) ?? -1);
+    }
     const planned = planSystems(circuit, []);
     if (!planned.ok) {
       this.error = planned.errors[0]?.message ?? "the circuit could not be planned";
@@ -62,6 +72,20 @@ export class SampleKernel {
       });
       this.active.push({ run, slots: Int32Array.from(names, (nm) => index.get(nm) ?? -1), traces });
     }
+  }
+
+  /** The steady oscillation of one sample (started from the nominal solution), when a measure reads it. */
+  private steadyOf(values: Float64Array, offset: number): SteadyResult | undefined {
+    const c = this.circuit;
+    if (!this.steadySlots || !c.steady) return undefined;
+    const scale = middleHz(this.freqs);
+    const loop = this.samplers.get(c.steady.loop);
+    if (this.steadySeed === undefined) this.steadySeed = solveSteadyFrom(c, c.steady, loop, scale, null).x;
+    const parts: Part[] = c.parts.slice();
+    this.steadySlots.forEach((s, j) => {
+      if (s >= 0) parts[s] = { ...parts[s]!, value: values[offset + j]! };
+    });
+    return solveSteadyFrom({ ...c, parts }, c.steady, loop, scale, this.steadySeed).result;
   }
 
   /** Solve one sample; a string says why it could not be solved. */
@@ -90,7 +114,10 @@ export class SampleKernel {
         }
       }
     }
-    const measures = computeMeasures(this.circuit.measures, this.samplers);
+    const steady = this.steadyOf(values, offset);
+    const measures = computeMeasures(this.circuit.measures, this.samplers, (def) =>
+      steadyMeasure(def, steady),
+    );
     const checks = evaluateChecks(this.circuit.checks, measures);
     const out = new Float64Array(this.measureCount);
     for (let i = 0; i < out.length; i++) out[i] = measures[i]?.value ?? Number.NaN;

@@ -1,10 +1,11 @@
+import { Equilibration } from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 export interface SparseLUOptions {
   /** Threshold τ of threshold pivoting (Duff, Erisman & Reid recommend 0.1). */
   pivotThreshold?: number;
-  /** A pivot counts as zero below this multiple of the largest |entry| of the matrix. */
+  /** A pivot counts as zero below this multiple of the largest |entry| of the equilibrated matrix. */
   singularTolerance?: number;
 }
 
@@ -24,9 +25,20 @@ export interface SparseLUOptions {
  * is kept as an alternate for later frequencies that fail too); every `refactor` tries the sweep's
  * ordering first.
  *
- * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern, solve O(nnz(L)+nnz(U)).
+ * Equilibration: every (re)factorization first computes row and column factors D_r, D_c
+ * (`Equilibration`: Ruiz's max-norm scaling — iterated to convergence in powers of two before an
+ * ordering is analysed, one step per frequency on the fast refactor path) and pivots as if it
+ * factored D_r·A·D_c: the ordering sees the scaled values, and the threshold and zero-pivot tests
+ * compare scaled quantities (the pivot of step k of D_r·A·D_c is u_kk·r_k·c_k for the same order).
+ * The numbers themselves are factored unscaled, so `solve` needs no scaling. A "singular" verdict therefore
+ * means: the equilibrated matrix is singular to working precision — never merely "values far
+ * apart" (1 fF beside 1 TΩ, 1 F at 1 GHz).
+ *
+ * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern plus one O(nnz) scaling pass
+ * (a few before an analysis),
+ * solve O(nnz(L)+nnz(U)+n).
  * Assumes: A square, values given in A's CSR order. A pivot is zero when |pivot| ≤
- * singularTolerance·max|a_ij|; then `isSingular()` is true and `solve` must not be called.
+ * singularTolerance·max|(D_r·A·D_c)_ij|; then `isSingular()` is true and `solve` must not be called.
  */
 export class SparseComplexLU {
   readonly n: number;
@@ -43,6 +55,10 @@ export class SparseComplexLU {
   private readonly invIm: Float64Array;
   private readonly wRe: Float64Array;
   private readonly wIm: Float64Array;
+  private readonly eq: Equilibration;
+  private readonly colStep: Float64Array;
+  /** Zero-pivot bound of the current values: singularRel · max |scaled entry|. */
+  private absTol = 0;
   private singular = false;
   private failedStep = -1;
   private failedCols: number[] = [];
@@ -68,6 +84,9 @@ export class SparseComplexLU {
     this.invIm = new Float64Array(a.n);
     this.wRe = new Float64Array(a.n);
     this.wIm = new Float64Array(a.n);
+    this.eq = new Equilibration(a.n);
+    this.colStep = new Float64Array(a.n);
+    this.scale(a.re, a.im);
     this.analyse(a.re, a.im, true);
   }
 
@@ -76,6 +95,11 @@ export class SparseComplexLU {
   /** True when the last (re)factorization met a zero pivot. */
   isSingular(): boolean {
     return this.singular;
+  }
+
+  /** Row and column scale factors of the last (re)factorization (D_r, D_c of the original indices). */
+  get scaling(): { row: Float64Array; col: Float64Array } {
+    return { row: this.eq.row, col: this.eq.col };
   }
 
   /** Original column indices left unpivoted when the factorization failed (diagnostics). */
@@ -138,7 +162,12 @@ export class SparseComplexLU {
     if (re.length !== this.a.colIdx.length || im.length !== this.a.colIdx.length) {
       throw new RangeError("dimension mismatch: values and pattern differ in length");
     }
-    if (!this.base) return this.analyse(re, im, true);
+    if (!this.base) {
+      this.scale(re, im);
+      return this.analyse(re, im, true);
+    }
+    // One scaling step per frequency (one pass over the values); a re-pivot equilibrates fully.
+    this.absTol = this.singularRel * this.eq.step(this.a, re, im);
     if (this.base !== this.sym) this.use(this.base);
     if (this.numeric(re, im)) return true;
     // The sweep's order failed here: try the orders earlier frequencies needed (newest first),
@@ -148,6 +177,7 @@ export class SparseComplexLU {
       if (this.numeric(re, im)) return true;
     }
     this.repivots++;
+    this.scale(re, im);
     const ok = this.analyse(re, im, false);
     if (ok && this.sym) {
       this.alternates.push(this.sym);
@@ -156,9 +186,25 @@ export class SparseComplexLU {
     return ok;
   }
 
+  /** Equilibrate the values re/im: factors into `eq`, the zero-pivot bound into `absTol`. */
+  private scale(re: Float64Array, im: Float64Array): void {
+    this.absTol = this.singularRel * this.eq.compute(this.a, re, im);
+  }
+
   private analyse(re: Float64Array, im: Float64Array, asBase: boolean): boolean {
-    const tol = this.singularRel * maxAbs(re, im);
-    const res = markowitzOrder(this.a, re, im, { ...this.opt, absTolerance: tol });
+    // The ordering sees the scaled values (a copy: analysis is rare, once per sweep or re-pivot).
+    const { rowPtr, colIdx } = this.a;
+    const { row, col } = this.eq;
+    const sRe = new Float64Array(re.length);
+    const sIm = new Float64Array(im.length);
+    for (let i = 0; i < this.n; i++) {
+      for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
+        const f = row[i]! * col[colIdx[p]!]!;
+        sRe[p] = re[p]! * f;
+        sIm[p] = im[p]! * f;
+      }
+    }
+    const res = markowitzOrder(this.a, sRe, sIm, { ...this.opt, absTolerance: this.absTol });
     if (!res.ok) {
       this.singular = true;
       this.failedStep = res.step;
@@ -191,10 +237,13 @@ export class SparseComplexLU {
   private numeric(re: Float64Array, im: Float64Array, lenient = false): boolean {
     const s = this.sym!;
     const { rowPtr } = this.a;
-    const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
-    const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = this;
+    const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = s;
+    const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, absTol } = this;
+    const { row, col } = this.eq;
+    // Column factors in pivot order, for the tests below.
+    const cs = this.colStep;
+    for (let k = 0; k < this.n; k++) cs[k] = col[colPerm[k]!]!;
     const tau = lenient ? 0 : this.opt.pivotThreshold;
-    const absTol = this.singularRel * maxAbs(re, im);
     this.singular = false;
     this.failedStep = -1;
     this.failedCols = [];
@@ -245,7 +294,7 @@ export class SparseComplexLU {
         uIm[t] = vi;
         wRe[c] = 0;
         wIm[c] = 0;
-        const m = Math.abs(vr) + Math.abs(vi);
+        const m = (Math.abs(vr) + Math.abs(vi)) * cs[c]!;
         if (m > rowMax) rowMax = m;
       }
       const pr = wRe[k]!;
@@ -255,9 +304,11 @@ export class SparseComplexLU {
       // |pivot|² is needed for its reciprocal anyway; √ of it instead of Math.hypot (which guards
       // against an overflow that the reciprocal would meet regardless) is a quarter of the refactor.
       const d = pr * pr + pi * pi;
-      const pm = Math.sqrt(d);
+      // |pivot| of the equilibrated matrix: the row factor cancels in the threshold test.
+      const pc = Math.sqrt(d) * cs[k]!;
+      const pm = pc * row[rowPerm[k]!]!;
       // |x|₁/√2 ≤ |x|₂: a cheap lower bound keeps the comparison conservative.
-      if (pm <= absTol || pm < tau * rowMax * Math.SQRT1_2) {
+      if (pm <= absTol || pc < tau * rowMax * Math.SQRT1_2) {
         this.singular = pm <= absTol;
         this.failedStep = k;
         this.failedCols = Array.from(s.colPerm.subarray(k));
@@ -308,13 +359,55 @@ export class SparseComplexLU {
       xIm[colPerm[k]!] = wIm[k]!;
     }
   }
-}
 
-function maxAbs(re: Float64Array, im: Float64Array): number {
-  let m = 0;
-  for (let p = 0; p < re.length; p++) {
-    const v = Math.abs(re[p]!) + Math.abs(im[p]!);
-    if (v > m) m = v;
+  /**
+   * Solve Aᵀ·z = d (the plain transpose, no conjugate) with the current factors: the adjoint
+   * system of noise analysis. With P·A·Q = L·U, Aᵀ = Q·Uᵀ·Lᵀ·P, so w = Qᵀ·d, Uᵀ·y = w (forward,
+   * scattering U's rows), Lᵀ·v = y (backward, scattering L's rows), z = Pᵀ·v. z may alias d.
+   * Cost O(nnz(L)+nnz(U)+n), as `solve`.
+   */
+  solveTransposed(
+    dRe: Float64Array,
+    dIm: Float64Array,
+    zRe: Float64Array = dRe,
+    zIm: Float64Array = dIm,
+  ): void {
+    if (this.singular || !this.sym) throw new Error("matrix is singular: cannot solve");
+    const n = this.n;
+    if (dRe.length !== n || dIm.length !== n || zRe.length !== n || zIm.length !== n) {
+      throw new RangeError("dimension mismatch: right-hand side length ≠ n");
+    }
+    const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = this.sym;
+    const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = this;
+    for (let k = 0; k < n; k++) {
+      wRe[k] = dRe[colPerm[k]!]!;
+      wIm[k] = dIm[colPerm[k]!]!;
+    }
+    for (let k = 0; k < n; k++) {
+      const br = wRe[k]!;
+      const bi = wIm[k]!;
+      const yr = br * invRe[k]! - bi * invIm[k]!;
+      const yi = br * invIm[k]! + bi * invRe[k]!;
+      wRe[k] = yr;
+      wIm[k] = yi;
+      for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) {
+        const j = uIdx[t]!;
+        wRe[j] = wRe[j]! - (uRe[t]! * yr - uIm[t]! * yi);
+        wIm[j] = wIm[j]! - (uRe[t]! * yi + uIm[t]! * yr);
+      }
+    }
+    for (let k = n - 1; k >= 0; k--) {
+      const vr = wRe[k]!;
+      const vi = wIm[k]!;
+      for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
+        const j = lIdx[q]!;
+        wRe[j] = wRe[j]! - (lRe[q]! * vr - lIm[q]! * vi);
+        wIm[j] = wIm[j]! - (lRe[q]! * vi + lIm[q]! * vr);
+      }
+    }
+    for (let k = 0; k < n; k++) {
+      zRe[rowPerm[k]!] = wRe[k]!;
+      zIm[rowPerm[k]!] = wIm[k]!;
+    }
   }
-  return m;
 }

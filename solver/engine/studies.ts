@@ -9,11 +9,13 @@ import type {
   SolveSuccess,
   VariantResult,
   Warning,
+  ZeroResult,
 } from "../types";
 import { buildMna } from "./mna";
 import { monteCarlo } from "./monte-carlo";
 import { computePoles, MAX_POLE_UNKNOWNS } from "./poles";
 import { rerun, withValues } from "./rerun";
+import { computeZeros } from "./zeros";
 
 /** Options of the analyses beyond one sweep. */
 export interface StudyOptions {
@@ -95,8 +97,31 @@ export function addStudies(
       });
     }
   }
+  if (circuit.zeros && circuit.zeros.length > 0) out.zeros = zerosOf(circuit, freqs, warnings);
   if (circuit.sensitivity.length > 0)
     out.sensitivity = sensitivity(circuit, freqs, result.measures, warnings);
+  return out;
+}
+
+/** The `zeros` statements' zeros; a probe that cannot be answered becomes a warning. */
+function zerosOf(circuit: Circuit, freqs: number[], warnings: Warning[]): ZeroResult[] {
+  const built = buildMna(circuit.parts, circuit.nodes);
+  const src = circuit.parts.find((p) => (p.kind === "vsource" || p.kind === "isource") && p.value !== 0);
+  if (!built.ok || !src) return [];
+  if (built.system.n + 1 > MAX_POLE_UNKNOWNS) {
+    warnings.push({
+      line: circuit.zeros![0]!.span.line,
+      message: `zeros: the circuit has ${built.system.n} unknowns; zeros are computed for up to ${MAX_POLE_UNKNOWNS - 1}`,
+    });
+    return [];
+  }
+  const mid = Math.sqrt((freqs[0] || 1) * (freqs[freqs.length - 1] || 1));
+  const out: ZeroResult[] = [];
+  for (const z of circuit.zeros ?? []) {
+    const r = computeZeros(built.system, src, z.probe, z.text, mid);
+    if (typeof r === "string") warnings.push({ line: z.span.line, message: r });
+    else out.push(...r);
+  }
   return out;
 }
 

@@ -83,8 +83,11 @@ export type Statement =
       name: Named;
       fn: MeasureFunction;
       target: Named;
+      /** `amplitude(PROBE)` / `thd(PROBE)`: the probe as written (target is its text). */
+      probe?: ProbeNode;
       level?: LevelNode;
       at?: ValueNode;
+      band?: { from: ValueNode; to: ValueNode };
       span: SourceSpan;
     }
   | {
@@ -104,7 +107,11 @@ export type Statement =
     }
   | { type: "monte-carlo"; samples: ValueNode; seed?: ValueNode; dist?: Named; span: SourceSpan }
   | { type: "poles"; span: SourceSpan }
-  | { type: "sensitivity"; measure: Named; span: SourceSpan };
+  | { type: "sensitivity"; measure: Named; span: SourceSpan }
+  | { type: "noise"; name: Named; probe: ProbeNode; text: string; input?: Named; span: SourceSpan }
+  | { type: "zeros"; probe: ProbeNode; text: string; span: SourceSpan }
+  | { type: "temperature"; kelvin: number; span: SourceSpan }
+  | { type: "steady"; loop: Named; harmonics?: ValueNode; from?: ValueNode; span: SourceSpan };
 
 export interface ParseTree {
   statements: Statement[];

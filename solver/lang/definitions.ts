@@ -103,7 +103,7 @@ export function parsePart(c: Cursor, kinds: KindTable): PartStatement | null {
         block !== undefined
           ? "a block instance takes terminals and key=value parameters only"
           : info?.value === "none"
-            ? "an opamp takes no value; use gain=, gbw=, rout="
+            ? "an opamp takes no value; use gain=, gbw=, rout=, pole2=, en=, in=, fc="
             : `too many entries for a ${base}`;
       return c.fail(
         spanOf(t),

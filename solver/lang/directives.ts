@@ -86,7 +86,7 @@ function part(ctx: DirectiveContext, n: Named): Part | null {
   );
 }
 
-function probe(ctx: DirectiveContext, p: ProbeNode): Probe | null {
+export function probe(ctx: DirectiveContext, p: ProbeNode): Probe | null {
   switch (p.op) {
     case "num":
       return { op: "num", value: p.value };

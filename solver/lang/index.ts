@@ -2,6 +2,8 @@
  * The netlist language: text → parse tree → flat `Circuit` (solver/types.ts), with every error of
  * the netlist at once (line, column, endColumn, message, hint) and warnings about the structure.
  */
+
+import { DEFAULT_KELVIN } from "../physics";
 import type { Circuit, NetlistError, Warning } from "../types";
 import type {
   BlockStatement,
@@ -15,10 +17,12 @@ import { resolveLoops, resolveShows, resolveSweep } from "./directives";
 import { addFixes } from "./fixes";
 import { didYouMean } from "./hints";
 import { resolveChecks, resolveMeasures, resolveMonteCarlo, resolveVary } from "./measures";
+import { resolveNoise, resolveZeros } from "./noise-zeros";
 import { parseNetlist } from "./parser";
 import { flatten } from "./parts";
 import type { DirectiveContext } from "./resolve";
 import { LetScope } from "./scope";
+import { resolveSteady } from "./steady";
 import { checkTopology } from "./topology";
 
 export type { ParseTree, Statement } from "./ast";
@@ -171,6 +175,8 @@ function elaborate(
   const global = new LetScope([...lets.values()], fixed, null, errors);
   global.evaluateAll();
   const aliases = new Map<string, string>();
+  const temperature = once(byType(st, "temperature"), "temperature", errors);
+  const kelvin = temperature?.kelvin ?? DEFAULT_KELVIN;
   const parts = flatten(byType(st, "part") as PartStatement[], {
     blocks,
     presets,
@@ -179,6 +185,7 @@ function elaborate(
     errors,
     warnings,
     aliases,
+    kelvin,
   });
   for (const name of Object.keys(overrides.parts ?? {})) {
     if (!parts.some((p) => p.name === name))
@@ -205,7 +212,10 @@ function elaborate(
   const shows = resolveShows(byType(st, "show"), ctx, traces);
   const loops = resolveLoops(byType(st, "loop"), ctx, traces);
   const measureStatements = byType(st, "measure");
-  const measures = resolveMeasures(measureStatements, ctx, traces);
+  const noise = resolveNoise(byType(st, "noise"), ctx, traces);
+  const zeros = resolveZeros(byType(st, "zeros"), ctx);
+  const steady = resolveSteady(once(byType(st, "steady"), "steady", errors), ctx, loops);
+  const measures = resolveMeasures(measureStatements, ctx, traces, steady, new Set(noise.map((n) => n.name)));
   const checks = resolveChecks(byType(st, "check"), ctx, measureStatements);
   const varyStatement = once(byType(st, "vary"), "vary", errors);
   const vary = varyStatement ? resolveVary(varyStatement, ctx) : null;
@@ -236,6 +246,10 @@ function elaborate(
     monteCarlo,
     poles: byType(st, "poles").length > 0,
     sensitivity,
+    ...(noise.length > 0 ? { noise } : {}),
+    ...(zeros.length > 0 ? { zeros } : {}),
+    temperature: kelvin,
+    steady,
   };
 }
 

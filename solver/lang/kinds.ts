@@ -82,8 +82,24 @@ export const KINDS: Record<PartKind, KindInfo> = {
     terminals: ["in+", "in-", "out"],
     value: "none",
     defaultValue: 0,
-    options: { gain: "gain", gbw: "gbw", rout: "rout" },
+    options: {
+      gain: "gain",
+      gbw: "gbw",
+      rout: "rout",
+      swing: "swing",
+      pole2: "pole2",
+      en: "en",
+      in: "in",
+      fc: "fc",
+    },
     usage: "U1: opamp pos neg out gbw=1M",
+  },
+  diode: {
+    terminals: ["anode", "cathode"],
+    value: "none",
+    defaultValue: 0,
+    options: { is: "is", n: "n" },
+    usage: "D1: diode a b is=1e-14 n=1",
   },
 };
 
@@ -108,6 +124,10 @@ export const KEYWORDS = [
   "monte-carlo",
   "poles",
   "sensitivity",
+  "noise",
+  "zeros",
+  "temperature",
+  "steady",
 ];
 
 /** The ways a loop gain is measured (`loop … method=…`); the first is the default. */
@@ -126,14 +146,40 @@ export const MEASURE_FUNCTIONS: MeasureFunction[] = [
   "mag",
   "db",
   "phase",
+  "group-delay",
+  "noise",
+  "input-noise",
+  "frequency",
+  "amplitude",
+  "thd",
+  "startup",
 ];
 
+/** Measure functions of the steady oscillation (NETLIST.md "Steady oscillation"). */
+export const STEADY_FUNCTIONS: ReadonlySet<MeasureFunction> = new Set([
+  "frequency",
+  "amplitude",
+  "thd",
+  "startup",
+]);
+
 /** The unit of each measure's result ("" for plain numbers). */
-export function measureUnit(fn: MeasureFunction): "Hz" | "dB" | "deg" | "" {
+export function measureUnit(fn: MeasureFunction): "Hz" | "dB" | "deg" | "V" | "%" | "s" | "" {
   switch (fn) {
+    case "amplitude":
+      return "V";
+    case "thd":
+      return "%";
+    case "startup":
+      return "s";
     case "q":
     case "mag":
       return "";
+    case "group-delay":
+      return "s";
+    case "noise":
+    case "input-noise":
+      return "V";
     case "db":
     case "gain-margin":
       return "dB";

@@ -4,8 +4,14 @@ import type { LevelNode, Statement, ValueNode } from "./ast";
 import { type Cursor, spanOf, words } from "./cursor";
 import { didYouMean } from "./hints";
 import { MEASURE_FUNCTIONS } from "./kinds";
+import { parseReading } from "./probe";
 
-const AT_FUNCTIONS = new Set<MeasureFunction>(["mag", "db", "phase"]);
+/** Steady measures that read a probe rather than a trace: `amplitude(volts(out))`. */
+const PROBE_FUNCTIONS = new Set<MeasureFunction>(["amplitude", "thd"]);
+
+const AT_FUNCTIONS = new Set<MeasureFunction>(["mag", "db", "phase", "group-delay", "noise", "input-noise"]);
+/** Functions that also integrate over a band: `noise(N) from F1 to F2`. */
+const BAND_FUNCTIONS = new Set<MeasureFunction>(["noise", "input-noise"]);
 
 export function parseMeasure(c: Cursor): Statement | null {
   const name = c.expectName("a measure name", false, "measure f0 = zero-phase(T)");
@@ -28,6 +34,15 @@ export function parseMeasure(c: Cursor): Statement | null {
   const usage =
     fn === "crossing" ? "crossing(T, -3dB)" : AT_FUNCTIONS.has(fn) ? `${fn}(T) at 1kHz` : `${fn}(T)`;
   if (c.expectOp("(", `expected \`(\` after ${fn}`, usage) === null) return null;
+  if (PROBE_FUNCTIONS.has(fn)) {
+    const probeUsage = `${fn}(volts(out)), ${fn}(volts(a, b)) or ${fn}(amps(R1))`;
+    const first = c.peek();
+    const probe = parseReading(c, probeUsage);
+    if (probe === null || first === undefined) return null;
+    const text = c.rawFrom(first).replace(/\)\s*$/, "");
+    if (c.expectOp(")", "expected `)`", probeUsage) === null || !c.expectEnd()) return null;
+    return { type: "measure", name, fn, target: { name: text, span: probe.span }, probe, span: c.span };
+  }
   const target = c.expectName("a trace or loop name", false, usage);
   if (target === null) return null;
   let level: LevelNode | undefined;
@@ -46,20 +61,34 @@ export function parseMeasure(c: Cursor): Statement | null {
   }
   if (c.expectOp(")", "expected `)`", usage) === null) return null;
   let at: ValueNode | undefined;
+  let band: { from: ValueNode; to: ValueNode } | undefined;
+  const bandUsage = `${fn}(N) at 1kHz | ${fn}(N) from 20Hz to 20kHz`;
   if (c.isWord("at")) {
     const atTok = c.next()!;
     if (!AT_FUNCTIONS.has(fn))
-      return c.fail(spanOf(atTok), `${fn} takes no \`at\``, "only mag, db and phase are read at a frequency");
+      return c.fail(
+        spanOf(atTok),
+        `${fn} takes no \`at\``,
+        "only mag, db, phase, group-delay, noise and input-noise are read at a frequency",
+      );
     const v = c.value("frequency", "a frequency or a measure name");
     if (v === null) return null;
     at = v;
+  } else if (c.isWord("from") && BAND_FUNCTIONS.has(fn)) {
+    c.next();
+    const from = c.value("frequency", "the band's lower frequency");
+    if (from === null || !words(c, ["to"], bandUsage)) return null;
+    const to = c.value("frequency", "the band's upper frequency");
+    if (to === null) return null;
+    band = { from, to };
   } else if (AT_FUNCTIONS.has(fn)) {
-    return c.fail(undefined, `${fn} needs a frequency`, usage);
+    return c.fail(undefined, `${fn} needs a frequency`, BAND_FUNCTIONS.has(fn) ? bandUsage : usage);
   }
   if (!c.expectEnd()) return null;
   const s: Statement = { type: "measure", name, fn, target, span: c.span };
   if (level) s.level = level;
   if (at) s.at = at;
+  if (band) s.band = band;
   return s;
 }
 

@@ -1,22 +1,42 @@
 /** Resolution of measure, check, vary and monte-carlo statements: names, units, limits, order. */
-import type { CheckDef, MeasureDef, MonteCarloDef, SourceSpan, VaryDef } from "../types";
+import type { CheckDef, MeasureDef, MonteCarloDef, SourceSpan, SteadyDef, VaryDef } from "../types";
 import type { ValueNode } from "./ast";
 import { evaluate } from "./expr";
 import { didYouMean } from "./hints";
-import { measureUnit } from "./kinds";
+import { measureUnit, STEADY_FUNCTIONS } from "./kinds";
 import { type Place, UNIT_NAMES } from "./numbers";
 import { claim, count, type DirectiveContext, err, frequency, num, type Of } from "./resolve";
+import { resolveSteadyMeasure } from "./steady";
 
 export function resolveMeasures(
   list: Of<"measure">[],
   ctx: DirectiveContext,
   traces: Map<string, SourceSpan>,
+  steady: SteadyDef | null = null,
+  noiseNames: Set<string> = new Set(),
 ): MeasureDef[] {
   const out: MeasureDef[] = [];
   const all = new Map(list.map((m) => [m.name.name, m]));
   const names = new Map<string, SourceSpan>();
   for (const m of list) {
     if (!claim(ctx, names, m.name, "measure")) continue;
+    if (STEADY_FUNCTIONS.has(m.fn)) {
+      const def = resolveSteadyMeasure(m, ctx, steady);
+      if (def) out.push(def);
+      continue;
+    }
+    const wantsNoise = m.fn === "noise" || m.fn === "input-noise";
+    if (wantsNoise !== noiseNames.has(m.target.name) && traces.has(m.target.name)) {
+      err(
+        ctx,
+        m.target.span,
+        wantsNoise
+          ? `\`${m.target.name}\` is a trace, not a noise`
+          : `\`${m.target.name}\` is a noise; read it with noise(…) or input-noise(…)`,
+        wantsNoise ? "name a noise with `noise NAME = volts(out)` first" : `noise(${m.target.name}) at 1kHz`,
+      );
+      continue;
+    }
     if (!traces.has(m.target.name)) {
       err(
         ctx,
@@ -29,45 +49,61 @@ export function resolveMeasures(
     const def: MeasureDef = { name: m.name.name, fn: m.fn, target: m.target.name, span: m.span };
     if (m.level) def.level = m.level.level;
     if (m.at) {
-      const at = m.at;
-      if (at.kind === "name" && all.has(at.name)) {
-        const ref = all.get(at.name)!;
-        if (ref === m || ref.span.line >= m.span.line) {
-          err(
-            ctx,
-            at.span,
-            `measure \`${at.name}\` is defined on line ${ref.span.line}, after this one`,
-            `move \`measure ${at.name}\` above line ${m.span.line}`,
-          );
-          continue;
-        }
-        if (measureUnit(ref.fn) !== "Hz") {
-          err(
-            ctx,
-            at.span,
-            `measure \`${at.name}\` is not a frequency`,
-            "at takes a frequency or a measure that is one",
-          );
-          continue;
-        }
-        def.at = { measure: at.name };
-      } else if (at.kind === "name" && !ctx.lets.has(at.name)) {
-        err(
-          ctx,
-          at.span,
-          `no measure or let named \`${at.name}\``,
-          didYouMean(at.name, [...all.keys(), ...ctx.lets]),
-        );
+      const at = frequencyRef(ctx, m, m.at, all);
+      if (at === null) continue;
+      def.at = at;
+    }
+    if (m.band) {
+      const from = frequencyRef(ctx, m, m.band.from, all);
+      const to = frequencyRef(ctx, m, m.band.to, all);
+      if (from === null || to === null) continue;
+      if ("hz" in from && "hz" in to && !(to.hz > from.hz)) {
+        err(ctx, m.band.to.span, "the band must end above its start", "noise(N) from 20Hz to 20kHz");
         continue;
-      } else {
-        const hz = frequency(ctx, at);
-        if (hz === null) continue;
-        def.at = { hz };
       }
+      def.band = { from, to };
     }
     out.push(def);
   }
   return out;
+}
+
+/** A frequency written literally, by a let, or as an earlier measure that is a frequency. */
+function frequencyRef(
+  ctx: DirectiveContext,
+  m: Of<"measure">,
+  at: ValueNode,
+  all: Map<string, Of<"measure">>,
+): { hz: number } | { measure: string } | null {
+  if (at.kind === "name" && all.has(at.name)) {
+    const ref = all.get(at.name)!;
+    if (ref === m || ref.span.line >= m.span.line) {
+      return err(
+        ctx,
+        at.span,
+        `measure \`${at.name}\` is defined on line ${ref.span.line}, after this one`,
+        `move \`measure ${at.name}\` above line ${m.span.line}`,
+      );
+    }
+    if (measureUnit(ref.fn) !== "Hz")
+      return err(
+        ctx,
+        at.span,
+        `measure \`${at.name}\` is not a frequency`,
+        "use a frequency or a measure that is one",
+      );
+    return { measure: at.name };
+  }
+  if (at.kind === "name" && !ctx.lets.has(at.name)) {
+    return err(
+      ctx,
+      at.span,
+      `no measure or let named \`${at.name}\``,
+      didYouMean(at.name, [...all.keys(), ...ctx.lets]),
+    );
+  }
+  const hz = frequency(ctx, at);
+  return hz === null ? null : { hz };
 }
 
 export function resolveChecks(
@@ -93,15 +129,20 @@ export function resolveChecks(
     const unit = measureUnit(m.fn);
     const limit = (v: ValueNode): number | null => {
       if (v.kind === "number" && v.unit !== null && v.unit !== unit) {
-        const measured = unit === "" ? "a plain number" : `in ${UNIT_NAMES[unit]}`;
+        const measured =
+          unit === "" ? "a plain number" : unit === "s" ? "in seconds" : `in ${UNIT_NAMES[unit]}`;
         return err(
           ctx,
           v.span,
           `\`${m.name.name}\` is ${measured}; this limit is in ${UNIT_NAMES[v.unit]}`,
-          unit === "" ? "write the limit without a unit" : `write it in ${unit} or without a unit`,
+          unit === "" || unit === "s"
+            ? "write the limit without a unit"
+            : `write it in ${unit} or without a unit`,
         );
       }
-      return evaluate(v, ctx.global, ctx.errors);
+      const x = evaluate(v, ctx.global, ctx.errors);
+      // thd is in percent: `check dist < 1%` means 1, not the fraction 0.01 that `%` reads as.
+      return x !== null && unit === "%" && v.kind === "number" && v.unit === "%" ? x * 100 : x;
     };
     const value = limit(c.value);
     const value2 = c.value2 ? limit(c.value2) : undefined;

@@ -25,7 +25,13 @@ export interface FlattenContext {
   warnings: Warning[];
   /** Filled in: a block terminal's dotted name ("X1.out") → the node it is connected to. */
   aliases: Map<string, string>;
+  /** The netlist's temperature in kelvin (given to every diode). */
+  kelvin: number;
 }
+
+/** Diode defaults (NETLIST.md "Parts that limit an oscillation"). */
+const DIODE_IS = 1e-14;
+const DIODE_N = 1;
 
 /** A ccvs/cccs whose sensing part is resolved once every part exists. */
 interface PendingSense {
@@ -173,6 +179,7 @@ function primitive(st: PartStatement, fullName: string, inst: Instance, ctx: Fla
     });
   }
   const part: Part = { name: fullName, kind, nodes, value, span: st.span };
+  if (kind === "diode") part.diode = { is: DIODE_IS, n: DIODE_N, kelvin: ctx.kelvin };
   // Preset options first, the line's own options override them.
   const options: [OptionNode, Scope][] = [
     ...(preset?.options ?? []).map((o): [OptionNode, Scope] => [o, ctx.global]),
@@ -219,6 +226,32 @@ function applyOption(part: Part, key: string, v: number, node: ValueNode, errors
     case "rout":
       if (v < 0) return fail("an output resistance can't be negative");
       part.opamp = { ...part.opamp, rout: v };
+      return true;
+    case "pole2":
+      if (!(v > 0)) return fail("a second pole's frequency must be above zero");
+      part.opamp = { ...part.opamp, pole2: v };
+      return true;
+    case "en":
+    case "in":
+      if (!(v >= 0)) return fail(`a noise density (${key}=) can't be negative`);
+      part.opamp = { ...part.opamp, [key]: v };
+      return true;
+    case "fc":
+      if (!(v >= 0)) return fail("a 1/f noise corner can't be negative");
+      part.opamp = { ...part.opamp, fc: v };
+      return true;
+    case "swing":
+      if (!(v > 0))
+        return fail("an output swing must be above zero", "swing=12V: the output stays within ±12 V");
+      part.opamp = { ...part.opamp, swing: v };
+      return true;
+    case "is":
+      if (!(v > 0 && v < 1)) return fail("a diode's saturation current must be above zero and below 1 A");
+      if (part.diode) part.diode.is = v;
+      return true;
+    case "n":
+      if (!(v >= 0.5 && v <= 10)) return fail("a diode's emission coefficient must lie between 0.5 and 10");
+      if (part.diode) part.diode.n = v;
       return true;
   }
   return fail(`unknown option \`${key}\``);

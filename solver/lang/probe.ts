@@ -12,10 +12,11 @@ const PROBE_HINT =
 const PROBE_WORDS = new Set(["volts", "amps", ...Object.keys(PROBE_RENAMES)]);
 
 /** Parse a whole probe; null (with an error recorded) when it is malformed. */
-export function parseProbe(c: Cursor): ProbeNode | null {
+export function parseProbe(c: Cursor, stopWord?: string): ProbeNode | null {
   const probe = sum(c);
   if (probe === null) return null;
-  if (!c.atEnd()) return c.fail(c.peek(), `unexpected \`${c.peek()!.text}\` in the probe`, PROBE_HINT);
+  if (!c.atEnd() && !(stopWord !== undefined && c.isWord(stopWord)))
+    return c.fail(c.peek(), `unexpected \`${c.peek()!.text}\` in the probe`, PROBE_HINT);
   return probe;
 }
 
@@ -66,6 +67,13 @@ function primary(c: Cursor): ProbeNode | null {
   }
   if (t.kind === "word" && PROBE_WORDS.has(t.text) && c.isOp("(", 1)) return reading(c);
   return c.fail(t, `\`${t.text}\` can't be read in a probe`, PROBE_HINT);
+}
+
+/** One reading only: `volts(NODE)`, `volts(A, B)` or `amps(PART)` (the steady measures' argument). */
+export function parseReading(c: Cursor, usage: string): ProbeNode | null {
+  const t = c.peek();
+  if (t?.kind === "word" && PROBE_WORDS.has(t.text) && c.isOp("(", 1)) return reading(c);
+  return c.fail(t, t ? `expected volts(…) or amps(…), found \`${t.text}\`` : "the probe is missing", usage);
 }
 
 /** `volts(…)` or `amps(…)` at the cursor (or an earlier word for them, recorded with its fix). */

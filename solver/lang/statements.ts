@@ -5,6 +5,7 @@ import { didYouMean } from "./hints";
 import { LOOP_METHODS } from "./kinds";
 import { parseCheck, parseMeasure } from "./measure-syntax";
 import { parseProbe } from "./probe";
+import { parseSteady, parseTemperature } from "./steady-syntax";
 
 /** Dispatch on the statement keyword at the cursor. */
 export function parseAnalysis(c: Cursor): Statement | null {
@@ -26,11 +27,24 @@ export function parseAnalysis(c: Cursor): Statement | null {
       return parseMonteCarlo(c);
     case "poles":
       return c.expectEnd("`poles` takes nothing after it") ? { type: "poles", span: c.span } : null;
+    case "temperature":
+      return parseTemperature(c);
+    case "steady":
+      return parseSteady(c);
     case "sensitivity": {
       const measure = c.expectName("a measure name", false, "sensitivity f0");
       return measure && c.expectEnd("`sensitivity` takes one measure")
         ? { type: "sensitivity", measure, span: c.span }
         : null;
+    }
+    case "noise":
+      return parseNoise(c);
+    case "zeros": {
+      const first = c.peek();
+      if (first === undefined) return c.fail(undefined, "the probe is missing", "zeros volts(out)");
+      const text = c.rawFrom(first);
+      const probe = parseProbe(c);
+      return probe && { type: "zeros", probe, text, span: c.span };
     }
     default:
       return c.fail(spanOf(keyword), `\`${keyword.text}\` can't be used here`);
@@ -84,6 +98,26 @@ function list(c: Cursor, place: "frequency" | "any", what: string): ValueNode[] 
     if (!c.isOp(",")) return values;
     c.next();
   }
+}
+
+/** `noise NAME = PROBE [input SOURCE]`. */
+function parseNoise(c: Cursor): Statement | null {
+  const hint = "noise N = volts(out) input Vin";
+  const name = c.expectName("a noise name", false, hint);
+  if (name === null || c.expectOp("=", "expected `=` after the noise name", hint) === null) return null;
+  const first = c.peek();
+  if (first === undefined) return c.fail(undefined, "the probe is missing", hint);
+  const probe = parseProbe(c, "input");
+  if (probe === null) return null;
+  const text = c.rawFrom(first).replace(/\s+input\s.*$/, "");
+  const s: Statement = { type: "noise", name, probe, text, span: c.span };
+  if (c.isWord("input")) {
+    c.next();
+    const input = c.expectName("the input source's name", true, hint);
+    if (input === null || !c.expectEnd(hint)) return null;
+    s.input = input;
+  }
+  return s;
 }
 
 function parseShow(c: Cursor): Statement | null {

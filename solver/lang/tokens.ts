@@ -26,7 +26,7 @@ export interface LogicalLine {
 }
 
 /** Hyphenated keywords are single words; the lexer joins `head-tail` when head is one of these. */
-const HYPHEN_HEADS = new Set(["zero", "phase", "gain", "half", "monte"]);
+const HYPHEN_HEADS = new Set(["zero", "phase", "gain", "half", "monte", "group", "input"]);
 const OPERATORS = ["<=", ">=", "<", ">", "=", ":", ",", "(", ")", "+", "-", "*", "/", "^"];
 // Character classes by code point: the lexer runs once per keystroke in the editor.
 const isLetterCode = (k: number) => (k >= 65 && k <= 90) || (k >= 97 && k <= 122) || k === 95;

@@ -13,6 +13,7 @@ function conductingPairs(p: Part): [string, string][] {
     case "vsource":
     case "vcvs":
     case "ccvs":
+    case "diode":
       return [[p.nodes[0]!, p.nodes[1]!]];
     case "opamp":
       return [[p.nodes[2]!, "gnd"]];

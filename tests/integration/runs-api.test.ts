@@ -230,7 +230,7 @@ describe("run, export, compare, measurements", () => {
     expect(csv.headers.get("content-type")).toContain("text/csv");
     expect(csv.headers.get("content-disposition")).toBe('attachment; filename="RC-corner.csv"');
     const lines = csv.text.trim().split(/\r?\n/);
-    expect(lines[0]).toBe("frequency_hz,H_re,H_im,H_db,H_deg");
+    expect(lines[0]).toBe("frequency_hz,H_re,H_im,H_db,H_deg,H_delay_s");
     expect(lines).toHaveLength(62);
     expect(Number(lines[1]?.split(",")[0])).toBeCloseTo(100, 9);
 

@@ -111,16 +111,18 @@ describe("solved netlists", () => {
     expect(upper.im).toBeCloseTo(9996.874512, 5);
   });
 
-  it("--csv has a header and one row per frequency with re/im/dB/deg per trace", () => {
+  it("--csv has a header and one row per frequency with re/im/dB/deg/group delay per trace", () => {
     const r = call([path.join(EXAMPLES, "twin-t-notch.pwn"), "--csv"]);
     expect(r.code).toBe(0);
     const rows = r.out.trim().split("\r\n");
-    expect(rows[0]).toBe("frequency_hz,H_re,H_im,H_db,H_deg");
+    expect(rows[0]).toBe("frequency_hz,H_re,H_im,H_db,H_deg,H_delay_s");
     // 10 Hz … 100 kHz at 200 per decade: 4·200 + 1 = 801 points.
     expect(rows).toHaveLength(802);
-    const [f, re, im, db] = rows[1]!.split(",").map(Number);
+    const [f, re, im, db, , delay] = rows[1]!.split(",").map(Number);
     expect(f).toBe(10);
     expect(db).toBeCloseTo(20 * Math.log10(Math.hypot(re!, im!)), 9);
+    // Twin-T H = (1 + x²)/(1 + 4x + x²), x = sRC, RC = 1e-4 s: at DC the delay is 4·RC (CHECKS §6, −d∠H/dω at ω → 0).
+    expect(delay).toBeCloseTo(4e-4, 6);
   });
 
   it("the npm script runs end to end with the exit codes", () => {

@@ -48,6 +48,8 @@ export function circuit(parts: Part[], extra: Partial<Circuit> = {}): Circuit {
     monteCarlo: null,
     poles: false,
     sensitivity: [],
+    temperature: 300.15,
+    steady: null,
     ...extra,
   };
 }

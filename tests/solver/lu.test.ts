@@ -131,10 +131,15 @@ describe("SparseComplexLU", () => {
     const a2 = { re: a.re, im: a.im.map((row) => row.map((x) => x * 1.7)) };
     expect(permutedProduct(lu, a2)).toBeLessThan(1e-13);
     // Now make a pivot tiny (one whose row has no L part but U entries, so the pivot is a
-    // matrix entry itself): the refactorization must re-pivot for these values only.
+    // matrix entry itself, and whose column holds other entries, so equilibration cannot scale it
+    // back up): the refactorization must re-pivot for these values only.
     const f = lu.denseFactors();
+    const colCount = (c: number) => a.re.filter((row, i) => row[c] !== 0 || a.im[i]![c] !== 0).length;
     const k = order.findIndex(
-      (_, i) => f.lRe[i]!.every((x, j) => j === i || x === 0) && f.uRe[i]!.some((x, j) => j > i && x !== 0),
+      (_, i) =>
+        f.lRe[i]!.every((x, j) => j === i || x === 0) &&
+        f.uRe[i]!.some((x, j) => j > i && x !== 0) &&
+        colCount(lu.columnPermutation[i]!) > 1,
     );
     expect(k).toBeGreaterThanOrEqual(0);
     const p0 = order[k]!;

@@ -1,13 +1,13 @@
 import { json, withApi } from "@/lib/api";
 import { readJsonBody } from "@/lib/body";
 import { RateLimitError, TooLargeError, WorkBudgetError } from "@/lib/errors";
+import { previewOptions, solveWork } from "@/lib/jobs";
 import {
   MAX_INLINE_WORK,
   MAX_MC_INLINE_SAMPLES,
   MAX_NETLIST_BYTES,
   MAX_PREVIEW_POINTS,
   SOLVE_RATE_PER_MINUTE,
-  solveWork,
 } from "@/lib/limits";
 import { solvePreview } from "@/lib/preview-pool";
 import { createRateLimiter } from "@/lib/rate-limit";
@@ -28,7 +28,7 @@ const MAX_BODY_BYTES = MAX_NETLIST_BYTES * 2 + 1024;
  * POST /api/solve `{netlist}` → the solver's JSON result (NETLIST.md), nothing saved.
  * A netlist with errors is a normal preview state: 200 with `{ok: false, errors}` (line and column each).
  * 400 malformed body, 401 signed out, 413 netlist over MAX_NETLIST_BYTES (counted while the body
- * streams in), 422 `too_much_work` over the work budget (lib/limits.ts `solveWork`), 429 over the
+ * streams in), 422 `too_much_work` over the work budget (lib/jobs.ts `solveWork`), 429 over the
  * per-user rate, 503 when the preview pool is full or a preview runs too long.
  */
 export const POST = withApi(async (req: Request) => {
@@ -50,12 +50,13 @@ export const POST = withApi(async (req: Request) => {
   // Priced before solving: compiling is linear in the text; the solve is what costs.
   const compiled = compile(netlist);
   if (compiled.ok) {
-    const work = solveWork(compiled.circuit);
+    // A steady oscillation over the budget is deferred by previewOptions, not refused.
+    const work = solveWork({ ...compiled.circuit, steady: null });
     const samples = compiled.circuit.monteCarlo?.samples ?? 0;
     if (work > MAX_INLINE_WORK || samples > MAX_MC_INLINE_SAMPLES)
       throw new WorkBudgetError(work, MAX_INLINE_WORK);
   }
-  return json(await solvePreview(netlist, MAX_PREVIEW_POINTS));
+  return json(await solvePreview(netlist, previewOptions(netlist, MAX_PREVIEW_POINTS)));
 });
 
 function tooLarge(): TooLargeError {

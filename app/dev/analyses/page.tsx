@@ -1,5 +1,6 @@
 import { notFound } from "next/navigation";
 import { AnalysesPanel } from "@/components/analyses/analyses-panel";
+import { GroupDelayView } from "@/components/analyses/group-delay-view";
 import { Panel, PanelHeader } from "@/components/ui/panel";
 import { solveNetlist } from "@/solver";
 import { SnapDemo } from "./snap-demo";
@@ -7,6 +8,21 @@ import { SnapDemo } from "./snap-demo";
 export const dynamic = "force-dynamic";
 
 // A scratch page for looking at the analyses views with real solver output (development only).
+// The hydrophone preamp example (solver/examples): noise, zeros and poles on one map.
+const PREAMP = `Vh: vsource hyd gnd 1
+Ch: capacitor hyd x 4.7n
+Rb: resistor x gnd 1M
+Rin: resistor x pos 10k
+U1: opamp pos neg out gbw=10M pole2=40M en=4n in=0.5p fc=20
+Rf: resistor out neg 100k
+Rg: resistor neg gnd 1k
+sweep 1Hz to 1MHz log 50 per decade
+show gain = volts(out) / volts(hyd)
+noise N = volts(out) input Vh
+zeros volts(out)
+poles
+`;
+
 const NETLIST = `title Bench sweep source, bridge oscillator study
 let R = 10k
 let C = 10n
@@ -39,6 +55,7 @@ export default async function AnalysesScratchPage({
   if (process.env.NODE_ENV === "production") notFound();
   const { job, status } = await searchParams;
   const result = solveNetlist(NETLIST);
+  const preamp = solveNetlist(PREAMP);
   return (
     <main className="mx-auto max-w-6xl space-y-6 px-4 py-8">
       {job ? (
@@ -59,6 +76,22 @@ export default async function AnalysesScratchPage({
             <AnalysesPanel result={result} />
           ) : (
             <pre className="text-signal-fault text-sm">{JSON.stringify(result.errors, null, 2)}</pre>
+          )}
+        </div>
+      </Panel>
+      <Panel>
+        <PanelHeader
+          title="Noise, zeros and group delay"
+          description="solveNetlist() of a hydrophone preamp"
+        />
+        <div className="space-y-6 p-5" data-testid="preamp-analyses">
+          {preamp.ok ? (
+            <>
+              <AnalysesPanel result={preamp} />
+              <GroupDelayView traces={preamp.traces} frequencies={preamp.frequencies} />
+            </>
+          ) : (
+            <pre className="text-signal-fault text-sm">{JSON.stringify(preamp.errors, null, 2)}</pre>
           )}
         </div>
       </Panel>

@@ -3,6 +3,7 @@ import Link from "next/link";
 import { notFound } from "next/navigation";
 import { AnalysesPanel } from "@/components/analyses/analyses-panel";
 import { analysisSections } from "@/components/analyses/analysis-math";
+import { GroupDelayView } from "@/components/analyses/group-delay-view";
 import { ReviewActions } from "@/components/review/review-actions";
 import { ReviewHistory } from "@/components/review/review-history";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
@@ -155,6 +156,13 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
             canComment={run.permissions.comment}
             aside={reviewPanel}
           />
+          {result.traces.some((t) => t.groupDelay) ? (
+            <Panel className="mt-6">
+              <div className="p-4 sm:p-5">
+                <GroupDelayView traces={result.traces} frequencies={result.frequencies} />
+              </div>
+            </Panel>
+          ) : null}
         </>
       ) : run.status === "queued" || run.status === "running" ? null : (
         <Notice tone="warn" title="This run has no result.">

@@ -1,0 +1,222 @@
+/**
+ * Noise (NETLIST.md "Noise"): the output density of a voltage probe, each source's share, and the
+ * density referred to an input source.
+ *
+ * Method: the adjoint network (R. A. Rohrer, L. W. Nagel, R. G. Meyer & L. Weber, "Computationally
+ * efficient electronic-circuit noise calculations", IEEE J. Solid-State Circuits 6(4), 1971). The
+ * probe is v = dᵀ·x with x = A⁻¹·b, so v = zᵀ·b with Aᵀ·z = d: one transposed solve per frequency,
+ * on the factors the sweep already has, gives the transfer from every possible excitation at once.
+ * A current i injected into node a and out of node b reaches the probe as (z_a − z_b)·i; a voltage
+ * added to row r of the equations (an op-amp's input noise, opamp.ts `controlRow`) as z_r·v; the
+ * input source's own gain is z_k of its branch row (vsource) or z_b − z_a (isource from a to b).
+ * Sources are uncorrelated, so their powers add.
+ * Densities: a resistor R is a current source of 4kT/R A²/Hz across it (Johnson–Nyquist; k exact,
+ * SI Brochure 9th ed.), an op-amp's en² and in² (in into each input, uncorrelated) times (1 + fc/f).
+ */
+import { BOLTZMANN, DEFAULT_KELVIN } from "../physics";
+import type { Circuit, NoiseDef, NoiseResult, Part } from "../types";
+import type { AcSolver } from "./ac";
+import type { MnaSystem } from "./mna";
+import { controlRow } from "./opamp";
+
+/** The circuit's temperature in kelvin (the `temperature` statement; the language defaults it to 27 °C). */
+export function kelvinOf(circuit: Circuit): number {
+  const t = circuit.temperature;
+  return typeof t === "number" && t > 0 ? t : DEFAULT_KELVIN;
+}
+
+/** One uncorrelated source: its power gain is Σ |z[a] − z[b]|² over its terminals (−1 = gnd). */
+interface Source {
+  part: string;
+  source: "thermal" | "en" | "in";
+  terms: [number, number][];
+  /** Density² is white·(1 + fc/f): V²/Hz or A²/Hz. */
+  white: number;
+  fc: number;
+}
+
+function sourcesOf(sys: MnaSystem, kelvin: number): Source[] {
+  const ix = (name: string) => sys.nodeIndex.get(name) ?? -1;
+  const out: Source[] = [];
+  for (const p of sys.parts) {
+    if (p.kind === "resistor" && p.value !== 0) {
+      const white = (4 * BOLTZMANN * kelvin) / Math.abs(p.value);
+      out.push({
+        part: p.name,
+        source: "thermal",
+        terms: [[ix(p.nodes[0]!), ix(p.nodes[1]!)]],
+        white,
+        fc: 0,
+      });
+    } else if (p.kind === "opamp") out.push(...opampSources(p, sys, ix));
+  }
+  return out;
+}
+
+function opampSources(p: Part, sys: MnaSystem, ix: (n: string) => number): Source[] {
+  const o = p.opamp ?? {};
+  const fc = o.fc ?? 0;
+  const out: Source[] = [];
+  if (o.en) {
+    const terms: [number, number][] = [[controlRow(p, sys.branchIndex), -1]];
+    out.push({ part: p.name, source: "en", terms, white: o.en * o.en, fc });
+  }
+  if (o.in) {
+    const terms: [number, number][] = [
+      [ix(p.nodes[0]!), -1],
+      [ix(p.nodes[1]!), -1],
+    ];
+    out.push({ part: p.name, source: "in", terms, white: o.in * o.in, fc });
+  }
+  return out;
+}
+
+/** What the adjoint solution gives at one frequency. */
+export interface NoisePoint {
+  /** Output density², V²/Hz. */
+  total: number;
+  /** Each source's density², in the order of `NoiseProbe.sources`. */
+  parts: Float64Array;
+  /** |gain from the input source to the probe|², or null without `input`. */
+  gain2: number | null;
+}
+
+/** One `noise` statement bound to a system: evaluates the adjoint at the solver's last solve. */
+export class NoiseProbe {
+  readonly def: NoiseDef;
+  readonly sources: Source[];
+  private readonly dRe: Float64Array;
+  private readonly dIm: Float64Array;
+  /** z with one more slot (index n, always 0) standing for gnd. */
+  private readonly zRe: Float64Array;
+  private readonly zIm: Float64Array;
+  /** Sources flattened for the per-point loop: terms of source s are termStart[s]…termStart[s+1]−1. */
+  private readonly termStart: Int32Array;
+  private readonly termA: Int32Array;
+  private readonly termB: Int32Array;
+  private readonly white: Float64Array;
+  private readonly fc: Float64Array;
+  private readonly input: { row: number } | { from: number; to: number } | null;
+
+  constructor(def: NoiseDef, sys: MnaSystem, kelvin: number) {
+    this.def = def;
+    this.sources = sourcesOf(sys, kelvin);
+    const n = sys.n;
+    this.dRe = new Float64Array(n);
+    this.dIm = new Float64Array(n);
+    this.zRe = new Float64Array(n + 1);
+    this.zIm = new Float64Array(n + 1);
+    const g = (i: number) => (i < 0 ? n : i);
+    const flat = this.sources.flatMap((x) => x.terms);
+    this.termA = Int32Array.from(flat, ([a]) => g(a));
+    this.termB = Int32Array.from(flat, ([, b]) => g(b));
+    this.termStart = new Int32Array(this.sources.length + 1);
+    this.sources.forEach((x, i) => {
+      this.termStart[i + 1] = this.termStart[i]! + x.terms.length;
+    });
+    this.white = Float64Array.from(this.sources, (x) => x.white);
+    this.fc = Float64Array.from(this.sources, (x) => x.fc);
+    if (def.probe.op === "v") {
+      const a = sys.nodeIndex.get(def.probe.node);
+      const b = def.probe.ref === undefined ? undefined : sys.nodeIndex.get(def.probe.ref);
+      if (a !== undefined) this.dRe[a] = 1;
+      if (b !== undefined) this.dRe[b] = this.dRe[b]! - 1;
+    }
+    const src = def.input === undefined ? undefined : sys.partByName.get(def.input);
+    if (!src) this.input = null;
+    else if (src.kind === "vsource") this.input = { row: sys.branchIndex.get(src.name)! };
+    else
+      this.input = {
+        from: g(sys.nodeIndex.get(src.nodes[0]!) ?? -1),
+        to: g(sys.nodeIndex.get(src.nodes[1]!) ?? -1),
+      };
+  }
+
+  /**
+   * The densities at frequency f; `solver` must have just solved at f. Cost: one transposed solve
+   * and O(sources). `parts` receives each source's density² (a new array when not given).
+   */
+  evaluate(
+    solver: AcSolver,
+    f: number,
+    parts: Float64Array = new Float64Array(this.sources.length),
+  ): NoisePoint {
+    const { zRe, zIm, termStart, termA, termB, white, fc } = this;
+    const n = zRe.length - 1;
+    solver.adjoint(this.dRe, this.dIm, zRe.subarray(0, n), zIm.subarray(0, n));
+    let total = 0;
+    for (let s = 0; s < white.length; s++) {
+      let g2 = 0;
+      for (let q = termStart[s]!; q < termStart[s + 1]!; q++) {
+        const a = termA[q]!;
+        const b = termB[q]!;
+        const r = zRe[a]! - zRe[b]!;
+        const i = zIm[a]! - zIm[b]!;
+        g2 += r * r + i * i;
+      }
+      const fcs = fc[s]!;
+      const v = g2 * white[s]! * (fcs === 0 ? 1 : 1 + fcs / f);
+      parts[s] = v;
+      total += v;
+    }
+    let gain2: number | null = null;
+    const inp = this.input;
+    if (inp && "row" in inp) gain2 = zRe[inp.row]! ** 2 + zIm[inp.row]! ** 2;
+    else if (inp) gain2 = (zRe[inp.to]! - zRe[inp.from]!) ** 2 + (zIm[inp.to]! - zIm[inp.from]!) ** 2;
+    return { total, parts, gain2 };
+  }
+}
+
+const root = (x: number): number | null => (Number.isFinite(x) && x >= 0 ? Math.sqrt(x) : null);
+
+/** Collects a noise statement's densities over a sweep (filled point by point, in order). */
+export class NoiseSweep {
+  readonly probe: NoiseProbe;
+  private readonly total: Float64Array;
+  private readonly gain2: Float64Array;
+  /** Point-major density² of every source: parts[k·S + s]. */
+  private readonly parts: Float64Array;
+  private k = 0;
+
+  constructor(probe: NoiseProbe, points: number) {
+    this.probe = probe;
+    this.total = new Float64Array(points);
+    this.gain2 = new Float64Array(points);
+    this.parts = new Float64Array(points * probe.sources.length);
+  }
+
+  record(solver: AcSolver, f: number): void {
+    const S = this.probe.sources.length;
+    const p = this.probe.evaluate(solver, f, this.parts.subarray(this.k * S, (this.k + 1) * S));
+    this.total[this.k] = p.total;
+    this.gain2[this.k] = p.gain2 ?? 0;
+    this.k++;
+  }
+
+  result(kelvin: number): NoiseResult {
+    const { def, sources } = this.probe;
+    const S = sources.length;
+    const pts = this.k;
+    const column = (get: (k: number) => number | null) => {
+      const out = new Array<number | null>(pts);
+      for (let k = 0; k < pts; k++) out[k] = get(k);
+      return out;
+    };
+    return {
+      name: def.name,
+      probe: def.text,
+      density: column((k) => root(this.total[k]!)),
+      inputDensity:
+        def.input === undefined
+          ? null
+          : column((k) => (this.gain2[k]! > 0 ? root(this.total[k]! / this.gain2[k]!) : null)),
+      input: def.input ?? null,
+      contributions: sources.map((src, s) => ({
+        part: src.part,
+        source: src.source,
+        density: column((k) => root(this.parts[k * S + s]!)),
+      })),
+      temperature: kelvin,
+    };
+  }
+}

@@ -1,0 +1,78 @@
+/**
+ * Group delay (LANGUAGE-NEXT §4), exact from dX/ds, against closed forms. OAFE = Texas
+ * Instruments, "Op Amps For Everyone — Design Reference", SLOD006B, 2002.
+ */
+import { describe, expect, it } from "vitest";
+import { solveNetlist } from "@/solver";
+import type { SolveSuccess } from "@/solver/types";
+import { expectClose } from "./engine-tolerance";
+
+function solve(text: string): SolveSuccess {
+  const r = solveNetlist(text);
+  if (!r.ok) throw new Error(JSON.stringify(r.errors));
+  return r;
+}
+const value = (r: SolveSuccess, name: string) => {
+  const m = r.measures.find((x) => x.name === name);
+  if (m?.value == null) throw new Error(`${name}: ${m?.reason}`);
+  return m.value;
+};
+
+describe("group delay", () => {
+  it("first-order RC section: τ = RC/(1 + (ωRC)²) on every point and as a measure (common practice: −d/dω of −atan(ωRC))", () => {
+    const rc = 10e3 * 10e-9;
+    const r = solve(`Vin: vsource in gnd 1
+R1: resistor in out 10k
+C1: capacitor out gnd 10n
+sweep 10Hz to 100kHz log 20 per decade
+show H = volts(out) / volts(in)
+measure d0 = group-delay(H) at 1.59155kHz
+measure d1 = group-delay(H) at 20kHz
+`);
+    const tau = (f: number) => rc / (1 + (2 * Math.PI * f * rc) ** 2);
+    const h = r.traces[0]!;
+    expect(h.groupDelay).toHaveLength(r.frequencies.length);
+    for (const [k, f] of r.frequencies.entries()) expectClose(h.groupDelay![k]!, tau(f), 1e-10);
+    expectClose(value(r, "d0"), tau(1591.55), 1e-10);
+    expectClose(value(r, "d1"), tau(20e3), 1e-10);
+    expect(r.measures[0]!.unit).toBe("s");
+  });
+
+  it("second-order Bessel section (OAFE §16.9 Table 16-4, n = 2: a = 1.3617, b = 0.6180): τ(0) = a/ωc and τ(ω) of 1/(1 + aΩj − bΩ²)", () => {
+    // Realized as series R–L into a shunt C: H = 1/(1 + sRC + s²LC) with RC = a/ωc, LC = b/ωc², fc = 1 kHz.
+    const [a, b] = [1.3617, 0.618];
+    const wc = 2 * Math.PI * 1e3;
+    const c = 100e-9;
+    const r = solve(`Vin: vsource in gnd 1
+R1: resistor in x ${a / (wc * c)}
+L1: inductor x out ${b / (wc * wc * c)}
+C1: capacitor out gnd 100n
+sweep 1Hz to 100kHz log 20 per decade
+show H = volts(out) / volts(in)
+measure f3 = crossing(H, half-power)
+measure t0 = group-delay(H) at 1Hz
+measure tc = group-delay(H) at 1kHz
+measure t2 = group-delay(H) at 2kHz
+`);
+    // τ(Ω) = (a/ωc)·(1 + bΩ²)/((1 − bΩ²)² + a²Ω²) (derivative of atan(aΩ/(1 − bΩ²)), common practice).
+    const tau = (f: number) => {
+      const w = f / 1e3;
+      return ((a / wc) * (1 + b * w * w)) / ((1 - b * w * w) ** 2 + a * a * w * w);
+    };
+    expectClose(value(r, "f3"), 1e3, 2e-4); // the table is normalized to the −3 dB frequency (4 digits)
+    expectClose(value(r, "t0"), a / wc, 1e-6);
+    expectClose(value(r, "tc"), tau(1e3), 1e-9);
+    expectClose(value(r, "t2"), tau(2e3), 1e-9);
+  });
+
+  it("is null with a reason at a transmission zero", () => {
+    const r = solve(`Vin: vsource in gnd 1
+R1: resistor in out 1k
+C1: capacitor out gnd 1u
+show V = volts(out) - volts(out)
+measure d = group-delay(V) at 1kHz
+`);
+    expect(r.measures[0]!.value).toBeNull();
+    expect(r.measures[0]!.reason).toContain("its phase has no slope");
+  });
+});
