@@ -1,5 +1,7 @@
 import { ZodError, type z } from "zod";
+import { readJsonBody } from "@/lib/body";
 import { AppError, BadRequestError, isDatabaseConnectionError } from "@/lib/errors";
+import { MAX_JSON_BODY_BYTES } from "@/lib/limits";
 import { issuesToFields } from "@/lib/utils";
 
 export type ErrorBody = { error: { code: string; message: string; details?: Record<string, unknown> } };
@@ -61,13 +63,13 @@ export function withApi<C = unknown>(
 }
 
 /** Reads and validates a JSON body: malformed JSON → 400; schema failure → 400 with `details.fields`. */
-export async function readJson<S extends z.ZodType>(req: Request, schema: S): Promise<z.output<S>> {
-  let raw: unknown;
-  try {
-    raw = await req.json();
-  } catch {
-    throw new BadRequestError("The request body is not valid JSON.");
-  }
+export async function readJson<S extends z.ZodType>(
+  req: Request,
+  schema: S,
+  maxBytes = MAX_JSON_BODY_BYTES,
+): Promise<z.output<S>> {
+  // Counted while streaming (lib/body.ts): an oversized body is refused before it is buffered.
+  const raw = await readJsonBody(req, maxBytes);
   const parsed = schema.safeParse(raw);
   if (!parsed.success) {
     throw new BadRequestError("Some fields are not valid.", { fields: zodFieldErrors(parsed.error) });

@@ -59,6 +59,30 @@ export function can(role: Role, action: Action): boolean {
   return PERMISSIONS[role]?.has(action) ?? false;
 }
 
+/**
+ * Who may settle a comment thread or open it again: the comment's author, the run's author, and the
+ * team's reviewers and owners (the people who decide on the run). Pure.
+ */
+export function canSettleComment(p: {
+  role: Role;
+  userId: string;
+  commentAuthorId: string;
+  runAuthorId: string;
+}): boolean {
+  if (!can(p.role, "run:comment")) return false;
+  if (p.role === "owner" || p.role === "reviewer") return true;
+  return p.userId === p.commentAuthorId || p.userId === p.runAuthorId;
+}
+
+/** ForbiddenError unless `canSettleComment`. */
+export function authorizeSettle(p: Parameters<typeof canSettleComment>[0]): void {
+  if (!canSettleComment(p)) {
+    throw new ForbiddenError(
+      "Only the comment's author, the run's author, a reviewer or an owner may settle or reopen this thread.",
+    );
+  }
+}
+
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 export function isUuid(value: unknown): value is string {
   return typeof value === "string" && UUID.test(value);

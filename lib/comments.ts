@@ -1,5 +1,5 @@
 import { QueryTypes } from "sequelize";
-import { authorizeRun, isUuid } from "@/lib/authz";
+import { authorizeRun, authorizeSettle, isUuid } from "@/lib/authz";
 import { Comment, sequelize, User } from "@/lib/db";
 import { BadRequestError, NotFoundError, withDb } from "@/lib/errors";
 import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
@@ -167,17 +167,23 @@ export async function createComment(
   return toView(full);
 }
 
-/** Settles a comment thread of the run, or opens it again. */
+/** Settles a comment thread of the run, or opens it again (who may: `canSettleComment` in lib/authz.ts). */
 export async function setCommentState(
   actor: Actor,
   runId: string,
   commentId: string,
   state: ThreadState,
 ): Promise<CommentView> {
-  await authorizeRun(actor.userId, runId, "run:comment");
+  const { run, role } = await authorizeRun(actor.userId, runId, "run:comment");
   return withDb(async () => {
     const comment = isUuid(commentId) ? await Comment.findOne({ where: { id: commentId, runId } }) : null;
     if (!comment) throw new NotFoundError("Comment not found.");
+    authorizeSettle({
+      role,
+      userId: actor.userId,
+      commentAuthorId: comment.authorId,
+      runAuthorId: String(run.get("authorId")),
+    });
     await comment.update(
       state === "settled"
         ? { settledAt: new Date(), settledById: actor.userId }

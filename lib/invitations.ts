@@ -7,6 +7,7 @@ import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
 import { invitationMail } from "@/lib/mail/templates";
 import type { Actor } from "@/lib/session";
 import { type InvitationCreateInput, invitationCreateSchema } from "@/lib/validations/invitation";
+import { requireVerifiedEmail } from "@/lib/verification";
 
 /** An invitation link works for seven days. */
 export const INVITATION_TTL_MS = 7 * 24 * 3600 * 1000;
@@ -172,7 +173,10 @@ export async function previewInvitation(token: string): Promise<InvitationPrevie
   };
 }
 
-/** Accepts an invitation for the signed-in user, whose e-mail must be the invited one. Returns the team id. */
+/**
+ * Accepts an invitation (single use) for the signed-in user, whose e-mail must be the invited one and
+ * verified (EmailUnverifiedError otherwise). Returns the team id.
+ */
 export async function acceptInvitation(
   actor: Actor,
   token: string,
@@ -193,6 +197,7 @@ export async function acceptInvitation(
           `This invitation was sent to ${inv.email}. Sign in with that address to accept it.`,
         );
       }
+      await requireVerifiedEmail(actor.userId, transaction);
       const member = await Membership.findOne({
         where: { teamId: inv.teamId, userId: actor.userId },
         transaction,

@@ -46,7 +46,8 @@ export interface RunSolveJobData {
 }
 
 /**
- * Solver work in sweep points: points × (1 + Monte Carlo samples + vary values), plus each integrated
+ * Solver work in sweep points: points × (1 + Monte Carlo samples + vary values + 2 × sensitivity
+ * parts), plus each integrated
  * noise measure's price (NOISE_BAND_WORK per variant), plus the steady oscillation's price
  * (steadyWork) once per solve that computes it.
  */
@@ -55,8 +56,10 @@ export function solveWork(circuit: Circuit): number {
   const samples = circuit.monteCarlo?.samples ?? 0;
   const variants = circuit.vary?.values.length ?? 0;
   const bands = circuit.measures.filter((m) => m.band).length;
+  // A sensitivity study re-solves the sweep twice per part (central differences; issue 13).
+  const sensitivityParts = (circuit.sensitivity?.length ?? 0) > 0 ? circuit.parts.length : 0;
   const sweeps =
-    (Number.isFinite(points) ? points : 0) * (1 + samples + variants) +
+    (Number.isFinite(points) ? points : 0) * (1 + samples + variants + 2 * sensitivityParts) +
     bands * NOISE_BAND_WORK * (1 + variants);
   if (!circuit.steady) return sweeps;
   const sampled = circuit.measures.some((m) => STEADY_MEASURES.has(m.fn)) ? samples : 0;

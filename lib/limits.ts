@@ -45,6 +45,9 @@ export const STEADY_CUBE_DIVISOR = 100;
  */
 export const NOISE_BAND_WORK = 1_000;
 
+/** Largest JSON request body read by the API (a 2 MB measurement CSV, JSON-escaped), in bytes. */
+export const MAX_JSON_BODY_BYTES = 5_000_000;
+
 /** Most Monte Carlo samples a queued run may ask for. */
 export const MAX_QUEUED_SAMPLES = 20_000;
 

@@ -1,6 +1,10 @@
+import { env } from "@/lib/env";
+
 /**
- * In-memory sliding-window rate limiter (per process). Each key keeps the timestamps of its
- * recent attempts; an attempt is refused when `limit` attempts already fall inside the window.
+ * Limits on guessing (issue 13: the old limiter keyed on X-Forwarded-For, which the client sets).
+ * Everything here is keyed on what the client cannot forge: the account (e-mail) and the peer
+ * address (the TCP peer; a forwarding header only with TRUST_PROXY behind a known proxy). In memory,
+ * per process: with several app processes, each keeps its own count.
  */
 export type RateLimitResult = { ok: boolean; remaining: number; retryAfterMs: number };
 
@@ -10,6 +14,7 @@ export type RateLimiter = {
   size(): number;
 };
 
+/** Sliding window: an attempt is refused when `limit` attempts already fall inside the window. */
 export function createRateLimiter(opts: { limit: number; windowMs: number; maxKeys?: number }): RateLimiter {
   const { limit, windowMs, maxKeys = 10_000 } = opts;
   const hits = new Map<string, number[]>();
@@ -42,24 +47,108 @@ export function createRateLimiter(opts: { limit: number; windowMs: number; maxKe
   };
 }
 
-/** Sign-in attempts: 5 per minute per e-mail + client address. */
-export const signInLimiter = createRateLimiter({ limit: 5, windowMs: 60_000 });
-/** Account creation: 10 per 10 minutes per client address. */
-export const signUpLimiter = createRateLimiter({ limit: 10, windowMs: 600_000 });
+export type Lockout = {
+  /** Milliseconds the key is still locked (0 when free). */
+  lockedFor(key: string, now?: number): number;
+  /** Counts a failure; returns the lock it starts (0 while failures are still free). */
+  fail(key: string, now?: number): number;
+  reset(key: string): void;
+};
 
-/** The client address as seen through the proxy headers ("local" when absent). */
-export function clientIp(headers: Headers): string {
-  const forwarded = headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return forwarded || headers.get("x-real-ip")?.trim() || "local";
+/**
+ * Exponential lock after repeated failures: the first `free` failures cost nothing; failure number
+ * free + k (k ≥ 1) locks the key for baseMs·2^(k−1) (capped at maxMs). Failures are forgotten `forgetMs` after the
+ * last one, or on reset (a successful sign-in of the account).
+ */
+export function createLockout(opts: {
+  free: number;
+  baseMs: number;
+  maxMs: number;
+  forgetMs: number;
+  maxKeys?: number;
+}): Lockout {
+  const { free, baseMs, maxMs, forgetMs, maxKeys = 50_000 } = opts;
+  const state = new Map<string, { failures: number; last: number; until: number }>();
+  const current = (key: string, now: number) => {
+    const s = state.get(key);
+    if (s && s.last + forgetMs <= now && s.until <= now) {
+      state.delete(key);
+      return undefined;
+    }
+    return s;
+  };
+  return {
+    lockedFor(key, now = Date.now()) {
+      return Math.max(0, (current(key, now)?.until ?? 0) - now);
+    },
+    fail(key, now = Date.now()) {
+      if (state.size > maxKeys) for (const k of state.keys()) current(k, now);
+      const s = current(key, now) ?? { failures: 0, last: now, until: 0 };
+      s.failures += 1;
+      s.last = now;
+      const over = s.failures - free;
+      const lock = over > 0 ? Math.min(maxMs, baseMs * 2 ** (over - 1)) : 0;
+      s.until = Math.max(s.until, now + lock);
+      state.set(key, s);
+      return lock;
+    },
+    reset(key) {
+      state.delete(key);
+    },
+  };
 }
 
-export function signInKey(email: string, ip: string): string {
-  return `${email.trim().toLowerCase()}|${ip}`;
+/** Per account: 5 free failures, then 1 s, 2 s, 4 s … up to 15 min; forgotten after an hour. */
+export const accountLockout = createLockout({
+  free: 5,
+  baseMs: 1000,
+  maxMs: 15 * 60_000,
+  forgetMs: 3_600_000,
+});
+/** Per peer address (many accounts, one machine): 20 free failures, then doubling up to an hour. */
+export const peerLockout = createLockout({ free: 20, baseMs: 1000, maxMs: 3_600_000, forgetMs: 3_600_000 });
+/** Account creation: 10 per 10 minutes per peer address. */
+export const signUpLimiter = createRateLimiter({ limit: 10, windowMs: 600_000 });
+
+/** Header carrying the TCP peer address, set by lib/peer-address.ts from the socket (a client's copy is overwritten). */
+export const PEER_HEADER = "x-pw-peer";
+
+/**
+ * The client's address: with TRUST_PROXY, the first X-Forwarded-For entry (the proxy is trusted to
+ * overwrite it); otherwise the socket's peer address, never a header the client wrote.
+ */
+export function clientAddress(headers: Headers, trustProxy = env.TRUST_PROXY): string {
+  if (trustProxy) {
+    const forwarded = headers.get("x-forwarded-for")?.split(",")[0]?.trim();
+    if (forwarded) return forwarded;
+  }
+  return headers.get(PEER_HEADER)?.trim() || "unknown-peer";
+}
+
+const accountKey = (email: string) => `account:${email.trim().toLowerCase()}`;
+const peerKey = (address: string) => `peer:${address}`;
+
+/** How long a sign-in for this account from this address must wait (0 = go ahead). */
+export function signInWait(headers: Headers, email: string, now?: number): number {
+  return Math.max(
+    accountLockout.lockedFor(accountKey(email), now),
+    peerLockout.lockedFor(peerKey(clientAddress(headers)), now),
+  );
+}
+
+/** Records a sign-in outcome: a failure counts against the account and the address; success frees the account. */
+export function recordSignIn(headers: Headers, email: string, ok: boolean, now?: number): void {
+  if (ok) {
+    accountLockout.reset(accountKey(email));
+    return;
+  }
+  accountLockout.fail(accountKey(email), now);
+  peerLockout.fail(peerKey(clientAddress(headers)), now);
 }
 
 /**
- * Counts a credential sign-in attempt. Under the limit → null (let next-auth handle it); over it →
- * a 429 answer in the API's error shape, with Retry-After and the `url` next-auth's client reads.
+ * Gate before next-auth sees a credential sign-in: while the account or the address is locked → a 429
+ * answer in the API's error shape, with Retry-After and the `url` next-auth's client reads; else null.
  */
 export function throttleSignIn(
   headers: Headers,
@@ -67,14 +156,14 @@ export function throttleSignIn(
   baseUrl: string,
   now?: number,
 ): Response | null {
-  const verdict = signInLimiter.hit(signInKey(email, clientIp(headers)), now);
-  if (verdict.ok) return null;
-  const retryAfterSeconds = Math.max(1, Math.ceil(verdict.retryAfterMs / 1000));
+  const wait = signInWait(headers, email, now);
+  if (wait <= 0) return null;
+  const retryAfterSeconds = Math.max(1, Math.ceil(wait / 1000));
   return Response.json(
     {
       error: {
         code: "rate_limited",
-        message: `Too many sign-in attempts. Wait ${retryAfterSeconds} seconds and try again.`,
+        message: `Too many failed sign-ins. Wait ${retryAfterSeconds} seconds and try again.`,
         details: { retryAfterSeconds },
       },
       url: `${baseUrl}/signin?error=rate_limited`,

@@ -2,7 +2,9 @@ import { cookies, headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { decode } from "next-auth/jwt";
 import { env } from "@/lib/env";
-import { UnauthorizedError, withDb } from "@/lib/errors";
+import { ForbiddenError, isDatabaseConnectionError, UnauthorizedError, withDb } from "@/lib/errors";
+import { safeCallback } from "@/lib/safe-callback";
+import { currentSessionVersion } from "@/lib/session-version";
 import { verifyBearerToken } from "@/lib/tokens";
 
 /** Who is calling: from the next-auth session cookie or an `Authorization: Bearer <api token>` header. */
@@ -44,12 +46,26 @@ function sessionToken(jar: Map<string, string>): string | null {
   return null;
 }
 
+/**
+ * Whether a session issued at version `sv` still stands (lib/session-version.ts). When the database is
+ * unreachable the token is trusted as before: nothing else works then, and pages explain the outage.
+ */
+async function sessionStillValid(userId: string, sv: number): Promise<boolean> {
+  try {
+    return (await currentSessionVersion(userId)) === sv;
+  } catch (err) {
+    if (isDatabaseConnectionError(err)) return true;
+    throw err;
+  }
+}
+
 /** Decodes next-auth's encrypted session JWT (expiry checked); null when absent, expired or forged. */
 export async function actorFromSessionToken(token: string | null): Promise<Actor | null> {
   if (!token) return null;
   try {
     const payload = await decode({ token, secret: env.NEXTAUTH_SECRET });
     if (!payload || typeof payload.sub !== "string") return null;
+    if (!(await sessionStillValid(payload.sub, typeof payload.sv === "number" ? payload.sv : 0))) return null;
     return {
       userId: payload.sub,
       email: typeof payload.email === "string" ? payload.email : "",
@@ -84,14 +100,27 @@ export async function requireActor(req?: Request): Promise<Actor> {
 }
 
 /**
+ * The caller signed in through the browser session only: a request carrying an API token is refused
+ * (403), so a leaked token cannot mint more tokens. For routes that manage tokens.
+ */
+export async function requireSessionActor(req: Request): Promise<Actor> {
+  if (bearerFrom(req.headers)) {
+    throw new ForbiddenError(
+      "API tokens cannot create tokens. Sign in to Phasewright and create one in Settings.",
+    );
+  }
+  return requireActor(req);
+}
+
+/**
  * The signed-in user for server components and actions; redirects to /signin when signed out, with the
  * current page (set by proxy.ts) as the place to come back to.
  */
 export async function requireUser(): Promise<Actor> {
   const actor = await getActor();
   if (!actor) {
-    const back = (await headers()).get("x-pw-path");
-    redirect(back?.startsWith("/") ? `/signin?callbackUrl=${encodeURIComponent(back)}` : "/signin");
+    const back = safeCallback((await headers()).get("x-pw-path"), { fallback: "" });
+    redirect(back ? `/signin?callbackUrl=${encodeURIComponent(back)}` : "/signin");
   }
   return actor;
 }

@@ -2,6 +2,7 @@ import { randomBytes } from "node:crypto";
 import type { Transaction } from "sequelize";
 import { authorizeTeam, isRole, type Role } from "@/lib/authz";
 import { BadRequestError, NotFoundError, withDb } from "@/lib/errors";
+import { bumpSessionVersion } from "@/lib/session-version";
 
 export type TeamSummary = { id: string; name: string; slug: string; role: Role; memberCount: number };
 export type TeamMember = {
@@ -107,7 +108,7 @@ async function lockMembership(teamId: string, membershipId: string, transaction:
   return { owners, target };
 }
 
-/** Owner only: gives a member another role. The last owner cannot be demoted. */
+/** Owner only: gives a member another role (ending their sessions). The last owner cannot be demoted. */
 export async function changeMemberRole(
   actorId: string,
   teamId: string,
@@ -122,7 +123,11 @@ export async function changeMemberRole(
       if (target.role === "owner" && role !== "owner" && owners.length <= 1) {
         throw new BadRequestError(LAST_OWNER, { fields: { role: [LAST_OWNER] } });
       }
-      if (target.role !== role) await target.update({ role }, { transaction });
+      if (target.role !== role) {
+        await target.update({ role }, { transaction });
+        // The member's open sessions end: they sign in again under the new role.
+        await bumpSessionVersion(target.userId, transaction);
+      }
     }),
   );
 }

@@ -15,6 +15,13 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare email: string;
   declare name: string;
   declare passwordHash: string;
+  /** When the owner of the address opened the verification link; null until then. */
+  declare emailVerifiedAt: CreationOptional<Date | null>;
+  /** sha256 of the pending verification link's token (the e-mail carries the only copy). */
+  declare verificationTokenHash: CreationOptional<string | null>;
+  declare verificationSentAt: CreationOptional<Date | null>;
+  /** Carried by session tokens; bumping it ends every older session. */
+  declare sessionVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -34,6 +41,10 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         },
         name: { type: DataTypes.STRING(120), allowNull: false },
         passwordHash: { type: DataTypes.STRING(100), allowNull: false },
+        emailVerifiedAt: { type: DataTypes.DATE, allowNull: true },
+        verificationTokenHash: { type: DataTypes.STRING(64), allowNull: true, unique: true },
+        verificationSentAt: { type: DataTypes.DATE, allowNull: true },
+        sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -91,4 +91,10 @@ if [ "${BENCH_SKIP_SOLVER:-0}" != "1" ]; then
   echo
 fi
 npx tsx scripts/bench-app.ts || status=1
+echo
+echo "## Adversarial inputs (issue 13)"
+npx tsx scripts/bench-bounds.ts || status=1
+echo
+echo "## Health under load"
+npx tsx scripts/bench-health.ts || status=1
 exit "$status"

@@ -36,7 +36,13 @@ const demoPasswordHash = () => {
 
 async function upsertUser(email: string, name: string, transaction: Transaction) {
   const existing = await User.findOne({ where: { email }, transaction });
-  return existing ?? User.create({ email, name, passwordHash: await demoPasswordHash() }, { transaction });
+  return (
+    existing ??
+    User.create(
+      { email, name, passwordHash: await demoPasswordHash(), emailVerifiedAt: new Date() },
+      { transaction },
+    )
+  );
 }
 
 async function upsertTeam(slug: string, name: string, transaction: Transaction) {

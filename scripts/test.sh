@@ -11,7 +11,8 @@ TEST_SMTP_PORT="${E2E_SMTP_PORT:-2527}"
 TEST_S3_PORT="${E2E_S3_PORT:-4527}"
 export APP_ENV=test
 export DATABASE_URL="$(db_url phasewright_test)"
-export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-phasewright-test-secret-0123456789}"
+# A fresh secret per test run (shared by the test server and the tests through the environment).
+export NEXTAUTH_SECRET="${NEXTAUTH_SECRET:-$(node -e 'process.stdout.write(require("crypto").randomBytes(32).toString("base64url"))')}"
 
 ensure_data_dir
 ensure_node_modules

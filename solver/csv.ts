@@ -1,9 +1,22 @@
 import type { NoiseResult, SolveSuccess, TraceResult } from "./types";
 
-/** Quotes a CSV field when RFC 4180 requires it (comma, double quote, CR or LF inside). */
+/**
+ * A text cell that a spreadsheet would run as a formula (starting with =, +, -, @, tab or CR) gets a
+ * leading apostrophe, as the OWASP "CSV Injection" guidance recommends; other text is unchanged.
+ */
+export function neutralizeCell(value: string): string {
+  return /^[=+\-@\t\r]/.test(value) ? `'${value}` : value;
+}
+
+/**
+ * A text cell (trace and column names): neutralized against formula injection, then quoted when
+ * RFC 4180 requires it (comma, double quote, CR or LF inside). Every text cell of every CSV export
+ * goes through here; numbers go through `csvNumber` (digits, '.', 'e' and a sign only: never a formula).
+ */
 export function csvField(value: string): string {
-  if (/[",\r\n]/.test(value)) return `"${value.replaceAll('"', '""')}"`;
-  return value;
+  const safe = neutralizeCell(value);
+  if (/[",\r\n]/.test(safe)) return `"${safe.replaceAll('"', '""')}"`;
+  return safe;
 }
 
 /** A number as CSV text: shortest round-trip form; NaN, ±Infinity and missing values become empty. */

@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { ProfileForm } from "@/components/auth/profile-form";
+import { SignOutEverywhere } from "@/components/auth/sign-out-everywhere";
 import { TokenCreateForm } from "@/components/auth/token-create-form";
 import { TokenList } from "@/components/auth/token-list";
 import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
@@ -19,6 +20,12 @@ export default async function SettingsPage() {
         <PanelHeader id="profile-heading" title="Profile" />
         <div className="p-5">
           <ProfileForm name={profile?.name ?? actor.name} email={profile?.email ?? actor.email} />
+        </div>
+      </Panel>
+      <Panel aria-labelledby="sessions-heading">
+        <PanelHeader id="sessions-heading" title="Sessions" />
+        <div className="p-5">
+          <SignOutEverywhere />
         </div>
       </Panel>
       <Panel aria-labelledby="tokens-heading">

@@ -3,6 +3,7 @@ import { sampleTrace } from "@/lib/trace-math";
 import { type BodeCursor, cursorShapes } from "./cursors";
 import { formatHz, hoverTexts } from "./hover-format";
 import { plotColors, plotFonts, plotHoverLabel, traceColor } from "./palette";
+import { plotText } from "./plot-text";
 import type { BodeMarker, BodeOverlay, BodePin, BodeSeries } from "./types";
 
 /** Above this many points a trace is drawn with WebGL. */
@@ -51,10 +52,10 @@ function lineTrace(
   return {
     type: gl ? "scattergl" : "scatter",
     mode: "lines",
-    name: opts.legendName,
+    name: plotText(opts.legendName),
     legendgroup: opts.group,
     showlegend: opts.showLegend,
-    meta: [s.name],
+    meta: [plotText(s.name)],
     x: s.frequencies,
     y,
     xaxis: row === 1 ? "x" : "x2",
@@ -89,10 +90,10 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
       data.push({
         type: s.frequencies.length > GL_THRESHOLD ? "scattergl" : "scatter",
         mode: "markers",
-        name: s.name,
+        name: plotText(s.name),
         legendgroup: `m:${s.name}`,
         showlegend: row === 1,
-        meta: [s.name],
+        meta: [plotText(s.name)],
         x: s.frequencies,
         y: row === 1 ? s.magnitudeDb : s.phaseDeg,
         xaxis: row === 1 ? "x" : "x2",
@@ -116,7 +117,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
     if (!sample) continue;
     pinX.push(pin.frequencyHz);
     pinY.push(sample.db);
-    pinText.push(`${formatHz(pin.frequencyHz)}<br>${pin.label ?? "comment"}`);
+    pinText.push(`${formatHz(pin.frequencyHz)}<br>${plotText(pin.label ?? "comment")}`);
   }
   if (pinX.length > 0) {
     data.push({
@@ -157,7 +158,7 @@ export function buildBodeFigure(input: BodeFigureInput): { data: Data[]; layout:
       yanchor: "bottom",
       showarrow: false,
       // The marker names its value: "f0 1.592 kHz".
-      text: `${m.label} ${formatHz(m.frequencyHz)}`,
+      text: `${plotText(m.label)} ${formatHz(m.frequencyHz)}`,
       font: { size: 11, color: plotColors.marker },
     });
   });

@@ -3,7 +3,7 @@
 import { headers } from "next/headers";
 import { type FormState, failureState } from "@/lib/actions/state";
 import { registerUser } from "@/lib/auth";
-import { clientIp, signUpLimiter } from "@/lib/rate-limit";
+import { clientAddress, signUpLimiter } from "@/lib/rate-limit";
 import { issuesToFields } from "@/lib/utils";
 import { signUpSchema } from "@/lib/validations/auth";
 
@@ -17,7 +17,7 @@ export async function signUp(input: { name: string; email: string; password: str
       message: "Check the highlighted fields.",
     };
   }
-  if (!signUpLimiter.hit(clientIp(await headers())).ok) {
+  if (!signUpLimiter.hit(clientAddress(await headers())).ok) {
     return {
       ok: false,
       message: "Too many new accounts from this address. Wait a few minutes and try again.",

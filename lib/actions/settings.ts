@@ -1,9 +1,11 @@
 "use server";
 
 import { revalidatePath } from "next/cache";
+import { headers } from "next/headers";
 import { type FormState, failureState, formValues, issuesToFields } from "@/lib/actions/state";
 import { withDb } from "@/lib/errors";
 import { requireUser } from "@/lib/session";
+import { bumpSessionVersion } from "@/lib/session-version";
 import { createApiToken, revokeApiToken } from "@/lib/tokens";
 import { profileUpdateSchema } from "@/lib/validations/auth";
 import { tokenCreateSchema } from "@/lib/validations/project";
@@ -28,6 +30,9 @@ export async function updateProfileAction(_prev: FormState, formData: FormData):
 export async function createTokenAction(_prev: FormState, formData: FormData): Promise<FormState> {
   const actor = await requireUser();
   const values = formValues(formData, ["name"]);
+  if (/^Bearer\s/i.test((await headers()).get("authorization") ?? "")) {
+    return { ok: false, message: "API tokens cannot create tokens. Sign in to create one.", values };
+  }
   const parsed = tokenCreateSchema.safeParse({ name: formData.get("name") });
   if (!parsed.success) return { ok: false, errors: issuesToFields(parsed.error.issues), values };
   let secret: string;
@@ -50,4 +55,15 @@ export async function revokeTokenAction(_prev: FormState, formData: FormData): P
   }
   revalidatePath("/settings");
   return { ok: true, message: "Token revoked." };
+}
+
+/** Form action: end every session of the signed-in user, this one included (the client then signs out). */
+export async function signOutEverywhereAction(_prev: FormState): Promise<FormState> {
+  const actor = await requireUser();
+  try {
+    await withDb(() => bumpSessionVersion(actor.userId));
+  } catch (err) {
+    return failureState(err, "signOutEverywhere");
+  }
+  return { ok: true, message: "Every session has ended. Sign in again to continue." };
 }

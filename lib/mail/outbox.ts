@@ -75,7 +75,9 @@ export async function deliverPending(
     const attempts = row.attempts + 1;
     try {
       await send({ to: row.to, subject: row.subject, text: row.text, html: row.html });
-      await row.update({ status: "sent", attempts, sentAt: new Date(), lastError: null });
+      // Past the local mail fake, the e-mail keeps the only copy of a token: the stored row drops it.
+      const text = outboxVisible() ? row.text : redactSecretLinks(row.text);
+      await row.update({ status: "sent", attempts, sentAt: new Date(), lastError: null, text });
       report.sent++;
     } catch (err) {
       const lastError = (err instanceof Error ? err.message : String(err)).slice(0, 2000);
@@ -127,9 +129,16 @@ export type OutboxEntry = {
   createdAt: string;
 };
 
-/** The latest messages, newest first (for /dev/outbox). */
-export async function listOutbox(limit = 100): Promise<OutboxEntry[]> {
-  const rows = await OutboxEmail.findAll({ order: [["createdAt", "DESC"]], limit });
+/**
+ * The latest messages addressed to one e-mail address, newest first (for /dev/outbox: a signed-in
+ * person sees only their own mail, never another person's invitation or verification link).
+ */
+export async function listOutbox(to: string, limit = 100): Promise<OutboxEntry[]> {
+  const rows = await OutboxEmail.findAll({
+    where: { to: { [Op.iLike]: to.trim() } },
+    order: [["createdAt", "DESC"]],
+    limit,
+  });
   return rows.map((r) => ({
     id: r.id,
     to: r.to,
@@ -144,8 +153,31 @@ export async function listOutbox(limit = 100): Promise<OutboxEntry[]> {
   }));
 }
 
-/** The outbox is a development and test tool: hidden in production unless APP_ENV says test/development. */
+/** Hosts of the local mail fake (scripts/smtp-sink.ts): mail sent there never leaves the machine. */
+const LOOPBACK_HOSTS = new Set(["127.0.0.1", "localhost", "[::1]", "::1"]);
+
+/**
+ * The outbox viewer is a development and test tool: it exists only while mail goes to the local mail
+ * fake on loopback, and only outside production (unless APP_ENV says test/development).
+ */
 export function outboxVisible(): boolean {
-  if (process.env.NODE_ENV !== "production") return true;
-  return process.env.APP_ENV === "test" || process.env.APP_ENV === "development";
+  const envOk =
+    process.env.NODE_ENV !== "production" ||
+    process.env.APP_ENV === "test" ||
+    process.env.APP_ENV === "development";
+  if (!envOk) return false;
+  try {
+    const url = new URL(process.env.SMTP_URL || "smtp://127.0.0.1:2526");
+    return LOOPBACK_HOSTS.has(url.hostname);
+  } catch {
+    return false;
+  }
+}
+
+/** Links that act on their own (an invitation or a verification token): kept out of stored mail once sent. */
+const SECRET_LINK = /\/(invite|verify)\/[A-Za-z0-9_-]{20,}/g;
+
+/** The text with secret links replaced, for rows already delivered to a real mail service. */
+export function redactSecretLinks(text: string): string {
+  return text.replace(SECRET_LINK, "/$1/(link sent by e-mail)");
 }

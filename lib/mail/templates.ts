@@ -97,3 +97,12 @@ export function invitationMail(p: {
     text: `${p.inviter} invited you to join the team "${p.teamName}" as ${p.role}.\n\nAccept the invitation: ${appUrl(`/invite/${p.token}`)}\n\nThe link works once and expires on ${p.expiresAt.toUTCString()}.\n`,
   };
 }
+
+/** Sent at sign-up (and on request): the link proves the person signing up reads this address. */
+export function verificationMail(p: { to: string; name: string; token: string }): MailMessage {
+  return {
+    to: p.to,
+    subject: "Confirm your e-mail address for Phasewright",
+    text: `Hello ${p.name},\n\nConfirm that this address is yours: ${appUrl(`/verify/${p.token}`)}\n\nThe link works once, for two days. Until then you can work in your own workbench, but not join a team by invitation. If you did not create an account, ignore this message.\n`,
+  };
+}

@@ -21,6 +21,9 @@ export function editDistance(a: string, b: string): number {
   return d[a.length]![b.length]!;
 }
 
+/** Words longer than this get no edit-distance hint (only a case-only match). */
+export const MAX_HINT_WORD = 32;
+
 /**
  * The candidate closest to `word`, or null when none is close enough: a case-only difference always
  * qualifies; otherwise at most 1 edit for words up to 4 letters, 2 up to 8, 3 beyond.
@@ -28,11 +31,23 @@ export function editDistance(a: string, b: string): number {
 export function nearest(word: string, candidates: Iterable<string>): string | null {
   const lower = word.toLowerCase();
   const limit = word.length <= 4 ? 1 : word.length <= 8 ? 2 : 3;
+  // Edit distance is O(a·b): only short words are compared (a 100 kB word took 10 s); a longer one
+  // may still match a candidate by case alone. Lengths further apart than the limit can't match.
+  const short = word.length <= MAX_HINT_WORD;
   let best: string | null = null;
   let bestDistance = Number.POSITIVE_INFINITY;
   for (const candidate of candidates) {
     if (candidate === word) continue;
-    const distance = candidate.toLowerCase() === lower ? 0.5 : editDistance(word, candidate);
+    if (candidate.length === word.length && candidate.toLowerCase() === lower) {
+      if (0.5 < bestDistance) {
+        best = candidate;
+        bestDistance = 0.5;
+      }
+      continue;
+    }
+    if (!short || Math.abs(candidate.length - word.length) > limit || candidate.length > MAX_HINT_WORD)
+      continue;
+    const distance = editDistance(word, candidate);
     if (distance < bestDistance) {
       best = candidate;
       bestDistance = distance;

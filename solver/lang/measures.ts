@@ -185,9 +185,20 @@ export function resolveVary(s: Of<"vary">, ctx: DirectiveContext): VaryDef | nul
     if (a === null || b === null || n === null) return null;
     if (r.mode === "log" && !(a > 0 && b > 0))
       return err(ctx, r.from.span, "a log range needs values above zero");
-    values = Array.from({ length: n }, (_, i) =>
-      r.mode === "log" ? a * (b / a) ** (i / (n - 1)) : a + ((b - a) * i) / (n - 1),
-    ).map((v) => Number(v.toPrecision(12)));
+    // Through logarithms when b/a or b − a overflows a double (1e-300 to 1e300 gave Infinity).
+    const ratio = b / a;
+    const lnA = Math.log(a);
+    const lnSpan = Math.log(b) - lnA;
+    values = Array.from({ length: n }, (_, i) => {
+      const t = i / (n - 1);
+      if (r.mode === "log") return Number.isFinite(ratio) ? a * ratio ** t : Math.exp(lnA + lnSpan * t);
+      return Number.isFinite(b - a) ? a + (b - a) * t : a * (1 - t) + b * t;
+    }).map((v) => Number(v.toPrecision(12)));
+  }
+  const bad = values.findIndex((v) => !Number.isFinite(v));
+  if (bad >= 0) {
+    const at = Array.isArray(s.values) ? (s.values[bad]?.span ?? s.span) : s.values.to.span;
+    return err(ctx, at, "this value is beyond what a double holds (about ±1.8e308): use a smaller one");
   }
   return { target: s.target.name, targetKind: isLet ? "let" : "part", values, span: s.span };
 }

@@ -10,7 +10,7 @@ import { type KindTable, parseBlockHeader, parseLet, parsePart, parsePreset } fr
 import { didYouMean } from "./hints";
 import { isPartKind, KEYWORDS, KINDS } from "./kinds";
 import { parseAnalysis } from "./statements";
-import { type LogicalLine, lex, type Token, titleText } from "./tokens";
+import { type LogicalLine, lex, MAX_NESTING, MAX_OPERATORS, type Token, titleText, tooDeep } from "./tokens";
 
 /** Lex and parse `text`. Never throws. */
 export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistError[] } {
@@ -21,6 +21,17 @@ export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistEr
   const topNames = new Map<string, number>();
   let blockNames = new Map<string, number>();
   for (const logical of lines) {
+    const deep = tooDeep(logical.tokens);
+    if (deep !== null) {
+      errors.push({
+        ...spanOf(deep.token),
+        message: deep.parens
+          ? `parentheses are nested more than ${MAX_NESTING} deep`
+          : `the expression is nested more than ${MAX_NESTING} deep or has more than ${MAX_OPERATORS} operators`,
+        hint: "split the expression with lets",
+      });
+      continue;
+    }
     const c = new Cursor(logical, errors);
     const head = c.peek()!;
     if (head.kind === "word" && head.text === "end") {

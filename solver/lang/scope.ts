@@ -42,6 +42,8 @@ export class LetScope implements Scope {
       slot.state = "error";
       return "error";
     }
+    this.prepare(name);
+    if (slot.state !== "new") return slot.state === "done" ? slot.value : "error";
     slot.state = "busy";
     this.stack.push(name);
     const value = evaluate(slot.statement.expr, this, this.errors);
@@ -53,6 +55,47 @@ export class LetScope implements Scope {
     }
     slot.value = value;
     return value;
+  }
+
+  /** Names of this scope's unevaluated lets that a let's expression mentions. */
+  private pendingDeps(name: string): string[] {
+    const expr = this.slots.get(name)?.statement.expr;
+    const words =
+      expr === undefined || expr.kind === "number"
+        ? []
+        : expr.kind === "name"
+          ? [expr.name]
+          : expr.tokens.filter((t) => t.kind === "word").map((t) => t.text);
+    return words.filter((w) => !this.fixed.has(w) && this.slots.get(w)?.state === "new");
+  }
+
+  /**
+   * Evaluates the lets `name` depends on, deepest first, with an explicit stack: a 3 000-deep chain
+   * `let a1 = a0 + 1 …` would otherwise recurse lookup → evaluate → lookup past the call stack.
+   * On a name met again on the current path the pre-pass stops; the recursive lookup reports the cycle.
+   */
+  private prepare(root: string): void {
+    const onPath = new Set<string>([root]);
+    const path: { name: string; deps: string[]; next: number }[] = [
+      { name: root, deps: this.pendingDeps(root), next: 0 },
+    ];
+    while (path.length > 0) {
+      const top = path[path.length - 1]!;
+      if (top.next < top.deps.length) {
+        const dep = top.deps[top.next++]!;
+        // A cycle: leave it to the recursive lookup, which names it from the first let met.
+        if (onPath.has(dep)) return;
+        if (this.slots.get(dep)?.state === "new") {
+          onPath.add(dep);
+          path.push({ name: dep, deps: this.pendingDeps(dep), next: 0 });
+        }
+        continue;
+      }
+      path.pop();
+      onPath.delete(top.name);
+      const slot = this.slots.get(top.name);
+      if (top.name !== root && slot?.state === "new") this.lookup(top.name, slot.statement.name.span);
+    }
   }
 
   *names(): Iterable<string> {

@@ -56,7 +56,7 @@ export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[
     if (current === null) current = { line: lineNo, tokens: [], segments: [] };
     if (starting && TITLE_LINE.test(raw)) current.verbatim = true;
     const hash = current.verbatim ? raw.search(TITLE_COMMENT) : raw.indexOf("#");
-    let body = (hash >= 0 ? raw.slice(0, hash) : raw).replace(/[ \t]+$/, "");
+    let body = trimBlanksEnd(hash >= 0 ? raw.slice(0, hash) : raw);
     const continues = body.endsWith("\\");
     if (continues) body = body.slice(0, -1);
     current.segments.push({ line: lineNo, column: 1, text: body });
@@ -71,6 +71,53 @@ export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[
   const last = current as LogicalLine | null;
   if (last !== null && last.tokens.length > 0) lines.push(last);
   return { lines, errors };
+}
+
+/**
+ * The text without trailing blanks (spaces, tabs). A loop from the end: the regex `/[ \t]+$/` it
+ * replaces is quadratic on a long run of blanks followed by anything else (120 kB took 21 s).
+ */
+export function trimBlanksEnd(text: string): string {
+  let end = text.length;
+  while (end > 0) {
+    const k = text.charCodeAt(end - 1);
+    if (k !== 32 && k !== 9) break;
+    end--;
+  }
+  return end === text.length ? text : text.slice(0, end);
+}
+
+/** Parentheses deeper than this on one statement are refused with line and column (no stack overflow). */
+export const MAX_NESTING = 100;
+/** More arithmetic operators than this on one statement are refused too (the trees are walked recursively). */
+export const MAX_OPERATORS = 2000;
+
+/**
+ * Where a logical line nests deeper than MAX_NESTING, or null. Each parser level is a recursion: an
+ * open parenthesis, each sign in a run (`- - - x`) and each `^` (right-associative) count; so does
+ * the length of a chain of operators (MAX_OPERATORS).
+ */
+export function tooDeep(tokens: Token[]): { token: Token; parens: boolean } | null {
+  let depth = 0;
+  let signs = 0;
+  let powers = 0;
+  let operators = 0;
+  for (const t of tokens) {
+    if (t.kind !== "op") {
+      signs = 0;
+      continue;
+    }
+    if ("+-*/^".includes(t.text) && ++operators > MAX_OPERATORS) return { token: t, parens: false };
+    if (t.text === "+" || t.text === "-") {
+      if (depth + ++signs > MAX_NESTING) return { token: t, parens: false };
+      continue;
+    }
+    signs = 0;
+    if (t.text === "(" && ++depth > MAX_NESTING) return { token: t, parens: true };
+    if (t.text === ")") depth = Math.max(0, depth - 1);
+    if (t.text === "^" && ++powers > MAX_NESTING) return { token: t, parens: false };
+  }
+  return null;
 }
 
 /** A title line's text after the keyword: continued lines joined by a space, `\#` read as `#`. */

@@ -143,12 +143,17 @@ describe("first minutes", () => {
     const pinText = (await pin.textContent()) ?? "";
     expect(pinText).toMatch(/(Hz|kHz) · N$/);
 
-    // The e-mail to the run's author, written with the comment (delivered or still pending: both listed).
-    const mail = page.locator("details").filter({ hasText: body });
+    // The outbox shows each person only their own mail: the commenter does not see it there...
+    await page.goto("/dev/outbox");
+    expect(await page.locator("details").filter({ hasText: body }).count()).toBe(0);
+    await context.close();
+    // ...the run's author does (delivered or still pending: both listed).
+    const author = await signedIn(browser, "designer@demo.test");
+    const mail = author.page.locator("details").filter({ hasText: body });
     await expect
       .poll(
         async () => {
-          await page.goto("/dev/outbox");
+          await author.page.goto("/dev/outbox");
           return mail.count();
         },
         { timeout: 30_000 },
@@ -158,7 +163,7 @@ describe("first minutes", () => {
     expect(summary).toContain('commented on "Pilot-tone notch, twin-T"');
     expect(summary).toContain("to designer@demo.test");
     expect(await mail.textContent()).toMatch(/left a comment at [0-9.]+ k?Hz on N on the run/);
-    await context.close();
+    await author.context.close();
   });
 
   it("review on the saved run: designer asks for sign-off, reviewer sends back (note required), then signs off", async () => {

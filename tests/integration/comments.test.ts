@@ -158,4 +158,32 @@ describe("GET and PATCH comments", () => {
     });
     expect(wrongRun.status).toBe(404);
   });
+
+  it("settling is for the comment's author, the run's author and reviewers/owners only", async () => {
+    // A run the owner wrote; the reviewer comments on it. The designer is neither author.
+    const ownersRun = (await insertRun(fx.project.id, fx.users.owner.id, { title: "Owner's run" })).id;
+    const comment = await post("reviewer", { body: "check the corner" }, ownersRun);
+    const settle = (who: Who, state: "settled" | "open") =>
+      call(patchComment, {
+        token: tokens[who],
+        method: "PATCH",
+        params: { id: ownersRun, commentId: comment.body.comment.id },
+        body: { state },
+      });
+    const refused = await settle("designer", "settled");
+    expect(refused.status).toBe(403);
+    expect(refused.body.error.message).toContain("comment's author, the run's author");
+    expect((await Comment.findByPk(comment.body.comment.id))?.settledAt).toBeNull();
+    expect((await settle("reviewer", "settled")).status).toBe(200); // the comment's author (and a reviewer)
+    expect((await settle("owner", "open")).status).toBe(200); // the run's author (and an owner)
+    // The designer's own comment on the same run: its author may settle it.
+    const own = await post("designer", { body: "mine" }, ownersRun);
+    const mine = await call(patchComment, {
+      token: tokens.designer,
+      method: "PATCH",
+      params: { id: ownersRun, commentId: own.body.comment.id },
+      body: { state: "settled" },
+    });
+    expect(mine.status).toBe(200);
+  });
 });

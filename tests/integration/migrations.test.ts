@@ -89,6 +89,7 @@ describe("migrations", () => {
       "202612022010-netlist-probe-names",
       "202612022020-review-words",
     ]);
+    expect(files).toContain("202612030300-email-verification");
     expect((await migrator.executed()).map((m) => m.name)).toEqual(files);
   });
 

@@ -201,19 +201,30 @@ describe("outbox", () => {
     expect(row?.lastError).toBe("550 mailbox unavailable");
   });
 
-  it("GET /api/dev/outbox lists messages in development and tests, and is 404 in production", async () => {
+  it("GET /api/dev/outbox: only the caller's own mail, only with the local mail fake, never anonymous", async () => {
+    const token = (await tokensFor(fx)).viewer;
     await sequelize.transaction((t) =>
-      enqueueEmails([{ to: "a@fixture.test", subject: "First", text: "1" }], t).then(() => undefined),
+      enqueueEmails(
+        [
+          { to: "viewer@fixture.test", subject: "First", text: "1" },
+          { to: "owner@fixture.test", subject: "Not yours", text: "2" },
+        ],
+        t,
+      ).then(() => undefined),
     );
-    const res = await call(outboxRoute, {});
+    expect((await call(outboxRoute, {})).status).toBe(401);
+    const res = await call(outboxRoute, { token });
     expect(res.status).toBe(200);
     expect(res.body.emails.map((e: { subject: string }) => e.subject)).toEqual(["First"]);
     vi.stubEnv("NODE_ENV", "production");
     vi.stubEnv("APP_ENV", "production");
     try {
-      expect((await call(outboxRoute, {})).status).toBe(404);
+      expect((await call(outboxRoute, { token })).status).toBe(404);
       vi.stubEnv("APP_ENV", "test");
-      expect((await call(outboxRoute, {})).status).toBe(200);
+      expect((await call(outboxRoute, { token })).status).toBe(200);
+      // A real mail service configured: no viewer, even in tests.
+      vi.stubEnv("SMTP_URL", "smtp://mail.example.test:587");
+      expect((await call(outboxRoute, { token })).status).toBe(404);
     } finally {
       vi.unstubAllEnvs();
     }

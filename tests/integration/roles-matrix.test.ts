@@ -211,7 +211,7 @@ describe("route × role", () => {
     }
   });
 
-  it("no token or an unknown token is 401 on every route; /api/dev/outbox needs no role in tests", async () => {
+  it("no token or an unknown token is 401 on every route, /api/dev/outbox included", async () => {
     const bogus = `pw_${"A".repeat(43)}`;
     const statuses = [
       (await call(listRuns, { token: bogus, params: { id: fx.project.id } })).status,
@@ -222,6 +222,7 @@ describe("route × role", () => {
       (await call(listReadings, { token: bogus, params: { id: runId } })).status,
     ];
     expect(statuses).toEqual([401, 401, 401, 401, 401, 401]);
-    expect((await call(outboxRoute, {})).status).toBe(200);
+    expect((await call(outboxRoute, {})).status).toBe(401);
+    expect((await call(outboxRoute, { token: bogus })).status).toBe(401);
   });
 });

@@ -70,13 +70,19 @@ export async function createFixtures(): Promise<Fixtures> {
   const roles: MembershipRole[] = ["owner", "designer", "reviewer", "viewer"];
   const users = {} as Record<MembershipRole | "outsider", User>;
   for (const role of roles) {
-    users[role] = await User.create({ email: `${role}@fixture.test`, name: `Fixture ${role}`, passwordHash });
+    users[role] = await User.create({
+      email: `${role}@fixture.test`,
+      name: `Fixture ${role}`,
+      passwordHash,
+      emailVerifiedAt: new Date(),
+    });
     await Membership.create({ teamId: team.id, userId: users[role].id, role });
   }
   users.outsider = await User.create({
     email: "outsider@fixture.test",
     name: "Fixture outsider",
     passwordHash,
+    emailVerifiedAt: new Date(),
   });
   await Membership.create({ teamId: otherTeam.id, userId: users.outsider.id, role: "owner" });
   const project = await Project.create({

@@ -148,4 +148,59 @@ describe("POST /api/solve", () => {
     const revoked = await post(JSON.stringify({ netlist: RC }), { authorization: `Bearer ${token}` });
     expect(revoked.status).toBe(401);
   });
+
+  it("prices the netlist before solving: monte-carlo 4000 in 500 bytes is 422 'save it as a run'", async () => {
+    const netlist = `${RC.replace("R1: resistor in out 10k", "R1: resistor in out 10k tol=1%")}\nmonte-carlo 4000\n`;
+    expect(netlist.length).toBeLessThan(600);
+    const res = await post(JSON.stringify({ netlist }));
+    expect(res.status).toBe(422);
+    const body = (await res.json()) as {
+      error: { code: string; message: string; details: { work: number } };
+    };
+    expect(body.error.code).toBe("too_much_work");
+    expect(body.error.message).toContain("save it as a run: it will be queued");
+    // 100 Hz–100 kHz at 50 per decade = 151 points; × (1 + 4000 samples).
+    expect(body.error.details.work).toBe(151 * 4001);
+  });
+
+  it("counts a sensitivity study as two re-solves per part", async () => {
+    const sections = Array.from(
+      { length: 400 },
+      (_, i) => `R${i}: resistor n${i} n${i + 1} 1k\nC${i}: capacitor n${i + 1} gnd 1n`,
+    );
+    const netlist = [
+      "title ladder",
+      "V1: vsource n0 gnd 1",
+      ...sections,
+      "sweep 100Hz to 100kHz log 50 per decade",
+      "show h = volts(n400) / volts(n0)",
+      "measure g = db(h) at 1kHz",
+      "sensitivity g",
+    ].join("\n");
+    const res = await post(JSON.stringify({ netlist }));
+    expect(res.status).toBe(422);
+    const body = (await res.json()) as { error: { details: { work: number } } };
+    expect(body.error.details.work).toBe(151 * (1 + 2 * 801)); // 801 parts: 400 R, 400 C, the source
+  });
+
+  it("refuses a chunked body over the limit while it streams, without reading it all (413)", async () => {
+    let pulled = 0;
+    const chunk = new TextEncoder().encode(`{"netlist":"${"x".repeat(64 * 1024)}`);
+    const stream = new ReadableStream<Uint8Array>({
+      pull(controller) {
+        pulled += chunk.byteLength;
+        if (pulled > 50_000_000) controller.close();
+        else controller.enqueue(chunk);
+      },
+    });
+    const req = new Request("http://localhost/api/solve", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: stream,
+      duplex: "half",
+    } as RequestInit);
+    const res = await POST(req, undefined);
+    expect(res.status).toBe(413);
+    expect(pulled).toBeLessThan(1_000_000);
+  });
 });

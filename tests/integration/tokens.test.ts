@@ -1,8 +1,10 @@
 import { createHash } from "node:crypto";
+import { encode } from "next-auth/jwt";
 import { describe, expect, it } from "vitest";
 import { DELETE } from "@/app/api/tokens/[tokenId]/route";
 import { GET, POST } from "@/app/api/tokens/route";
 import { ApiToken } from "@/lib/db";
+import { env } from "@/lib/env";
 import { getActor } from "@/lib/session";
 import { createApiToken, listApiTokens, revokeApiToken, verifyBearerToken } from "@/lib/tokens";
 import { createFixtures, useTestDb } from "./setup";
@@ -10,6 +12,15 @@ import { createFixtures, useTestDb } from "./setup";
 useTestDb();
 
 const auth = (token: string) => ({ authorization: `Bearer ${token}` });
+
+/** A browser session cookie for the user, as next-auth writes it. */
+async function sessionCookie(user: { id: string; email: string; name: string }) {
+  const jwt = await encode({
+    token: { sub: user.id, email: user.email, name: user.name, sv: 0 },
+    secret: env.NEXTAUTH_SECRET,
+  });
+  return { cookie: `next-auth.session-token=${jwt}` };
+}
 
 describe("API tokens", () => {
   it("stores only the sha256 of the secret and its first 8 characters", async () => {
@@ -53,10 +64,25 @@ describe("/api/tokens routes", () => {
   it("creates (secret once), lists (prefix only) and revokes", async () => {
     const fx = await createFixtures();
     const { token: bootstrap } = await createApiToken(fx.users.viewer.id, "bootstrap");
+    const session = await sessionCookie(fx.users.viewer);
+    // An API token cannot mint tokens (a leaked one would leave children behind its revocation).
+    const minted = await POST(
+      new Request("http://localhost/api/tokens", {
+        method: "POST",
+        headers: { ...auth(bootstrap), ...session, "content-type": "application/json" },
+        body: JSON.stringify({ name: "child" }),
+      }),
+      undefined,
+    );
+    expect(minted.status).toBe(403);
+    expect(((await minted.json()) as { error: { message: string } }).error.message).toContain(
+      "API tokens cannot create tokens",
+    );
+    expect(await ApiToken.count()).toBe(1);
     const created = await POST(
       new Request("http://localhost/api/tokens", {
         method: "POST",
-        headers: { ...auth(bootstrap), "content-type": "application/json" },
+        headers: { ...session, "content-type": "application/json" },
         body: JSON.stringify({ name: "ci job" }),
       }),
       undefined,
@@ -90,7 +116,7 @@ describe("/api/tokens routes", () => {
     const empty = await POST(
       new Request("http://localhost/api/tokens", {
         method: "POST",
-        headers: { ...auth(bootstrap), "content-type": "application/json" },
+        headers: { ...session, "content-type": "application/json" },
         body: JSON.stringify({ name: "  " }),
       }),
       undefined,

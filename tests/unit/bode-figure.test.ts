@@ -52,6 +52,30 @@ describe("buildBodeFigure", () => {
     expect(pins.y[0]).toBeCloseTo(-40, 9);
     expect(pins.text).toEqual(["1 kHz<br>why?"]); // the hover names the pinned frequency before the note
   });
+
+  it("escapes user text in legends, hover names, pins and marker labels (issue 13: a measurement name became a link)", () => {
+    const evil = '<a href="https://evil.test">bench</a>';
+    const { data, layout } = buildBodeFigure({
+      ...base,
+      series: [series("h", 11)],
+      overlays: [{ ...series(`run <b>x</b>`, 11), role: "overlay" as const }],
+      measurements: [series(evil, 11)],
+      markers: [{ frequencyHz: 100, label: "<img src=x>" }],
+      pins: [{ frequencyHz: 11, trace: "h", label: "<script>pin</script>" }],
+    });
+    // Rendered text only (legendgroup is an identifier, never drawn).
+    const json = JSON.stringify({ data, layout }, (k, v) => (k === "legendgroup" ? undefined : v));
+    expect(json).not.toMatch(/<a |<img|<script|<b>x/);
+    const bench = data.find((d) => (d as { name?: string }).name?.includes("bench")) as {
+      name: string;
+      meta: string[];
+    };
+    expect(bench.name).toBe('&lt;a href="https://evil.test"&gt;bench&lt;/a&gt;');
+    expect(bench.meta[0]).toBe(bench.name);
+    const pins = data.at(-1) as { text: string[] };
+    expect(pins.text[0]).toMatch(/<br>&lt;script&gt;pin&lt;\/script&gt;$/);
+    expect(JSON.stringify(layout.annotations)).toContain("&lt;img src=x&gt;");
+  });
 });
 
 describe("phase ticks and the difference axes", () => {

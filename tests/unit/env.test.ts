@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { ZodError } from "zod";
-import { parseEnv } from "@/lib/env";
+import { isProduction, MISSING_SECRET_MESSAGE, parseEnv } from "@/lib/env";
 
 describe("parseEnv", () => {
   it("fills local defaults from nothing", () => {
@@ -42,5 +42,25 @@ describe("parseEnv", () => {
     }
     expect(() => parseEnv({ NEXTAUTH_SECRET: "short" })).toThrow(/NEXTAUTH_SECRET|too small|>=16/i);
     expect(() => parseEnv({ APP_ENV: "staging" })).toThrow(ZodError);
+  });
+
+  it("production refuses to start without NEXTAUTH_SECRET, with a message naming it; no committed fallback", () => {
+    expect(() => parseEnv({ NODE_ENV: "production" })).toThrow(MISSING_SECRET_MESSAGE);
+    expect(() => parseEnv({ NODE_ENV: "production", APP_ENV: "production" })).toThrow(/NEXTAUTH_SECRET/);
+    expect(isProduction({ NODE_ENV: "production" })).toBe(true);
+    expect(isProduction({ NODE_ENV: "production", APP_ENV: "development" })).toBe(false);
+    expect(parseEnv({ NODE_ENV: "production", NEXTAUTH_SECRET: "p".repeat(32) }).NEXTAUTH_SECRET).toBe(
+      "p".repeat(32),
+    );
+    // `next build` prerenders with NODE_ENV=production but signs nothing: it gets a throwaway secret.
+    expect(
+      parseEnv({ NODE_ENV: "production", NEXT_PHASE: "phase-production-build" }).NEXTAUTH_SECRET,
+    ).toHaveLength(43);
+  });
+
+  it("development without a secret gets a random one per process (or npm start's saved one), never a constant", () => {
+    const a = parseEnv({ NODE_ENV: "development" }).NEXTAUTH_SECRET;
+    expect(a.length).toBeGreaterThanOrEqual(16);
+    expect(a).not.toMatch(/phasewright|development|secret/i);
   });
 });

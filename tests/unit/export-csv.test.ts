@@ -63,6 +63,22 @@ describe("resultToCsv", () => {
     );
   });
 
+  // OWASP "CSV Injection": cells starting with = + - @ tab or CR get a leading apostrophe.
+  it("neutralizes text cells a spreadsheet would run as formulas, in the header of every export", () => {
+    expect(csvField('=HYPERLINK("http://evil.test","x")')).toBe(`"'=HYPERLINK(""http://evil.test"",""x"")"`);
+    for (const lead of ["=", "+", "-", "@", "\t", "\r"]) {
+      expect(csvField(`${lead}cmd`).replace(/^"/, "").startsWith(`'${lead}`)).toBe(true);
+    }
+    expect(csvField("gain_re")).toBe("gain_re");
+    expect(csvHeader([{ name: "@SUM(A1)" }])).toBe(
+      "frequency_hz,'@SUM(A1)_re,'@SUM(A1)_im,'@SUM(A1)_db,'@SUM(A1)_deg",
+    );
+    // Numbers keep their sign: a negative value is data, not a formula.
+    const csv = resultToCsv({ frequencies: [100], traces: [trace("-x", [[-0.5, -1]])] });
+    expect(csv.split("\r\n")[0]).toBe("frequency_hz,'-x_re,'-x_im,'-x_db,'-x_deg");
+    expect(csv.split("\r\n")[1]?.split(",").slice(0, 3)).toEqual(["100", "-0.5", "-1"]);
+  });
+
   it("writes an empty cell for a non-finite value (a zero magnitude is −∞ dB)", () => {
     const csv = resultToCsv({ frequencies: [100], traces: [trace("z", [[0, 0]])] });
     expect(csv.split("\r\n")[1]).toBe("100,0,0,,0");

@@ -1,7 +1,6 @@
 import { ConnectionRefusedError } from "sequelize";
 import { describe, expect, it, vi } from "vitest";
 import { z } from "zod";
-import { safeCallback } from "@/components/auth/safe-callback";
 import { readJson, withApi } from "@/lib/api";
 import {
   DatabaseUnavailableError,
@@ -12,6 +11,7 @@ import {
   withDb,
 } from "@/lib/errors";
 import { createRateLimiter } from "@/lib/rate-limit";
+import { safeCallback } from "@/lib/safe-callback";
 import { cn, issuesToFields } from "@/lib/utils";
 import { signInSchema, signUpSchema } from "@/lib/validations/auth";
 import { projectCreateSchema } from "@/lib/validations/project";
@@ -69,7 +69,7 @@ describe("helpers", () => {
     expect(safeCallback("/projects/abc?x=1")).toBe("/projects/abc?x=1");
     expect(safeCallback("https://evil.test/")).toBe("/projects");
     expect(safeCallback("//evil.test")).toBe("/projects");
-    expect(safeCallback(undefined, "/")).toBe("/");
+    expect(safeCallback(undefined, { fallback: "/" })).toBe("/");
   });
 
   it("merges our type-scale classes without dropping the colour", () => {

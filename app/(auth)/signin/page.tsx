@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
-import { safeCallback } from "@/components/auth/safe-callback";
 import { SignInForm } from "@/components/auth/sign-in-form";
+import { env } from "@/lib/env";
+import { safeCallback } from "@/lib/safe-callback";
 import { getActor } from "@/lib/session";
 
 export const metadata: Metadata = { title: "Sign in" };
@@ -12,7 +13,7 @@ export default async function SignInPage({
   searchParams: Promise<{ callbackUrl?: string; error?: string }>;
 }) {
   const { callbackUrl, error } = await searchParams;
-  const target = safeCallback(callbackUrl);
+  const target = safeCallback(callbackUrl, { origin: env.NEXTAUTH_URL });
   if (await getActor()) redirect(target);
   return (
     <>

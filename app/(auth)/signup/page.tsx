@@ -1,7 +1,8 @@
 import type { Metadata } from "next";
 import { redirect } from "next/navigation";
-import { safeCallback } from "@/components/auth/safe-callback";
 import { SignUpForm } from "@/components/auth/sign-up-form";
+import { env } from "@/lib/env";
+import { safeCallback } from "@/lib/safe-callback";
 import { getActor } from "@/lib/session";
 
 export const metadata: Metadata = { title: "Create account" };
@@ -12,7 +13,7 @@ export default async function SignUpPage({
   searchParams: Promise<{ callbackUrl?: string }>;
 }) {
   const { callbackUrl } = await searchParams;
-  const target = safeCallback(callbackUrl);
+  const target = safeCallback(callbackUrl, { origin: env.NEXTAUTH_URL });
   if (await getActor()) redirect(target);
   return (
     <>

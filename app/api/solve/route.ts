@@ -1,13 +1,21 @@
 import { json, withApi } from "@/lib/api";
-import { BadRequestError, RateLimitError, TooLargeError } from "@/lib/errors";
-import { previewOptions } from "@/lib/jobs";
-import { MAX_NETLIST_BYTES, MAX_PREVIEW_POINTS, SOLVE_RATE_PER_MINUTE } from "@/lib/limits";
+import { readJsonBody } from "@/lib/body";
+import { RateLimitError, TooLargeError, WorkBudgetError } from "@/lib/errors";
+import { previewOptions, solveWork } from "@/lib/jobs";
+import {
+  MAX_INLINE_WORK,
+  MAX_MC_INLINE_SAMPLES,
+  MAX_NETLIST_BYTES,
+  MAX_PREVIEW_POINTS,
+  SOLVE_RATE_PER_MINUTE,
+} from "@/lib/limits";
+import { solvePreview } from "@/lib/preview-pool";
 import { createRateLimiter } from "@/lib/rate-limit";
 import { requireActor } from "@/lib/session";
 import { solveRequestSchema } from "@/lib/validations/solve";
-import { solveNetlist } from "@/solver";
+import { compile } from "@/solver";
 
-// The solver is CPU work in this process: keep it on the Node.js runtime, never cached.
+// The solver runs on the preview pool's worker threads (lib/preview-pool.ts); never cached.
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
@@ -19,7 +27,9 @@ const MAX_BODY_BYTES = MAX_NETLIST_BYTES * 2 + 1024;
 /**
  * POST /api/solve `{netlist}` → the solver's JSON result (NETLIST.md), nothing saved.
  * A netlist with errors is a normal preview state: 200 with `{ok: false, errors}` (line and column each).
- * 400 malformed body, 401 signed out, 413 netlist over MAX_NETLIST_BYTES, 429 over the per-user rate.
+ * 400 malformed body, 401 signed out, 413 netlist over MAX_NETLIST_BYTES (counted while the body
+ * streams in), 422 `too_much_work` over the work budget (lib/jobs.ts `solveWork`), 429 over the
+ * per-user rate, 503 when the preview pool is full or a preview runs too long.
  */
 export const POST = withApi(async (req: Request) => {
   const actor = await requireActor(req);
@@ -31,21 +41,22 @@ export const POST = withApi(async (req: Request) => {
     });
   }
 
-  const declared = Number(req.headers.get("content-length") ?? "0");
-  if (declared > MAX_BODY_BYTES) throw tooLarge();
-  const raw = await req.text();
-  if (Buffer.byteLength(raw, "utf8") > MAX_BODY_BYTES) throw tooLarge();
-
-  let body: unknown;
-  try {
-    body = JSON.parse(raw);
-  } catch {
-    throw new BadRequestError("The request body is not valid JSON.");
-  }
+  const body = await readJsonBody(req, MAX_BODY_BYTES, "The netlist").catch((err) => {
+    throw err instanceof TooLargeError ? tooLarge() : err;
+  });
   const { netlist } = solveRequestSchema.parse(body);
   if (Buffer.byteLength(netlist, "utf8") > MAX_NETLIST_BYTES) throw tooLarge();
 
-  return json(solveNetlist(netlist, previewOptions(netlist, MAX_PREVIEW_POINTS)));
+  // Priced before solving: compiling is linear in the text; the solve is what costs.
+  const compiled = compile(netlist);
+  if (compiled.ok) {
+    // A steady oscillation over the budget is deferred by previewOptions, not refused.
+    const work = solveWork({ ...compiled.circuit, steady: null });
+    const samples = compiled.circuit.monteCarlo?.samples ?? 0;
+    if (work > MAX_INLINE_WORK || samples > MAX_MC_INLINE_SAMPLES)
+      throw new WorkBudgetError(work, MAX_INLINE_WORK);
+  }
+  return json(await solvePreview(netlist, previewOptions(netlist, MAX_PREVIEW_POINTS)));
 });
 
 function tooLarge(): TooLargeError {

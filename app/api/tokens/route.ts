@@ -1,5 +1,5 @@
 import { json, readJson, withApi } from "@/lib/api";
-import { requireActor } from "@/lib/session";
+import { requireActor, requireSessionActor } from "@/lib/session";
 import { createApiToken, listApiTokens } from "@/lib/tokens";
 import { tokenCreateSchema } from "@/lib/validations/project";
 
@@ -9,9 +9,9 @@ export const GET = withApi(async (req: Request) => {
   return json({ tokens: await listApiTokens(actor.userId) });
 });
 
-/** POST /api/tokens {name} — a new token; its secret is in the answer once. */
+/** POST /api/tokens {name} — a new token; its secret is in the answer once. Session only: 403 with an API token. */
 export const POST = withApi(async (req: Request) => {
-  const actor = await requireActor(req);
+  const actor = await requireSessionActor(req);
   const { name } = await readJson(req, tokenCreateSchema);
   const { token, summary } = await createApiToken(actor.userId, name);
   return json({ token, ...summary }, 201);

@@ -3,6 +3,7 @@ import { notFound } from "next/navigation";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeading } from "@/components/ui/panel";
 import { listOutbox, outboxVisible } from "@/lib/mail/outbox";
+import { requireUser } from "@/lib/session";
 import { cn } from "@/lib/utils";
 
 export const metadata: Metadata = { title: "Outbox (development)" };
@@ -14,15 +15,19 @@ const STATUS: Record<string, string> = {
   failed: "bg-signal-fault-soft text-signal-fault",
 };
 
-/** Development and tests only: the e-mails the app queued and sent through the local SMTP sink. */
+/**
+ * Development and tests only (the local mail fake): the e-mails the app wrote to the signed-in person,
+ * never anyone else's.
+ */
 export default async function OutboxPage() {
   if (!outboxVisible()) notFound();
-  const emails = await listOutbox(100);
+  const actor = await requireUser();
+  const emails = await listOutbox(actor.email, 100);
   return (
     <div className="mx-auto max-w-5xl px-4 py-8 sm:px-6">
       <PageHeading
         title="Outbox"
-        lead="Development only: every e-mail the app wrote, newest first, with its delivery state. Nothing here leaves this machine."
+        lead={`Development only: the e-mails the app wrote to ${actor.email}, newest first, with their delivery state. Nothing here leaves this machine.`}
       />
       {emails.length === 0 ? (
         <EmptyState title="No e-mails yet">

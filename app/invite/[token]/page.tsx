@@ -6,13 +6,16 @@ import { Panel } from "@/components/ui/panel";
 import { previewInvitation } from "@/lib/invitations";
 import { getActor } from "@/lib/session";
 import { formatDate } from "@/lib/utils";
+import { isEmailVerified } from "@/lib/verification";
 import { AcceptForm } from "./accept-form";
+import { ResendForm } from "./resend-form";
 
 export const metadata: Metadata = { title: "Invitation" };
 
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
   const [invitation, actor] = await Promise.all([previewInvitation(token), getActor()]);
+  const verified = actor ? await isEmailVerified(actor.userId) : false;
   const back = encodeURIComponent(`/invite/${token}`);
   return (
     <div className="mx-auto max-w-lg px-4 py-16 sm:px-6">
@@ -64,6 +67,8 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
                   You are signed in as {actor.email}; this invitation is for {invitation.email}. Sign out and
                   sign in with that address.
                 </Notice>
+              ) : !verified ? (
+                <ResendForm email={actor.email} />
               ) : (
                 <AcceptForm token={token} teamName={invitation.teamName} />
               )}

@@ -12,7 +12,7 @@ export function GET(req: NextRequest, ctx: Ctx) {
   return handler(req, ctx);
 }
 
-/** Credential sign-in attempts are rate-limited per e-mail and client address before next-auth sees them. */
+/** Credential sign-ins wait out the account's and the peer address's lockout before next-auth sees them. */
 export async function POST(req: NextRequest, ctx: Ctx) {
   const { nextauth } = await ctx.params;
   if (nextauth[0] === "callback" && nextauth[1] === "credentials") {

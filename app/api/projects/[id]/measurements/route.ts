@@ -1,5 +1,6 @@
 import { json, readJson, withApi } from "@/lib/api";
-import { BadRequestError, TooLargeError } from "@/lib/errors";
+import { readBodyText, readFormData } from "@/lib/body";
+import { BadRequestError } from "@/lib/errors";
 import { createMeasurement, listMeasurements, MAX_MEASUREMENT_BYTES } from "@/lib/measurements";
 import { requireActor } from "@/lib/session";
 import { measurementUploadSchema } from "@/lib/validations/measurement";
@@ -24,15 +25,13 @@ export const GET = withApi(async (req: Request, { params }: Ctx) => {
 export const POST = withApi(async (req: Request, { params }: Ctx) => {
   const actor = await requireActor(req);
   const { id } = await params;
-  if (Number(req.headers.get("content-length") ?? "0") > MAX_MEASUREMENT_BYTES + 64_000) {
-    throw new TooLargeError(`The file is larger than ${MAX_MEASUREMENT_BYTES / 1e6} MB.`);
-  }
+  // Counted while the body streams in (lib/body.ts): 413 before an oversized upload is buffered.
+  const limit = MAX_MEASUREMENT_BYTES + 64_000;
+  const what = "The file";
   const type = req.headers.get("content-type") ?? "";
   let input: { name: string; csv: string };
   if (type.startsWith("multipart/form-data")) {
-    const form = await req.formData().catch(() => {
-      throw new BadRequestError("The form data could not be read.");
-    });
+    const form = await readFormData(req, limit, what);
     const file = form.get("file");
     if (!(file instanceof Blob)) {
       throw new BadRequestError("Attach a CSV file.", { fields: { file: ["Choose a CSV file."] } });
@@ -40,9 +39,12 @@ export const POST = withApi(async (req: Request, { params }: Ctx) => {
     const fallback = file instanceof File ? file.name.replace(/\.[^.]+$/, "") : "";
     input = { name: String(form.get("name") || fallback), csv: await file.text() };
   } else if (type.startsWith("text/csv") || type.startsWith("text/plain")) {
-    input = { name: new URL(req.url).searchParams.get("name") ?? "", csv: await req.text() };
+    input = {
+      name: new URL(req.url).searchParams.get("name") ?? "",
+      csv: await readBodyText(req, limit, what),
+    };
   } else {
-    input = await readJson(req, measurementUploadSchema);
+    input = await readJson(req, measurementUploadSchema, limit * 2);
   }
   return json({ measurement: await createMeasurement(actor, id, input) }, 201);
 });
