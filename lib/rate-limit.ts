@@ -107,6 +107,8 @@ export const accountLockout = createLockout({
 });
 /** Per peer address (many accounts, one machine): 20 free failures, then doubling up to an hour. */
 export const peerLockout = createLockout({ free: 20, baseMs: 1000, maxMs: 3_600_000, forgetMs: 3_600_000 });
+/** Password-reset requests: 10 per 10 minutes per peer address (each account: one a minute, lib/password-reset.ts). */
+export const resetLimiter = createRateLimiter({ limit: 10, windowMs: 600_000 });
 /** Account creation: 10 per 10 minutes per peer address. */
 export const signUpLimiter = createRateLimiter({ limit: 10, windowMs: 600_000 });
 
@@ -134,6 +136,11 @@ export function signInWait(headers: Headers, email: string, now?: number): numbe
     accountLockout.lockedFor(accountKey(email), now),
     peerLockout.lockedFor(peerKey(clientAddress(headers)), now),
   );
+}
+
+/** A reset through the mailbox proves the owner: the account's failed sign-ins are forgotten. */
+export function forgetAccountFailures(email: string): void {
+  accountLockout.reset(accountKey(email));
 }
 
 /** Records a sign-in outcome: a failure counts against the account and the address; success frees the account. */

@@ -20,6 +20,9 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   /** sha256 of the pending verification link's token (the e-mail carries the only copy). */
   declare verificationTokenHash: CreationOptional<string | null>;
   declare verificationSentAt: CreationOptional<Date | null>;
+  /** sha256 of the pending password-reset link's token, and when it was sent (lib/password-reset.ts). */
+  declare resetTokenHash: CreationOptional<string | null>;
+  declare resetSentAt: CreationOptional<Date | null>;
   /** Carried by session tokens; bumping it ends every older session. */
   declare sessionVersion: CreationOptional<number>;
   declare createdAt: CreationOptional<Date>;
@@ -44,6 +47,8 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
         emailVerifiedAt: { type: DataTypes.DATE, allowNull: true },
         verificationTokenHash: { type: DataTypes.STRING(64), allowNull: true, unique: true },
         verificationSentAt: { type: DataTypes.DATE, allowNull: true },
+        resetTokenHash: { type: DataTypes.STRING(64), allowNull: true, unique: true },
+        resetSentAt: { type: DataTypes.DATE, allowNull: true },
         sessionVersion: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,

@@ -85,6 +85,11 @@ export function SignInForm({ callbackUrl, initialError }: { callbackUrl: string;
         {pending ? "Signing in…" : "Sign in"}
       </Button>
       <p className="text-ink-600 text-center text-sm">
+        <Link href="/forgot" className="text-board-700 font-medium underline">
+          Forgot your password?
+        </Link>
+      </p>
+      <p className="text-ink-600 text-center text-sm">
         New here?{" "}
         <Link
           href={`/signup?callbackUrl=${encodeURIComponent(callbackUrl)}`}

@@ -106,3 +106,11 @@ export function verificationMail(p: { to: string; name: string; token: string })
     text: `Hello ${p.name},\n\nConfirm that this address is yours: ${appUrl(`/verify/${p.token}`)}\n\nThe link works once, for two days. Until then you can work in your own workbench, but not join a team by invitation. If you did not create an account, ignore this message.\n`,
   };
 }
+
+export function passwordResetMail(p: { to: string; name: string; token: string }): MailMessage {
+  return {
+    to: p.to,
+    subject: "Choose a new Phasewright password",
+    text: `Hello ${p.name},\n\nSomeone (we hope you) asked to reset the password of this Phasewright account. Choose a new one here: ${appUrl(`/reset/${p.token}`)}\n\nThe link works once, for one hour, and signs you out everywhere else. If you did not ask for it, ignore this message: your password stays as it is.\n`,
+  };
+}

@@ -32,5 +32,17 @@ export const profileUpdateSchema = z.object({
   name: signUpSchema.shape.name,
 });
 
+/** "Forgot your password?": the address to send a reset link to. */
+export const resetRequestSchema = z.object({ email });
+
+/** The new password from a reset link, typed twice. */
+export const resetPasswordSchema = z
+  .object({
+    token: z.string().min(20).max(100),
+    password: signUpSchema.shape.password,
+    confirm: z.string({ error: "Type the new password again." }),
+  })
+  .refine((v) => v.password === v.confirm, { path: ["confirm"], message: "The two passwords differ." });
+
 export type SignInInput = z.infer<typeof signInSchema>;
 export type SignUpInput = z.infer<typeof signUpSchema>;

@@ -1,4 +1,5 @@
 // vitest globalSetup for the integration project: make sure the test database exists and is migrated.
+import { mkdirSync } from "node:fs";
 import net from "node:net";
 import path from "node:path";
 import S3rver from "s3rver";
@@ -21,13 +22,10 @@ async function ensureObjectStore(): Promise<(() => Promise<void>) | undefined> {
   if (process.env.S3_ENDPOINT) return undefined;
   const port = Number(process.env.E2E_S3_PORT || "4527");
   if (await answers(port)) return undefined;
-  const fake = new S3rver({
-    address: "127.0.0.1",
-    port,
-    silent: true,
-    directory: path.resolve(".data/s3-test-vitest"),
-    resetOnClose: true,
-  });
+  // The folder must exist when the fake resets it on close, even if no test stored an object.
+  const directory = path.resolve(".data/s3-test-vitest");
+  mkdirSync(directory, { recursive: true });
+  const fake = new S3rver({ address: "127.0.0.1", port, silent: true, directory, resetOnClose: true });
   await fake.run();
   return () => fake.close();
 }
