@@ -67,17 +67,41 @@ export function solveWork(circuit: Circuit): number {
 }
 
 /**
- * Solve options of a live preview: a steady oscillation that alone would exceed the inline budget is
- * left out with the reason (saving the run queues it).
+ * Solve options of a live preview. Within the inline budget: everything. Over it: when the steady
+ * oscillation alone is what costs, it is left out with the reason; otherwise the preview solves the
+ * nominal sweep only (no vary, Monte Carlo, sensitivity or steady) and says why — saving the run
+ * ("Run full analysis") queues the whole analysis.
  */
 export function previewOptions(netlist: string, maxPoints: number): SolveOptions {
   const compiled = compile(netlist);
-  const steady = compiled.ok ? compiled.circuit.steady : null;
-  if (!steady || steadyWork(steady.harmonics) <= MAX_INLINE_WORK) return { maxPoints };
-  return {
-    maxPoints,
-    deferSteady: `the steady oscillation with ${steady.harmonics} harmonics is too large for a preview: save the run to solve it (queued)`,
-  };
+  if (!compiled.ok) return { maxPoints };
+  const c = compiled.circuit;
+  const samples = c.monteCarlo?.samples ?? 0;
+  const full = solveWork(c);
+  if (full <= MAX_INLINE_WORK && samples <= MAX_MC_INLINE_SAMPLES) return { maxPoints };
+  const studies = solveWork({ ...c, steady: null });
+  if (c.steady && studies <= MAX_INLINE_WORK && samples <= MAX_MC_INLINE_SAMPLES) {
+    return {
+      maxPoints,
+      deferSteady: `the steady oscillation with ${c.steady.harmonics} harmonics is too large for a preview: save the run to solve it (queued)`,
+    };
+  }
+  return { maxPoints, nominalOnly: deferredReason(c, full) };
+}
+
+/** "the full analysis (monte-carlo 2000 samples) is 302 151 sweep points of work, over the preview's 200 000 …" */
+function deferredReason(c: Circuit, work: number): string {
+  const parts = [
+    c.monteCarlo ? `monte-carlo ${c.monteCarlo.samples} samples` : null,
+    c.vary ? `vary over ${c.vary.values.length} values` : null,
+    c.sensitivity.length > 0 ? `sensitivity of ${c.sensitivity.length} measure${c.sensitivity.length === 1 ? "" : "s"}` : null,
+    c.steady ? `steady with ${c.steady.harmonics} harmonics` : null,
+  ].filter((p): p is string => p !== null);
+  const n = (x: number) => x.toLocaleString("en").replace(/,/g, " ");
+  return (
+    `the full analysis (${parts.join(", ")}) is ${n(work)} sweep points of work, over the preview's ` +
+    `${n(MAX_INLINE_WORK)}: this preview shows the nominal sweep only. Run the full analysis to solve it all (queued).`
+  );
 }
 
 const STEADY_MEASURES = new Set(["frequency", "amplitude", "thd", "startup"]);

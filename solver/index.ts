@@ -33,6 +33,11 @@ export interface SolveOptions {
   maxSamples?: number;
   /** Leave the steady oscillation out, with this reason (a preview over the service's budget). */
   deferSteady?: string;
+  /**
+   * Solve the nominal sweep only — no vary, Monte Carlo, sensitivity or steady oscillation — and say
+   * why in `result.deferred` (a live preview whose full analysis is over the inline budget).
+   */
+  nominalOnly?: string;
 }
 
 /** Compile and analyse netlist text; every failure is a `NetlistError` with line and column. */
@@ -40,10 +45,15 @@ export function solveNetlist(text: string, options: SolveOptions = {}): SolveRes
   const t0 = performance.now();
   const compiled = compile(text);
   if (!compiled.ok) return { ok: false, errors: compiled.errors, warnings: compiled.warnings };
-  const result = analyze(compiled.circuit, compiled.warnings, options);
+  const reason = options.nominalOnly;
+  const circuit = reason
+    ? { ...compiled.circuit, vary: null, monteCarlo: null, sensitivity: [] }
+    : compiled.circuit;
+  const result = analyze(circuit, compiled.warnings, reason ? { ...options, deferSteady: options.deferSteady ?? reason } : options);
   if (!result.ok) return result;
   try {
-    const full = addStudies(text, compiled.circuit, result, options);
+    const full = addStudies(text, circuit, result, options);
+    if (full.ok && reason) full.deferred = reason;
     if (full.ok) full.stats = { ...full.stats, solveMs: Math.round((performance.now() - t0) * 1000) / 1000 };
     return full;
   } catch (error) {

@@ -446,6 +446,8 @@ export interface SolveSuccess {
   noise?: NoiseResult[];
   zeros?: ZeroResult[];
   steady?: SteadyResult;
+  /** Set when only the nominal sweep was solved (a preview over the inline budget): why, in words. */
+  deferred?: string;
 }
 
 export interface SolveFailure {

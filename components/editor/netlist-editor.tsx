@@ -11,7 +11,7 @@ import { CodeEditor, type CodeEditorHandle } from "./code-editor";
 import { ExamplePicker, type NetlistExample } from "./example-picker";
 import { PreviewPanel } from "./preview-panel";
 import { previewView } from "./preview-view";
-import { SaveRunForm } from "./save-run-form";
+import { SAVE_RUN_FORM_ID, SaveRunForm } from "./save-run-form";
 import { SnapHelper } from "./snap-helper";
 import { useLiveSolve } from "./use-live-solve";
 
@@ -185,6 +185,7 @@ export function NetlistEditor({
           onNetlistErrors={setSaveErrors}
           disabled={netlist.trim() === ""}
           supersedes={revise ? { id: revise.id, title: revise.title } : undefined}
+          fallbackTitle={lastGood?.title ?? "Full analysis"}
         />
         <details className="rounded-panel border-paper-200 group border bg-white">
           <summary className="text-ink-800 hover:bg-paper-50 rounded-panel cursor-pointer px-4 py-3 text-sm font-medium">
@@ -219,6 +220,9 @@ export function NetlistEditor({
         </div>
         <PreviewPanel
           view={view}
+          onRunFull={() =>
+            (document.getElementById(SAVE_RUN_FORM_ID) as HTMLFormElement | null)?.requestSubmit()
+          }
           onGoToLine={(line, column) => editorRef.current?.revealLine(line, column)}
           onSelectFrequency={(hz) => {
             setFocusHz(hz);

@@ -6,6 +6,7 @@ import { Caution } from "@/components/run/caution";
 import { CheckBadges } from "@/components/run/check-badges";
 import { MeasuresTable } from "@/components/run/measures-table";
 import { WarningsList } from "@/components/run/warnings-list";
+import { Button } from "@/components/ui/button";
 import { TickedText } from "@/components/ui/ticked-text";
 import { cn } from "@/lib/utils";
 import { type PreviewView, previewStatus } from "./preview-view";
@@ -15,6 +16,8 @@ export interface PreviewPanelProps {
   plot: ReactNode;
   onGoToLine: (line: number, column?: number) => void;
   onSelectFrequency: (hz: number) => void;
+  /** Saves the netlist as a run so the whole analysis is solved (queued); offered when the preview deferred it. */
+  onRunFull?: () => void;
 }
 
 /**
@@ -22,7 +25,7 @@ export interface PreviewPanelProps {
  * may show comes from `previewView`: nothing of another text, except the last good result marked stale
  * while an edit is on its way.
  */
-export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency }: PreviewPanelProps) {
+export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency, onRunFull }: PreviewPanelProps) {
   const result = view.kind === "result" ? view.result : null;
   const stale = view.kind === "result" && view.stale;
   const errors = view.kind === "errors" ? view.errors : [];
@@ -95,6 +98,23 @@ export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency }: Prev
           <p className="text-caption text-ink-600 px-2 pb-1">Stale: solved before your last edit.</p>
         ) : null}
       </div>
+
+      {result?.deferred && !stale ? (
+        <div
+          role="status"
+          data-testid="preview-deferred"
+          className="border-copper-300 bg-copper-50 text-ink-800 flex flex-wrap items-center gap-3 rounded-md border px-3 py-2 text-sm"
+        >
+          <span className="min-w-0 flex-1">
+            Nominal sweep only: {result.deferred.replace(/^the /, "The ")}
+          </span>
+          {onRunFull ? (
+            <Button type="button" size="sm" onClick={onRunFull}>
+              Run full analysis
+            </Button>
+          ) : null}
+        </div>
+      ) : null}
 
       {result ? (
         <div className={cn("grid gap-4 sm:grid-cols-2", stale && "opacity-60")}>

@@ -14,7 +14,12 @@ export interface SaveRunFormProps {
   disabled?: boolean;
   /** The run this one revises: saved with `supersedesId`, and the title field suggests a revision title. */
   supersedes?: { id: string; title: string };
+  /** Used when the title field is empty and the save comes from "Run full analysis" (the netlist's title). */
+  fallbackTitle?: string;
 }
+
+/** The form's id: "Run full analysis" in the preview submits it. */
+export const SAVE_RUN_FORM_ID = "save-run-form";
 
 type SaveState =
   | { status: "idle" }
@@ -22,15 +27,24 @@ type SaveState =
   | { status: "error"; message: string; field?: string };
 
 /** Title field and "Save run": POST /api/projects/:id/runs, then open the new run. The netlist is never cleared. */
-export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled, supersedes }: SaveRunFormProps) {
+export function SaveRunForm({
+  projectId,
+  netlist,
+  onNetlistErrors,
+  disabled,
+  supersedes,
+  fallbackTitle,
+}: SaveRunFormProps) {
   const router = useRouter();
   const hydrated = useHydrated();
   const [title, setTitle] = useState(supersedes ? `${supersedes.title} (revised)`.slice(0, 200) : "");
   const [state, setState] = useState<SaveState>({ status: "idle" });
 
-  async function save(e: React.FormEvent) {
+  async function save(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
-    if (title.trim() === "") {
+    const full = (e.nativeEvent as SubmitEvent).submitter === null && fallbackTitle ? fallbackTitle : "";
+    const chosen = title.trim() || full.trim();
+    if (chosen === "") {
       setState({ status: "error", field: "title", message: "Give the run a title." });
       return;
     }
@@ -41,7 +55,7 @@ export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled, sup
         method: "POST",
         headers: { "content-type": "application/json" },
         body: JSON.stringify({
-          title: title.trim(),
+          title: chosen.slice(0, 200),
           netlist,
           ...(supersedes ? { supersedesId: supersedes.id } : {}),
         }),
@@ -83,7 +97,7 @@ export function SaveRunForm({ projectId, netlist, onNetlistErrors, disabled, sup
 
   const titleInvalid = state.status === "error" && state.field === "title";
   return (
-    <form onSubmit={save} className="flex flex-wrap items-start gap-2" noValidate>
+    <form id={SAVE_RUN_FORM_ID} onSubmit={save} className="flex flex-wrap items-start gap-2" noValidate>
       <label htmlFor="run-title" className="sr-only">
         Run title
       </label>

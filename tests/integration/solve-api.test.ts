@@ -149,18 +149,19 @@ describe("POST /api/solve", () => {
     expect(revoked.status).toBe(401);
   });
 
-  it("prices the netlist before solving: monte-carlo 4000 in 500 bytes is 422 'save it as a run'", async () => {
+  it("prices the netlist before solving: monte-carlo 4000 in 500 bytes previews the nominal sweep and says why", async () => {
     const netlist = `${RC.replace("R1: resistor in out 10k", "R1: resistor in out 10k tol=1%")}\nmonte-carlo 4000\n`;
     expect(netlist.length).toBeLessThan(600);
     const res = await post(JSON.stringify({ netlist }));
-    expect(res.status).toBe(422);
-    const body = (await res.json()) as {
-      error: { code: string; message: string; details: { work: number } };
-    };
-    expect(body.error.code).toBe("too_much_work");
-    expect(body.error.message).toContain("save it as a run: it will be queued");
-    // 100 Hz–100 kHz at 50 per decade = 151 points; × (1 + 4000 samples).
-    expect(body.error.details.work).toBe(151 * 4001);
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { ok: boolean; deferred?: string; monteCarlo?: unknown; frequencies: number[] };
+    expect(body.ok).toBe(true);
+    expect(body.monteCarlo).toBeUndefined();
+    // 100 Hz–100 kHz at 50 per decade = 151 points; × (1 + 4000 samples) = 604 151.
+    expect(body.frequencies).toHaveLength(151);
+    expect(body.deferred).toContain("monte-carlo 4000 samples");
+    expect(body.deferred).toContain("604 151 sweep points of work");
+    expect(body.deferred).toContain("Run the full analysis");
   });
 
   it("counts a sensitivity study as two re-solves per part", async () => {
@@ -178,9 +179,11 @@ describe("POST /api/solve", () => {
       "sensitivity g",
     ].join("\n");
     const res = await post(JSON.stringify({ netlist }));
-    expect(res.status).toBe(422);
-    const body = (await res.json()) as { error: { details: { work: number } } };
-    expect(body.error.details.work).toBe(151 * (1 + 2 * 801)); // 801 parts: 400 R, 400 C, the source
+    expect(res.status).toBe(200);
+    const body = (await res.json()) as { deferred?: string; sensitivity?: unknown };
+    expect(body.sensitivity).toBeUndefined();
+    // 801 parts (400 R, 400 C, the source): 151 × (1 + 2 × 801) = 242 053.
+    expect(body.deferred).toContain("242 053 sweep points of work");
   });
 
   it("refuses a chunked body over the limit while it streams, without reading it all (413)", async () => {

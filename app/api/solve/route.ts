@@ -1,19 +1,12 @@
 import { json, withApi } from "@/lib/api";
 import { readJsonBody } from "@/lib/body";
-import { RateLimitError, TooLargeError, WorkBudgetError } from "@/lib/errors";
-import { previewOptions, solveWork } from "@/lib/jobs";
-import {
-  MAX_INLINE_WORK,
-  MAX_MC_INLINE_SAMPLES,
-  MAX_NETLIST_BYTES,
-  MAX_PREVIEW_POINTS,
-  SOLVE_RATE_PER_MINUTE,
-} from "@/lib/limits";
+import { RateLimitError, TooLargeError } from "@/lib/errors";
+import { previewOptions } from "@/lib/jobs";
+import { MAX_NETLIST_BYTES, MAX_PREVIEW_POINTS, SOLVE_RATE_PER_MINUTE } from "@/lib/limits";
 import { solvePreview } from "@/lib/preview-pool";
 import { createRateLimiter } from "@/lib/rate-limit";
 import { requireActor } from "@/lib/session";
 import { solveRequestSchema } from "@/lib/validations/solve";
-import { compile } from "@/solver";
 
 // The solver runs on the preview pool's worker threads (lib/preview-pool.ts); never cached.
 export const runtime = "nodejs";
@@ -28,8 +21,8 @@ const MAX_BODY_BYTES = MAX_NETLIST_BYTES * 2 + 1024;
  * POST /api/solve `{netlist}` → the solver's JSON result (NETLIST.md), nothing saved.
  * A netlist with errors is a normal preview state: 200 with `{ok: false, errors}` (line and column each).
  * 400 malformed body, 401 signed out, 413 netlist over MAX_NETLIST_BYTES (counted while the body
- * streams in), 422 `too_much_work` over the work budget (lib/jobs.ts `solveWork`), 429 over the
- * per-user rate, 503 when the preview pool is full or a preview runs too long.
+ * streams in), 429 over the per-user rate, 503 when the preview pool is full or a preview runs too long.
+ * Over the work budget (lib/jobs.ts `solveWork`) the answer is the nominal sweep with `deferred` saying why.
  */
 export const POST = withApi(async (req: Request) => {
   const actor = await requireActor(req);
@@ -47,15 +40,8 @@ export const POST = withApi(async (req: Request) => {
   const { netlist } = solveRequestSchema.parse(body);
   if (Buffer.byteLength(netlist, "utf8") > MAX_NETLIST_BYTES) throw tooLarge();
 
-  // Priced before solving: compiling is linear in the text; the solve is what costs.
-  const compiled = compile(netlist);
-  if (compiled.ok) {
-    // A steady oscillation over the budget is deferred by previewOptions, not refused.
-    const work = solveWork({ ...compiled.circuit, steady: null });
-    const samples = compiled.circuit.monteCarlo?.samples ?? 0;
-    if (work > MAX_INLINE_WORK || samples > MAX_MC_INLINE_SAMPLES)
-      throw new WorkBudgetError(work, MAX_INLINE_WORK);
-  }
+  // Priced before solving (compiling is linear in the text; the solve is what costs): over the inline
+  // budget the preview solves the nominal sweep only and says so in `deferred` (lib/jobs.ts).
   return json(await solvePreview(netlist, previewOptions(netlist, MAX_PREVIEW_POINTS)));
 });
 
