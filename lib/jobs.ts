@@ -94,7 +94,9 @@ function deferredReason(c: Circuit, work: number): string {
   const parts = [
     c.monteCarlo ? `monte-carlo ${c.monteCarlo.samples} samples` : null,
     c.vary ? `vary over ${c.vary.values.length} values` : null,
-    c.sensitivity.length > 0 ? `sensitivity of ${c.sensitivity.length} measure${c.sensitivity.length === 1 ? "" : "s"}` : null,
+    c.sensitivity.length > 0
+      ? `sensitivity of ${c.sensitivity.length} measure${c.sensitivity.length === 1 ? "" : "s"}`
+      : null,
     c.steady ? `steady with ${c.steady.harmonics} harmonics` : null,
   ].filter((p): p is string => p !== null);
   const n = (x: number) => x.toLocaleString("en").replace(/,/g, " ");

@@ -49,7 +49,11 @@ export function solveNetlist(text: string, options: SolveOptions = {}): SolveRes
   const circuit = reason
     ? { ...compiled.circuit, vary: null, monteCarlo: null, sensitivity: [] }
     : compiled.circuit;
-  const result = analyze(circuit, compiled.warnings, reason ? { ...options, deferSteady: options.deferSteady ?? reason } : options);
+  const result = analyze(
+    circuit,
+    compiled.warnings,
+    reason ? { ...options, deferSteady: options.deferSteady ?? reason } : options,
+  );
   if (!result.ok) return result;
   try {
     const full = addStudies(text, circuit, result, options);

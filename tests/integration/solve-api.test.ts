@@ -154,7 +154,12 @@ describe("POST /api/solve", () => {
     expect(netlist.length).toBeLessThan(600);
     const res = await post(JSON.stringify({ netlist }));
     expect(res.status).toBe(200);
-    const body = (await res.json()) as { ok: boolean; deferred?: string; monteCarlo?: unknown; frequencies: number[] };
+    const body = (await res.json()) as {
+      ok: boolean;
+      deferred?: string;
+      monteCarlo?: unknown;
+      frequencies: number[];
+    };
     expect(body.ok).toBe(true);
     expect(body.monteCarlo).toBeUndefined();
     // 100 Hz–100 kHz at 50 per decade = 151 points; × (1 + 4000 samples) = 604 151.
