@@ -7,6 +7,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { resultToCsv } from "./csv";
+import { formatQuantity } from "./format";
 import { solveNetlist } from "./index";
 import type { NoiseResult, SolveResult, SolveSuccess } from "./types";
 
@@ -35,26 +36,12 @@ export function parseArgs(args: string[]): { file: string; mode: Mode } | { erro
   return { file: files[0]!, mode: modes[0] ?? "summary" };
 }
 
-const PREFIXES: [number, string][] = [
-  [1e12, "T"],
-  [1e9, "G"],
-  [1e6, "M"],
-  [1e3, "k"],
-  [1, ""],
-  [1e-3, "m"],
-  [1e-6, "µ"],
-  [1e-9, "n"],
-  [1e-12, "p"],
-  [1e-15, "f"],
-];
-
-/** A number with an SI prefix and 6 significant digits: 1591.55 → "1.59155 k". */
-export function formatSi(value: number, unit: string, prefixed = unit === "Hz" || unit === "V/√Hz"): string {
-  if (!Number.isFinite(value)) return `${value} ${unit}`.trim();
-  if (!prefixed) return `${Number(value.toPrecision(6))}${unit ? ` ${unit}` : ""}`;
-  const abs = Math.abs(value);
-  const [scale, prefix] = PREFIXES.find(([s]) => abs >= s) ?? [1, ""];
-  return `${Number((value / scale).toPrecision(6))} ${prefix}${unit}`;
+/**
+ * A value with its unit for the summary: the one formatter of the screens and e-mails
+ * (solver/format.ts), so a frequency reads the same everywhere ("1.5915 kHz").
+ */
+export function formatSi(value: number, unit: string): string {
+  return formatQuantity(value, unit);
 }
 
 /** A noise statement in a few lines: density at the sweep's ends, the largest contributions at its middle. */
@@ -136,9 +123,7 @@ export function toSummary(r: SolveSuccess): string {
     out.push("", "Group delay (over the sweep)");
     for (const t of delays) {
       const d = t.groupDelay!.filter((x): x is number => x !== null);
-      out.push(
-        `  ${t.name}: ${formatSi(Math.min(...d), "s", true)} … ${formatSi(Math.max(...d), "s", true)}`,
-      );
+      out.push(`  ${t.name}: ${formatSi(Math.min(...d), "s")} … ${formatSi(Math.max(...d), "s")}`);
     }
   }
   if (r.steady) {

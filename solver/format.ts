@@ -17,7 +17,7 @@ const PREFIXES: [number, string][] = [
 ];
 
 /** Units that take an SI prefix; others (dB, deg, %, none) are shown as plain numbers. */
-const PREFIXED_UNITS = new Set(["Hz", "V", "A", "Ω", "ohm", "F", "H", "S", "s", "W"]);
+const PREFIXED_UNITS = new Set(["Hz", "V", "A", "Ω", "ohm", "F", "H", "S", "s", "W", "V/√Hz", "A/√Hz"]);
 
 /** `digits` significant figures, without trailing zeros, in ASCII ("1.5915", "-5.462e-5"). */
 function plainNumber(value: number, digits: number): string {

@@ -101,7 +101,7 @@ describe("phasewright check --against a saved run", () => {
       `against run ${runId} "Signed-off corner" (${base}/runs/${runId}): 1 measure moved too far, 1 part changed`,
     );
     expect(r.out).toMatch(
-      /MOVED fc {2}1\.59155 kHz → 1\.57579 kHz {2}Δ −15\.75\d* Hz \(−0\.99 %\) {2}\[limit 0\.5%\]/,
+      /MOVED fc {2}1\.5915 kHz → 1\.5758 kHz {2}Δ −15\.75\d* Hz \(−0\.99 %\) {2}\[limit 0\.5%\]/,
     );
     expect(r.out).toMatch(/trace H: largest difference −0\.0864 dB at 100 kHz, −0\.28\d° at 1\.58\d* kHz/);
     expect(r.out).toMatch(/^FAIL {2}drifted\.pwn — 1 check pass, 1 moved from the baseline/m);
@@ -113,7 +113,7 @@ describe("phasewright check --against a saved run", () => {
       tokens.viewer,
     );
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/ok {4}fc {2}1\.59155 kHz → 1\.57579 kHz/);
+    expect(r.out).toMatch(/ok {4}fc {2}1\.5915 kHz → 1\.5758 kHz/);
     const same = await check(["same.pwn", "--against", runId], tokens.viewer);
     expect(same.code).toBe(0);
     expect(same.out).toContain("every measure within its limit");

@@ -80,9 +80,9 @@ describe("solved netlists", () => {
     const r = call([path.join(EXAMPLES, "rlc-bandpass.pwn")]);
     expect(r.code).toBe(0);
     expect(r.out).toContain("Tone detector input filter, 5 kHz");
-    expect(r.out).toMatch(/centre\s+5\.03292 kHz/);
-    expect(r.out).toMatch(/width\s+1\.59155 kHz/);
-    expect(r.out).toMatch(/quality\s+3\.16228/);
+    expect(r.out).toMatch(/centre\s+5\.0329 kHz/);
+    expect(r.out).toMatch(/width\s+1\.5915 kHz/);
+    expect(r.out).toMatch(/quality\s+3\.1623/);
     expect(r.out).toContain("PASS  quality > 3");
   });
 
@@ -133,7 +133,7 @@ describe("solved netlists", () => {
     });
     expect(ok.status).toBe(0);
     // Series-C/shunt-R network is real at 1/(2π√6·RC) = 649.74733436 Hz (CHECKS.md §7).
-    expect(ok.stdout).toMatch(/fosc\s+649\.747 Hz/);
+    expect(ok.stdout).toMatch(/fosc\s+649\.75 Hz/);
     const bad = spawnSync("npm", ["run", "--silent", "solve", "--", file("bad2.pwn", "swep 1k\n")], {
       cwd: ROOT,
       encoding: "utf8",
@@ -144,10 +144,10 @@ describe("solved netlists", () => {
 });
 
 describe("formatSi", () => {
-  it("uses SI prefixes for hertz and six significant digits", () => {
-    expect(formatSi(1591.5494309, "Hz")).toBe("1.59155 kHz");
+  it("uses SI prefixes for hertz and five significant digits, like the screens", () => {
+    expect(formatSi(1591.5494309, "Hz")).toBe("1.5915 kHz");
     expect(formatSi(0.5, "Hz")).toBe("500 mHz");
-    expect(formatSi(45.82789, "deg")).toBe("45.8279 deg");
-    expect(formatSi(0.333333333, "")).toBe("0.333333");
+    expect(formatSi(45.82789, "deg")).toBe("45.828°");
+    expect(formatSi(0.333333333, "")).toBe("0.33333");
   });
 });

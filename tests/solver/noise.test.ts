@@ -153,7 +153,7 @@ noise N = volts(out) input Vin
     // (OAFE §10.5 model, as above), ahead of en·G = 800 nV/√Hz.
     const lines = text.split("\n");
     const first = lines.findIndex((l) => l.startsWith("Noise N"));
-    expect(lines[first + 3]).toMatch(/^ {2}U1 in: 1\.01941 µV\/√Hz/);
+    expect(lines[first + 3]).toMatch(/^ {2}U1 in: 1\.0194 µV\/√Hz/);
   });
 });
 

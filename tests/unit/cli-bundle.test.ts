@@ -57,7 +57,7 @@ describe("the built phasewright command", () => {
   it("solves one file as before", () => {
     const r = cmd("solve", "designs/pass0.pwn");
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/^ {2}fc {2}1\.59155 kHz$/m);
+    expect(r.out).toMatch(/^ {2}fc {2}1\.5915 kHz$/m);
     expect(cmd("solve", "--json", "designs/pass0.pwn").out).toContain('"solverVersion"');
     expect(cmd("--version").out).toMatch(/^phasewright \d+\.\d+\.\d+\n$/);
   });

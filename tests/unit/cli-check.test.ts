@@ -167,7 +167,7 @@ describe("phasewright check", () => {
   it("solve keeps today's summary and exit codes", async () => {
     const r = await call(["solve", "designs/a/pass.pwn"]);
     expect(r.code).toBe(0);
-    expect(r.out).toMatch(/^ {2}fc {2}1\.59155 kHz$/m);
+    expect(r.out).toMatch(/^ {2}fc {2}1\.5915 kHz$/m);
     expect((await call(["solve", "broken/bad.pwn"])).code).toBe(2);
   });
 });
