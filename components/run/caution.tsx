@@ -16,12 +16,13 @@ export function Caution({ className }: CautionProps) {
     >
       <p>
         <strong className="text-ink-900 font-semibold">
-          Read these numbers as a small-signal, linear picture
+          Read these numbers as a model, not a measurement.
         </strong>{" "}
-        of the network around one operating point. They say nothing about how large a signal will grow, where
-        it clips, how much it distorts, or whether a nonlinear circuit will start up at all — build it and
-        measure it on the bench before you rely on it. Anything connected to mains voltage must be designed
-        and checked by qualified people under the electrical codes that apply where it is used.
+        Sweeps, loops, poles and noise are a small-signal, linear picture around one operating point. A steady
+        analysis (harmonic balance) sizes only the limiters written in the netlist — diodes and op-amp swing —
+        with ideal models; real parts add their own clipping, drift and distortion. Build it and measure it on
+        the bench before you rely on it. Anything connected to mains voltage must be designed and checked by
+        qualified people under the electrical codes that apply where it is used.
       </p>
     </aside>
   );
