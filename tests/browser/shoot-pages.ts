@@ -29,7 +29,7 @@ async function main(): Promise<void> {
       .locator('a[href^="/runs/"]')
       .evaluateAll((as) => as.map((a) => (a as HTMLAnchorElement).getAttribute("href") ?? ""));
     const runs = [...new Set(runLinks)].slice(0, 4);
-    runs.forEach((href, i) => shots.push([`run${i + 1}`, href]));
+    for (const [i, href] of runs.entries()) shots.push([`run${i + 1}`, href]);
     if (runs.length >= 2) {
       const [a, b] = runs.map((r) => r.replace("/runs/", ""));
       shots.push(["compare", `/compare?a=${a}&b=${b}`]);
