@@ -1,5 +1,6 @@
 "use client";
 
+import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
 import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
@@ -26,34 +27,31 @@ export function ReviewActions({ runId, reviewState, isAuthor, canRequest, canRev
   const router = useRouter();
   const noteId = useId();
   const [note, setNote] = useState("");
-  const [busy, setBusy] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
-  const mayRequest = canRequest && nextReviewState(reviewState, "submit") !== null;
-  const mayDecide = canReview && nextReviewState(reviewState, "sign_off") !== null && !isAuthor;
-
-  async function send(action: ReviewStep) {
-    setBusy(action);
-    setError(null);
-    try {
+  // One review step as a query-cache mutation; the page (state badge, history) is refreshed after it.
+  const step = useMutation({
+    mutationFn: async (action: ReviewStep) => {
       const res = await fetch(`/api/runs/${runId}/review`, {
         method: "POST",
         headers: { "Content-Type": "application/json" },
         body: JSON.stringify(note.trim() ? { action, note: note.trim() } : { action }),
-      });
+      }).catch(() => null);
+      if (!res) throw new Error("The request did not reach the server. Try again.");
       if (!res.ok) {
         const body = await res.json().catch(() => null);
         const fields = body?.error?.details?.fields as Record<string, string[]> | undefined;
-        setError(fields?.note?.[0] ?? body?.error?.message ?? `The step failed (${res.status}).`);
-        return;
+        throw new Error(fields?.note?.[0] ?? body?.error?.message ?? `The step failed (${res.status}).`);
       }
+    },
+    onSuccess: () => {
       setNote("");
       router.refresh();
-    } catch {
-      setError("The request did not reach the server. Try again.");
-    } finally {
-      setBusy(null);
-    }
-  }
+    },
+  });
+  const busy = step.isPending ? step.variables : null;
+  const error = step.error?.message ?? null;
+  const mayRequest = canRequest && nextReviewState(reviewState, "submit") !== null;
+  const mayDecide = canReview && nextReviewState(reviewState, "sign_off") !== null && !isAuthor;
+  const send = (action: ReviewStep) => step.mutate(action);
 
   if (!mayRequest && !mayDecide) {
     const why = reviewWaitSentence({ reviewState, isAuthor, canReview });

@@ -1,7 +1,8 @@
 "use client";
 
+import { useMutation } from "@tanstack/react-query";
 import { useRouter } from "next/navigation";
-import { useRef, useState } from "react";
+import { useRef } from "react";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { inputClass } from "@/components/ui/field";
@@ -22,6 +23,12 @@ export type MeasurementRow = {
 
 type UploadError = { message: string; lines: { line: number; message: string }[] };
 
+class UploadFailure extends Error {
+  constructor(readonly detail: UploadError) {
+    super(detail.message);
+  }
+}
+
 /** The project's bench measurements and, for designers and owners, a CSV upload form. */
 export function MeasurementsPanel({
   projectId,
@@ -35,33 +42,33 @@ export function MeasurementsPanel({
   const router = useRouter();
   const hydrated = useHydrated();
   const form = useRef<HTMLFormElement>(null);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<UploadError | null>(null);
-  const [done, setDone] = useState<string | null>(null);
-
-  async function upload(data: FormData) {
-    setBusy(true);
-    setError(null);
-    setDone(null);
-    try {
-      const res = await fetch(`/api/projects/${projectId}/measurements`, { method: "POST", body: data });
+  // The upload is a query-cache mutation; the page's list is server-rendered and refreshed after it.
+  const send = useMutation({
+    mutationFn: async (data: FormData): Promise<{ name: string; points: number }> => {
+      const res = await fetch(`/api/projects/${projectId}/measurements`, {
+        method: "POST",
+        body: data,
+      }).catch(() => null);
+      if (!res)
+        throw new UploadFailure({ message: "The upload did not reach the server. Try again.", lines: [] });
       const body = await res.json().catch(() => null);
       if (!res.ok) {
-        setError({
+        throw new UploadFailure({
           message: body?.error?.message ?? `Upload failed (${res.status}).`,
           lines: body?.error?.details?.errors ?? [],
         });
-        return;
       }
-      setDone(`Saved "${body.measurement.name}" with ${body.measurement.points} points.`);
+      return body.measurement;
+    },
+    onSuccess: () => {
       form.current?.reset();
       router.refresh();
-    } catch {
-      setError({ message: "The upload did not reach the server. Try again.", lines: [] });
-    } finally {
-      setBusy(false);
-    }
-  }
+    },
+  });
+  const busy = send.isPending;
+  const error: UploadError | null = send.error instanceof UploadFailure ? send.error.detail : null;
+  const done = send.data ? `Saved "${send.data.name}" with ${send.data.points} points.` : null;
+  const upload = (data: FormData) => send.mutate(data);
 
   return (
     <div className="space-y-4">
