@@ -2,6 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { Suspense } from "react";
+import { GroupDelayView } from "@/components/analyses/group-delay-view";
 import { CompareSkeleton } from "@/components/compare/compare-skeleton";
 import { FlippedChecks } from "@/components/compare/flipped-checks";
 import { MeasuresCompare } from "@/components/compare/measures-compare";
@@ -93,6 +94,34 @@ async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; 
             />
           </div>
         </Panel>
+        {comparison.traces.some((t) => t.delay) ? (
+          <Panel aria-labelledby="delay-cmp-h">
+            <PanelHeader
+              id="delay-cmp-h"
+              title="Group delay"
+              description="B solid, A dashed; the difference B − A dotted on its own axis at the right."
+            />
+            <div className="p-2 sm:p-4">
+              <GroupDelayView
+                frequencies={comparison.traces.find((t) => t.delay)?.frequencies ?? []}
+                series={comparison.traces.flatMap((t) =>
+                  t.delay
+                    ? [
+                        { name: `${t.name} · B`, y: t.delay.b },
+                        { name: `${t.name} · A`, y: t.delay.a, dash: "dash" as const },
+                        {
+                          name: `${t.name} Δ (B − A)`,
+                          y: t.delay.diff,
+                          dash: "dot" as const,
+                          difference: true,
+                        },
+                      ]
+                    : [],
+                )}
+              />
+            </div>
+          </Panel>
+        ) : null}
         <div className="grid gap-6 lg:grid-cols-2">
           <Panel aria-labelledby="measures-h">
             <PanelHeader id="measures-h" title="Measures" description="Side by side with Δ and Δ%." />

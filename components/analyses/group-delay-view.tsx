@@ -2,24 +2,46 @@
 
 import type { Data, Layout } from "plotly.js";
 import { plotColors, plotFonts, plotHoverLabel, traceColor } from "@/components/plot/palette";
+import { plotText } from "@/components/plot/plot-text";
 import type { TraceResult } from "@/solver/types";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
 import { SectionTitle } from "./section";
 
-/** Group delay −d∠X/dω of every trace that carries it (exact from the solver's dX/ds). */
-export function GroupDelayView({ traces, frequencies }: { traces: TraceResult[]; frequencies: number[] }) {
-  const shown = traces.filter((t) => t.groupDelay);
-  const data: Partial<Data>[] = shown.map((t, i) => ({
+/** One curve of the plot: a run's delay, or a difference between two runs (drawn on the right axis). */
+export type DelaySeries = { name: string; y: (number | null)[]; dash?: "dash" | "dot"; difference?: boolean };
+
+/**
+ * Group delay −d∠X/dω of every trace that carries it (exact from the solver's dX/ds) — or, on the
+ * compare page, the given series: both runs' delays and their difference on its own Δ axis.
+ */
+export function GroupDelayView({
+  traces = [],
+  frequencies,
+  series,
+}: {
+  traces?: TraceResult[];
+  frequencies: number[];
+  series?: DelaySeries[];
+}) {
+  const curves: DelaySeries[] =
+    series ?? traces.filter((t) => t.groupDelay).map((t) => ({ name: t.name, y: t.groupDelay! }));
+  const hasDelta = curves.some((c) => c.difference);
+  const data: Partial<Data>[] = curves.map((c, i) => ({
     type: "scatter",
     mode: "lines",
-    name: t.name,
+    name: c.name,
     x: frequencies,
-    y: t.groupDelay!,
-    line: { color: traceColor(i), width: 2 },
-    hovertemplate: `${t.name}: %{y:.4s}s at %{x:.4s}Hz<extra></extra>`,
+    y: c.y,
+    yaxis: c.difference ? "y2" : "y",
+    line: {
+      color: c.difference ? plotColors.difference : traceColor(series ? Math.floor(i / 3) : i),
+      width: c.difference ? 1.5 : 2,
+      dash: c.dash ?? "solid",
+    },
+    hovertemplate: `${plotText(c.name)}: %{y:.4s}s at %{x:.4s}Hz<extra></extra>`,
   }));
   const layout: Partial<Layout> = {
-    margin: { l: 72, r: 16, t: 12, b: 48 },
+    margin: { l: 72, r: hasDelta ? 72 : 16, t: 12, b: 48 },
     paper_bgcolor: "rgba(0,0,0,0)",
     plot_bgcolor: plotColors.plotBg,
     font: { family: plotFonts.sans, size: 11, color: plotColors.muted },
@@ -37,6 +59,18 @@ export function GroupDelayView({ traces, frequencies }: { traces: TraceResult[];
       zerolinecolor: plotColors.axis,
     },
     legend: { orientation: "h", y: -0.2 },
+    ...(hasDelta
+      ? {
+          yaxis2: {
+            title: { text: "Δ delay (s)", font: { color: plotColors.difference } },
+            overlaying: "y",
+            side: "right",
+            showgrid: false,
+            exponentformat: "SI",
+            tickfont: { color: plotColors.difference },
+          },
+        }
+      : {}),
   };
   return (
     <details className="group space-y-3" data-testid="group-delay">
