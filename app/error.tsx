@@ -39,7 +39,7 @@ export default function ErrorPage({
           : "The page could not be shown. Nothing you saved was lost. Try again, and tell your administrator if it keeps happening."}
       </p>
       {error.digest && !dbDown ? (
-        <p className="text-caption text-ink-400 mt-2 font-mono">ref {error.digest}</p>
+        <p className="text-caption text-ink-500 mt-2 font-mono">ref {error.digest}</p>
       ) : null}
       <Button className="mt-8" onClick={retry}>
         Try again

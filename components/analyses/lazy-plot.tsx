@@ -6,7 +6,7 @@ import dynamic from "next/dynamic";
 export const LazyPlot = dynamic(() => import("@/components/plot/plotly-chart"), {
   ssr: false,
   loading: () => (
-    <div className="rounded-panel bg-paper-100 text-caption text-ink-400 flex h-full w-full animate-pulse items-center justify-center">
+    <div className="rounded-panel bg-paper-100 text-caption text-ink-500 flex h-full w-full animate-pulse items-center justify-center">
       Loading chart…
     </div>
   ),

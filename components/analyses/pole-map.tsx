@@ -161,7 +161,7 @@ export function PoleMap({ poles, zeros = [] }: { poles: PoleResult[]; zeros?: Ze
                   <td
                     className={`py-1.5 pr-3 text-right font-medium tabular-nums ${
                       p.growthPerCycle === null
-                        ? "text-ink-400"
+                        ? "text-ink-500"
                         : p.growthPerCycle > 1
                           ? "text-signal-fault"
                           : "text-signal-ok"

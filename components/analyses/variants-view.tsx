@@ -124,7 +124,7 @@ export function VariantsView({
                   <td
                     className={`py-1.5 pr-3 text-right font-medium tabular-nums ${
                       v.checks.length === 0
-                        ? "text-ink-400"
+                        ? "text-ink-500"
                         : passed === v.checks.length
                           ? "text-signal-ok"
                           : "text-signal-fault"

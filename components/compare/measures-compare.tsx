@@ -84,6 +84,6 @@ function NoValue({ reason }: { reason: string | null }) {
 }
 
 function tone(v: number | null): string {
-  if (v === null || v === 0) return "text-ink-400";
+  if (v === null || v === 0) return "text-ink-500";
   return "text-ink-900";
 }

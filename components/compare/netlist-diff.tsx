@@ -21,7 +21,7 @@ const grid = "grid grid-cols-[2.25rem_2.25rem_5.5rem_minmax(0,1fr)] items-baseli
 
 function LineNo({ n, side }: { n: number | null; side: "A" | "B" }) {
   return (
-    <span className="text-ink-400 pr-2 text-right font-mono text-xs select-none">
+    <span className="text-ink-500 pr-2 text-right font-mono text-xs select-none">
       {n === null ? (
         ""
       ) : (

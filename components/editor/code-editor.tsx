@@ -119,7 +119,7 @@ export const CodeEditor = forwardRef<CodeEditorHandle, CodeEditorProps>(function
         setMounted(true);
       }}
       onChange={(v) => onChange(v ?? "")}
-      loading={<div className="text-ink-400 p-4 text-sm">Loading editor…</div>}
+      loading={<div className="text-ink-500 p-4 text-sm">Loading editor…</div>}
       options={{
         ariaLabel,
         fontFamily: '"JetBrains Mono", ui-monospace, monospace',

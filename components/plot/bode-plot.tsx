@@ -186,7 +186,7 @@ const PLOT_CONFIG = { displaylogo: false, displayModeBar: false, responsive: tru
 
 function PlotSkeleton() {
   return (
-    <div className="rounded-panel bg-paper-100 text-caption text-ink-400 flex h-full w-full animate-pulse items-center justify-center">
+    <div className="rounded-panel bg-paper-100 text-caption text-ink-500 flex h-full w-full animate-pulse items-center justify-center">
       Loading plot…
     </div>
   );

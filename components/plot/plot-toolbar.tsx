@@ -17,7 +17,7 @@ export interface PlotToolbarProps {
 }
 
 const chip =
-  "text-caption inline-flex h-8 items-center gap-1 rounded-[3px] border px-2.5 font-medium disabled:text-ink-300";
+  "text-caption inline-flex h-8 items-center gap-1 rounded-[3px] border px-2.5 font-medium disabled:text-ink-500 disabled:border-ink-400";
 
 /** Our controls beside the plot: what a click places, reset view, PNG. Every control is a labelled button. */
 export function PlotToolbar({ mode, onMode, canPin, ready, onReset, onPng }: PlotToolbarProps) {

@@ -50,7 +50,7 @@ export function NetlistView({
                   highlighted.has(n) && "bg-copper-50",
                 )}
               >
-                <td className="border-paper-200 text-ink-400 w-10 border-r px-2 text-right align-top select-none">
+                <td className="border-paper-200 text-ink-500 w-10 border-r px-2 text-right align-top select-none">
                   {n}
                 </td>
                 <td className="text-ink-900 px-3 align-top whitespace-pre">

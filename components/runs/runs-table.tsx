@@ -174,7 +174,7 @@ export function RunsTable({ projectId, runs, total, pages, query, members }: Run
                           }
                         >
                           {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden="true" className={active ? "text-copper-500" : "text-ink-300"}>
+                          <span aria-hidden="true" className={active ? "text-copper-600" : "text-ink-500"}>
                             {active ? (query.dir === "asc" ? "▲" : "▼") : "↕"}
                           </span>
                         </button>
@@ -240,7 +240,7 @@ function StatusPill({ status }: { status: string }) {
 }
 
 function ChecksCell({ passed, total }: { passed: number | null; total: number | null }) {
-  if (total === null || total === 0) return <span className="text-ink-400">none</span>;
+  if (total === null || total === 0) return <span className="text-ink-500">none</span>;
   const ok = passed === total;
   return (
     <span className={cn("font-mono font-medium", ok ? "text-signal-ok" : "text-signal-fault")}>

@@ -4,12 +4,12 @@ export type ButtonVariant = "primary" | "secondary" | "ghost" | "danger";
 export type ButtonSize = "sm" | "md" | "lg";
 
 const VARIANTS: Record<ButtonVariant, string> = {
-  primary: "bg-board-600 text-white hover:bg-board-700 active:bg-board-800 disabled:bg-board-300",
+  primary: "bg-board-600 text-white hover:bg-board-700 active:bg-board-800 disabled:bg-board-400",
   secondary:
-    "border border-paper-300 bg-white text-ink-800 hover:border-ink-300 hover:bg-paper-100 disabled:text-ink-400",
-  ghost: "text-ink-700 hover:bg-paper-200 hover:text-ink-900 disabled:text-ink-400",
+    "border border-paper-300 bg-white text-ink-800 hover:border-ink-300 hover:bg-paper-100 disabled:text-ink-500",
+  ghost: "text-ink-700 hover:bg-paper-200 hover:text-ink-900 disabled:text-ink-500",
   danger:
-    "border border-signal-fault/40 bg-white text-signal-fault hover:bg-signal-fault-soft disabled:border-paper-300 disabled:text-ink-400 disabled:hover:bg-white",
+    "border border-signal-fault/40 bg-white text-signal-fault hover:bg-signal-fault-soft disabled:border-paper-300 disabled:text-ink-500 disabled:hover:bg-white",
 };
 
 const SIZES: Record<ButtonSize, string> = {

@@ -2,7 +2,7 @@ import { type InputHTMLAttributes, type ReactNode, useId } from "react";
 import { cn } from "@/lib/utils";
 
 export const inputClass =
-  "block w-full rounded-md border border-paper-300 bg-white px-3 py-2 text-body text-ink-900 shadow-xs placeholder:text-ink-400 hover:border-ink-300 focus-visible:border-board-500 aria-invalid:border-signal-fault";
+  "block w-full rounded-md border border-paper-300 bg-white px-3 py-2 text-body text-ink-900 shadow-xs placeholder:text-ink-500 hover:border-ink-300 focus-visible:border-board-500 aria-invalid:border-signal-fault";
 
 export type FieldProps = InputHTMLAttributes<HTMLInputElement> & {
   label: string;
