@@ -2,6 +2,8 @@
  * Bench data overlaid on a run's plot: chosen per run from its project's measurements (none by
  * default). The table `run_bench_overlays` is read and written only here.
  */
+
+import type { Transaction } from "sequelize";
 import { authorizeRun } from "@/lib/authz";
 import { Measurement, sequelize } from "@/lib/db";
 import { BadRequestError, withDb } from "@/lib/errors";
@@ -15,7 +17,7 @@ export const MAX_OVERLAYS = 6;
 export async function overlayIds(runId: string): Promise<string[]> {
   const rows = (await withDb(() =>
     sequelize.query(
-      "SELECT measurement_id AS id FROM run_bench_overlays WHERE run_id = :runId ORDER BY created_at, measurement_id",
+      "SELECT measurement_id AS id FROM run_bench_overlays WHERE run_id = :runId ORDER BY position",
       { replacements: { runId }, type: "SELECT" },
     ),
   )) as { id: string }[];
@@ -50,18 +52,29 @@ export async function setOverlays(actor: Actor, runId: string, ids: readonly str
           fields: { measurementIds: ["Not a measurement of this project."] },
         });
       }
-      await sequelize.query("DELETE FROM run_bench_overlays WHERE run_id = :runId", {
-        replacements: { runId },
-        transaction,
-      });
-      // Attachment order is kept: one insert per id, a microsecond apart.
-      for (const [k, id] of unique.entries()) {
-        await sequelize.query(
-          "INSERT INTO run_bench_overlays (run_id, measurement_id, created_at) VALUES (:runId, :id, now() + make_interval(secs => :k * 1e-6))",
-          { replacements: { runId, id, k }, transaction },
-        );
-      }
+      await writeOverlays(runId, unique, transaction);
     }),
   );
   return unique;
+}
+
+/**
+ * Replaces a run's overlay list in the caller's transaction (no checks: `setOverlays` checks; the demo
+ * seed writes its own). The list's order is kept as `position`, which each set's symbol follows.
+ */
+export async function writeOverlays(
+  runId: string,
+  ids: readonly string[],
+  transaction: Transaction,
+): Promise<void> {
+  await sequelize.query("DELETE FROM run_bench_overlays WHERE run_id = :runId", {
+    replacements: { runId },
+    transaction,
+  });
+  if (ids.length === 0) return;
+  await sequelize.query(
+    `INSERT INTO run_bench_overlays (run_id, measurement_id, position)
+     SELECT :runId, t.id, t.n FROM unnest(ARRAY[:ids]::uuid[]) WITH ORDINALITY AS t(id, n)`,
+    { replacements: { runId, ids: [...ids] }, transaction },
+  );
 }

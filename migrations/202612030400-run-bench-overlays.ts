@@ -11,6 +11,7 @@ export const up: MigrationFn<QueryInterface> = async ({ context: qi }) => {
     CREATE TABLE run_bench_overlays (
       run_id UUID NOT NULL REFERENCES runs(id) ON DELETE CASCADE,
       measurement_id UUID NOT NULL REFERENCES measurements(id) ON DELETE CASCADE,
+      position INTEGER NOT NULL,
       created_at TIMESTAMPTZ NOT NULL DEFAULT now(),
       PRIMARY KEY (run_id, measurement_id)
     )`);

@@ -1,6 +1,7 @@
 import { createHash } from "node:crypto";
 import type { Transaction } from "sequelize";
 import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { writeOverlays } from "@/lib/run-overlays";
 import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
 import {
   LINE_DRIVER,
@@ -223,10 +224,7 @@ async function seedBenchSweep(t: Transaction, project: Project, uploader: User, 
   );
   await backdate(t, "measurements", m.id, 8);
   // Drawn on rev A's plot: bench data shows on a run only when attached to it.
-  await sequelize.query(
-    "INSERT INTO run_bench_overlays (run_id, measurement_id) VALUES (:run, :m) ON CONFLICT DO NOTHING",
-    { replacements: { run: run.id, m: m.id }, transaction: t },
-  );
+  await writeOverlays(run.id, [m.id], t);
 }
 
 async function seedFilter(t: Transaction, project: Project, users: SeedUsers): Promise<void> {

@@ -1,7 +1,7 @@
 "use client";
 
 import type { Data, Layout } from "plotly.js";
-import { plotColors, plotFonts, plotHoverLabel, traceColor } from "@/components/plot/palette";
+import { frequencyChartLayout, plotColors, traceColor } from "@/components/plot/palette";
 import { plotText } from "@/components/plot/plot-text";
 import type { TraceResult } from "@/solver/types";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
@@ -41,24 +41,7 @@ export function GroupDelayView({
     hovertemplate: `${plotText(c.name)}: %{y:.4s}s at %{x:.4s}Hz<extra></extra>`,
   }));
   const layout: Partial<Layout> = {
-    margin: { l: 72, r: hasDelta ? 72 : 16, t: 12, b: 48 },
-    paper_bgcolor: "rgba(0,0,0,0)",
-    plot_bgcolor: plotColors.plotBg,
-    font: { family: plotFonts.sans, size: 11, color: plotColors.muted },
-    hoverlabel: plotHoverLabel,
-    xaxis: {
-      title: { text: "frequency (Hz)" },
-      type: "log",
-      gridcolor: plotColors.grid,
-      exponentformat: "SI",
-    },
-    yaxis: {
-      title: { text: "group delay (s)" },
-      gridcolor: plotColors.grid,
-      exponentformat: "SI",
-      zerolinecolor: plotColors.axis,
-    },
-    legend: { orientation: "h", y: -0.2 },
+    ...frequencyChartLayout({ title: "group delay (s)", rightMargin: hasDelta ? 72 : 16 }),
     ...(hasDelta
       ? {
           yaxis2: {

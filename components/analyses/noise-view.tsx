@@ -2,7 +2,7 @@
 
 import type { Data, Layout } from "plotly.js";
 import { useMemo, useState } from "react";
-import { plotColors, plotFonts, plotHoverLabel, traceColor } from "@/components/plot/palette";
+import { frequencyChartLayout, plotColors, traceColor } from "@/components/plot/palette";
 import { formatQuantity } from "@/solver/format";
 import type { NoiseResult } from "@/solver/types";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
@@ -72,24 +72,7 @@ export function NoiseView({ noise, frequencies }: { noise: NoiseResult; frequenc
     }),
   ];
   const layout: Partial<Layout> = {
-    margin: { l: 72, r: 16, t: 12, b: 48 },
-    paper_bgcolor: "rgba(0,0,0,0)",
-    plot_bgcolor: plotColors.plotBg,
-    font: { family: plotFonts.sans, size: 11, color: plotColors.muted },
-    hoverlabel: plotHoverLabel,
-    xaxis: {
-      title: { text: "frequency (Hz)" },
-      type: "log",
-      gridcolor: plotColors.grid,
-      exponentformat: "SI",
-    },
-    yaxis: {
-      title: { text: "density (V/√Hz)" },
-      type: "log",
-      gridcolor: plotColors.grid,
-      exponentformat: "SI",
-    },
-    legend: { orientation: "h", y: -0.2 },
+    ...frequencyChartLayout({ title: "density (V/√Hz)", log: true }),
     shapes: bandOk
       ? [
           {

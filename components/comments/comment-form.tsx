@@ -1,6 +1,7 @@
 "use client";
 
 import { useId, useState } from "react";
+import { formatHz } from "@/components/plot/hover-format";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import type { CommentView } from "@/lib/comments";
@@ -71,7 +72,7 @@ export function CommentForm({
       {pin ? (
         <p className="flex flex-wrap items-center gap-2 text-sm">
           <span className="bg-copper-50 text-copper-700 ring-copper-200 rounded-full px-2 py-0.5 font-mono ring-1 ring-inset">
-            <PinIcon /> {formatPin(pin.frequencyHz)}
+            <PinIcon /> {formatHz(pin.frequencyHz)}
             {pin.trace ? ` · ${pin.trace}` : ""}
           </span>
           <button type="button" className="text-ink-500 hover:text-ink-800 underline" onClick={onClearPin}>
@@ -101,10 +102,4 @@ export function CommentForm({
       </Button>
     </form>
   );
-}
-
-export function formatPin(hz: number): string {
-  if (hz >= 1e6) return `${Number((hz / 1e6).toPrecision(4))} MHz`;
-  if (hz >= 1e3) return `${Number((hz / 1e3).toPrecision(4))} kHz`;
-  return `${Number(hz.toPrecision(4))} Hz`;
 }

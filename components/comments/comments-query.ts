@@ -1,6 +1,7 @@
 "use client";
 
 import { type QueryClient, useMutation, useQuery, useQueryClient } from "@tanstack/react-query";
+import { apiErrorMessage } from "@/lib/api-error";
 import type { CommentView } from "@/lib/comments";
 import type { ThreadState } from "@/lib/review-states";
 
@@ -33,15 +34,6 @@ function upsert(client: QueryClient, runId: string, c: CommentView) {
   void client.invalidateQueries({ queryKey: commentsKey(runId) });
 }
 
-/** The API's error as one sentence: the first field message, else the message. */
-async function failure(res: Response, fallback: string): Promise<Error> {
-  const data = (await res.json().catch(() => null)) as {
-    error?: { message?: string; details?: { fields?: Record<string, string[]> } };
-  } | null;
-  const fields = data?.error?.details?.fields;
-  return new Error((fields ? Object.values(fields)[0]?.[0] : undefined) ?? data?.error?.message ?? fallback);
-}
-
 export type NewComment = { body: string; parentId?: string; frequencyHz?: number; trace?: string | null };
 
 export function usePostComment(runId: string) {
@@ -54,7 +46,7 @@ export function usePostComment(runId: string) {
         body: JSON.stringify(input),
       }).catch(() => null);
       if (!res) throw new Error("The comment did not reach the server; your text is still here. Try again.");
-      if (!res.ok) throw await failure(res, `Not saved (${res.status}).`);
+      if (!res.ok) throw new Error(await apiErrorMessage(res, `Not saved (${res.status}).`));
       return ((await res.json()) as { comment: CommentView }).comment;
     },
     onSuccess: (c) => upsert(client, runId, c),
@@ -71,7 +63,7 @@ export function useThreadState(runId: string, commentId: string) {
         body: JSON.stringify({ state }),
       }).catch(() => null);
       if (!res) throw new Error("Could not change the thread. Try again.");
-      if (!res.ok) throw await failure(res, "Could not change the thread. Try again.");
+      if (!res.ok) throw new Error(await apiErrorMessage(res, "Could not change the thread. Try again."));
       return ((await res.json()) as { comment: CommentView }).comment;
     },
     onSuccess: (c) => upsert(client, runId, c),

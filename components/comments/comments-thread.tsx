@@ -1,12 +1,13 @@
 "use client";
 
 import { useState } from "react";
+import { formatHz } from "@/components/plot/hover-format";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import type { CommentView } from "@/lib/comments";
 import { THREAD_STATE_LABELS, type ThreadState } from "@/lib/review-states";
 import { cn, formatDate } from "@/lib/utils";
-import { CommentForm, formatPin, type PinDraft } from "./comment-form";
+import { CommentForm, type PinDraft } from "./comment-form";
 import { useThreadState } from "./comments-query";
 import { PinIcon } from "./pin-icon";
 
@@ -154,9 +155,9 @@ function CommentBody({ c, onFocusPin }: { c: CommentView; onFocusPin: (hz: numbe
             type="button"
             onClick={() => onFocusPin(c.frequencyHz as number)}
             className="bg-copper-50 text-caption text-copper-700 ring-copper-200 hover:bg-copper-100 ml-2 rounded-full px-2 py-0.5 font-mono ring-1 ring-inset"
-            aria-label={`Show ${formatPin(c.frequencyHz)} on the plot`}
+            aria-label={`Show ${formatHz(c.frequencyHz)} on the plot`}
           >
-            <PinIcon /> {formatPin(c.frequencyHz)}
+            <PinIcon /> {formatHz(c.frequencyHz)}
             {c.trace ? ` · ${c.trace}` : ""}
           </button>
         ) : null}

@@ -56,3 +56,30 @@ export const traceColors = [
 export function traceColor(index: number): string {
   return traceColors[index % traceColors.length]!;
 }
+
+/**
+ * The frame of a chart against a log frequency axis (noise density, group delay): our margins, type,
+ * grid and hover label; the caller names the y axis and adds its own traces and extras.
+ */
+export function frequencyChartLayout(y: { title: string; log?: boolean; rightMargin?: number }) {
+  return {
+    margin: { l: 72, r: y.rightMargin ?? 16, t: 12, b: 48 },
+    paper_bgcolor: "rgba(0,0,0,0)",
+    plot_bgcolor: plotColors.plotBg,
+    font: { family: plotFonts.sans, size: 11, color: plotColors.muted },
+    hoverlabel: plotHoverLabel,
+    xaxis: {
+      title: { text: "frequency (Hz)" },
+      type: "log" as const,
+      gridcolor: plotColors.grid,
+      exponentformat: "SI" as const,
+    },
+    yaxis: {
+      title: { text: y.title },
+      ...(y.log ? { type: "log" as const } : { zerolinecolor: plotColors.axis }),
+      gridcolor: plotColors.grid,
+      exponentformat: "SI" as const,
+    },
+    legend: { orientation: "h" as const, y: -0.2 },
+  };
+}

@@ -6,6 +6,7 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
+import { apiErrorMessage } from "@/lib/api-error";
 import {
   nextReviewState,
   REVIEW_ACTION_LABELS,
@@ -36,11 +37,7 @@ export function ReviewActions({ runId, reviewState, isAuthor, canRequest, canRev
         body: JSON.stringify(note.trim() ? { action, note: note.trim() } : { action }),
       }).catch(() => null);
       if (!res) throw new Error("The request did not reach the server. Try again.");
-      if (!res.ok) {
-        const body = await res.json().catch(() => null);
-        const fields = body?.error?.details?.fields as Record<string, string[]> | undefined;
-        throw new Error(fields?.note?.[0] ?? body?.error?.message ?? `The step failed (${res.status}).`);
-      }
+      if (!res.ok) throw new Error(await apiErrorMessage(res, `The step failed (${res.status}).`, "note"));
     },
     onSuccess: () => {
       setNote("");

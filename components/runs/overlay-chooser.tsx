@@ -5,6 +5,8 @@ import { useRouter } from "next/navigation";
 import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { useHydrated } from "@/components/ui/use-hydrated";
+import { apiErrorMessage } from "@/lib/api-error";
+import type { MeasurementSummary } from "@/lib/measurements";
 import { formatQuantity } from "@/solver/format";
 
 export type OverlayOption = {
@@ -21,16 +23,9 @@ async function saveOverlays(runId: string, measurementIds: string[]): Promise<st
     headers: { "content-type": "application/json" },
     body: JSON.stringify({ measurementIds }),
   });
-  const body = (await res.json().catch(() => null)) as
-    | { measurementIds: string[] }
-    | { error?: { message?: string; details?: { fields?: Record<string, string[]> } } }
-    | null;
-  if (!res.ok || !body || !("measurementIds" in body)) {
-    const err = body && "error" in body ? body.error : undefined;
-    throw new Error(
-      err?.details?.fields?.measurementIds?.[0] ?? err?.message ?? `Not saved (HTTP ${res.status}).`,
-    );
-  }
+  if (!res.ok)
+    throw new Error(await apiErrorMessage(res, `Not saved (HTTP ${res.status}).`, "measurementIds"));
+  const body = (await res.json()) as { measurementIds: string[] };
   return body.measurementIds;
 }
 
