@@ -4,7 +4,7 @@
  * Invariants:
  *  - a job's promise always settles: every chunk of samples ends as a result, a failure or an abort;
  *  - a thread that fails (an `error` reply, an uncaught error, or an exit) fails its chunk; the chunk
- *    is retried once on a fresh thread, and a second failure rejects the job with a `WorkerFault`
+ *    is retried once on a fresh thread, and a second failure rejects the job with a `SampleFault`
  *    naming the samples and the reason;
  *  - an abort rejects the job at once and terminates the threads still busy with its chunks, so
  *    nothing keeps running for a job nobody waits for; the pool starts fresh threads when needed.
@@ -18,6 +18,7 @@ import { availableParallelism } from "node:os";
 import path from "node:path";
 import { Worker } from "node:worker_threads";
 import type { SampleBatch } from "./engine/samples";
+import { SampleFault } from "./pipeline";
 import type { Circuit } from "./types";
 
 type WorkerReply =
@@ -34,8 +35,6 @@ interface PoolWorker {
 }
 
 /** A worker thread failed the same chunk twice: the job fails with this reason. */
-export class WorkerFault extends Error {}
-
 let pool: PoolWorker[] = [];
 let unavailable: string | null = null;
 let nextJobId = 1;
@@ -165,7 +164,7 @@ type Chunk = { from: number; to: number; tries: number };
 /**
  * Solve every sample on up to `threads` workers (chunks handed out as workers become free).
  * Null when no thread can start (the caller then solves in its own thread). Rejects with a
- * `WorkerFault` when a chunk fails twice, or with the signal's reason on abort.
+ * `SampleFault` when a chunk fails twice, or with the signal's reason on abort.
  */
 export async function solveSamplesOnWorkers(
   circuit: Circuit,
@@ -216,7 +215,7 @@ export async function solveSamplesOnWorkers(
         w.onFail = undefined;
         if (settled || !chunk) return;
         if (chunk.tries >= 1) {
-          finish(new WorkerFault(`samples ${chunk.from + 1}–${chunk.to} failed twice: ${reason}`));
+          finish(new SampleFault(`samples ${chunk.from + 1}–${chunk.to} failed twice: ${reason}`));
           return;
         }
         chunk.tries++;
@@ -230,7 +229,7 @@ export async function solveSamplesOnWorkers(
           }
           if (!fresh) {
             finish(
-              new WorkerFault(
+              new SampleFault(
                 `samples ${chunk.from + 1}–${chunk.to} failed and no fresh thread started: ${reason}`,
               ),
             );

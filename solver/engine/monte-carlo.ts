@@ -8,8 +8,7 @@ import type {
   Warning,
 } from "../types";
 import { evaluateChecks } from "./checks";
-import { type SampleBatch, SampleKernel, solveSampleRange } from "./samples";
-import type { StudyOptions } from "./studies";
+import type { SampleBatch } from "./samples";
 
 /** Seeded 32-bit PRNG (mulberry32): the same seed gives the same samples on every platform. */
 export function mulberry32(seed: number): () => number {
@@ -62,7 +61,7 @@ export function drawSamples(circuit: Circuit, def: MonteCarloDef): SampleDraws {
 export function monteCarloPreflight(
   circuit: Circuit,
   warnings: Warning[],
-  options: StudyOptions,
+  options: { maxSamples?: number },
 ): string | null {
   const def = circuit.monteCarlo!;
   if (options.maxSamples !== undefined && def.samples > options.maxSamples) {
@@ -114,25 +113,6 @@ export function summarizeSamples(
     measures: names.map((name, i) => stats(name, columns[i] ?? [])),
     checks: checkYields(circuit, nominal, columns),
   };
-}
-
-/**
- * Monte Carlo in this thread (the synchronous path of `solveNetlist`). The same draws and the same
- * per-sample kernel as the worker-thread path (solver/parallel.ts), so both give identical JSON.
- */
-export function monteCarlo(
-  circuit: Circuit,
-  freqs: number[],
-  nominal: SolveSuccess,
-  warnings: Warning[],
-  options: StudyOptions,
-): MonteCarloResult | string {
-  const problem = monteCarloPreflight(circuit, warnings, options);
-  if (problem) return problem;
-  const draws = drawSamples(circuit, circuit.monteCarlo!);
-  const kernel = new SampleKernel(circuit, freqs, draws.names);
-  const batch = solveSampleRange(kernel, draws.values, draws.names.length, 0, draws.samples);
-  return summarizeSamples(circuit, nominal, [batch], warnings);
 }
 
 /** Percentile by linear interpolation between order statistics (sorted input). */

@@ -2,36 +2,17 @@ import { compile } from "../lang";
 import type {
   Circuit,
   MeasureResult,
-  MonteCarloResult,
   Part,
   SensitivityResult,
-  SolveResult,
   SolveSuccess,
   VariantResult,
   Warning,
   ZeroResult,
 } from "../types";
 import { buildMna } from "./mna";
-import { monteCarlo } from "./monte-carlo";
 import { computePoles, MAX_POLE_UNKNOWNS } from "./poles";
 import { rerun, withValues } from "./rerun";
 import { computeZeros } from "./zeros";
-
-/** Options of the analyses beyond one sweep. */
-export interface StudyOptions {
-  /** Most Monte Carlo samples (the service's limit); more are an error. */
-  maxSamples?: number;
-  /**
-   * A Monte Carlo result computed elsewhere (worker threads, solver/parallel.ts) with the
-   * warnings it raised; used in place of the in-thread run so the JSON is the same either way.
-   */
-  monteCarlo?: { result: MonteCarloResult | string; warnings: Warning[] };
-  /**
-   * The `vary` variants solved elsewhere (one at a time by `solveVariant`, solver/parallel.ts)
-   * with their warnings; used in place of the in-thread loop so the JSON is the same either way.
-   */
-  vary?: VaryOutcome;
-}
 
 /** The variants of a `vary` in value order, and the warnings of the ones that were skipped. */
 export interface VaryOutcome {
@@ -53,35 +34,13 @@ const SWEPT_KINDS = new Set<Part["kind"]>([
 ]);
 
 /**
- * Add the analyses beyond one sweep (NETLIST.md) to a successful result: `vary` (a `let` is
- * re-compiled with an override, a part's value is replaced), `monte-carlo`, `poles` and
- * `sensitivity`. Problems of a single variant or sample become warnings; never throws.
+ * Add the analyses of the circuit's structure to a successful result (NETLIST.md): `poles`, `zeros`
+ * and `sensitivity`. `vary` and `monte-carlo` are steps of the pipeline (solver/pipeline.ts).
+ * Problems become warnings in `out.warnings`.
  */
-export function addStudies(
-  text: string,
-  circuit: Circuit,
-  result: SolveSuccess,
-  options: StudyOptions,
-): SolveResult {
-  const freqs = result.frequencies;
-  const warnings = result.warnings;
-  const out: SolveSuccess = { ...result };
-  if (circuit.vary) {
-    const vary = options.vary ?? solveVary(text, circuit, freqs);
-    warnings.push(...vary.warnings);
-    out.variants = vary.variants;
-  }
-  if (circuit.monteCarlo) {
-    let mc: MonteCarloResult | string;
-    if (options.monteCarlo) {
-      mc = options.monteCarlo.result;
-      warnings.push(...options.monteCarlo.warnings);
-    } else mc = monteCarlo(circuit, freqs, result, warnings, options);
-    if (typeof mc === "string") {
-      return { ok: false, errors: [{ ...circuit.monteCarlo.span, message: mc }], warnings };
-    }
-    out.monteCarlo = mc;
-  }
+export function addStructureStudies(circuit: Circuit, out: SolveSuccess): void {
+  const freqs = out.frequencies;
+  const warnings = out.warnings;
   if (circuit.poles) {
     const built = buildMna(circuit.parts, circuit.nodes);
     if (built.ok && built.system.n <= MAX_POLE_UNKNOWNS) {
@@ -98,9 +57,7 @@ export function addStudies(
     }
   }
   if (circuit.zeros && circuit.zeros.length > 0) out.zeros = zerosOf(circuit, freqs, warnings);
-  if (circuit.sensitivity.length > 0)
-    out.sensitivity = sensitivity(circuit, freqs, result.measures, warnings);
-  return out;
+  if (circuit.sensitivity.length > 0) out.sensitivity = sensitivity(circuit, freqs, out.measures, warnings);
 }
 
 /** The `zeros` statements' zeros; a probe that cannot be answered becomes a warning. */
@@ -159,13 +116,6 @@ export function solveVariant(
     return;
   }
   into.variants.push({ name: vd.target, value, traces: o.traces, measures: o.measures, checks: o.checks });
-}
-
-/** Every value of the circuit's `vary`, in order, in this thread. */
-export function solveVary(text: string, circuit: Circuit, freqs: number[]): VaryOutcome {
-  const out: VaryOutcome = { variants: [], warnings: [] };
-  for (const value of circuit.vary?.values ?? []) solveVariant(text, circuit, freqs, value, out);
-  return out;
 }
 
 /**
