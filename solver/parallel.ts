@@ -89,7 +89,7 @@ function onWorkers(threads: number) {
  * Drive the pipeline: at each pause yield to the event loop and check the signal; wait for a
  * Monte Carlo strategy's promise and hand its answer (or its rejection) back to the pipeline.
  */
-async function runPipelineAsync(pipeline: Pipeline, options: PipelineOptions): Promise<SolveResult> {
+export async function runPipelineAsync(pipeline: Pipeline, options: PipelineOptions): Promise<SolveResult> {
   let step = pipeline.next();
   while (!step.done) {
     let answer: unknown;
