@@ -9,7 +9,8 @@
  * are drawn up front in one stream and summarized in sample order, so every driver and every
  * strategy give the same JSON for the same text and seed.
  */
-import { analyze, internalError, spanError } from "./engine";
+import { analyze } from "./engine";
+import { internalError, spanError } from "./engine/errors";
 import { drawSamples, monteCarloPreflight, type SampleDraws, summarizeSamples } from "./engine/monte-carlo";
 import { type SampleBatch, SampleKernel, solveSampleRange } from "./engine/samples";
 import { addStructureStudies, solveVariant, type VaryOutcome } from "./engine/studies";

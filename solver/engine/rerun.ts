@@ -1,5 +1,5 @@
 import type { Circuit } from "../types";
-import { sweepCircuit } from "./index";
+import { sweepCircuit } from "./circuit-sweep";
 
 /** The circuit with some part values replaced (no re-compilation: values are already evaluated). */
 export function withValues(circuit: Circuit, values: Map<string, number>): Circuit {

@@ -7,13 +7,14 @@
 import type { Circuit, Part, SteadyResult } from "../types";
 import { AcSolver } from "./ac";
 import { evaluateChecks } from "./checks";
-import { middleHz, planSystems, type SystemRun, sampler } from "./index";
+import { middleHz, sampler } from "./circuit-sweep";
 import { computeMeasures } from "./measures";
 import { buildMna } from "./mna";
 import { readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
 import { solveSteadyFrom } from "./steady";
 import { steadyMeasure } from "./steady/measures";
+import { planSystems, type SystemRun } from "./systems";
 
 /** One sample's outcome: measure values in `circuit.measures` order (NaN = no value), checks passed. */
 export interface SampleOutcome {
