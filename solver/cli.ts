@@ -79,6 +79,27 @@ export function toSummary(r: SolveSuccess): string {
   if (r.checks.length > 0) out.push("", "Checks");
   for (const c of r.checks)
     out.push(`  ${c.pass ? "PASS" : "FAIL"}  ${c.expression}${c.reason ? ` — ${c.reason}` : ""}`);
+  out.push(...studiesSummary(r), ...readingsSummary(r));
+  if (r.warnings.length > 0) out.push("", "Warnings");
+  for (const w of r.warnings) out.push(`  ${w.line === null ? "" : `line ${w.line}: `}${w.message}`);
+  const s = r.stats;
+  out.push(
+    "",
+    `${s.nodes} nodes, ${s.unknowns} unknowns, ${s.points} points, ${s.solveMs} ms (solver ${r.solverVersion})`,
+  );
+  return `${out.join("\n")}\n`;
+}
+
+/** A pole or zero: s = re ± j·im rad/s, with its frequency and Q. */
+function rootText(p: { re: number; im: number; frequencyHz: number; q: number | null }): string {
+  const im = `${p.im < 0 ? "-" : "+"} j${Number(Math.abs(p.im).toPrecision(6))}`;
+  const q = p.q === null ? "none" : Number(p.q.toPrecision(4));
+  return `s = ${Number(p.re.toPrecision(6))} ${im} rad/s (${formatSi(p.frequencyHz, "Hz")}, Q ${q}`;
+}
+
+/** The studies beyond the sweep: variants, Monte Carlo, poles and zeros. */
+function studiesSummary(r: SolveSuccess): string[] {
+  const out: string[] = [];
   if (r.variants?.length) {
     out.push("", "Variants");
     for (const v of r.variants) {
@@ -104,19 +125,19 @@ export function toSummary(r: SolveSuccess): string {
     out.push("", "Poles");
     for (const p of r.poles) {
       const grow = p.growthPerCycle === null ? "" : `, ×${Number(p.growthPerCycle.toPrecision(6))} per cycle`;
-      out.push(
-        `  s = ${Number(p.re.toPrecision(6))} ${p.im < 0 ? "-" : "+"} j${Number(Math.abs(p.im).toPrecision(6))} rad/s (${formatSi(p.frequencyHz, "Hz")}, Q ${p.q === null ? "none" : Number(p.q.toPrecision(4))}${grow})`,
-      );
+      out.push(`  ${rootText(p)}${grow})`);
     }
   }
   if (r.zeros?.length) {
     out.push("", "Zeros");
-    for (const z of r.zeros) {
-      out.push(
-        `  ${z.probe}: s = ${Number(z.re.toPrecision(6))} ${z.im < 0 ? "-" : "+"} j${Number(Math.abs(z.im).toPrecision(6))} rad/s (${formatSi(z.frequencyHz, "Hz")}, Q ${z.q === null ? "none" : Number(z.q.toPrecision(4))})`,
-      );
-    }
+    for (const z of r.zeros) out.push(`  ${z.probe}: ${rootText(z)})`);
   }
+  return out;
+}
+
+/** Noise, group delay, the steady oscillation and the sensitivities. */
+function readingsSummary(r: SolveSuccess): string[] {
+  const out: string[] = [];
   for (const n of r.noise ?? []) out.push("", ...noiseSummary(n, r.frequencies));
   const delays = r.traces.filter((t) => t.groupDelay?.some((d) => d !== null));
   if (delays.length > 0) {
@@ -140,14 +161,7 @@ export function toSummary(r: SolveSuccess): string {
     for (const s of r.sensitivity)
       out.push(`  ${s.measure} to ${s.part}: ${s.value === null ? "none" : Number(s.value.toPrecision(4))}`);
   }
-  if (r.warnings.length > 0) out.push("", "Warnings");
-  for (const w of r.warnings) out.push(`  ${w.line === null ? "" : `line ${w.line}: `}${w.message}`);
-  const s = r.stats;
-  out.push(
-    "",
-    `${s.nodes} nodes, ${s.unknowns} unknowns, ${s.points} points, ${s.solveMs} ms (solver ${r.solverVersion})`,
-  );
-  return `${out.join("\n")}\n`;
+  return out;
 }
 
 /**
