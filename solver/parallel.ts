@@ -70,14 +70,7 @@ function onWorkers(threads: number) {
   return async (job: SampleJob): Promise<SampleBatch[] | null> => {
     if (job.draws.samples * job.freqs.length < PARALLEL_MIN_WORK) return null;
     try {
-      return await solveSamplesOnWorkers(
-        job.circuit,
-        job.freqs,
-        job.draws,
-        threads,
-        job.onProgress,
-        job.signal,
-      );
+      return await solveSamplesOnWorkers(job, threads);
     } catch (error) {
       if (job.signal?.aborted || error instanceof SampleFault) throw error;
       return null;

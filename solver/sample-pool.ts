@@ -9,7 +9,7 @@
  *  - an abort rejects the job at once and terminates the threads still busy with its chunks, so
  *    nothing keeps running for a job nobody waits for; the pool starts fresh threads when needed.
  *
- * The worker entry is `solver/workers/sample-worker.mjs`, found at `PHASEWRIGHT_SAMPLE_WORKER` or
+ * The scheduling of one job's chunks is solver/sample-job.ts. The worker entry is `solver/workers/sample-worker.mjs`, found at `PHASEWRIGHT_SAMPLE_WORKER` or
  * `<cwd>/solver/workers/…`. When it cannot be found or no thread starts, `solveSamplesOnWorkers`
  * answers null and the caller solves in its own thread.
  */
@@ -18,15 +18,15 @@ import { availableParallelism } from "node:os";
 import path from "node:path";
 import { Worker } from "node:worker_threads";
 import type { SampleBatch } from "./engine/samples";
-import { SampleFault } from "./pipeline";
-import type { Circuit } from "./types";
+import type { SampleJob } from "./pipeline";
+import { PoolJob } from "./sample-job";
 
-type WorkerReply =
+export type WorkerReply =
   | { type: "ready" }
   | { type: "done"; jobId: number; batch: SampleBatch }
   | { type: "error"; jobId: number; message: string };
 
-interface PoolWorker {
+export interface PoolWorker {
   worker: Worker;
   ready: Promise<void>;
   /** Set while the thread works a chunk: called once when the thread fails or exits. */
@@ -153,122 +153,23 @@ export function sampleWorkerThreads(): Worker[] {
   return pool.filter((w) => !w.dead).map((w) => w.worker);
 }
 
-interface Draws {
-  names: string[];
-  samples: number;
-  values: Float64Array;
-}
-
-type Chunk = { from: number; to: number; tries: number };
-
 /**
- * Solve every sample on up to `threads` workers (chunks handed out as workers become free).
- * Null when no thread can start (the caller then solves in its own thread). Rejects with a
+ * Solve every sample of `job` on up to `threads` workers (chunks handed out as workers become
+ * free). Null when no thread can start (the caller then solves in its own thread). Rejects with a
  * `SampleFault` when a chunk fails twice, or with the signal's reason on abort.
  */
-export async function solveSamplesOnWorkers(
-  circuit: Circuit,
-  freqs: number[],
-  draws: Draws,
-  threads: number,
-  onProgress?: (done: number, total: number) => void,
-  signal?: AbortSignal,
-): Promise<SampleBatch[] | null> {
+export async function solveSamplesOnWorkers(job: SampleJob, threads: number): Promise<SampleBatch[] | null> {
   const workers = await getPool(threads);
   if (!workers) return null;
-  const total = draws.samples;
-  const size = Math.max(10, Math.ceil(total / (workers.length * 8)));
-  const chunks: Chunk[] = [];
-  for (let s = 0; s < total; s += size) chunks.push({ from: s, to: Math.min(total, s + size), tries: 0 });
-  const jobId = nextJobId++;
-  const setup = { type: "setup", jobId, circuit, freqs, names: draws.names, values: draws.values };
-  const batches: SampleBatch[] = [];
-  const busy = new Map<PoolWorker, Chunk>();
-  const used = new Set<PoolWorker>(workers);
-  let done = 0;
-  let retrying = 0;
-  let onAbort: (() => void) | undefined;
+  const run = new PoolJob(nextJobId++, job, workers, freshWorker);
+  handlers.set(run.id, (w, reply) => run.reply(w, reply));
+  const onAbort = () => run.abort();
+  job.signal?.addEventListener("abort", onAbort, { once: true });
   try {
-    return await new Promise<SampleBatch[]>((resolve, reject) => {
-      let settled = false;
-      const finish = (error?: unknown) => {
-        if (settled) return;
-        settled = true;
-        for (const w of busy.keys()) w.onFail = undefined;
-        if (error !== undefined) reject(error);
-        else resolve(batches);
-      };
-      const dispatch = (w: PoolWorker, chunk = chunks.shift()) => {
-        if (settled) return;
-        if (!chunk) {
-          if (busy.size === 0 && retrying === 0) finish();
-          return;
-        }
-        busy.set(w, chunk);
-        w.onFail = (reason) => failed(w, reason);
-        w.worker.postMessage({ type: "task", jobId, from: chunk.from, to: chunk.to });
-      };
-      // A failed chunk gets one more try on a fresh thread; a second failure fails the job.
-      const failed = (w: PoolWorker, reason: string) => {
-        const chunk = busy.get(w);
-        busy.delete(w);
-        w.onFail = undefined;
-        if (settled || !chunk) return;
-        if (chunk.tries >= 1) {
-          finish(new SampleFault(`samples ${chunk.from + 1}–${chunk.to} failed twice: ${reason}`));
-          return;
-        }
-        chunk.tries++;
-        retrying++;
-        if (!w.dead) void w.worker.terminate();
-        void freshWorker().then((fresh) => {
-          retrying--;
-          if (settled) {
-            if (fresh) void fresh.worker.terminate();
-            return;
-          }
-          if (!fresh) {
-            finish(
-              new SampleFault(
-                `samples ${chunk.from + 1}–${chunk.to} failed and no fresh thread started: ${reason}`,
-              ),
-            );
-            return;
-          }
-          used.add(fresh);
-          fresh.worker.postMessage(setup);
-          dispatch(fresh, chunk);
-        });
-      };
-      handlers.set(jobId, (w, reply) => {
-        if (reply.type === "error") return failed(w, reply.message);
-        if (reply.type !== "done" || !busy.has(w)) return;
-        busy.delete(w);
-        w.onFail = undefined;
-        batches.push(reply.batch);
-        done += reply.batch.to - reply.batch.from;
-        onProgress?.(done, total);
-        dispatch(w);
-      });
-      if (signal) {
-        onAbort = () => {
-          // Threads still busy with this job's chunks are ended: nobody will read their answer.
-          for (const w of busy.keys()) {
-            w.onFail = undefined;
-            void w.worker.terminate();
-          }
-          busy.clear();
-          finish(signal.reason ?? new Error("cancelled"));
-        };
-        if (signal.aborted) return onAbort();
-        signal.addEventListener("abort", onAbort, { once: true });
-      }
-      for (const w of workers) w.worker.postMessage(setup);
-      for (const w of workers) dispatch(w);
-    });
+    return await run.start();
   } finally {
-    if (onAbort) signal?.removeEventListener("abort", onAbort);
-    handlers.delete(jobId);
-    for (const w of used) if (!w.dead) w.worker.postMessage({ type: "release", jobId });
+    job.signal?.removeEventListener("abort", onAbort);
+    handlers.delete(run.id);
+    run.release();
   }
 }

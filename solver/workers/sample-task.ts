@@ -1,9 +1,9 @@
 /**
- * The body of a Monte Carlo worker thread. Messages from the parent (solver/parallel.ts):
+ * The body of a Monte Carlo worker thread. Messages from the parent (solver/sample-job.ts):
  *  - {type:"setup", jobId, circuit, freqs, names, values, width}: build the per-sample kernel once;
  *  - {type:"task", jobId, from, to}: solve samples from..to−1, answer {type:"done", jobId, batch};
  *  - {type:"release", jobId}: forget the job.
- * Errors are answered as {type:"error", jobId, message}; the parent then solves in its own thread.
+ * Errors are answered as {type:"error", jobId, message}; the parent retries the chunk once on a fresh thread.
  */
 import { parentPort } from "node:worker_threads";
 import { SampleKernel, solveSampleRange } from "../engine/samples";
