@@ -9,9 +9,10 @@
  *  - an abort rejects the job at once and terminates the threads still busy with its chunks, so
  *    nothing keeps running for a job nobody waits for; the pool starts fresh threads when needed.
  *
- * The scheduling of one job's chunks is solver/sample-job.ts. The worker entry is `solver/workers/sample-worker.mjs`, found at `PHASEWRIGHT_SAMPLE_WORKER` or
- * `<cwd>/solver/workers/…`. When it cannot be found or no thread starts, `solveSamplesOnWorkers`
- * answers null and the caller solves in its own thread.
+ * The scheduling of one job's chunks is solver/sample-job.ts. The worker entry is
+ * `solver/workers/sample-worker.mjs`, found at `PHASEWRIGHT_SAMPLE_WORKER` or `<cwd>/solver/workers/…`.
+ * When it cannot be found or no thread starts, `solveSamplesOnWorkers` answers null and the caller
+ * solves in its own thread.
  */
 import { existsSync } from "node:fs";
 import { availableParallelism } from "node:os";
