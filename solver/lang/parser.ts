@@ -6,7 +6,8 @@
 import type { NetlistError, PartKind } from "../types";
 import type { BlockStatement, ParseTree, Statement } from "./ast";
 import { Cursor, spanOf } from "./cursor";
-import { type KindTable, parseBlockHeader, parseLet, parsePart, parsePreset } from "./definitions";
+import { parseBlockHeader, parseLet, parsePreset } from "./declarations";
+import { type KindTable, parsePart } from "./definitions";
 import { didYouMean } from "./hints";
 import { isPartKind, KEYWORDS, KINDS } from "./kinds";
 import { parseAnalysis } from "./statements";
