@@ -15,13 +15,12 @@
  * itself (retry of a failed chunk on a fresh thread, abort) is solver/sample-pool.ts.
  * Kept out of `solver/index.ts` so a web bundle of the solver never pulls worker_threads in.
  */
-import type { SampleBatch } from "./engine/samples";
 import {
   PAUSE,
   type Pipeline,
   type PipelineOptions,
   SampleFault,
-  type SampleJob,
+  type SampleStrategy,
   type SolveOptions,
   solvePipeline,
 } from "./pipeline";
@@ -66,8 +65,8 @@ export function solveNetlistParallel(text: string, options: ParallelOptions = {}
  * no thread starts. An abort, or a chunk that failed twice on fresh threads, rejects: the run fails
  * with the reason (solving it again in this thread could take the whole process down the same way).
  */
-function onWorkers(threads: number) {
-  return async (job: SampleJob): Promise<SampleBatch[] | null> => {
+function onWorkers(threads: number): SampleStrategy {
+  return async (job) => {
     if (job.draws.samples * job.freqs.length < PARALLEL_MIN_WORK) return null;
     try {
       return await solveSamplesOnWorkers(job, threads);

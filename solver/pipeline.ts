@@ -65,7 +65,7 @@ export class SampleFault extends Error {}
 export const PAUSE: unique symbol = Symbol("pause");
 
 /** What the pipeline yields: a pause, or the promise of a Monte Carlo strategy to wait for. */
-export type PipelineStep = typeof PAUSE | Promise<SampleBatch[] | null>;
+type PipelineStep = typeof PAUSE | Promise<SampleBatch[] | null>;
 
 /** The pipeline's steps; its return value is the result. Never throws on user input. */
 export type Pipeline = Generator<PipelineStep, SolveResult, unknown>;

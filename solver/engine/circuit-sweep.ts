@@ -30,7 +30,7 @@ import { planSystems, runError, type SystemRun } from "./systems";
 import { groupDelayOf, makeTrace } from "./trace";
 
 /** The result of one sweep of one circuit: everything a variant or a sample needs. */
-export interface SweepOutcome {
+interface SweepOutcome {
   traces: TraceResult[];
   measures: MeasureResult[];
   checks: CheckResult[];

@@ -4,7 +4,7 @@ import type { Reading } from "./probes";
 /** The new node a cut creates: NODE′ (the prime cannot occur in a netlist name). */
 export const cutNodeName = (node: string) => `${node}′`;
 
-export type LoopBuild =
+type LoopBuild =
   | {
       ok: true;
       parts: Part[];
@@ -22,7 +22,7 @@ const IDEAL_VOLTAGE_OUTPUTS = new Set(["vsource", "vcvs", "ccvs"]);
  * Whether a part other than the `moved` ones fixes the voltage of `node` (an ideal voltage output:
  * vsource, vcvs, ccvs, or an op-amp output without `rout`): then cutting at `node` is exact.
  */
-export function idealDriverAt(parts: Part[], node: string, moved: ReadonlySet<string>): boolean {
+function idealDriverAt(parts: Part[], node: string, moved: ReadonlySet<string>): boolean {
   return parts.some(
     (p) =>
       !moved.has(p.name) &&

@@ -12,14 +12,14 @@ export const MAX_POLE_UNKNOWNS = 400;
  * A regular pencil G + s·C over one sparsity pattern (MNA, or any other pair — a zeros analysis
  * passes its own): `pattern` gives n, rowPtr and colIdx; g and c are the values in that order.
  */
-export interface Pencil {
+interface Pencil {
   pattern: Pick<SparseComplexMatrix, "n" | "rowPtr" | "colIdx">;
   g: Float64Array;
   c: Float64Array;
 }
 
 /** A verified eigenvalue s (rad/s) must leave the equilibrated G + s·C this singular (σ_min ≤ it). */
-export const POLE_RESIDUAL = 1e-7;
+const POLE_RESIDUAL = 1e-7;
 
 /**
  * Finite eigenvalues s of the pencil (det(G + s·C) = 0), each verified.

@@ -76,32 +76,3 @@ export function brentRoot(
   }
   return b;
 }
-
-/**
- * Golden-section search for a maximum of a unimodal h on [a, b] (J. Kiefer, "Sequential minimax
- * search for a maximum", Proc. AMS 4, 1953). Used only when the derivative-based refinement
- * cannot bracket; its precision is limited to about √ε relative by the flat top.
- */
-export function goldenMax(h: (x: number) => number, a: number, b: number, tol: number): number {
-  const r = (Math.sqrt(5) - 1) / 2;
-  let x1 = b - r * (b - a);
-  let x2 = a + r * (b - a);
-  let h1 = h(x1);
-  let h2 = h(x2);
-  for (let i = 0; i < 200 && Math.abs(b - a) > tol; i++) {
-    if (h1 >= h2) {
-      b = x2;
-      x2 = x1;
-      h2 = h1;
-      x1 = b - r * (b - a);
-      h1 = h(x1);
-    } else {
-      a = x1;
-      x1 = x2;
-      h1 = h2;
-      x2 = a + r * (b - a);
-      h2 = h(x2);
-    }
-  }
-  return (a + b) / 2;
-}

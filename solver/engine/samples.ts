@@ -17,7 +17,7 @@ import { steadyMeasure } from "./steady/measures";
 import { planSystems, type SystemRun } from "./systems";
 
 /** One sample's outcome: measure values in `circuit.measures` order (NaN = no value), checks passed. */
-export interface SampleOutcome {
+interface SampleOutcome {
   values: Float64Array;
   passed: boolean;
 }

@@ -21,7 +21,7 @@ export interface VaryOutcome {
 }
 
 /** Relative step of the central differences of `sensitivity`. */
-export const SENSITIVITY_STEP = 1e-4;
+const SENSITIVITY_STEP = 1e-4;
 
 const SWEPT_KINDS = new Set<Part["kind"]>([
   "resistor",

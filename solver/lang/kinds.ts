@@ -2,7 +2,7 @@
 import type { LoopMethod, MeasureFunction, PartKind } from "../types";
 import type { Place } from "./numbers";
 
-export interface KindInfo {
+interface KindInfo {
   terminals: string[];
   /** Whether a value is required, optional (with a default) or not allowed. */
   value: "required" | "optional" | "none";

@@ -7,13 +7,13 @@ import { nearest } from "./hints";
 export type Unit = "ohm" | "F" | "H" | "V" | "A" | "S" | "Hz" | "%" | "dB" | "deg";
 
 /** A value with its scale applied (`%` already divided by 100); `unit` is null when none was written. */
-export interface NumberValue {
+interface NumberValue {
   value: number;
   unit: Unit | null;
 }
 
 /** A failed read may say what to write instead (`replacement`, the whole number as it should be). */
-export type NumberResult =
+type NumberResult =
   | ({ ok: true } & NumberValue)
   | { ok: false; message: string; hint?: string; replacement?: string };
 
@@ -187,7 +187,7 @@ function badSuffix(text: string, suffix: string): NumberResult {
 /** What a place accepts: the units allowed besides none. */
 export type Place = keyof typeof PLACES;
 
-export const PLACES = {
+const PLACES = {
   resistor: ["ohm"],
   capacitor: ["F"],
   inductor: ["H"],
@@ -219,7 +219,7 @@ export const PLACES = {
 } as const satisfies Record<string, readonly Unit[]>;
 
 /** Plain words for a place, used in "… takes …" messages. */
-export const PLACE_WORDS: Record<Place, string> = {
+const PLACE_WORDS: Record<Place, string> = {
   resistor: "a resistor's value is in ohms",
   capacitor: "a capacitor's value is in farads",
   inductor: "an inductor's value is in henries",

@@ -10,7 +10,7 @@ import { isPartKind, KINDS, MAX_BLOCK_DEPTH } from "./kinds";
 import { applyOption } from "./part-options";
 import { LetScope } from "./scope";
 
-export interface FlattenContext {
+interface FlattenContext {
   blocks: Map<string, BlockStatement>;
   presets: Map<string, PresetStatement>;
   global: Scope;

@@ -5,10 +5,10 @@ import { didYouMean } from "./hints";
 import { count, type DirectiveContext, err, num, type Of } from "./resolve";
 
 /** Harmonics of a steady analysis: default and the language's limit (a service may allow fewer). */
-export const DEFAULT_HARMONICS = 15;
-export const MAX_HARMONICS = 255;
+const DEFAULT_HARMONICS = 15;
+const MAX_HARMONICS = 255;
 /** Default start level of the envelope, volts at the cut node. */
-export const DEFAULT_FROM = 1e-6;
+const DEFAULT_FROM = 1e-6;
 
 export function resolveSteady(
   s: Of<"steady"> | undefined,

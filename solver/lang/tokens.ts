@@ -5,7 +5,7 @@
  */
 import type { NetlistError, SourceSpan } from "../types";
 
-export type TokenKind = "word" | "number" | "op";
+type TokenKind = "word" | "number" | "op";
 
 export interface Token extends SourceSpan {
   kind: TokenKind;
