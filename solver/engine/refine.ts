@@ -1,6 +1,7 @@
 /**
  * Reading a swept trace precisely: crossings, extrema and band edges are bracketed on the sweep's
  * points, then refined by solving the circuit again at new frequencies (never by interpolation).
+ * One method for every reading, kept in one file (over 250 lines) so its tolerances live in one place.
  */
 import type { Level } from "../types";
 import { formatHz } from "./ac";
