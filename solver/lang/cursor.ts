@@ -3,7 +3,8 @@ import type { NetlistError, NetlistFix, SourceSpan } from "../types";
 import type { Named, ValueNode } from "./ast";
 import { didYouMean } from "./hints";
 import { legacyGround } from "./legacy";
-import { type Place, parseNumberText, unitMismatch } from "./numbers";
+import { parseNumberText } from "./numbers";
+import { type Place, unitMismatch } from "./places";
 import type { LogicalLine, Token } from "./tokens";
 
 export function spanOf(token: Token): SourceSpan {
@@ -203,4 +204,16 @@ export function words(c: Cursor, expected: string[], hint: string): boolean {
     c.next();
   }
   return true;
+}
+
+/** `V1, V2, …` — values separated by commas. */
+export function list(c: Cursor, place: "frequency" | "any", what: string): ValueNode[] | null {
+  const values: ValueNode[] = [];
+  for (;;) {
+    const v = c.value(place, what);
+    if (v === null) return null;
+    values.push(v);
+    if (!c.isOp(",")) return values;
+    c.next();
+  }
 }

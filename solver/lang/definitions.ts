@@ -4,7 +4,7 @@ import type { Named, OptionNode, PartStatement, ValueNode } from "./ast";
 import { type Cursor, spanBetween, spanOf } from "./cursor";
 import { didYouMean } from "./hints";
 import { isPartKind, KIND_NAMES, KINDS } from "./kinds";
-import type { Place } from "./numbers";
+import type { Place } from "./places";
 import type { Token } from "./tokens";
 
 /** Names known before the main pass, so a part may use a preset or block defined further down. */

@@ -1,6 +1,6 @@
 /** What each part kind takes: terminals, value place, options, and a usage line for hints. */
 import type { LoopMethod, MeasureFunction, PartKind } from "../types";
-import type { Place } from "./numbers";
+import type { Place } from "./places";
 
 interface KindInfo {
   terminals: string[];

@@ -4,7 +4,8 @@ import type { ValueNode } from "./ast";
 import { evaluate } from "./expr";
 import { didYouMean } from "./hints";
 import { measureUnit, STEADY_FUNCTIONS } from "./kinds";
-import { type Place, UNIT_NAMES } from "./numbers";
+import { UNIT_NAMES } from "./numbers";
+import type { Place } from "./places";
 import { claim, count, type DirectiveContext, err, frequency, num, type Of } from "./resolve";
 import { resolveSteadyMeasure } from "./steady";
 

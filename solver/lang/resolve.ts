@@ -2,7 +2,7 @@
 import type { NetlistError, Part, SourceSpan, Warning } from "../types";
 import type { Named, Statement, ValueNode } from "./ast";
 import { evaluate, type Scope } from "./expr";
-import { type Place, unitMismatch } from "./numbers";
+import { type Place, unitMismatch } from "./places";
 
 export type Of<T extends Statement["type"]> = Extract<Statement, { type: T }>;
 

@@ -1,11 +1,15 @@
-/** Parsers of the analysis statements: sweep, show, loop, vary, monte-carlo, poles, sensitivity (measure and check in measure-syntax.ts). */
-import type { Named, Statement, SweepNode, ValueNode } from "./ast";
-import { type Cursor, spanBetween, spanOf, words } from "./cursor";
+/**
+ * Parsers of the analysis statements: sweep, show, loop, noise, zeros, poles, sensitivity (measure and
+ * check in measure-syntax.ts, vary and monte-carlo in study-syntax.ts, steady in steady-syntax.ts).
+ */
+import type { Named, Statement, SweepNode } from "./ast";
+import { type Cursor, list, spanOf, words } from "./cursor";
 import { didYouMean } from "./hints";
 import { LOOP_METHODS } from "./kinds";
 import { parseCheck, parseMeasure } from "./measure-syntax";
 import { parseProbe } from "./probe";
 import { parseSteady, parseTemperature } from "./steady-syntax";
+import { parseMonteCarlo, parseVary } from "./study-syntax";
 
 /** Dispatch on the statement keyword at the cursor. */
 export function parseAnalysis(c: Cursor): Statement | null {
@@ -88,18 +92,6 @@ function parseSweep(c: Cursor): Statement | null {
   return c.expectEnd(SWEEP_FORMS) ? { type: "sweep", sweep, span: c.span } : null;
 }
 
-/** `V1, V2, …` — values separated by commas. */
-function list(c: Cursor, place: "frequency" | "any", what: string): ValueNode[] | null {
-  const values: ValueNode[] = [];
-  for (;;) {
-    const v = c.value(place, what);
-    if (v === null) return null;
-    values.push(v);
-    if (!c.isOp(",")) return values;
-    c.next();
-  }
-}
-
 /** `noise NAME = PROBE [input SOURCE]`. */
 function parseNoise(c: Cursor): Statement | null {
   const hint = "noise N = volts(out) input Vin";
@@ -180,80 +172,5 @@ function parseLoop(c: Cursor): Statement | null {
     }
     s.method = method;
   }
-  return s;
-}
-
-function parseVary(c: Cursor): Statement | null {
-  const usage = "vary Rf over 20k, 22k, 24k | vary C from 1n to 100n log 9 points";
-  const target = c.expectName("a let or part name", true, usage);
-  if (target === null) return null;
-  const mode = c.peek();
-  if (mode?.text === "over") {
-    c.next();
-    const values = list(c, "any", "a value");
-    return values && c.expectEnd(usage) ? { type: "vary", target, values, span: c.span } : null;
-  }
-  if (mode?.text !== "from") {
-    return c.fail(
-      mode,
-      mode ? `expected \`over\` or \`from\`, found \`${mode.text}\`` : "expected `over` or `from`",
-      usage,
-    );
-  }
-  c.next();
-  const from = c.value("any", "the first value");
-  if (from === null || !words(c, ["to"], usage)) return null;
-  const to = c.value("any", "the last value");
-  if (to === null) return null;
-  const spacing = c.peek();
-  if (spacing?.text !== "log" && spacing?.text !== "linear") {
-    return c.fail(spacing, "expected `log` or `linear`", usage);
-  }
-  c.next();
-  const count = c.value("count", "the number of values");
-  if (count === null || !words(c, ["points"], usage) || !c.expectEnd(usage)) return null;
-  return {
-    type: "vary",
-    target,
-    values: { mode: spacing.text as "log" | "linear", from, to, count },
-    span: c.span,
-  };
-}
-
-function parseMonteCarlo(c: Cursor): Statement | null {
-  const usage = "monte-carlo 500 seed=7 dist=normal";
-  const samples = c.value("count", "the number of samples");
-  if (samples === null) return null;
-  const s: Statement = { type: "monte-carlo", samples, span: c.span };
-  while (!c.atEnd()) {
-    const key = c.peek()!;
-    if (!(key.kind === "word" && c.isOp("=", 1)))
-      return c.fail(spanOf(key), `unexpected \`${key.text}\``, usage);
-    c.next();
-    c.next();
-    if (key.text === "seed") {
-      const seed = c.value("count", "the seed");
-      if (seed === null) return null;
-      s.seed = seed;
-    } else if (key.text === "dist") {
-      const dist = c.expectName("uniform or normal", false, usage);
-      if (dist === null) return null;
-      if (dist.name !== "uniform" && dist.name !== "normal") {
-        return c.fail(
-          dist.span,
-          `unknown distribution \`${dist.name}\``,
-          didYouMean(dist.name, ["uniform", "normal"]) ?? "dist=uniform or dist=normal",
-        );
-      }
-      s.dist = dist;
-    } else {
-      return c.fail(
-        spanOf(key),
-        `unknown option \`${key.text}\``,
-        didYouMean(key.text, ["seed", "dist"]) ?? usage,
-      );
-    }
-  }
-  s.span = spanBetween(s.span, c.span);
   return s;
 }
