@@ -1,5 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { buildBodeFigure, GL_THRESHOLD, phaseTicks } from "@/components/plot/bode-figure";
+import { buildBodeFigure } from "@/components/plot/bode-figure";
+import { phaseTicks } from "@/components/plot/bode-layout";
+import { GL_THRESHOLD } from "@/components/plot/bode-traces";
 
 function series(name: string, n: number) {
   const frequencies = Array.from({ length: n }, (_, k) => 10 * 10 ** (k / 100));
