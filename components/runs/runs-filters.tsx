@@ -5,9 +5,10 @@ import { useState } from "react";
 import { buttonClass } from "@/components/ui/button-class";
 import { inputClass } from "@/components/ui/field";
 import { REVIEW_STATE_LABELS, REVIEW_STATES } from "@/lib/review-states";
+import type { RunSortKey } from "@/lib/validations/run";
 
 export type RunsQueryState = {
-  sort: "createdAt" | "title" | "author" | "reviewState" | "checksPassed";
+  sort: RunSortKey;
   dir: "asc" | "desc";
   q?: string | undefined;
   review?: string | undefined;
