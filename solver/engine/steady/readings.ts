@@ -49,21 +49,24 @@ export function steadyProbeList(circuit: Circuit, cut: string): SteadyProbeReque
 
 type Harmonics = { re: Float64Array; im: Float64Array };
 
-/** The probes' harmonics, waveforms and THD at the solution x; a message when one cannot be read. */
-export function readProbes(
-  sys: HbSystem,
-  x: Float64Array,
-  net: PortNetwork,
-  list: SteadyProbeRequest[],
-  cut: string,
-): SteadyProbe[] | string {
-  const n = sys.harmonics;
+/** The solution's harmonics 0…n of every unknown, and what else reading a probe needs. */
+interface Solution {
+  n: number;
+  omega: number;
+  net: PortNetwork;
+  signals: ReturnType<HbSystem["portSignals"]>;
+  /** Harmonic k of unknown i (0 for ground, i < 0), as [re, im]. */
+  unknown(i: number, k: number): [number, number];
+  /** A node's unknown, −1 for ground. */
+  node(name: string): number;
+}
+
+function solution(sys: HbSystem, x: Float64Array, net: PortNetwork): Solution | string {
   const omega = sys.omega(x);
   const L = sys.transfers(omega, true);
   if (L === null) return "the network is singular at a harmonic of the oscillation";
   const signals = sys.portSignals(x);
   const mna = net.sys;
-  /** Harmonic k of unknown i. */
   const unknown = (i: number, k: number): [number, number] => {
     if (i < 0) return [0, 0];
     let re = 0;
@@ -78,56 +81,78 @@ export function readProbes(
     return [re, im];
   };
   const node = (name: string) => (name === GROUND ? -1 : (mna.nodeIndex.get(name) ?? -1));
-  const read = (p: Probe): Harmonics | string => {
-    const re = new Float64Array(n + 1);
-    const im = new Float64Array(n + 1);
-    if (p.op === "v") {
-      for (let k = 0; k <= n; k++) {
-        const [ar, ai] = unknown(node(p.node), k);
-        const [br, bi] = p.ref === undefined ? [0, 0] : unknown(node(p.ref), k);
-        re[k] = ar - br;
-        im[k] = ai - bi;
-      }
-      return { re, im };
+  return { n: sys.harmonics, omega, net, signals, unknown, node };
+}
+
+/** A probe's harmonics: volts(…) from node unknowns, amps(…) as currentOf reads it. */
+function readProbe(sol: Solution, p: Probe): Harmonics | string {
+  if (p.op === "i") return currentOf(sol, p.part);
+  if (p.op !== "v") return "only volts(…) and amps(…) are read in the steady state";
+  const { n, unknown, node } = sol;
+  const re = new Float64Array(n + 1);
+  const im = new Float64Array(n + 1);
+  for (let k = 0; k <= n; k++) {
+    const [ar, ai] = unknown(node(p.node), k);
+    const [br, bi] = p.ref === undefined ? [0, 0] : unknown(node(p.ref), k);
+    re[k] = ar - br;
+    im[k] = ai - bi;
+  }
+  return { re, im };
+}
+
+/**
+ * A part's current harmonics: a branch unknown as solved, a resistor's or capacitor's from its
+ * voltage, a diode's from the FFT of its current over one period.
+ */
+function currentOf(sol: Solution, name: string): Harmonics | string {
+  const { n, omega, net, unknown, node } = sol;
+  const re = new Float64Array(n + 1);
+  const im = new Float64Array(n + 1);
+  const part = net.sys.partByName.get(name);
+  const branch = net.sys.branchIndex.get(name);
+  if (branch !== undefined) {
+    for (let k = 0; k <= n; k++) [re[k], im[k]] = unknown(branch, k);
+    return { re, im };
+  }
+  if (part && (part.kind === "resistor" || part.kind === "capacitor")) {
+    for (let k = 0; k <= n; k++) {
+      const [ar, ai] = unknown(node(part.nodes[0]!), k);
+      const [br, bi] = unknown(node(part.nodes[1]!), k);
+      const [vr, vi] = [ar - br, ai - bi];
+      if (part.kind === "resistor") [re[k], im[k]] = [vr / part.value, vi / part.value];
+      else [re[k], im[k]] = [-k * omega * part.value * vi, k * omega * part.value * vr];
     }
-    if (p.op !== "i") return "only volts(…) and amps(…) are read in the steady state";
-    return current(p.part, re, im);
-  };
-  const current = (name: string, re: Float64Array, im: Float64Array): Harmonics | string => {
-    const part = mna.partByName.get(name);
-    const branch = mna.branchIndex.get(name);
-    if (branch !== undefined) {
-      for (let k = 0; k <= n; k++) [re[k], im[k]] = unknown(branch, k);
-      return { re, im };
-    }
-    if (part && (part.kind === "resistor" || part.kind === "capacitor")) {
-      for (let k = 0; k <= n; k++) {
-        const [ar, ai] = unknown(node(part.nodes[0]!), k);
-        const [br, bi] = unknown(node(part.nodes[1]!), k);
-        const [vr, vi] = [ar - br, ai - bi];
-        if (part.kind === "resistor") [re[k], im[k]] = [vr / part.value, vi / part.value];
-        else [re[k], im[k]] = [-k * omega * part.value * vi, k * omega * part.value * vr];
-      }
-      return { re, im };
-    }
-    const e = net.ports.findIndex((q) => q.kind === "diodes" && q.diodes.some((d) => d.part.name === name));
-    const port = net.ports[e];
-    if (port?.kind === "diodes") {
-      const d = port.diodes.find((q) => q.part.name === name)!;
-      const wt = signals[e]!.wt;
-      const it = wt.map((w) => d.sign * diodeCurrent(d.part, d.sign * w).i);
-      return harmonicsOf(it, n + 1);
-    }
-    return `amps(${name}) cannot be read in the steady state`;
-  };
-  const cutH = read({ op: "v", node: cut });
+    return { re, im };
+  }
+  const e = net.ports.findIndex((q) => q.kind === "diodes" && q.diodes.some((d) => d.part.name === name));
+  const port = net.ports[e];
+  if (port?.kind === "diodes") {
+    const d = port.diodes.find((q) => q.part.name === name)!;
+    const wt = sol.signals[e]!.wt;
+    const it = wt.map((w) => d.sign * diodeCurrent(d.part, d.sign * w).i);
+    return harmonicsOf(it, n + 1);
+  }
+  return `amps(${name}) cannot be read in the steady state`;
+}
+
+/** The probes' harmonics, waveforms and THD at the solution x; a message when one cannot be read. */
+export function readProbes(
+  sys: HbSystem,
+  x: Float64Array,
+  net: PortNetwork,
+  list: SteadyProbeRequest[],
+  cut: string,
+): SteadyProbe[] | string {
+  const sol = solution(sys, x, net);
+  if (typeof sol === "string") return sol;
+  const cutH = readProbe(sol, { op: "v", node: cut });
   if (typeof cutH === "string") return cutH;
   const phi = Math.atan2(cutH.im[1]!, cutH.re[1]!);
   const out: SteadyProbe[] = [];
   for (const req of list) {
-    const h = read(req.probe);
+    const h = readProbe(sol, req.probe);
     if (typeof h === "string") return h;
-    out.push(describe(req.text, h, phi, omega));
+    out.push(describe(req.text, h, phi, sol.omega));
   }
   return out;
 }
