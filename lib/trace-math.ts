@@ -1,12 +1,12 @@
 /**
- * Small numeric helpers on sampled traces, safe for the browser (no solver or database imports).
+ * Small numeric helpers on sampled traces, safe for the browser (no database imports; the angle
+ * wrap is the solver's pure one).
  */
 
-/** Wraps an angle in degrees to (−180, 180]. */
-export function wrapDeg(x: number): number {
-  const w = x - 360 * Math.ceil((x - 180) / 360);
-  return w === 0 ? 0 : w;
-}
+import { wrapDeg } from "@/solver/angles";
+
+// One wrap for every phase (solver/angles.ts); lib/compare.ts reads it through here.
+export { wrapDeg };
 
 /**
  * Samples a trace (dB and degrees) at frequency f by linear interpolation in log10(f).

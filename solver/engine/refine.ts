@@ -3,6 +3,7 @@
  * points, then refined by solving the circuit again at new frequencies (never by interpolation).
  * One method for every reading, kept in one file (over 250 lines) so its tolerances live in one place.
  */
+import { deg, wrapDeg } from "../angles";
 import type { Level } from "../types";
 import { formatHz } from "./ac";
 import { hiddenExtrema, lnMagnitudeSlope, merged, type Pt, phaseSlope, type Quantity } from "./extrema";
@@ -40,16 +41,8 @@ export type Outcome = { value: number } | { reason: string };
 export class SolveFailed extends Error {}
 
 export const mag = (re: number, im: number) => Math.hypot(re, im);
-export const deg = (re: number, im: number) => {
-  const d = (Math.atan2(im, re) * 180) / Math.PI;
-  return d <= -180 ? d + 360 : d;
-};
-/** Wrap an angle in degrees into (−180, 180]. */
-export function wrapDeg(d: number): number {
-  let w = d - 360 * Math.floor((d + 180) / 360);
-  if (w <= -180) w += 360;
-  return w;
-}
+// The angles are defined once in solver/angles.ts; measures.ts and trace.ts still import them from here.
+export { deg, wrapDeg };
 
 export function at(tr: TraceSampler, f: number, deriv = false): Dual {
   const r = tr.at(f, deriv);

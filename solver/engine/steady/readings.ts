@@ -3,6 +3,7 @@
  * the cut node first, then each `show` probe's numerator reading, then the probes of `amplitude` and
  * `thd` measures. Phases are turned so that the cut node's fundamental is at 0°.
  */
+import { deg } from "../../angles";
 import { type Circuit, GROUND, type Probe, type SteadyProbe } from "../../types";
 import { harmonicsOf, powerOfTwoAtLeast, synthesize } from "./fft";
 import type { HbSystem } from "./hb-system";
@@ -174,7 +175,7 @@ function describe(text: string, h: Harmonics, phi: number, omega: number): Stead
     re[k] = r;
     im[k] = i;
     amplitudes.push(2 * Math.hypot(r, i));
-    phasesDeg.push((Math.atan2(i, r) * 180) / Math.PI);
+    phasesDeg.push(deg(r, i));
     if (k >= 2) distortion += (2 * Math.hypot(r, i)) ** 2;
   }
   const m = Math.max(256, powerOfTwoAtLeast(4 * n));
