@@ -66,7 +66,7 @@ export function sampler(
 }
 
 /** A noise statement evaluated at any frequency: a solve of the main system, then the adjoint. */
-function noiseSampler(solver: AcSolver, probe: NoiseProbe): NoiseSampler {
+export function noiseSampler(solver: AcSolver, probe: NoiseProbe): NoiseSampler {
   return {
     name: probe.def.name,
     input: probe.def.input ?? null,

@@ -3,13 +3,18 @@
  * and one per loop) are planned and ordered once; each sample only rebuilds the numbers of G and C
  * over the same sparsity pattern, refactors with the pivot order already analysed, sweeps just the
  * systems whose traces a measure reads, and keeps no trace arrays (only measures and checks).
+ * A noise measure is solved on the sample's own circuit (its resistors' 4kT/R and its transfer),
+ * as for the nominal circuit: the main system is rebuilt for the sample, then the noise statement
+ * is evaluated at the measure's frequencies (noise-measures.ts).
  */
 import type { Circuit, Part, SteadyResult } from "../types";
 import { AcSolver } from "./ac";
 import { evaluateChecks } from "./checks";
-import { middleHz, sampler } from "./circuit-sweep";
+import { middleHz, noiseSampler, sampler } from "./circuit-sweep";
 import { computeMeasures } from "./measures";
 import { buildMna } from "./mna";
+import { kelvinOf, NoiseProbe } from "./noise";
+import type { NoiseSampler } from "./noise-measures";
 import { readTrace } from "./probes";
 import type { TraceSampler } from "./refine";
 import { solveSteadyFrom } from "./steady";
@@ -43,6 +48,8 @@ export class SampleKernel {
   private readonly steadySlots: Int32Array | null = null;
   /** The nominal steady solution each sample starts from (computed at the first sample). */
   private steadySeed: Float64Array | null | undefined;
+  /** The circuit's own system (rebuilt per sample) and the noise statements a measure reads. */
+  private readonly noise: { run: ActiveRun; defs: NonNullable<Circuit["noise"]> } | null = null;
 
   constructor(
     private readonly circuit: Circuit,
@@ -60,10 +67,12 @@ export class SampleKernel {
       return;
     }
     const needed = new Set(circuit.measures.map((m) => m.target));
+    const noiseDefs = (circuit.noise ?? []).filter((d) => needed.has(d.name));
     const n = freqs.length;
-    for (const run of planned.plan.runs) {
+    for (const [r, run] of planned.plan.runs.entries()) {
       const used = run.traces.filter((t) => needed.has(t.name));
-      if (used.length === 0) continue;
+      // The circuit's own system (run 0) is rebuilt for noise even when no trace of it is read.
+      if (used.length === 0 && !(r === 0 && noiseDefs.length > 0)) continue;
       const index = new Map(run.parts.map((p, i) => [p.name, i]));
       const traces = used.map((t) => {
         const re = new Array<number>(n).fill(0);
@@ -71,8 +80,20 @@ export class SampleKernel {
         this.samplers.set(t.name, sampler(run, t.name, t.reading, freqs, re, im));
         return { reading: t.reading, re, im };
       });
-      this.active.push({ run, slots: Int32Array.from(names, (nm) => index.get(nm) ?? -1), traces });
+      const active = { run, slots: Int32Array.from(names, (nm) => index.get(nm) ?? -1), traces };
+      this.active.push(active);
+      if (r === 0 && noiseDefs.length > 0) this.noise = { run: active, defs: noiseDefs };
     }
+  }
+
+  /** The noise statements on the sample's rebuilt system (its resistors' values, its transfer). */
+  private noiseSamplers(): Map<string, NoiseSampler> {
+    if (!this.noise) return new Map();
+    const solver = this.noise.run.run.solver;
+    const kelvin = kelvinOf(this.circuit);
+    return new Map(
+      this.noise.defs.map((d) => [d.name, noiseSampler(solver, new NoiseProbe(d, solver.sys, kelvin))]),
+    );
   }
 
   /** The steady oscillation of one sample (started from the nominal solution), when a measure reads it. */
@@ -104,6 +125,8 @@ export class SampleKernel {
       if (!a.run.solver.rebind(built.system)) a.run.solver = new AcSolver(built.system);
       const solver = a.run.solver;
       const freqs = this.freqs;
+      // Rebuilt only for noise: nothing of it is read over the sweep.
+      if (a.traces.length === 0) continue;
       for (let k = 0; k < freqs.length; k++) {
         const err = solver.solveAt(freqs[k]!);
         if (err) return err;
@@ -116,8 +139,11 @@ export class SampleKernel {
       }
     }
     const steady = this.steadyOf(values, offset);
-    const measures = computeMeasures(this.circuit.measures, this.samplers, (def) =>
-      steadyMeasure(def, steady),
+    const measures = computeMeasures(
+      this.circuit.measures,
+      this.samplers,
+      (def) => steadyMeasure(def, steady),
+      this.noiseSamplers(),
     );
     const checks = evaluateChecks(this.circuit.checks, measures);
     const out = new Float64Array(this.measureCount);
