@@ -38,9 +38,26 @@ measure d1 = group-delay(H) at 20kHz
     expect(r.measures[0]!.unit).toBe("s");
   });
 
-  it("second-order Bessel section (OAFE §16.9 Table 16-4, n = 2: a = 1.3617, b = 0.6180): τ(0) = a/ωc and τ(ω) of 1/(1 + aΩj − bΩ²)", () => {
+  it("second-order Bessel section: a and b computed from θ2(s) = s² + 3s + 3, checked against OAFE §16.9 Table 16-4 (n = 2: a = 1.3617, b = 0.6180); τ(0) = a/ωc and τ(ω) of 1/(1 + aΩj − bΩ²)", () => {
+    // Computed here: the Bessel polynomial θ2(s) = s² + 3s + 3 (H = 3/θ2(s), maximally flat delay;
+    // common practice) normalized so that |H(jω)| = 1/√2 at ω = 1 rad/s. Its −3 dB frequency ω3 is
+    // found numerically (bisection); substituting s = ω3·S gives H = 1/(1 + ω3·S + (ω3²/3)·S²),
+    // so a = ω3 and b = ω3²/3.
+    const h2 = (w: number) => 9 / ((3 - w * w) ** 2 + (3 * w) ** 2); // |3/θ2(jω)|²
+    let [lo, hi] = [0.1, 10];
+    for (let i = 0; i < 200; i++) {
+      const mid = (lo + hi) / 2;
+      if (h2(mid) > 0.5) lo = mid;
+      else hi = mid;
+    }
+    const w3 = (lo + hi) / 2;
+    // The same ω3 by hand: (3 − ω²)² + 9ω² = 18 ⇔ ω⁴ + 3ω² − 9 = 0 ⇔ ω² = (√45 − 3)/2.
+    expect(w3 * w3).toBeCloseTo((Math.sqrt(45) - 3) / 2, 12);
+    const [a, b] = [w3, (w3 * w3) / 3];
+    // Quoted (from memory) as OAFE's Table 16-4 prints them: only compared, to their 4 digits.
+    expect(a.toFixed(4)).toBe("1.3617");
+    expect(b.toFixed(4)).toBe("0.6180");
     // Realized as series R–L into a shunt C: H = 1/(1 + sRC + s²LC) with RC = a/ωc, LC = b/ωc², fc = 1 kHz.
-    const [a, b] = [1.3617, 0.618];
     const wc = 2 * Math.PI * 1e3;
     const c = 100e-9;
     const r = solve(`Vin: vsource in gnd 1
@@ -59,7 +76,7 @@ measure t2 = group-delay(H) at 2kHz
       const w = f / 1e3;
       return ((a / wc) * (1 + b * w * w)) / ((1 - b * w * w) ** 2 + a * a * w * w);
     };
-    expectClose(value(r, "f3"), 1e3, 2e-4); // the table is normalized to the −3 dB frequency (4 digits)
+    expectClose(value(r, "f3"), 1e3, 1e-9); // a and b are normalized to the −3 dB frequency exactly
     expectClose(value(r, "t0"), a / wc, 1e-6);
     expectClose(value(r, "tc"), tau(1e3), 1e-9);
     expectClose(value(r, "t2"), tau(2e3), 1e-9);
