@@ -137,26 +137,26 @@ export function bodeLayout(input: BodeFrameInput): Partial<Layout> {
     uirevision: input.focusHz ?? "base",
     xaxis: { ...xCommon, anchor: "y", showticklabels: false },
     xaxis2: { ...xCommon, anchor: "y2", matches: "x", title: { text: "frequency (Hz)", font: axisFont } },
-    yaxis: {
-      domain: [0.53, 1],
-      title: { text: "magnitude (dB)", font: axisFont },
-      gridcolor: plotColors.grid,
-      linecolor: plotColors.axis,
-      zerolinecolor: plotColors.axis,
-      tickfont: axisFont,
-    },
+    yaxis: rowAxis([0.53, 1], "magnitude (dB)", axisFont),
     yaxis2: {
-      domain: [0, 0.45],
-      title: { text: "phase (°)", font: axisFont },
-      gridcolor: plotColors.grid,
-      linecolor: plotColors.axis,
-      zerolinecolor: plotColors.axis,
-      tickfont: axisFont,
+      ...rowAxis([0, 0.45], "phase (°)", axisFont),
       ...phaseTicks([...input.series, ...input.overlays.filter((o) => o.role !== "difference")]),
     },
     ...(hasDelta ? deltaAxes(axisFont) : {}),
     shapes,
     annotations,
+  };
+}
+
+/** The y axis of one row (magnitude above, phase below). */
+function rowAxis(domain: [number, number], title: string, axisFont: AxisFont): Partial<LayoutAxis> {
+  return {
+    domain,
+    title: { text: title, font: axisFont },
+    gridcolor: plotColors.grid,
+    linecolor: plotColors.axis,
+    zerolinecolor: plotColors.axis,
+    tickfont: axisFont,
   };
 }
 
