@@ -48,7 +48,8 @@ export interface RunSolveJobData {
 /**
  * Solver work in sweep points: points × (1 + Monte Carlo samples + vary values + 2 × sensitivity
  * parts), plus each integrated
- * noise measure's price (NOISE_BAND_WORK per variant), plus the steady oscillation's price
+ * noise measure's price (NOISE_BAND_WORK per variant and per Monte Carlo sample, which each integrate
+ * their own band), plus the steady oscillation's price
  * (steadyWork) once per solve that computes it.
  */
 export function solveWork(circuit: Circuit): number {
@@ -60,7 +61,7 @@ export function solveWork(circuit: Circuit): number {
   const sensitivityParts = (circuit.sensitivity?.length ?? 0) > 0 ? circuit.parts.length : 0;
   const sweeps =
     (Number.isFinite(points) ? points : 0) * (1 + samples + variants + 2 * sensitivityParts) +
-    bands * NOISE_BAND_WORK * (1 + variants);
+    bands * NOISE_BAND_WORK * (1 + variants + samples);
   if (!circuit.steady) return sweeps;
   const sampled = circuit.measures.some((m) => STEADY_MEASURES.has(m.fn)) ? samples : 0;
   return sweeps + steadyWork(circuit.steady.harmonics) * (1 + variants + sampled);

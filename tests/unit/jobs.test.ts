@@ -30,6 +30,10 @@ describe("solveWork = points × (1 + samples + variants)", () => {
     expect(solveWork(circuit(net(noise)))).toBe(400 + NOISE_BAND_WORK);
     expect(solveWork(circuit(net(`${noise}\nvary R1 over 1k, 2k`)))).toBe(400 * 3 + NOISE_BAND_WORK * 3);
   });
+  it("each Monte Carlo sample integrates its own noise band, so the band is priced per sample too", () => {
+    const noise = "noise N = volts(out)\nmeasure b = noise(N) from 10Hz to 20kHz\nmonte-carlo 20 seed=1";
+    expect(solveWork(circuit(net(noise)))).toBe(400 * 21 + NOISE_BAND_WORK * 21);
+  });
   it("1 000 samples × 400 points is 400 400 and goes to the queue", () => {
     const c = circuit(net("monte-carlo 1000 seed=2"));
     expect(solveWork(c)).toBe(400 * 1001);
