@@ -2,6 +2,8 @@
  * The one authorization module. Every route handler and server action asks here.
  * A resource of a team the caller is not in answers 404 (NotFoundError), never 403, so ids don't leak.
  */
+
+import { Membership, Project, RUN_HEAVY_COLUMNS, Run } from "@/lib/db";
 import { ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
 
 export type Role = "owner" | "designer" | "reviewer" | "viewer";
@@ -90,7 +92,6 @@ export function isUuid(value: unknown): value is string {
 
 async function roleIn(userId: string, teamId: string): Promise<Role | null> {
   if (!isUuid(userId) || !isUuid(teamId)) return null;
-  const { Membership } = await import("@/lib/db");
   const m = await Membership.findOne({ where: { teamId, userId }, attributes: ["role"] });
   const role: unknown = m?.get("role");
   return isRole(role) ? role : null;
@@ -112,7 +113,6 @@ export async function authorizeTeam(userId: string, teamId: string, action: Acti
 export async function authorizeProject(userId: string, projectId: string, action: Action) {
   return withDb(async () => {
     if (!isUuid(projectId)) throw new NotFoundError("Project not found.");
-    const { Project } = await import("@/lib/db");
     const project = await Project.findByPk(projectId);
     const role = project ? await roleIn(userId, String(project.get("teamId"))) : null;
     if (!project || !role) throw new NotFoundError("Project not found.");
@@ -125,7 +125,6 @@ export async function authorizeProject(userId: string, projectId: string, action
 export async function authorizeRun(userId: string, runId: string, action: Action) {
   return withDb(async () => {
     if (!isUuid(runId)) throw new NotFoundError("Run not found.");
-    const { Project, Run, RUN_HEAVY_COLUMNS } = await import("@/lib/db");
     // Only the run's keys and state: its result can be megabytes (see getRun for the whole run).
     const run = await Run.findByPk(runId, { attributes: { exclude: RUN_HEAVY_COLUMNS } });
     const project = run ? await Project.findByPk(String(run.get("projectId"))) : null;

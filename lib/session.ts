@@ -1,6 +1,7 @@
 import { cookies, headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { decode } from "next-auth/jwt";
+import { User } from "@/lib/db";
 import { env } from "@/lib/env";
 import { ForbiddenError, isDatabaseConnectionError, UnauthorizedError, withDb } from "@/lib/errors";
 import { safeCallback } from "@/lib/safe-callback";
@@ -127,7 +128,6 @@ export async function requireUser(): Promise<Actor> {
 
 /** The stored name and e-mail of a user (the session token may hold an older name), or null. */
 export async function getUserProfile(userId: string): Promise<{ name: string; email: string } | null> {
-  const { User } = await import("@/lib/db");
   const user = await withDb(() => User.findByPk(userId, { attributes: ["name", "email"] }));
   return user ? { name: user.name, email: user.email } : null;
 }
