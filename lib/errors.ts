@@ -40,6 +40,13 @@ export class NotFoundError extends AppError {
   }
 }
 
+/** 409: the resource is not in a state where this step applies (a review step, a supersede link). */
+export class ConflictError extends AppError {
+  constructor(message: string, details?: Record<string, unknown>) {
+    super(409, "conflict", message, details);
+  }
+}
+
 export class TooLargeError extends AppError {
   constructor(message: string, details?: Record<string, unknown>) {
     super(413, "too_large", message, details);

@@ -1,13 +1,14 @@
 import { type InferCreationAttributes, Op, type Order, type WhereOptions } from "sequelize";
-import { type Action, authorizeProject, authorizeRun, can } from "@/lib/authz";
+import { type Action, authorizeProject, authorizeRun, can, type Role } from "@/lib/authz";
 import { Project, ReviewEvent, RUN_HEAVY_COLUMNS, Run, sequelize, Team, User } from "@/lib/db";
-import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
+import { NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
 import { sha256Hex } from "@/lib/hash";
 import { enqueueRunSolve, planRunSolve } from "@/lib/jobs";
 import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
 import { derivedRunColumns } from "@/lib/run-columns";
 import type { RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
+import { checkRevisionOf, linkSupersede } from "@/lib/supersede";
 import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
 import { expandResult, type StoredResult, solveNetlist } from "@/solver";
 import type { CheckResult, MeasureResult, NetlistError } from "@/solver/types";
@@ -46,28 +47,20 @@ function toSummary(run: Run): RunSummary {
  * A netlist with errors throws NetlistInvalidError (422) with the solver's errors and saves nothing.
  */
 export async function createRun(actor: Actor, projectId: string, input: RunCreateInput): Promise<RunSummary> {
-  await authorizeProject(actor.userId, projectId, "run:create");
+  const { role } = await authorizeProject(actor.userId, projectId, "run:create");
   const bytes = Buffer.byteLength(input.netlist, "utf8");
   if (bytes > MAX_NETLIST_BYTES) {
     throw new TooLargeError(`The netlist is ${bytes} bytes; the limit is ${MAX_NETLIST_BYTES}.`, {
       limit: MAX_NETLIST_BYTES,
     });
   }
-  if (input.supersedesId) {
-    const older = await withDb(() =>
-      Run.findOne({ attributes: ["id"], where: { id: input.supersedesId, projectId } }),
-    );
-    if (!older) {
-      throw new BadRequestError("The run to supersede is not in this project.", {
-        fields: { supersedesId: ["Not a run of this project."] },
-      });
-    }
-  }
+  const olderId = input.supersedesId;
+  if (olderId) await withDb(() => checkRevisionOf(role, projectId, olderId));
   // Job queue (lib/jobs.ts): a large study (over MAX_INLINE_WORK in lib/limits.ts) is checked
   // here, saved as 'queued' without a result and solved by `npm run worker`.
   const plan = planRunSolve(input.netlist, MAX_SAVED_POINTS);
   if (plan.mode === "invalid") throw invalid(plan.errors);
-  if (plan.mode === "queue") return createQueuedRun(actor, projectId, input, plan.solverVersion);
+  if (plan.mode === "queue") return createQueuedRun(actor, role, projectId, input, plan.solverVersion);
 
   const started = performance.now();
   const result = solveNetlist(input.netlist, { maxPoints: MAX_SAVED_POINTS });
@@ -81,7 +74,7 @@ export async function createRun(actor: Actor, projectId: string, input: RunCreat
       },
     );
   }
-  const run = await saveRun(actor, projectId, input, {
+  const run = await saveRun(actor, role, projectId, input, {
     ...derivedRunColumns(result),
     status: "ok",
     timings: { solveMs: round3(solveMs), engineMs: result.stats.solveMs },
@@ -104,6 +97,7 @@ type RunOutcome = Pick<
 /** Writes the run and, when it supersedes an earlier run, that run's "supersede" event: one transaction. */
 async function saveRun(
   actor: Actor,
+  role: Role,
   projectId: string,
   input: RunCreateInput,
   outcome: RunOutcome,
@@ -118,21 +112,20 @@ async function saveRun(
           netlist: input.netlist,
           netlistHash: sha256Hex(input.netlist),
           reviewState: "draft",
-          supersedesId: input.supersedesId ?? null,
           ...outcome,
         },
         { transaction },
       );
       if (input.supersedesId) {
-        await ReviewEvent.create(
-          {
-            runId: input.supersedesId,
-            actorId: actor.userId,
-            action: "supersede",
-            note: `Superseded by "${input.title}".`,
-          },
-          { transaction },
-        );
+        await linkSupersede({
+          role,
+          actorId: actor.userId,
+          olderId: input.supersedesId,
+          newerId: created.id,
+          field: "supersedesId",
+          transaction,
+        });
+        created.supersedesId = input.supersedesId; // as linkSupersede wrote it
       }
       return created;
     }),
@@ -145,11 +138,12 @@ async function saveRun(
  */
 async function createQueuedRun(
   actor: Actor,
+  role: Role,
   projectId: string,
   input: RunCreateInput,
   solverVersion: string,
 ): Promise<RunSummary> {
-  const run = await saveRun(actor, projectId, input, {
+  const run = await saveRun(actor, role, projectId, input, {
     solverVersion,
     status: "queued",
     result: null,
