@@ -6,7 +6,9 @@
 import { Membership, Project, RUN_HEAVY_COLUMNS, Run } from "@/lib/db";
 import { ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
 
-export type Role = "owner" | "designer" | "reviewer" | "viewer";
+import { isRole, ROLES, type Role } from "@/lib/roles";
+
+export { isRole, ROLES, type Role };
 export type Action =
   | "team:read"
   | "team:manage"
@@ -20,7 +22,6 @@ export type Action =
   | "run:request_review"
   | "measurement:upload";
 
-export const ROLES: readonly Role[] = ["owner", "designer", "reviewer", "viewer"];
 export const ACTIONS: readonly Action[] = [
   "team:read",
   "team:manage",
@@ -51,10 +52,6 @@ const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
   reviewer: new Set<Action>([...READ, "run:comment", "run:review"]),
   viewer: new Set<Action>(READ),
 };
-
-export function isRole(value: unknown): value is Role {
-  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
-}
 
 /** Whether a member with `role` may perform `action`. Pure; unknown roles may do nothing. */
 export function can(role: Role, action: Action): boolean {

@@ -6,7 +6,6 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { useHydrated } from "@/components/ui/use-hydrated";
 import { apiErrorMessage } from "@/lib/api-error";
-import type { MeasurementSummary } from "@/lib/measurements";
 import { formatQuantity } from "@/solver/format";
 
 export type OverlayOption = {

@@ -12,6 +12,7 @@ import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
 import { ReviewStateBadge } from "@/components/review/review-state-badge";
 import { buttonClass } from "@/components/ui/button-class";
+import { isRunSortKey } from "@/lib/run-list";
 import type { RunSummary } from "@/lib/run-types";
 import { cn, formatDate } from "@/lib/utils";
 import { formatQuantity } from "@/solver/format";
@@ -27,7 +28,6 @@ export type RunsTableProps = {
 };
 
 const col = createColumnHelper<RunSummary>();
-const SORTABLE = new Set(["title", "author", "createdAt", "reviewState", "checksPassed"]);
 
 /** The project's runs: sorting, filters and paging live in the URL and run on the server. */
 export function RunsTable({ projectId, runs, total, pages, query, members }: RunsTableProps) {
@@ -151,23 +151,23 @@ export function RunsTable({ projectId, runs, total, pages, query, members }: Run
             {table.getHeaderGroups().map((hg) => (
               <tr key={hg.id}>
                 {hg.headers.map((h) => {
-                  const sortable = SORTABLE.has(h.column.id);
+                  const sortKey = isRunSortKey(h.column.id) ? h.column.id : null;
                   const active = query.sort === h.column.id;
                   const aria = active ? (query.dir === "asc" ? "ascending" : "descending") : "none";
                   return (
                     <th
                       key={h.id}
                       scope="col"
-                      aria-sort={sortable ? aria : undefined}
+                      aria-sort={sortKey ? aria : undefined}
                       className="px-3 py-2 font-medium"
                     >
-                      {sortable ? (
+                      {sortKey ? (
                         <button
                           type="button"
                           className="hover:text-ink-900 inline-flex items-center gap-1 rounded"
                           onClick={() =>
                             go({
-                              sort: h.column.id as RunsQueryState["sort"],
+                              sort: sortKey,
                               dir: active && query.dir === "desc" ? "asc" : "desc",
                               page: 1,
                             })
