@@ -5,12 +5,12 @@ import { NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib
 import { sha256Hex } from "@/lib/hash";
 import { enqueueRunSolve, planRunSolve } from "@/lib/jobs";
 import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
-import { derivedRunColumns } from "@/lib/run-columns";
+import { derivedRunColumns, storedResult } from "@/lib/run-columns";
 import type { RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
 import { checkRevisionOf, linkSupersede } from "@/lib/supersede";
 import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
-import { expandResult, type StoredResult, solveNetlist } from "@/solver";
+import { solveNetlist } from "@/solver";
 import type { CheckResult, MeasureResult, NetlistError } from "@/solver/types";
 
 export { sha256Hex } from "@/lib/hash";
@@ -245,7 +245,7 @@ export async function getRun(actor: Actor, runId: string, action: Action = "run:
         order: [["createdAt", "ASC"]],
       }),
     ]);
-    const result = run.result ? expandResult(run.result as StoredResult) : null;
+    const result = storedResult(run.result);
     return {
       ...toSummary(run),
       netlist: run.netlist,

@@ -224,7 +224,8 @@ interface RunFigures {
 
 async function benchRun(fixture: Fixture): Promise<RunFigures> {
   const { createRun, getRun, sha256Hex } = await import("@/lib/runs");
-  const { compactResult, solveNetlist } = await import("@/solver");
+  const { solveNetlist } = await import("@/solver");
+  const { derivedRunColumns } = await import("@/lib/run-columns");
   const { MAX_SAVED_POINTS } = await import("@/lib/limits");
   const { GET } = (await import("@/app/api/runs/[id]/route")) as {
     GET: Handler<{ params: Promise<{ id: string }> }>;
@@ -258,14 +259,9 @@ async function benchRun(fixture: Fixture): Promise<RunFigures> {
             title: `Bench ladder insert ${i}`,
             netlist,
             netlistHash: sha256Hex(netlist),
-            solverVersion: result.solverVersion,
+            ...derivedRunColumns(result),
             status: "ok",
             reviewState: "draft",
-            result: compactResult(result),
-            measures: result.measures,
-            checks: result.checks,
-            checksPassed: result.checks.filter((c) => c.pass).length,
-            checksTotal: result.checks.length,
             timings: { solveMs: result.stats.solveMs, engineMs: result.stats.solveMs },
             supersedesId: null,
           },

@@ -1,8 +1,9 @@
-import { createHash } from "node:crypto";
 import type { Transaction } from "sequelize";
 import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { sha256Hex } from "@/lib/hash";
+import { derivedRunColumns, storedResult } from "@/lib/run-columns";
 import { writeOverlays } from "@/lib/run-overlays";
-import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
+import { solveNetlist } from "@/solver";
 import {
   LINE_DRIVER,
   LOWPASS_STAGE2,
@@ -38,15 +39,10 @@ async function saveRun(
       authorId: author.id,
       title,
       netlist,
-      netlistHash: createHash("sha256").update(netlist, "utf8").digest("hex"),
-      solverVersion: result.solverVersion,
+      netlistHash: sha256Hex(netlist),
+      ...derivedRunColumns(result),
       status: "ok",
       reviewState: extra.reviewState ?? "draft",
-      result: compactResult(result),
-      measures: result.measures,
-      checks: result.checks,
-      checksPassed: result.checks.filter((c) => c.pass).length,
-      checksTotal: result.checks.length,
       timings: { solveMs: result.stats.solveMs },
       supersedesId: extra.supersedesId ?? null,
     },
@@ -202,7 +198,8 @@ async function seedOscillator(t: Transaction, project: Project, users: SeedUsers
  * small fixed ripple standing in for measurement noise.
  */
 async function seedBenchSweep(t: Transaction, project: Project, uploader: User, run: Run): Promise<void> {
-  const result = expandResult(run.result as StoredResult);
+  const result = storedResult(run.result);
+  if (!result) return;
   const bridge = result.traces.find((tr) => tr.name === "bridge");
   if (!bridge) return;
   const data = { frequencies: [] as number[], magnitudeDb: [] as number[], phaseDeg: [] as number[] };
