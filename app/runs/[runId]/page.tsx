@@ -20,11 +20,12 @@ import { Notice } from "@/components/ui/notice";
 import { Panel, PanelHeader } from "@/components/ui/panel";
 import { can } from "@/lib/authz";
 import { listComments } from "@/lib/comments";
+import { drawnResult } from "@/lib/drawn-result";
 import { NotFoundError } from "@/lib/errors";
 import { listMeasurements } from "@/lib/measurements";
 import { runPageMetadata } from "@/lib/page-titles";
 import { listReadings } from "@/lib/readings";
-import { overlayIds, pickOverlays } from "@/lib/run-overlays";
+import { overlaidData } from "@/lib/run-overlays";
 import { getRun } from "@/lib/runs";
 import { requireUser } from "@/lib/session";
 import { formatDate } from "@/lib/utils";
@@ -42,13 +43,13 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
       throw err;
     },
   );
-  const [measurements, attached, readings] = await Promise.all([
+  const [measurements, overlaid, readings] = await Promise.all([
     listMeasurements(actor, run.projectId),
-    overlayIds(run.id),
+    overlaidData(run.id),
     listReadings(actor, run.id),
   ]);
-  const overlaid = pickOverlays(measurements, attached);
-  const result = run.result;
+  // Only what the page draws goes to its client components (lib/drawn-result.ts: no re/im).
+  const result = run.result ? drawnResult(run.result) : null;
   const plotId = `run-plot-${run.id.slice(0, 8)}`;
   const stamp = { title: run.title, netlistHash: run.netlistHash };
   const hasAnalyses = analysisSections(result, run.status).length > 0;
@@ -152,7 +153,7 @@ export default async function RunPage({ params }: { params: Promise<{ runId: str
                   fromHz,
                   toHz,
                 }))}
-                selected={attached}
+                selected={overlaid.map((m) => m.id)}
                 canChoose={run.permissions.createRun}
               />
             }

@@ -1,7 +1,7 @@
 import { json, readJson, withApi } from "@/lib/api";
 import { readBodyText, readFormData } from "@/lib/body";
 import { BadRequestError } from "@/lib/errors";
-import { createMeasurement, listMeasurements, MAX_MEASUREMENT_BYTES } from "@/lib/measurements";
+import { createMeasurement, listMeasurementsWithData, MAX_MEASUREMENT_BYTES } from "@/lib/measurements";
 import { requireActor } from "@/lib/session";
 import { measurementUploadSchema } from "@/lib/validations/measurement";
 
@@ -14,7 +14,7 @@ type Ctx = { params: Promise<{ id: string }> };
 export const GET = withApi(async (req: Request, { params }: Ctx) => {
   const actor = await requireActor(req);
   const { id } = await params;
-  return json({ measurements: await listMeasurements(actor, id) });
+  return json({ measurements: await listMeasurementsWithData(actor, id) });
 });
 
 /**
