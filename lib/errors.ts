@@ -60,18 +60,6 @@ export class NetlistInvalidError extends AppError {
   }
 }
 
-/** A preview whose solver work (lib/jobs.ts `solveWork`) is over the budget of one request. */
-export class WorkBudgetError extends AppError {
-  constructor(work: number, budget: number) {
-    super(
-      422,
-      "too_much_work",
-      `This netlist needs ${work.toLocaleString("en-US")} sweep points of work, more than a preview solves (${budget.toLocaleString("en-US")}): save it as a run: it will be queued.`,
-      { work, budget },
-    );
-  }
-}
-
 export class RateLimitError extends AppError {
   constructor(
     message = "Too many attempts. Wait a moment and try again.",

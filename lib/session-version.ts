@@ -29,8 +29,3 @@ export async function bumpSessionVersion(userId: string, transaction?: Transacti
   await User.increment("sessionVersion", { where: { id: userId }, ...(transaction ? { transaction } : {}) });
   cache.delete(userId);
 }
-
-/** Forget the cached versions (tests). */
-export function clearSessionVersionCache(): void {
-  cache.clear();
-}

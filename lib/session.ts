@@ -4,7 +4,7 @@ import { decode } from "next-auth/jwt";
 import { User } from "@/lib/db";
 import { env } from "@/lib/env";
 import { ForbiddenError, isDatabaseConnectionError, UnauthorizedError, withDb } from "@/lib/errors";
-import { safeCallback } from "@/lib/safe-callback";
+import { PATH_HEADER, safeCallback } from "@/lib/safe-callback";
 import { currentSessionVersion } from "@/lib/session-version";
 import { verifyBearerToken } from "@/lib/tokens";
 
@@ -120,7 +120,7 @@ export async function requireSessionActor(req: Request): Promise<Actor> {
 export async function requireUser(): Promise<Actor> {
   const actor = await getActor();
   if (!actor) {
-    const back = safeCallback((await headers()).get("x-pw-path"), { fallback: "" });
+    const back = safeCallback((await headers()).get(PATH_HEADER), { fallback: "" });
     redirect(back ? `/signin?callbackUrl=${encodeURIComponent(back)}` : "/signin");
   }
   return actor;

@@ -1,5 +1,5 @@
 import type { Transaction } from "sequelize";
-import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { Comment, Measurement, type Project, ReviewEvent, Run, sequelize, type User } from "@/lib/db";
 import { sha256Hex } from "@/lib/hash";
 import { derivedRunColumns, storedResult } from "@/lib/run-columns";
 import { writeOverlays } from "@/lib/run-overlays";
@@ -265,34 +265,4 @@ async function seedFilter(t: Transaction, project: Project, users: SeedUsers): P
     { transaction: t },
   );
   await backdate(t, "comments", c.id, 5);
-}
-
-/**
- * Stand-alone entry: adds the demo runs to an already seeded demo team (e.g. from a test's setup).
- * Returns false when the demo team is missing.
- */
-export async function seedDemoRuns(): Promise<boolean> {
-  const team = await Team.findOne({ where: { slug: "corvane-instruments" } });
-  if (!team) return false;
-  const byEmail = async (email: string) => {
-    const u = await User.findOne({ where: { email } });
-    if (!u) throw new Error(`demo user ${email} is missing`);
-    return u;
-  };
-  const users = {
-    owner: await byEmail("owner@demo.test"),
-    designer: await byEmail("designer@demo.test"),
-    reviewer: await byEmail("reviewer@demo.test"),
-  };
-  const projects = await Project.findAll({ where: { teamId: team.id }, order: [["createdAt", "ASC"]] });
-  const oscillator = projects.find((p) => /oscillator/i.test(p.name));
-  const filter = projects.find((p) => /filter/i.test(p.name));
-  if (!oscillator || !filter) return false;
-  await sequelize.transaction(async (transaction) => {
-    await seedOscillator(transaction, oscillator, users);
-    await seedLimitedOscillator(transaction, oscillator, users);
-    await seedReadings(transaction, oscillator, users);
-    await seedFilter(transaction, filter, users);
-  });
-  return true;
 }

@@ -15,5 +15,3 @@ export const memberRemoveSchema = z.object({
   teamId: uuid("team"),
   membershipId: uuid("membership"),
 });
-
-export type MemberRoleUpdateInput = z.infer<typeof memberRoleUpdateSchema>;
