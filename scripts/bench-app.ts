@@ -223,7 +223,8 @@ interface RunFigures {
 }
 
 async function benchRun(fixture: Fixture): Promise<RunFigures> {
-  const { createRun, getRun, sha256Hex } = await import("@/lib/runs");
+  const { getRun, sha256Hex } = await import("@/lib/runs");
+  const { createRun } = await import("@/lib/run-create");
   const { solveNetlist } = await import("@/solver");
   const { derivedRunColumns } = await import("@/lib/run-columns");
   const { MAX_SAVED_POINTS } = await import("@/lib/limits");

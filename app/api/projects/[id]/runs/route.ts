@@ -1,7 +1,8 @@
 import { json, readJson, withApi } from "@/lib/api";
 import { TooLargeError } from "@/lib/errors";
 import { MAX_NETLIST_BYTES } from "@/lib/limits";
-import { createRun, listRuns } from "@/lib/runs";
+import { createRun } from "@/lib/run-create";
+import { listRuns } from "@/lib/runs";
 import { requireActor } from "@/lib/session";
 import { parseRunListQuery, runCreateSchema } from "@/lib/validations/run";
 
