@@ -6,15 +6,11 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { useHydrated } from "@/components/ui/use-hydrated";
 import { apiErrorMessage } from "@/lib/api-error";
+import type { MeasurementSummary } from "@/lib/measurements";
 import { formatQuantity } from "@/solver/format";
 
-export type OverlayOption = {
-  id: string;
-  name: string;
-  points: number;
-  fromHz: number | null;
-  toHz: number | null;
-};
+/** What the chooser shows of each data set (the server's summary, lib/measurements.ts). */
+export type OverlayOption = Pick<MeasurementSummary, "id" | "name" | "points" | "fromHz" | "toHz">;
 
 async function saveOverlays(runId: string, measurementIds: string[]): Promise<string[]> {
   const res = await fetch(`/api/runs/${runId}/overlays`, {
