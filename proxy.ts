@@ -1,10 +1,6 @@
 import { type NextRequest, NextResponse } from "next/server";
+import { PATH_HEADER } from "@/lib/safe-callback";
 import { API_CSP, contentSecurityPolicy, makeNonce, securityHeaders } from "@/lib/security-headers";
-
-/** Request header carrying the page's path and query, so a signed-out visit can come back after sign-in. */
-export const PATH_HEADER = "x-pw-path";
-/** Request header carrying this request's CSP nonce (Next.js also reads it from the CSP request header). */
-export const NONCE_HEADER = "x-nonce";
 
 /**
  * Whether every `%XX` sequence of the path decodes (issue 13: a malformed one, e.g. `/api/runs/%E0%A4%A`,
@@ -57,7 +53,6 @@ export function proxy(request: NextRequest) {
   }
   const headers = new Headers(request.headers);
   headers.set(PATH_HEADER, pathname + request.nextUrl.search);
-  headers.set(NONCE_HEADER, nonce);
   headers.set("Content-Security-Policy", csp);
   return harden(NextResponse.next({ request: { headers } }), https, csp);
 }

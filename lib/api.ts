@@ -2,6 +2,7 @@ import { ZodError, type z } from "zod";
 import { readJsonBody } from "@/lib/body";
 import { AppError, BadRequestError, isDatabaseConnectionError } from "@/lib/errors";
 import { MAX_JSON_BODY_BYTES } from "@/lib/limits";
+import { type Actor, requireActor } from "@/lib/session";
 import { issuesToFields } from "@/lib/utils";
 
 export type ErrorBody = { error: { code: string; message: string; details?: Record<string, unknown> } };
@@ -60,6 +61,21 @@ export function withApi<C = unknown>(
       return toErrorResponse(err);
     }
   };
+}
+
+type NoParams = { params: Promise<Record<string, never>> };
+
+/**
+ * `withApi` for a route that needs a caller: the actor (session cookie or bearer token; 401 without
+ * one) and the route's params are resolved before the handler runs.
+ */
+export function withActor<C extends { params: Promise<unknown> } = NoParams>(
+  handler: (actor: Actor, params: Awaited<C["params"]>, req: Request) => Promise<Response>,
+): (req: Request, ctx?: C) => Promise<Response> {
+  return withApi(async (req: Request, ctx?: C) => {
+    const actor = await requireActor(req);
+    return handler(actor, (await ctx?.params) as Awaited<C["params"]>, req);
+  });
 }
 
 /** Reads and validates a JSON body: malformed JSON → 400; schema failure → 400 with `details.fields`. */

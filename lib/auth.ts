@@ -2,6 +2,7 @@ import bcrypt from "bcryptjs";
 import type { NextAuthOptions } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
 import { UniqueConstraintError } from "sequelize";
+import { sequelize, User } from "@/lib/db";
 import { env } from "@/lib/env";
 import { BadRequestError, withDb } from "@/lib/errors";
 import { deliverSoon } from "@/lib/mail/outbox";
@@ -20,7 +21,6 @@ export type SignedInUser = { id: string; email: string; name: string; sessionVer
 
 /** Checks an e-mail and password against the stored bcrypt hash. */
 export async function verifyCredentials(email: string, password: string): Promise<SignedInUser | null> {
-  const { User } = await import("@/lib/db");
   const user = await withDb(() => User.findOne({ where: { email: email.trim().toLowerCase() } }));
   if (!user) {
     // Spend comparable time on unknown e-mails.
@@ -108,7 +108,6 @@ export const EMAIL_TAKEN = "An account with this e-mail already exists. Sign in 
  * the user owns, and writes the verification e-mail, in one transaction. A taken e-mail → BadRequestError with `fields.email`.
  */
 export async function registerUser(input: SignUpInput): Promise<{ userId: string; teamId: string }> {
-  const { User, sequelize } = await import("@/lib/db");
   const taken = () => new BadRequestError(EMAIL_TAKEN, { fields: { email: [EMAIL_TAKEN] } });
   if (await withDb(() => User.findOne({ where: { email: input.email }, attributes: ["id"] }))) throw taken();
   const passwordHash = await bcrypt.hash(input.password, BCRYPT_COST);

@@ -2,9 +2,14 @@
  * The one authorization module. Every route handler and server action asks here.
  * A resource of a team the caller is not in answers 404 (NotFoundError), never 403, so ids don't leak.
  */
+
+import { cache } from "react";
+import { Membership, Project, RUN_HEAVY_COLUMNS, Run } from "@/lib/db";
 import { ForbiddenError, NotFoundError, withDb } from "@/lib/errors";
 
-export type Role = "owner" | "designer" | "reviewer" | "viewer";
+import { isRole, ROLES, type Role } from "@/lib/roles";
+
+export { isRole, ROLES, type Role };
 export type Action =
   | "team:read"
   | "team:manage"
@@ -18,7 +23,6 @@ export type Action =
   | "run:request_review"
   | "measurement:upload";
 
-export const ROLES: readonly Role[] = ["owner", "designer", "reviewer", "viewer"];
 export const ACTIONS: readonly Action[] = [
   "team:read",
   "team:manage",
@@ -49,10 +53,6 @@ const PERMISSIONS: Record<Role, ReadonlySet<Action>> = {
   reviewer: new Set<Action>([...READ, "run:comment", "run:review"]),
   viewer: new Set<Action>(READ),
 };
-
-export function isRole(value: unknown): value is Role {
-  return typeof value === "string" && (ROLES as readonly string[]).includes(value);
-}
 
 /** Whether a member with `role` may perform `action`. Pure; unknown roles may do nothing. */
 export function can(role: Role, action: Action): boolean {
@@ -88,13 +88,38 @@ export function isUuid(value: unknown): value is string {
   return typeof value === "string" && UUID.test(value);
 }
 
-async function roleIn(userId: string, teamId: string): Promise<Role | null> {
+/*
+ * The look-ups behind each check run once per request: React's request cache (`cache`) shares them
+ * between a page's layout, its tab title and every loader the page calls (one run page view asked
+ * four times before). Outside a render (route handlers, server actions, tests) `cache` calls through,
+ * so an action's change is always seen by the render that follows it. What they return is shared:
+ * read it, never change it.
+ */
+const roleIn = cache(async (userId: string, teamId: string): Promise<Role | null> => {
   if (!isUuid(userId) || !isUuid(teamId)) return null;
-  const { Membership } = await import("@/lib/db");
   const m = await Membership.findOne({ where: { teamId, userId }, attributes: ["role"] });
   const role: unknown = m?.get("role");
   return isRole(role) ? role : null;
-}
+});
+
+const projectAccess = cache(async (userId: string, projectId: string) => {
+  if (!isUuid(projectId)) return null;
+  const project = await Project.findByPk(projectId);
+  const role = project ? await roleIn(userId, project.teamId) : null;
+  return project && role ? { project, role } : null;
+});
+
+const runAccess = cache(async (userId: string, runId: string) => {
+  if (!isUuid(runId)) return null;
+  // Only the run's keys and state: its result can be megabytes (see getRun for the whole run).
+  const run = await Run.findByPk(runId, {
+    attributes: { exclude: RUN_HEAVY_COLUMNS },
+    include: [{ model: Project, as: "project" }],
+  });
+  const project = run?.project;
+  const role = project ? await roleIn(userId, project.teamId) : null;
+  return run && project && role ? { run, project, role } : null;
+});
 
 function check(role: Role, action: Action): void {
   if (!can(role, action)) throw new ForbiddenError(`Your role (${role}) does not allow this.`);
@@ -110,28 +135,16 @@ export async function authorizeTeam(userId: string, teamId: string, action: Acti
 
 /** The project and the caller's role in its team, if it allows `action`. */
 export async function authorizeProject(userId: string, projectId: string, action: Action) {
-  return withDb(async () => {
-    if (!isUuid(projectId)) throw new NotFoundError("Project not found.");
-    const { Project } = await import("@/lib/db");
-    const project = await Project.findByPk(projectId);
-    const role = project ? await roleIn(userId, String(project.get("teamId"))) : null;
-    if (!project || !role) throw new NotFoundError("Project not found.");
-    check(role, action);
-    return { project, role };
-  });
+  const access = await withDb(() => projectAccess(userId, projectId));
+  if (!access) throw new NotFoundError("Project not found.");
+  check(access.role, action);
+  return access;
 }
 
-/** The run, its project and the caller's role in the project's team, if it allows `action`. */
+/** The run (keys and state as of the request's first check), its project and the caller's role, if it allows `action`. */
 export async function authorizeRun(userId: string, runId: string, action: Action) {
-  return withDb(async () => {
-    if (!isUuid(runId)) throw new NotFoundError("Run not found.");
-    const { Project, Run, RUN_HEAVY_COLUMNS } = await import("@/lib/db");
-    // Only the run's keys and state: its result can be megabytes (see getRun for the whole run).
-    const run = await Run.findByPk(runId, { attributes: { exclude: RUN_HEAVY_COLUMNS } });
-    const project = run ? await Project.findByPk(String(run.get("projectId"))) : null;
-    const role = project ? await roleIn(userId, String(project.get("teamId"))) : null;
-    if (!run || !project || !role) throw new NotFoundError("Run not found.");
-    check(role, action);
-    return { run, project, role };
-  });
+  const access = await withDb(() => runAccess(userId, runId));
+  if (!access) throw new NotFoundError("Run not found.");
+  check(access.role, action);
+  return access;
 }

@@ -1,10 +1,10 @@
-import { QueryTypes } from "sequelize";
 import { authorizeRun, authorizeSettle, isUuid } from "@/lib/authz";
 import { Comment, sequelize, User } from "@/lib/db";
 import { BadRequestError, NotFoundError, withDb } from "@/lib/errors";
 import { deliverSoon, enqueueEmails } from "@/lib/mail/outbox";
 import { commentMail } from "@/lib/mail/templates";
 import type { ThreadState } from "@/lib/review-states";
+import { type SweepFacts, sweepFacts } from "@/lib/run-columns";
 import type { Actor } from "@/lib/session";
 import type { CommentCreateInput } from "@/lib/validations/comment";
 
@@ -55,26 +55,6 @@ export async function listComments(actor: Actor, runId: string): Promise<Comment
 }
 
 /** A pin must name a frequency inside the run's sweep and, when given, one of its traces. */
-/** What a pin is checked against: the sweep's range and the run's trace names. */
-type SweepFacts = { lo: number | null; hi: number | null; traces: string[] };
-
-/**
- * The sweep's range and trace names of a saved run, read inside PostgreSQL so that the result (can be
- * megabytes) never leaves the database for a comment; null when the run has no result (yet).
- */
-async function sweepFacts(runId: string): Promise<SweepFacts | null> {
-  const rows = await withDb(() =>
-    sequelize.query<SweepFacts>(
-      `SELECT (SELECT min(f::float8) FROM json_array_elements_text(result->'frequencies') f) AS lo,
-              (SELECT max(f::float8) FROM json_array_elements_text(result->'frequencies') f) AS hi,
-              ARRAY(SELECT t->>'name' FROM json_array_elements(result->'traces') t) AS traces
-         FROM runs WHERE id = :runId AND result IS NOT NULL`,
-      { replacements: { runId }, type: QueryTypes.SELECT },
-    ),
-  );
-  return rows[0] ?? null;
-}
-
 function checkPin(facts: SweepFacts | null, input: CommentCreateInput): void {
   const fields: Record<string, string[]> = {};
   const hz = input.frequencyHz ?? null;
@@ -102,7 +82,7 @@ export async function createComment(
   input: CommentCreateInput,
 ): Promise<CommentView> {
   const { run } = await authorizeRun(actor.userId, runId, "run:comment");
-  checkPin(await sweepFacts(runId), input);
+  checkPin(await withDb(() => sweepFacts(runId)), input);
   const created = await withDb(() =>
     sequelize.transaction(async (transaction) => {
       let rootId: string | null = null;

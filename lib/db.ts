@@ -109,7 +109,6 @@ export async function pingDatabase(timeoutMs = 2_000): Promise<boolean> {
 }
 
 export type { MeasurementData } from "@/models/measurement";
-export type { MembershipRole } from "@/models/membership";
 export type { OutboxStatus } from "@/models/outbox-email";
 export type { ReviewAction } from "@/models/review-event";
 export type { ReviewState, RunStatus } from "@/models/run";

@@ -40,6 +40,13 @@ export class NotFoundError extends AppError {
   }
 }
 
+/** 409: the resource is not in a state where this step applies (a review step, a supersede link). */
+export class ConflictError extends AppError {
+  constructor(message: string, details?: Record<string, unknown>) {
+    super(409, "conflict", message, details);
+  }
+}
+
 export class TooLargeError extends AppError {
   constructor(message: string, details?: Record<string, unknown>) {
     super(413, "too_large", message, details);
@@ -50,18 +57,6 @@ export class TooLargeError extends AppError {
 export class NetlistInvalidError extends AppError {
   constructor(message: string, details?: Record<string, unknown>) {
     super(422, "invalid_netlist", message, details);
-  }
-}
-
-/** A preview whose solver work (lib/jobs.ts `solveWork`) is over the budget of one request. */
-export class WorkBudgetError extends AppError {
-  constructor(work: number, budget: number) {
-    super(
-      422,
-      "too_much_work",
-      `This netlist needs ${work.toLocaleString("en-US")} sweep points of work, more than a preview solves (${budget.toLocaleString("en-US")}): save it as a run: it will be queued.`,
-      { work, budget },
-    );
   }
 }
 

@@ -1,5 +1,5 @@
 import { authorizeProject } from "@/lib/authz";
-import { Measurement, type MeasurementData, User } from "@/lib/db";
+import { Measurement, type MeasurementData, sequelize, User } from "@/lib/db";
 import { BadRequestError, TooLargeError, withDb } from "@/lib/errors";
 import type { Actor } from "@/lib/session";
 
@@ -118,19 +118,32 @@ export type MeasurementSummary = {
 };
 export type MeasurementView = MeasurementSummary & { data: MeasurementData };
 
-function toView(m: Measurement): MeasurementView {
-  const f = m.data.frequencies;
+function toSummary(
+  m: Measurement,
+  range: { fromHz: number | null; toHz: number | null },
+): MeasurementSummary {
   return {
     id: m.id,
     name: m.name,
     points: m.points,
     uploadedByName: m.uploadedBy?.name ?? "",
     createdAt: m.createdAt.toISOString(),
-    fromHz: f[0] ?? null,
-    toHz: f[f.length - 1] ?? null,
-    data: m.data,
+    ...range,
   };
 }
+
+function toView(m: Measurement): MeasurementView {
+  const f = m.data.frequencies;
+  return { ...toSummary(m, { fromHz: f[0] ?? null, toHz: f[f.length - 1] ?? null }), data: m.data };
+}
+
+/** A measurement's range, read inside PostgreSQL so that its points stay there. */
+const RANGE_ATTRIBUTES: [ReturnType<typeof sequelize.literal>, string][] = [
+  [sequelize.literal(`("Measurement"."data"->'frequencies'->>0)::float8`), "fromHz"],
+  [sequelize.literal(`("Measurement"."data"->'frequencies'->>-1)::float8`), "toHz"],
+];
+
+const LIST_LIMIT = 50;
 
 /** Stores an uploaded CSV for the project (designer/owner); bad lines → 400 with their line numbers. */
 export async function createMeasurement(
@@ -165,15 +178,36 @@ export async function createMeasurement(
   return { ...summary, uploadedByName: actor.name };
 }
 
-/** The project's measurements, newest first; `withData` adds the points (for plot overlays). */
-export async function listMeasurements(actor: Actor, projectId: string): Promise<MeasurementView[]> {
+/** The project's measurements, newest first, without their points (the project and run pages list them). */
+export async function listMeasurements(actor: Actor, projectId: string): Promise<MeasurementSummary[]> {
+  await authorizeProject(actor.userId, projectId, "project:read");
+  const rows = await withDb(() =>
+    Measurement.findAll({
+      where: { projectId },
+      attributes: ["id", "name", "points", "createdAt", ...RANGE_ATTRIBUTES],
+      include: [{ model: User, as: "uploadedBy", attributes: ["id", "name"] }],
+      order: [["createdAt", "DESC"]],
+      limit: LIST_LIMIT,
+    }),
+  );
+  return rows.map((m) =>
+    toSummary(m, { fromHz: numberOrNull(m.get("fromHz")), toHz: numberOrNull(m.get("toHz")) }),
+  );
+}
+
+function numberOrNull(v: unknown): number | null {
+  return v === null || v === undefined ? null : Number(v);
+}
+
+/** The same list with every measurement's points (`GET /api/projects/:id/measurements`). */
+export async function listMeasurementsWithData(actor: Actor, projectId: string): Promise<MeasurementView[]> {
   await authorizeProject(actor.userId, projectId, "project:read");
   const rows = await withDb(() =>
     Measurement.findAll({
       where: { projectId },
       include: [{ model: User, as: "uploadedBy", attributes: ["id", "name"] }],
       order: [["createdAt", "DESC"]],
-      limit: 50,
+      limit: LIST_LIMIT,
     }),
   );
   return rows.map(toView);

@@ -1,5 +1,4 @@
 import { diffArrays } from "diff";
-import type { DiffLine } from "@/lib/compare";
 
 /**
  * A statement-aware view of a netlist diff. Lines are first matched as text; then, inside each
@@ -8,6 +7,36 @@ import type { DiffLine } from "@/lib/compare";
  * "changed" row whose differing words are marked old → new. What is left is added or removed.
  * Client-safe: no server imports.
  */
+
+export interface DiffLine {
+  kind: "same" | "added" | "removed";
+  text: string;
+  /** 1-based line in the first netlist (null for an added line). */
+  oldLine: number | null;
+  /** 1-based line in the second netlist (null for a removed line). */
+  newLine: number | null;
+}
+
+function splitLines(text: string): string[] {
+  const lines = text.replace(/\r\n?/g, "\n").split("\n");
+  if (lines.length > 1 && lines[lines.length - 1] === "") lines.pop();
+  return lines;
+}
+
+/** Line-based diff of two netlists, each line numbered in the text it comes from. */
+export function diffNetlists(a: string, b: string): DiffLine[] {
+  const out: DiffLine[] = [];
+  let oldLine = 1;
+  let newLine = 1;
+  for (const change of diffArrays(splitLines(a), splitLines(b))) {
+    for (const text of change.value) {
+      if (change.added) out.push({ kind: "added", text, oldLine: null, newLine: newLine++ });
+      else if (change.removed) out.push({ kind: "removed", text, oldLine: oldLine++, newLine: null });
+      else out.push({ kind: "same", text, oldLine: oldLine++, newLine: newLine++ });
+    }
+  }
+  return out;
+}
 
 /** A run of words of a changed line: kept as it was, or swapped from `before` to `after`. */
 export type Segment = { kind: "kept"; text: string } | { kind: "swap"; before: string; after: string };

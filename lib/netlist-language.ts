@@ -3,6 +3,7 @@
  * hover help, and a light scan of the names a netlist defines. Client-safe: no mathjs, no parser.
  * The kind table, statements and measure functions come from the solver's own lists.
  */
+import { E_SERIES as SERIES_VALUES } from "@/solver/lang/eseries";
 import { KEYWORDS, KINDS, MEASURE_FUNCTIONS, LOOP_METHODS as METHODS } from "@/solver/lang/kinds";
 import type { LoopMethod, PartKind } from "@/solver/types";
 
@@ -31,7 +32,8 @@ export const SUB_KEYWORDS = [
 export const PROBE_FNS = ["volts", "amps"];
 export const EXPRESSION_FNS = ["sqrt", "log10", "exp", "snap", "abs", "pi", "e"];
 export const LEVEL_WORDS = ["half-power"];
-export const E_SERIES = ["E6", "E12", "E24", "E48", "E96", "E192"];
+/** The series names `snap` takes (solver/lang/eseries.ts declares them). */
+export const E_SERIES: string[] = Object.keys(SERIES_VALUES);
 /** Every `key=` option of parts and statements. */
 export const OPTIONS: Record<string, string> = {
   tol: "Tolerance of a resistor, capacitor or inductor: `tol=1%` or `tol=0.01`. Used by `monte-carlo`.",

@@ -1,5 +1,4 @@
 import { notFound } from "next/navigation";
-import { cache } from "react";
 import { authorizeProject, authorizeRun } from "@/lib/authz";
 import { NotFoundError } from "@/lib/errors";
 
@@ -19,10 +18,9 @@ export async function visibleOr404<T>(check: () => Promise<T>): Promise<T> {
 }
 
 /**
- * Read access to a run or a project, asked once per request: a segment's layout and the page's
- * tab title (generateMetadata) ask the same question, and React's request cache answers the second.
+ * Read access to a run or a project. A segment's layout, the page's tab title (generateMetadata) and
+ * the page's loaders ask the same question; lib/authz.ts looks it up once per request.
  */
-export const canReadRun = cache((userId: string, runId: string) => authorizeRun(userId, runId, "run:read"));
-export const canReadProject = cache((userId: string, projectId: string) =>
-  authorizeProject(userId, projectId, "project:read"),
-);
+export const canReadRun = (userId: string, runId: string) => authorizeRun(userId, runId, "run:read");
+export const canReadProject = (userId: string, projectId: string) =>
+  authorizeProject(userId, projectId, "project:read");

@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { authorizeTeam } from "@/lib/authz";
+import { Team } from "@/lib/db";
 import { withDb } from "@/lib/errors";
 import { canReadProject, canReadRun } from "@/lib/page-access";
 import { getActor } from "@/lib/session";
@@ -37,7 +38,6 @@ export function projectPageMetadata(projectId: string, prefix = ""): Promise<Met
 export function teamPageMetadata(teamId: string): Promise<Metadata> {
   return titled("Team", async (userId) => {
     await authorizeTeam(userId, teamId, "team:read");
-    const { Team } = await import("@/lib/db");
     const team = await withDb(() => Team.findByPk(teamId, { attributes: ["name"] }));
     return team ? String(team.get("name")) : null;
   });

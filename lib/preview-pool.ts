@@ -137,9 +137,3 @@ export function solvePreview(netlist: string, options: SolveOptions): Promise<So
     pump();
   });
 }
-
-/** Ends the pool's threads (tests). */
-export async function stopPreviewPool(): Promise<void> {
-  const all = slots.splice(0);
-  await Promise.all(all.map((s) => s.worker.terminate()));
-}

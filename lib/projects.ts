@@ -1,5 +1,6 @@
 import { UniqueConstraintError } from "sequelize";
 import { authorizeTeam, type Role } from "@/lib/authz";
+import { Project, sequelize } from "@/lib/db";
 import { BadRequestError, withDb } from "@/lib/errors";
 import { listTeamsForUser, type TeamSummary } from "@/lib/teams";
 import type { ProjectCreateInput } from "@/lib/validations/project";
@@ -39,7 +40,6 @@ function toSummary(p: ProjectRow, stats?: { n: number; last: Date | null }): Pro
 /** Projects of the given teams with their run counts, by name. The caller has checked membership. */
 async function projectsOfTeams(teamIds: string[]): Promise<ProjectSummary[]> {
   if (teamIds.length === 0) return [];
-  const { Project, sequelize } = await import("@/lib/db");
   const projects = await Project.findAll({ where: { teamId: teamIds }, order: [["name", "ASC"]] });
   const ids = projects.map((p) => p.id);
   const stats = ids.length
@@ -77,7 +77,6 @@ export async function listProjects(
 /** Creates a project in a team where the user may (owner or designer). Names are unique per team. */
 export async function createProject(userId: string, input: ProjectCreateInput): Promise<ProjectSummary> {
   await authorizeTeam(userId, input.teamId, "project:create");
-  const { Project } = await import("@/lib/db");
   try {
     const project = await withDb(() =>
       Project.create({

@@ -19,10 +19,10 @@ import {
   deriveReading,
   type Prediction,
 } from "@/lib/reading-math";
+import { storedPrediction } from "@/lib/run-columns";
 import type { Actor } from "@/lib/session";
 import { deleteObject, getObject, putObject } from "@/lib/storage/object-store";
 import type { ReadingCreateInput } from "@/lib/validations/reading";
-import type { MeasureResult, MeasureStats } from "@/solver/types";
 
 export type { Prediction } from "@/lib/reading-math";
 
@@ -45,19 +45,6 @@ export type ReadingView = {
   comparison: Comparison;
   attachment: { name: string; type: string; size: number; url: string } | null;
 };
-
-/** The run's measures and Monte Carlo statistics, without reading its whole result across the wire. */
-export async function loadPrediction(runId: string): Promise<Prediction> {
-  const [rows] = await sequelize.query(
-    `SELECT measures, result->'monteCarlo'->'measures' AS mc FROM runs WHERE id = :runId`,
-    { replacements: { runId } },
-  );
-  const row = rows[0] as { measures: unknown; mc: unknown } | undefined;
-  return {
-    measures: Array.isArray(row?.measures) ? (row.measures as MeasureResult[]) : [],
-    monteCarlo: Array.isArray(row?.mc) ? (row.mc as MeasureStats[]) : undefined,
-  };
-}
 
 /** A stored reading beside the prediction (pure; used by the page, the API, compare and e-mail). */
 export function toReadingView(r: BenchReading, p: Prediction, authorName?: string): ReadingView {
@@ -114,7 +101,7 @@ export async function readingsOfRuns(runIds: string[]): Promise<Map<string, Read
   for (const runId of runIds) {
     const mine = rows.filter((r) => r.runId === runId);
     if (mine.length === 0) continue;
-    const p = await withDb(() => loadPrediction(runId));
+    const p = await withDb(() => storedPrediction(runId));
     out.set(
       runId,
       mine.map((r) => toReadingView(r, p)),
@@ -159,7 +146,7 @@ export async function createReading(
   file: UploadedFile | null,
 ): Promise<ReadingView> {
   await authorizeRun(actor.userId, runId, "measurement:upload");
-  const p = await withDb(() => loadPrediction(runId));
+  const p = await withDb(() => storedPrediction(runId));
   checkMeasure(input, p);
   if ((await withDb(() => BenchReading.count({ where: { runId } }))) >= MAX_READINGS_PER_RUN) {
     throw new BadRequestError(`A run keeps at most ${MAX_READINGS_PER_RUN} readings; delete some first.`);

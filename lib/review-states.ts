@@ -68,11 +68,6 @@ export function nextReviewState(from: ReviewState, step: ReviewStep): ReviewStat
   return (rule.from as readonly ReviewState[]).includes(from) ? rule.to : null;
 }
 
-/** The steps a run in this state can take next (supersede is always separate). */
-export function stepsFrom(state: ReviewState): ReviewStep[] {
-  return (Object.keys(REVIEW_TRANSITIONS) as ReviewStep[]).filter((s) => nextReviewState(state, s) !== null);
-}
-
 /**
  * Why the review panel offers no step to this viewer, in words ("the author has not asked for
  * sign-off yet" rather than a statement about roles).

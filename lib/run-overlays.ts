@@ -5,9 +5,8 @@
 
 import type { Transaction } from "sequelize";
 import { authorizeRun } from "@/lib/authz";
-import { Measurement, sequelize } from "@/lib/db";
+import { Measurement, type MeasurementData, sequelize } from "@/lib/db";
 import { BadRequestError, withDb } from "@/lib/errors";
-import type { MeasurementView } from "@/lib/measurements";
 import type { Actor } from "@/lib/session";
 
 /** At most this many data sets on one plot (each gets its own symbol). */
@@ -24,9 +23,16 @@ export async function overlayIds(runId: string): Promise<string[]> {
   return rows.map((r) => r.id);
 }
 
-/** The overlaid data sets of a run, from the project's list (which the caller already loaded). */
-export function pickOverlays(all: MeasurementView[], ids: readonly string[]): MeasurementView[] {
-  const byId = new Map(all.map((m) => [m.id, m]));
+/** The data sets a run overlays, with their points, in the order they were attached. */
+export async function overlaidData(
+  runId: string,
+): Promise<{ id: string; name: string; data: MeasurementData }[]> {
+  const ids = await overlayIds(runId);
+  if (ids.length === 0) return [];
+  const rows = await withDb(() =>
+    Measurement.findAll({ where: { id: ids }, attributes: ["id", "name", "data"] }),
+  );
+  const byId = new Map(rows.map((m) => [m.id, { id: m.id, name: m.name, data: m.data }]));
   return ids.flatMap((id) => byId.get(id) ?? []);
 }
 

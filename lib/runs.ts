@@ -1,16 +1,13 @@
-import { type InferCreationAttributes, Op, type Order, type WhereOptions } from "sequelize";
+/** Reading runs: one page of a project's list (sorted, filtered on the server) and one run with what its page shows. Saving is lib/run-create.ts. */
+import { Op, type Order, type WhereOptions } from "sequelize";
 import { type Action, authorizeProject, authorizeRun, can } from "@/lib/authz";
 import { Project, ReviewEvent, RUN_HEAVY_COLUMNS, Run, sequelize, Team, User } from "@/lib/db";
-import { BadRequestError, NetlistInvalidError, NotFoundError, TooLargeError, withDb } from "@/lib/errors";
-import { sha256Hex } from "@/lib/hash";
-import { enqueueRunSolve, planRunSolve } from "@/lib/jobs";
-import { MAX_NETLIST_BYTES, MAX_SAVED_POINTS } from "@/lib/limits";
-import { derivedRunColumns } from "@/lib/run-columns";
+import { NotFoundError, withDb } from "@/lib/errors";
+import { storedResult } from "@/lib/run-columns";
 import type { RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
 import type { Actor } from "@/lib/session";
-import type { RunCreateInput, RunListQuery } from "@/lib/validations/run";
-import { expandResult, type StoredResult, solveNetlist } from "@/solver";
-import type { CheckResult, MeasureResult, NetlistError } from "@/solver/types";
+import type { RunListQuery } from "@/lib/validations/run";
+import type { CheckResult, MeasureResult } from "@/solver/types";
 
 export { sha256Hex } from "@/lib/hash";
 export type { ReviewEventView, ReviewStateName, RunDetail, RunListPage, RunSummary } from "@/lib/run-types";
@@ -23,7 +20,7 @@ function asArray<T>(v: unknown): T[] {
   return Array.isArray(v) ? (v as T[]) : [];
 }
 
-function toSummary(run: Run): RunSummary {
+export function toSummary(run: Run): RunSummary {
   return {
     id: run.id,
     projectId: run.projectId,
@@ -38,139 +35,6 @@ function toSummary(run: Run): RunSummary {
     measures: asArray<MeasureResult>(run.measures),
     supersedesId: run.supersedesId ?? null,
   };
-}
-
-/**
- * Solves the netlist and saves it as a new run. The solve happens first; the run (and, when it
- * supersedes an earlier run, that run's "supersede" review event) are written in one transaction.
- * A netlist with errors throws NetlistInvalidError (422) with the solver's errors and saves nothing.
- */
-export async function createRun(actor: Actor, projectId: string, input: RunCreateInput): Promise<RunSummary> {
-  await authorizeProject(actor.userId, projectId, "run:create");
-  const bytes = Buffer.byteLength(input.netlist, "utf8");
-  if (bytes > MAX_NETLIST_BYTES) {
-    throw new TooLargeError(`The netlist is ${bytes} bytes; the limit is ${MAX_NETLIST_BYTES}.`, {
-      limit: MAX_NETLIST_BYTES,
-    });
-  }
-  if (input.supersedesId) {
-    const older = await withDb(() =>
-      Run.findOne({ attributes: ["id"], where: { id: input.supersedesId, projectId } }),
-    );
-    if (!older) {
-      throw new BadRequestError("The run to supersede is not in this project.", {
-        fields: { supersedesId: ["Not a run of this project."] },
-      });
-    }
-  }
-  // Job queue (lib/jobs.ts): a large study (over MAX_INLINE_WORK in lib/limits.ts) is checked
-  // here, saved as 'queued' without a result and solved by `npm run worker`.
-  const plan = planRunSolve(input.netlist, MAX_SAVED_POINTS);
-  if (plan.mode === "invalid") throw invalid(plan.errors);
-  if (plan.mode === "queue") return createQueuedRun(actor, projectId, input, plan.solverVersion);
-
-  const started = performance.now();
-  const result = solveNetlist(input.netlist, { maxPoints: MAX_SAVED_POINTS });
-  const solveMs = performance.now() - started;
-  if (!result.ok) throw invalid(result.errors);
-  if (result.stats.points > MAX_SAVED_POINTS) {
-    throw new TooLargeError(
-      `The sweep has ${result.stats.points} points; a saved run may have ${MAX_SAVED_POINTS}.`,
-      {
-        limit: MAX_SAVED_POINTS,
-      },
-    );
-  }
-  const run = await saveRun(actor, projectId, input, {
-    ...derivedRunColumns(result),
-    status: "ok",
-    timings: { solveMs: round3(solveMs), engineMs: result.stats.solveMs },
-  });
-  return { ...toSummary(run), authorName: actor.name };
-}
-
-function invalid(errors: NetlistError[]): NetlistInvalidError {
-  const n = errors.length;
-  return new NetlistInvalidError(`The netlist has ${n} error${n === 1 ? "" : "s"}; nothing was saved.`, {
-    errors,
-  });
-}
-
-type RunOutcome = Pick<
-  InferCreationAttributes<Run>,
-  "solverVersion" | "status" | "result" | "measures" | "checks" | "checksPassed" | "checksTotal" | "timings"
->;
-
-/** Writes the run and, when it supersedes an earlier run, that run's "supersede" event: one transaction. */
-async function saveRun(
-  actor: Actor,
-  projectId: string,
-  input: RunCreateInput,
-  outcome: RunOutcome,
-): Promise<Run> {
-  return withDb(() =>
-    sequelize.transaction(async (transaction) => {
-      const created = await Run.create(
-        {
-          projectId,
-          authorId: actor.userId,
-          title: input.title,
-          netlist: input.netlist,
-          netlistHash: sha256Hex(input.netlist),
-          reviewState: "draft",
-          supersedesId: input.supersedesId ?? null,
-          ...outcome,
-        },
-        { transaction },
-      );
-      if (input.supersedesId) {
-        await ReviewEvent.create(
-          {
-            runId: input.supersedesId,
-            actorId: actor.userId,
-            action: "supersede",
-            note: `Superseded by "${input.title}".`,
-          },
-          { transaction },
-        );
-      }
-      return created;
-    }),
-  );
-}
-
-/**
- * Job queue (issue 5): save a run as 'queued' (no result yet) with its supersede event, then put
- * it on the queue (lib/jobs.ts). If the queue cannot take it, the run is marked 'failed'.
- */
-async function createQueuedRun(
-  actor: Actor,
-  projectId: string,
-  input: RunCreateInput,
-  solverVersion: string,
-): Promise<RunSummary> {
-  const run = await saveRun(actor, projectId, input, {
-    solverVersion,
-    status: "queued",
-    result: null,
-    measures: null,
-    checks: null,
-    checksPassed: null,
-    checksTotal: null,
-    timings: null,
-  });
-  try {
-    await enqueueRunSolve(run.id);
-  } catch (error) {
-    // enqueueRunSolve has moved the run to 'failed' (lib/run-lifecycle.ts).
-    console.error("[runs] the job queue did not take run", run.id, error);
-    run.status = "failed";
-  }
-  return { ...toSummary(run), authorName: actor.name };
-}
-
-function round3(x: number): number {
-  return Math.round(x * 1000) / 1000;
 }
 
 const SORT_COLUMNS: Record<RunListQuery["sort"], (dir: "ASC" | "DESC") => Order> = {
@@ -251,7 +115,7 @@ export async function getRun(actor: Actor, runId: string, action: Action = "run:
         order: [["createdAt", "ASC"]],
       }),
     ]);
-    const result = run.result ? expandResult(run.result as StoredResult) : null;
+    const result = storedResult(run.result);
     return {
       ...toSummary(run),
       netlist: run.netlist,

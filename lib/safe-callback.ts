@@ -6,6 +6,13 @@
  * `//evil`), backslashes (read as `/`), encoded slashes and backslashes, and paths starting `//`.
  * Pure (no env import) so client and server code can both use it; returns a path (`/projects?x=1`).
  */
+
+/**
+ * Request header carrying the page's path and query, set by proxy.ts on every page request and read
+ * by `requireUser` (lib/session.ts), so a signed-out visit can come back after sign-in.
+ */
+export const PATH_HEADER = "x-pw-path";
+
 /** Control characters (C0, DEL, C1), line/paragraph separators, backslash; with `space`, the space too. */
 function hasForbidden(text: string, space: boolean): boolean {
   for (let i = 0; i < text.length; i++) {

@@ -1,5 +1,6 @@
 import type { Transaction } from "sequelize";
 import { isUuid } from "@/lib/authz";
+import { User } from "@/lib/db";
 
 /**
  * Server-side session versions (issue 13: 30-day JWT sessions could not be revoked). Each session token
@@ -16,7 +17,6 @@ export async function currentSessionVersion(userId: string, now = Date.now()): P
   if (!isUuid(userId)) return null;
   const hit = cache.get(userId);
   if (hit && now - hit.at < CACHE_MS) return hit.version;
-  const { User } = await import("@/lib/db");
   const user = await User.findByPk(userId, { attributes: ["sessionVersion"] });
   const version = user ? user.sessionVersion : null;
   if (cache.size > 50_000) cache.clear();
@@ -26,12 +26,6 @@ export async function currentSessionVersion(userId: string, now = Date.now()): P
 
 /** Ends every session of the user (the next request of each is signed out). */
 export async function bumpSessionVersion(userId: string, transaction?: Transaction): Promise<void> {
-  const { User } = await import("@/lib/db");
   await User.increment("sessionVersion", { where: { id: userId }, ...(transaction ? { transaction } : {}) });
   cache.delete(userId);
-}
-
-/** Forget the cached versions (tests). */
-export function clearSessionVersionCache(): void {
-  cache.clear();
 }

@@ -1,9 +1,10 @@
 import { cookies, headers } from "next/headers";
 import { redirect } from "next/navigation";
 import { decode } from "next-auth/jwt";
+import { User } from "@/lib/db";
 import { env } from "@/lib/env";
 import { ForbiddenError, isDatabaseConnectionError, UnauthorizedError, withDb } from "@/lib/errors";
-import { safeCallback } from "@/lib/safe-callback";
+import { PATH_HEADER, safeCallback } from "@/lib/safe-callback";
 import { currentSessionVersion } from "@/lib/session-version";
 import { verifyBearerToken } from "@/lib/tokens";
 
@@ -119,7 +120,7 @@ export async function requireSessionActor(req: Request): Promise<Actor> {
 export async function requireUser(): Promise<Actor> {
   const actor = await getActor();
   if (!actor) {
-    const back = safeCallback((await headers()).get("x-pw-path"), { fallback: "" });
+    const back = safeCallback((await headers()).get(PATH_HEADER), { fallback: "" });
     redirect(back ? `/signin?callbackUrl=${encodeURIComponent(back)}` : "/signin");
   }
   return actor;
@@ -127,7 +128,6 @@ export async function requireUser(): Promise<Actor> {
 
 /** The stored name and e-mail of a user (the session token may hold an older name), or null. */
 export async function getUserProfile(userId: string): Promise<{ name: string; email: string } | null> {
-  const { User } = await import("@/lib/db");
   const user = await withDb(() => User.findByPk(userId, { attributes: ["name", "email"] }));
   return user ? { name: user.name, email: user.email } : null;
 }

@@ -16,7 +16,8 @@ export const SNAP_NETWORKS: { id: SnapNetwork; label: string; formula: string; k
   { id: "phase-shift", label: "Three-section phase shift", formula: "f = 1/(2π√6·RC)", k: Math.sqrt(6) },
 ];
 
-export const SERIES_NAMES: SeriesName[] = ["E6", "E12", "E24", "E48", "E96", "E192"];
+/** The series names in the solver's order (solver/lang/eseries.ts declares them). */
+export const SERIES_NAMES = Object.keys(E_SERIES) as SeriesName[];
 
 export interface SnapRequest {
   targetHz: number;

@@ -1,6 +1,7 @@
 import { randomBytes } from "node:crypto";
 import type { Transaction } from "sequelize";
 import { authorizeTeam, isRole, type Role } from "@/lib/authz";
+import { Membership, sequelize, Team, User } from "@/lib/db";
 import { BadRequestError, NotFoundError, withDb } from "@/lib/errors";
 import { bumpSessionVersion } from "@/lib/session-version";
 
@@ -16,7 +17,6 @@ export type TeamMember = {
 
 /** The teams the user belongs to, with their role, by name. */
 export async function listTeamsForUser(userId: string): Promise<TeamSummary[]> {
-  const { Membership, Team, sequelize } = await import("@/lib/db");
   return withDb(async () => {
     const memberships = await Membership.findAll({
       where: { userId },
@@ -49,7 +49,6 @@ export async function getTeamForMember(
   teamId: string,
 ): Promise<{ team: { id: string; name: string; slug: string }; role: Role; members: TeamMember[] }> {
   const { role } = await authorizeTeam(userId, teamId, "team:read");
-  const { Membership, Team, User } = await import("@/lib/db");
   return withDb(async () => {
     const team = await Team.findByPk(teamId);
     if (!team) throw new NotFoundError("Team not found.");
@@ -91,7 +90,6 @@ export async function createTeamWithOwner(
   name: string,
   transaction: Transaction,
 ): Promise<{ id: string; slug: string }> {
-  const { Membership, Team } = await import("@/lib/db");
   const team = await Team.create({ name, slug: slugify(name) }, { transaction });
   await Membership.create({ teamId: team.id, userId, role: "owner" }, { transaction });
   return { id: team.id, slug: team.slug };
@@ -101,7 +99,6 @@ const LAST_OWNER = "A team needs at least one owner: make someone else owner fir
 
 /** Loads the target membership and the team's owners, locked for the rest of the transaction. */
 async function lockMembership(teamId: string, membershipId: string, transaction: Transaction) {
-  const { Membership } = await import("@/lib/db");
   const owners = await Membership.findAll({ where: { teamId, role: "owner" }, lock: true, transaction });
   const target = await Membership.findOne({ where: { id: membershipId, teamId }, lock: true, transaction });
   if (!target) throw new NotFoundError("That person is not a member of this team.");
@@ -116,7 +113,6 @@ export async function changeMemberRole(
   role: Role,
 ): Promise<void> {
   await authorizeTeam(actorId, teamId, "team:manage");
-  const { sequelize } = await import("@/lib/db");
   await withDb(() =>
     sequelize.transaction(async (transaction) => {
       const { owners, target } = await lockMembership(teamId, membershipId, transaction);
@@ -135,7 +131,6 @@ export async function changeMemberRole(
 /** Owner only: removes a member from the team. The last owner cannot be removed. */
 export async function removeMember(actorId: string, teamId: string, membershipId: string): Promise<void> {
   await authorizeTeam(actorId, teamId, "team:manage");
-  const { sequelize } = await import("@/lib/db");
   await withDb(() =>
     sequelize.transaction(async (transaction) => {
       const { owners, target } = await lockMembership(teamId, membershipId, transaction);

@@ -1,5 +1,6 @@
 import { createHash, randomBytes } from "node:crypto";
 import { isUuid } from "@/lib/authz";
+import { ApiToken, User } from "@/lib/db";
 import { NotFoundError, withDb } from "@/lib/errors";
 
 /** Personal API tokens: "pw_" + 43 url-safe characters; only the sha256 hex is stored. */
@@ -35,7 +36,6 @@ export async function createApiToken(
   name: string,
 ): Promise<{ token: string; summary: ApiTokenSummary }> {
   const token = generateToken();
-  const { ApiToken } = await import("@/lib/db");
   const row = await withDb(() =>
     ApiToken.create({ userId, name, tokenHash: hashToken(token), prefix: token.slice(0, 8) }),
   );
@@ -55,7 +55,6 @@ function toSummary(row: { get(key: string): unknown }): ApiTokenSummary {
 
 /** The user's tokens, newest first, revoked ones included (marked). */
 export async function listApiTokens(userId: string): Promise<ApiTokenSummary[]> {
-  const { ApiToken } = await import("@/lib/db");
   const rows = await withDb(() => ApiToken.findAll({ where: { userId }, order: [["createdAt", "DESC"]] }));
   return rows.map(toSummary);
 }
@@ -63,7 +62,6 @@ export async function listApiTokens(userId: string): Promise<ApiTokenSummary[]> 
 /** Revokes one of the user's own tokens; someone else's id answers NotFoundError. */
 export async function revokeApiToken(userId: string, tokenId: string): Promise<void> {
   if (!isUuid(tokenId)) throw new NotFoundError("Token not found.");
-  const { ApiToken } = await import("@/lib/db");
   const [count] = await withDb(() =>
     ApiToken.update({ revokedAt: new Date() }, { where: { id: tokenId, userId, revokedAt: null } }),
   );
@@ -73,7 +71,6 @@ export async function revokeApiToken(userId: string, tokenId: string): Promise<v
 /** The owner of a live bearer token, or null (unknown, malformed or revoked). Records the last use. */
 export async function verifyBearerToken(token: string): Promise<TokenActor | null> {
   if (!TOKEN_SHAPE.test(token)) return null;
-  const { ApiToken, User } = await import("@/lib/db");
   return withDb(async () => {
     const row = await ApiToken.findOne({ where: { tokenHash: hashToken(token), revokedAt: null } });
     if (!row) return null;

@@ -7,7 +7,7 @@ import {
   type NonAttribute,
   type Sequelize,
 } from "sequelize";
-import { MEMBERSHIP_ROLES, type MembershipRole } from "./membership";
+import { ROLES, type Role } from "@/lib/roles";
 import type { Team } from "./team";
 import type { User } from "./user";
 
@@ -16,7 +16,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
   declare id: CreationOptional<string>;
   declare teamId: string;
   declare email: string;
-  declare role: MembershipRole;
+  declare role: Role;
   declare tokenHash: string;
   declare invitedById: string;
   declare expiresAt: Date;
@@ -39,7 +39,7 @@ export class Invitation extends Model<InferAttributes<Invitation>, InferCreation
             this.setDataValue("email", String(value).trim().toLowerCase());
           },
         },
-        role: { type: DataTypes.ENUM(...MEMBERSHIP_ROLES), allowNull: false },
+        role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
         tokenHash: { type: DataTypes.STRING(64), allowNull: false, unique: true },
         invitedById: { type: DataTypes.UUID, allowNull: false },
         expiresAt: { type: DataTypes.DATE, allowNull: false },

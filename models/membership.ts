@@ -7,18 +7,16 @@ import {
   type NonAttribute,
   type Sequelize,
 } from "sequelize";
+import { ROLES, type Role } from "@/lib/roles";
 import type { Team } from "./team";
 import type { User } from "./user";
-
-export const MEMBERSHIP_ROLES = ["owner", "designer", "reviewer", "viewer"] as const;
-export type MembershipRole = (typeof MEMBERSHIP_ROLES)[number];
 
 /** A user's role in one team; one membership per (team, user). */
 export class Membership extends Model<InferAttributes<Membership>, InferCreationAttributes<Membership>> {
   declare id: CreationOptional<string>;
   declare teamId: string;
   declare userId: string;
-  declare role: MembershipRole;
+  declare role: Role;
   declare createdAt: CreationOptional<Date>;
   declare updatedAt: CreationOptional<Date>;
 
@@ -31,7 +29,7 @@ export class Membership extends Model<InferAttributes<Membership>, InferCreation
         id: { type: DataTypes.UUID, defaultValue: DataTypes.UUIDV4, primaryKey: true },
         teamId: { type: DataTypes.UUID, allowNull: false },
         userId: { type: DataTypes.UUID, allowNull: false },
-        role: { type: DataTypes.ENUM(...MEMBERSHIP_ROLES), allowNull: false },
+        role: { type: DataTypes.ENUM(...ROLES), allowNull: false },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -9,6 +9,8 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import vm from "node:vm";
 import { gzipSync } from "node:zlib";
+import { ApiToken, Membership, Project, Run, sequelize, Team, User } from "@/lib/db";
+import { generateToken, hashToken } from "@/lib/tokens";
 
 const ROOT = path.join(__dirname, "..");
 const SHARED_DATABASES = new Set(["phasewright", "phasewright_test"]);
@@ -93,8 +95,6 @@ export function ladderNetlist(traces: number, points: number): string {
 // ---------- fixture in the bench database ----------
 
 async function ensureFixture(): Promise<Fixture> {
-  const { ApiToken, Membership, Project, Run, sequelize, Team, User } = await import("@/lib/db");
-  const { generateToken, hashToken } = await import("@/lib/tokens");
   const email = "bench-runner@bench.test";
   return sequelize.transaction(async (transaction) => {
     const [user] = await User.findOrCreate({
@@ -223,9 +223,10 @@ interface RunFigures {
 }
 
 async function benchRun(fixture: Fixture): Promise<RunFigures> {
-  const { Run, sequelize } = await import("@/lib/db");
-  const { createRun, getRun, sha256Hex } = await import("@/lib/runs");
-  const { compactResult, solveNetlist } = await import("@/solver");
+  const { getRun, sha256Hex } = await import("@/lib/runs");
+  const { createRun } = await import("@/lib/run-create");
+  const { solveNetlist } = await import("@/solver");
+  const { derivedRunColumns } = await import("@/lib/run-columns");
   const { MAX_SAVED_POINTS } = await import("@/lib/limits");
   const { GET } = (await import("@/app/api/runs/[id]/route")) as {
     GET: Handler<{ params: Promise<{ id: string }> }>;
@@ -259,14 +260,9 @@ async function benchRun(fixture: Fixture): Promise<RunFigures> {
             title: `Bench ladder insert ${i}`,
             netlist,
             netlistHash: sha256Hex(netlist),
-            solverVersion: result.solverVersion,
+            ...derivedRunColumns(result),
             status: "ok",
             reviewState: "draft",
-            result: compactResult(result),
-            measures: result.measures,
-            checks: result.checks,
-            checksPassed: result.checks.filter((c) => c.pass).length,
-            checksTotal: result.checks.length,
             timings: { solveMs: result.stats.solveMs, engineMs: result.stats.solveMs },
             supersedesId: null,
           },
@@ -433,7 +429,6 @@ function firstLoadJs(): { rows: (string | number)[][]; note: string } | string {
 
 async function main(): Promise<void> {
   const db = benchDatabase();
-  const { sequelize } = await import("@/lib/db");
   try {
     const fixture = await ensureFixture();
 

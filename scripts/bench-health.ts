@@ -1,3 +1,6 @@
+import { ApiToken, sequelize, User } from "@/lib/db";
+import { generateToken, hashToken } from "@/lib/tokens";
+
 // `npm run bench` row (issue 13): health-check latency while 50 heavy previews are in flight at once.
 // Needs an app over HTTP: BENCH_OWN_URL (bench.sh serves the .next build against the bench database)
 // and creates its own user and token in that database (DATABASE_URL = the bench database).
@@ -24,8 +27,6 @@ function heavyNetlist(): string {
 }
 
 async function benchToken(): Promise<string> {
-  const { ApiToken, User } = await import("@/lib/db");
-  const { generateToken, hashToken } = await import("@/lib/tokens");
   const email = "bench-health@bench.test";
   const [user] = await User.findOrCreate({
     where: { email },
@@ -91,7 +92,6 @@ async function main(): Promise<void> {
   console.log(
     `health during them: ${health.length} checks, median ${pct(health, 0.5).toFixed(1)} ms, p99 ${pct(health, 0.99).toFixed(1)} ms, max ${(health.at(-1) ?? 0).toFixed(1)} ms`,
   );
-  const { sequelize } = await import("@/lib/db");
   await sequelize.close();
 }
 

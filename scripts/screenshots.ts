@@ -7,6 +7,7 @@ import { mkdirSync } from "node:fs";
 import path from "node:path";
 import { encode } from "next-auth/jwt";
 import { type Browser, chromium, type Page } from "playwright-core";
+import { ROLES } from "@/lib/roles";
 
 const BASE = process.env.BASE_URL ?? "http://localhost:3000";
 const OUT = process.env.OUT_DIR ?? path.join("tests", "artifacts", "screenshots");
@@ -177,7 +178,7 @@ async function main(): Promise<void> {
     }
     console.log("signed out");
     await signedOut(browser);
-    for (const role of roles.length ? roles : ["owner", "designer", "reviewer", "viewer"]) {
+    for (const role of roles.length ? roles : ROLES) {
       console.log(role);
       await asUser(browser, role);
     }

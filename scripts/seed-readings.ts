@@ -5,11 +5,12 @@
  * run is added when its title is missing, the readings when the run has none. A small scope CSV is
  * attached when the object store answers; the demo works without it.
  */
-import { createHash } from "node:crypto";
 import type { Transaction } from "sequelize";
 import { BenchReading, type Project, Run, sequelize, type User } from "@/lib/db";
+import { sha256Hex } from "@/lib/hash";
+import { derivedRunColumns } from "@/lib/run-columns";
 import { putObject } from "@/lib/storage/object-store";
-import { compactResult, solveNetlist } from "@/solver";
+import { solveNetlist } from "@/solver";
 import { WIEN_REV_B } from "./demo/netlists";
 
 export const SPREAD_RUN_TITLE = "Bridge oscillator parts spread, 1 MHz amplifier";
@@ -32,15 +33,10 @@ async function spreadRun(t: Transaction, project: Project, author: User): Promis
       authorId: author.id,
       title: SPREAD_RUN_TITLE,
       netlist: SPREAD_NETLIST,
-      netlistHash: createHash("sha256").update(SPREAD_NETLIST, "utf8").digest("hex"),
-      solverVersion: result.solverVersion,
+      netlistHash: sha256Hex(SPREAD_NETLIST),
+      ...derivedRunColumns(result),
       status: "ok",
       reviewState: "draft",
-      result: compactResult(result),
-      measures: result.measures,
-      checks: result.checks,
-      checksPassed: result.checks.filter((c) => c.pass).length,
-      checksTotal: result.checks.length,
       timings: { solveMs: result.stats.solveMs },
     },
     { transaction: t },

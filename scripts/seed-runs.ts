@@ -1,8 +1,9 @@
-import { createHash } from "node:crypto";
 import type { Transaction } from "sequelize";
-import { Comment, Measurement, Project, ReviewEvent, Run, sequelize, Team, User } from "@/lib/db";
+import { Comment, Measurement, type Project, ReviewEvent, Run, sequelize, type User } from "@/lib/db";
+import { sha256Hex } from "@/lib/hash";
+import { derivedRunColumns, storedResult } from "@/lib/run-columns";
 import { writeOverlays } from "@/lib/run-overlays";
-import { compactResult, expandResult, type StoredResult, solveNetlist } from "@/solver";
+import { solveNetlist } from "@/solver";
 import {
   LINE_DRIVER,
   LOWPASS_STAGE2,
@@ -38,15 +39,10 @@ async function saveRun(
       authorId: author.id,
       title,
       netlist,
-      netlistHash: createHash("sha256").update(netlist, "utf8").digest("hex"),
-      solverVersion: result.solverVersion,
+      netlistHash: sha256Hex(netlist),
+      ...derivedRunColumns(result),
       status: "ok",
       reviewState: extra.reviewState ?? "draft",
-      result: compactResult(result),
-      measures: result.measures,
-      checks: result.checks,
-      checksPassed: result.checks.filter((c) => c.pass).length,
-      checksTotal: result.checks.length,
       timings: { solveMs: result.stats.solveMs },
       supersedesId: extra.supersedesId ?? null,
     },
@@ -202,7 +198,8 @@ async function seedOscillator(t: Transaction, project: Project, users: SeedUsers
  * small fixed ripple standing in for measurement noise.
  */
 async function seedBenchSweep(t: Transaction, project: Project, uploader: User, run: Run): Promise<void> {
-  const result = expandResult(run.result as StoredResult);
+  const result = storedResult(run.result);
+  if (!result) return;
   const bridge = result.traces.find((tr) => tr.name === "bridge");
   if (!bridge) return;
   const data = { frequencies: [] as number[], magnitudeDb: [] as number[], phaseDeg: [] as number[] };
@@ -268,34 +265,4 @@ async function seedFilter(t: Transaction, project: Project, users: SeedUsers): P
     { transaction: t },
   );
   await backdate(t, "comments", c.id, 5);
-}
-
-/**
- * Stand-alone entry: adds the demo runs to an already seeded demo team (e.g. from a test's setup).
- * Returns false when the demo team is missing.
- */
-export async function seedDemoRuns(): Promise<boolean> {
-  const team = await Team.findOne({ where: { slug: "corvane-instruments" } });
-  if (!team) return false;
-  const byEmail = async (email: string) => {
-    const u = await User.findOne({ where: { email } });
-    if (!u) throw new Error(`demo user ${email} is missing`);
-    return u;
-  };
-  const users = {
-    owner: await byEmail("owner@demo.test"),
-    designer: await byEmail("designer@demo.test"),
-    reviewer: await byEmail("reviewer@demo.test"),
-  };
-  const projects = await Project.findAll({ where: { teamId: team.id }, order: [["createdAt", "ASC"]] });
-  const oscillator = projects.find((p) => /oscillator/i.test(p.name));
-  const filter = projects.find((p) => /filter/i.test(p.name));
-  if (!oscillator || !filter) return false;
-  await sequelize.transaction(async (transaction) => {
-    await seedOscillator(transaction, oscillator, users);
-    await seedLimitedOscillator(transaction, oscillator, users);
-    await seedReadings(transaction, oscillator, users);
-    await seedFilter(transaction, filter, users);
-  });
-  return true;
 }

@@ -3,7 +3,7 @@ import path from "node:path";
 import bcrypt from "bcryptjs";
 import type { Transaction } from "sequelize";
 import { Membership, Project, sequelize, Team, User } from "@/lib/db";
-import type { MembershipRole } from "@/models/membership";
+import type { Role } from "@/lib/roles";
 
 // Demo data: an invented maker of bench test equipment, "Corvane Instruments", and a second,
 // unrelated team so that visibility rules can be tried by hand. Every password: phasewright-demo.
@@ -11,7 +11,7 @@ import type { MembershipRole } from "@/models/membership";
 export const DEMO_PASSWORD = "phasewright-demo";
 export const DEMO_TEAM_SLUG = "corvane-instruments";
 
-const DEMO_USERS: { email: string; name: string; role: MembershipRole }[] = [
+const DEMO_USERS: { email: string; name: string; role: Role }[] = [
   { email: "owner@demo.test", name: "Mara Quillon", role: "owner" },
   { email: "designer@demo.test", name: "Tobin Achterberg", role: "designer" },
   { email: "reviewer@demo.test", name: "Ines Varga-Holt", role: "reviewer" },
@@ -22,7 +22,7 @@ const DEMO_USERS: { email: string; name: string; role: MembershipRole }[] = [
 export interface DemoSeed {
   team: Team;
   otherTeam: Team;
-  users: Record<MembershipRole | "outsider", User>;
+  users: Record<Role | "outsider", User>;
   projects: { oscillator: Project; filter: Project; other: Project };
   transaction: Transaction;
 }
@@ -50,7 +50,7 @@ async function upsertTeam(slug: string, name: string, transaction: Transaction) 
   return team;
 }
 
-async function upsertMember(teamId: string, userId: string, role: MembershipRole, transaction: Transaction) {
+async function upsertMember(teamId: string, userId: string, role: Role, transaction: Transaction) {
   await Membership.findOrCreate({
     where: { teamId, userId },
     defaults: { teamId, userId, role },
@@ -81,7 +81,7 @@ export async function seedDemo(): Promise<boolean> {
   const existed = (await Team.count({ where: { slug: DEMO_TEAM_SLUG } })) > 0;
   await sequelize.transaction(async (transaction) => {
     const team = await upsertTeam(DEMO_TEAM_SLUG, "Corvane Instruments", transaction);
-    const users = {} as Record<MembershipRole | "outsider", User>;
+    const users = {} as Record<Role | "outsider", User>;
     for (const u of DEMO_USERS) {
       users[u.role] = await upsertUser(u.email, u.name, transaction);
       await upsertMember(team.id, users[u.role].id, u.role, transaction);

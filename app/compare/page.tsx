@@ -15,6 +15,7 @@ import { Caution } from "@/components/run/caution";
 import { EmptyState } from "@/components/ui/empty-state";
 import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
 import { authorizeRun } from "@/lib/authz";
+import type { RunComparison } from "@/lib/compare";
 import { describeDiffStats } from "@/lib/netlist-diff";
 import { visibleOr404 } from "@/lib/page-access";
 import { type CompareSideView, compareSavedRuns } from "@/lib/runs-compare";
@@ -94,34 +95,7 @@ async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; 
             />
           </div>
         </Panel>
-        {comparison.traces.some((t) => t.delay) ? (
-          <Panel aria-labelledby="delay-cmp-h">
-            <PanelHeader
-              id="delay-cmp-h"
-              title="Group delay"
-              description="B solid, A dashed; the difference B − A dotted on its own axis at the right."
-            />
-            <div className="p-2 sm:p-4">
-              <GroupDelayView
-                frequencies={comparison.traces.find((t) => t.delay)?.frequencies ?? []}
-                series={comparison.traces.flatMap((t) =>
-                  t.delay
-                    ? [
-                        { name: `${t.name} · B`, y: t.delay.b },
-                        { name: `${t.name} · A`, y: t.delay.a, dash: "dash" as const },
-                        {
-                          name: `${t.name} Δ (B − A)`,
-                          y: t.delay.diff,
-                          dash: "dot" as const,
-                          difference: true,
-                        },
-                      ]
-                    : [],
-                )}
-              />
-            </div>
-          </Panel>
-        ) : null}
+        <DelayComparePanel traces={comparison.traces} />
         <div className="grid gap-6 lg:grid-cols-2">
           <Panel aria-labelledby="measures-h">
             <PanelHeader id="measures-h" title="Measures" description="Side by side with Δ and Δ%." />
@@ -167,6 +141,39 @@ async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; 
         <Caution />
       </div>
     </div>
+  );
+}
+
+/** Group delay of both runs and B − A, when both carry it (a chart of its own). */
+function DelayComparePanel({ traces }: { traces: RunComparison["traces"] }) {
+  if (!traces.some((t) => t.delay)) return null;
+  return (
+    <Panel aria-labelledby="delay-cmp-h">
+      <PanelHeader
+        id="delay-cmp-h"
+        title="Group delay"
+        description="B solid, A dashed; the difference B − A dotted on its own axis at the right."
+      />
+      <div className="p-2 sm:p-4">
+        <GroupDelayView
+          frequencies={traces.find((t) => t.delay)?.frequencies ?? []}
+          series={traces.flatMap((t) =>
+            t.delay
+              ? [
+                  { name: `${t.name} · B`, y: t.delay.b },
+                  { name: `${t.name} · A`, y: t.delay.a, dash: "dash" as const },
+                  {
+                    name: `${t.name} Δ (B − A)`,
+                    y: t.delay.diff,
+                    dash: "dot" as const,
+                    difference: true,
+                  },
+                ]
+              : [],
+          )}
+        />
+      </div>
+    </Panel>
   );
 }
 

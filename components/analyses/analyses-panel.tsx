@@ -1,6 +1,6 @@
 "use client";
 
-import type { SolveSuccess } from "@/solver/types";
+import type { DrawnResult } from "@/lib/drawn-result";
 import { analysisSections } from "./analysis-math";
 import { JobProgress } from "./job-progress";
 import { MonteCarloView } from "./monte-carlo-view";
@@ -14,7 +14,7 @@ import { VariantsView } from "./variants-view";
 
 export interface AnalysesPanelProps {
   /** The run's result JSON (null while it is queued or when the solve failed). */
-  result: SolveSuccess | null;
+  result: DrawnResult | null;
   /** The run id: needed for the progress bar of a queued or running solve. */
   runId?: string;
   /** The run's status ('ok', 'failed', 'queued', 'running', 'cancelled'). */

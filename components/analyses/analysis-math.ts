@@ -2,7 +2,8 @@
  * Pure helpers of the analyses views (client-safe, no React): the oscillator verdict, ranked
  * sensitivities, histogram bars and pole rows. Unit-tested in tests/unit/analyses-math.test.ts.
  */
-import type { MonteCarloCheck, PoleResult, SensitivityResult, SolveSuccess } from "@/solver/types";
+import type { DrawnResult } from "@/lib/drawn-result";
+import type { MonteCarloCheck, PoleResult, SensitivityResult } from "@/solver/types";
 import { oscillatorVerdict } from "./oscillator-grade";
 
 /** Sensitivities of one measure, largest |value| first (nulls last). */
@@ -50,7 +51,7 @@ export type AnalysisSection =
  * run page that decides whether to frame it (an amplifier's loop without an oscillation verdict and
  * without studies shows none, so the page shows no empty panel).
  */
-export function analysisSections(result: SolveSuccess | null | undefined, status: string): AnalysisSection[] {
+export function analysisSections(result: DrawnResult | null | undefined, status: string): AnalysisSection[] {
   const out: AnalysisSection[] = [];
   if (status === "queued" || status === "running") out.push("job");
   if (!result?.ok) return out;

@@ -3,7 +3,7 @@
 import type { Data, Layout } from "plotly.js";
 import { frequencyChartLayout, plotColors, traceColor } from "@/components/plot/palette";
 import { plotText } from "@/components/plot/plot-text";
-import type { TraceResult } from "@/solver/types";
+import type { DrawnTrace } from "@/lib/drawn-result";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
 import { SectionTitle } from "./section";
 
@@ -19,7 +19,7 @@ export function GroupDelayView({
   frequencies,
   series,
 }: {
-  traces?: TraceResult[];
+  traces?: Pick<DrawnTrace, "name" | "groupDelay">[];
   frequencies: number[];
   series?: DelaySeries[];
 }) {

@@ -8,8 +8,10 @@
  * loop; "marginal" when the nominal circuit starts but either of those fails (the yield is named);
  * "won't start" when |T| < 1 or the poles decay; "unclear" without a loop crossing or complex poles.
  */
+
+import type { DrawnResult } from "@/lib/drawn-result";
 import { formatQuantity } from "@/solver/format";
-import type { PoleResult, SolveSuccess, ZeroPhaseLoop } from "@/solver/types";
+import type { PoleResult, ZeroPhaseLoop } from "@/solver/types";
 
 const hz = (f: number) => formatQuantity(f, "Hz");
 
@@ -59,13 +61,13 @@ function poleGrade(pole: PoleResult | null): VerdictKind {
 }
 
 /** The worst Monte Carlo yield among the checks that read the loop's measures, if below 100 %. */
-function weakestCheck(result: SolveSuccess, loop: ZeroPhaseLoop | null) {
+function weakestCheck(result: DrawnResult, loop: ZeroPhaseLoop | null) {
   const reading = new Set(loop?.checks ?? []);
   const rows = (result.monteCarlo?.checks ?? []).filter((c) => reading.has(c.expression) && c.yield < 1);
   return rows.sort((a, b) => a.yield - b.yield)[0] ?? null;
 }
 
-export function oscillatorVerdict(result: SolveSuccess): OscillatorVerdict | null {
+export function oscillatorVerdict(result: DrawnResult): OscillatorVerdict | null {
   const loop = result.zeroPhase?.[0] ?? null;
   const pole = result.poles ? dominantOscillatoryPole(result.poles) : null;
   if (!pole && !loop) return null;
@@ -100,7 +102,7 @@ function headline(kind: VerdictKind, loop: ZeroPhaseLoop | null, pole: PoleResul
 }
 
 function detail(
-  result: SolveSuccess,
+  result: DrawnResult,
   loop: ZeroPhaseLoop | null,
   pole: PoleResult | null,
   weak: { expression: string; yield: number } | null,

@@ -2,15 +2,16 @@
 
 import { useState } from "react";
 import { BodePlot } from "@/components/plot/bode-plot";
+import type { DrawnVariant } from "@/lib/drawn-result";
 import { formatQuantity } from "@/solver/format";
-import type { MeasureResult, VariantResult } from "@/solver/types";
+import type { MeasureResult } from "@/solver/types";
 import { SectionTitle } from "./section";
 
 const partUnit = (name: string) =>
   /^C/i.test(name) ? "F" : /^L/i.test(name) ? "H" : /^R/i.test(name) ? "Ω" : "";
 
 /** "Rf = 22 kΩ" for a part or a let whose name suggests its kind; plain numbers otherwise. */
-export function variantLabel(v: VariantResult): string {
+export function variantLabel(v: DrawnVariant): string {
   return `${v.name} = ${formatQuantity(v.value, partUnit(v.name), 4)}`;
 }
 
@@ -21,7 +22,7 @@ export function VariantsView({
   measures,
 }: {
   frequencies: number[];
-  variants: VariantResult[];
+  variants: DrawnVariant[];
   measures: MeasureResult[];
 }) {
   const traceNames = variants[0]?.traces.map((t) => t.name) ?? [];

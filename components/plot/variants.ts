@@ -1,5 +1,5 @@
+import type { DrawnResult } from "@/lib/drawn-result";
 import { formatSiCompact } from "@/solver/format";
-import type { SolveSuccess } from "@/solver/types";
 import { traceColor } from "./palette";
 import type { BodeOverlay } from "./types";
 
@@ -9,7 +9,7 @@ const DASHES = ["dot", "dash", "dashdot", "longdash"] as const;
  * The traces of each `vary` value as overlays on the run's grid, named "h (Cl=4.7n)": each keeps its
  * trace's colour, and the values differ by line pattern.
  */
-export function variantOverlays(result: Pick<SolveSuccess, "frequencies" | "variants">): BodeOverlay[] {
+export function variantOverlays(result: Pick<DrawnResult, "frequencies" | "variants">): BodeOverlay[] {
   return (result.variants ?? []).flatMap((v, vi) =>
     v.traces.map((t, ti) => ({
       name: `${t.name} (${v.name}=${formatSiCompact(v.value)})`,

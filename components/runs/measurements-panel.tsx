@@ -8,18 +8,9 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useHydrated } from "@/components/ui/use-hydrated";
+import type { MeasurementSummary } from "@/lib/measurements";
 import { formatDate } from "@/lib/utils";
 import { formatQuantity } from "@/solver/format";
-
-export type MeasurementRow = {
-  id: string;
-  name: string;
-  points: number;
-  uploadedByName: string;
-  createdAt: string;
-  fromHz: number | null;
-  toHz: number | null;
-};
 
 type UploadError = { message: string; lines: { line: number; message: string }[] };
 
@@ -36,7 +27,7 @@ export function MeasurementsPanel({
   canUpload,
 }: {
   projectId: string;
-  measurements: MeasurementRow[];
+  measurements: MeasurementSummary[];
   canUpload: boolean;
 }) {
   const router = useRouter();

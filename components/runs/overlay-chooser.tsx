@@ -8,13 +8,8 @@ import { useHydrated } from "@/components/ui/use-hydrated";
 import { apiErrorMessage } from "@/lib/api-error";
 import { formatQuantity } from "@/solver/format";
 
-export type OverlayOption = {
-  id: string;
-  name: string;
-  points: number;
-  fromHz: number | null;
-  toHz: number | null;
-};
+/** What the chooser shows of each data set (the server's summary, lib/measurements.ts). */
+export type OverlayOption = Pick<MeasurementSummary, "id" | "name" | "points" | "fromHz" | "toHz">;
 
 async function saveOverlays(runId: string, measurementIds: string[]): Promise<string[]> {
   const res = await fetch(`/api/runs/${runId}/overlays`, {

@@ -5,11 +5,11 @@ import { useState } from "react";
 import { buttonClass } from "@/components/ui/button-class";
 import { inputClass } from "@/components/ui/field";
 import { REVIEW_STATE_LABELS, REVIEW_STATES } from "@/lib/review-states";
-import type { RunSortKey } from "@/lib/validations/run";
+import { RUN_LIST_DEFAULTS, type RunSortKey, type SortDirection } from "@/lib/run-list";
 
 export type RunsQueryState = {
   sort: RunSortKey;
-  dir: "asc" | "desc";
+  dir: SortDirection;
   q?: string | undefined;
   review?: string | undefined;
   author?: string | undefined;
@@ -17,7 +17,7 @@ export type RunsQueryState = {
   pageSize: number;
 };
 
-const DEFAULTS = { sort: "createdAt", dir: "desc", page: 1, pageSize: 20 } as const;
+const DEFAULTS = RUN_LIST_DEFAULTS;
 
 /** The project page URL for a query; defaults are left out so links stay short. */
 export function runsHref(projectId: string, q: RunsQueryState): string {

@@ -11,9 +11,9 @@ import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
 import { buttonClass } from "@/components/ui/button-class";
+import { isRunSortKey } from "@/lib/run-list";
 import type { RunSummary } from "@/lib/run-types";
 import { cn } from "@/lib/utils";
-import { RUN_SORT_KEYS } from "@/lib/validations/run";
 import { runColumns } from "./runs-columns";
 import { RunsFilters, type RunsQueryState, runsHref } from "./runs-filters";
 import { RunsPager } from "./runs-pager";
@@ -27,7 +27,6 @@ export type RunsTableProps = {
   members: { id: string; name: string }[];
 };
 
-const SORTABLE = new Set<string>(RUN_SORT_KEYS);
 
 /** The project's runs: sorting, filters and paging live in the URL and run on the server. */
 export function RunsTable({ projectId, runs, total, pages, query, members }: RunsTableProps) {
@@ -142,18 +141,18 @@ function HeaderCell(props: {
 }) {
   const { header: h, query, onGo } = props;
   const label = flexRender(h.column.columnDef.header, h.getContext());
-  const sortable = SORTABLE.has(h.column.id);
+  const sortKey = isRunSortKey(h.column.id) ? h.column.id : null;
   const active = query.sort === h.column.id;
   const aria = active ? (query.dir === "asc" ? "ascending" : "descending") : "none";
   return (
-    <th scope="col" aria-sort={sortable ? aria : undefined} className="px-3 py-2 font-medium">
-      {sortable ? (
+    <th scope="col" aria-sort={sortKey ? aria : undefined} className="px-3 py-2 font-medium">
+      {sortKey ? (
         <button
           type="button"
           className="hover:text-ink-900 inline-flex items-center gap-1 rounded"
           onClick={() =>
             onGo({
-              sort: h.column.id as RunsQueryState["sort"],
+              sort: sortKey,
               dir: active && query.dir === "desc" ? "asc" : "desc",
               page: 1,
             })

@@ -6,6 +6,7 @@ import { Field, FieldErrors } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { initialFormState } from "@/lib/actions/state";
 import { inviteMemberAction } from "@/lib/actions/team";
+import { DEFAULT_INVITE_ROLE, ROLE_LABELS, ROLES } from "@/lib/roles";
 
 /** Owner's form: invite someone by e-mail with a role; the link goes out by e-mail. */
 export function InviteForm({ teamId }: { teamId: string }) {
@@ -36,14 +37,15 @@ export function InviteForm({ teamId }: { teamId: string }) {
           <select
             id="invite-role"
             name="role"
-            defaultValue={state.values?.role ?? "designer"}
+            defaultValue={state.values?.role ?? DEFAULT_INVITE_ROLE}
             aria-describedby="invite-role-error"
             className="border-paper-300 block h-[2.625rem] rounded-md border bg-white px-2 text-sm"
           >
-            <option value="designer">Designer</option>
-            <option value="reviewer">Reviewer</option>
-            <option value="viewer">Viewer</option>
-            <option value="owner">Owner</option>
+            {ROLES.map((role) => (
+              <option key={role} value={role}>
+                {ROLE_LABELS[role]}
+              </option>
+            ))}
           </select>
           <FieldErrors id="invite-role-error" errors={state.errors?.role} />
         </div>

@@ -4,15 +4,10 @@ import { useActionState } from "react";
 import { Button } from "@/components/ui/button";
 import { initialFormState } from "@/lib/actions/state";
 import { changeRoleAction, removeMemberAction } from "@/lib/actions/team";
-import type { Role } from "@/lib/authz";
+import { ROLE_LABELS, ROLES, type Role } from "@/lib/roles";
 import { cn } from "@/lib/utils";
 
-const ROLE_OPTIONS: { value: Role; label: string }[] = [
-  { value: "owner", label: "Owner" },
-  { value: "designer", label: "Designer" },
-  { value: "reviewer", label: "Reviewer" },
-  { value: "viewer", label: "Viewer" },
-];
+const ROLE_OPTIONS = ROLES.map((value) => ({ value, label: ROLE_LABELS[value] }));
 
 type Props = { teamId: string; membershipId: string; memberName: string; role: Role; soleOwner: boolean };
 

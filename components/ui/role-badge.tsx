@@ -1,4 +1,4 @@
-import type { Role } from "@/lib/authz";
+import type { Role } from "@/lib/roles";
 import { cn } from "@/lib/utils";
 
 const STYLES: Record<Role, string> = {

@@ -3,6 +3,7 @@
 import { revalidatePath } from "next/cache";
 import { headers } from "next/headers";
 import { type FormState, failureState, formValues, issuesToFields } from "@/lib/actions/state";
+import { User } from "@/lib/db";
 import { withDb } from "@/lib/errors";
 import { requireUser } from "@/lib/session";
 import { bumpSessionVersion } from "@/lib/session-version";
@@ -17,7 +18,6 @@ export async function updateProfileAction(_prev: FormState, formData: FormData):
   const parsed = profileUpdateSchema.safeParse({ name: formData.get("name") });
   if (!parsed.success) return { ok: false, errors: issuesToFields(parsed.error.issues), values };
   try {
-    const { User } = await import("@/lib/db");
     await withDb(() => User.update({ name: parsed.data.name }, { where: { id: actor.userId } }));
   } catch (err) {
     return { ...failureState(err, "updateProfile"), values };

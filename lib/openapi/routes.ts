@@ -6,14 +6,11 @@
  */
 
 import { z } from "zod";
-import { commentCreateSchema, commentPatchSchema } from "@/lib/validations/comment";
+import { RUN_ROUTES } from "@/lib/openapi/run-routes";
 import { invitationCreateSchema } from "@/lib/validations/invitation";
 import { measurementUploadSchema } from "@/lib/validations/measurement";
-import { overlaysSchema } from "@/lib/validations/overlays";
 import { projectCreateSchema, projectListQuerySchema, tokenCreateSchema } from "@/lib/validations/project";
-import { readingCreateSchema, readingParamsSchema } from "@/lib/validations/reading";
-import { reviewActionSchema } from "@/lib/validations/review";
-import { compareQuerySchema, runCreateSchema, runListQuerySchema } from "@/lib/validations/run";
+import { runCreateSchema, runListQuerySchema } from "@/lib/validations/run";
 import { solveRequestSchema } from "@/lib/validations/solve";
 
 export type Method = "get" | "post" | "put" | "patch" | "delete";
@@ -145,173 +142,8 @@ export const API_ROUTES: ApiRoute[] = [
     ok: { status: 201, description: "`{measurement}`" },
     errors: [400, 404, 413],
   },
-  {
-    path: "/api/runs/{id}",
-    method: "get",
-    tag: "runs",
-    summary: "A run with its netlist, result, review history and your permissions",
-    auth: "token",
-    params: id("run"),
-    ok: { status: 200, description: "`{run}`" },
-    errors: [404],
-  },
-  {
-    path: "/api/runs/{id}/export.csv",
-    method: "get",
-    tag: "runs",
-    summary: "A run's traces as CSV",
-    auth: "token",
-    params: id("run"),
-    ok: {
-      status: 200,
-      description: "frequency, then re, im, dB and degrees of each trace",
-      contentType: "text/csv",
-    },
-    errors: [404],
-  },
-  {
-    path: "/api/runs/{id}/job",
-    method: "get",
-    tag: "runs",
-    summary: "Progress of a queued run's solve",
-    auth: "token",
-    params: id("run"),
-    ok: {
-      status: 200,
-      description: "`{state, progress (0…1), error, cancelRequested, startedAt, finishedAt}`",
-    },
-    errors: [404],
-  },
-  {
-    path: "/api/runs/{id}/job",
-    method: "delete",
-    tag: "runs",
-    summary: "Cancel a queued run's solve",
-    auth: "token",
-    params: id("run"),
-    ok: { status: 200, description: "the job's state after the cancel request" },
-    errors: [404, 409],
-  },
-  {
-    path: "/api/runs/{id}/review",
-    method: "post",
-    tag: "review",
-    summary: "Request review, approve, request changes or mark superseded",
-    auth: "token",
-    params: id("run"),
-    body: reviewActionSchema,
-    ok: { status: 200, description: "the review outcome: the run's new state and the event recorded" },
-    errors: [400, 403, 404, 409],
-  },
-  {
-    path: "/api/runs/{id}/comments",
-    method: "get",
-    tag: "comments",
-    summary: "A run's comments",
-    auth: "token",
-    params: id("run"),
-    ok: { status: 200, description: "`{comments}`" },
-    errors: [404],
-  },
-  {
-    path: "/api/runs/{id}/comments",
-    method: "post",
-    tag: "comments",
-    summary: "Comment on a run, optionally pinned to a frequency of a trace",
-    auth: "token",
-    params: id("run"),
-    body: commentCreateSchema,
-    ok: { status: 201, description: "`{comment}`" },
-    errors: [400, 404],
-  },
-  {
-    path: "/api/runs/{id}/comments/{commentId}",
-    method: "patch",
-    tag: "comments",
-    summary: "Resolve or reopen a comment thread",
-    auth: "token",
-    params: z.object({ id: z.uuid(), commentId: z.uuid() }),
-    body: commentPatchSchema,
-    ok: { status: 200, description: "`{comment}`" },
-    errors: [400, 404],
-  },
-  {
-    path: "/api/runs/{id}/readings",
-    method: "get",
-    tag: "readings",
-    summary: "A run's bench readings, each beside the run's prediction",
-    description:
-      "Each reading has its arithmetic in words (`steps`), and `comparison`: measured, predicted, deviation in %, and where the run has Monte Carlo of the measure, the reading's percentile and whether it lies inside p1…p99.",
-    auth: "token",
-    params: id("run"),
-    ok: { status: 200, description: "`{readings}`" },
-    errors: [404],
-  },
-  {
-    path: "/api/runs/{id}/readings",
-    method: "post",
-    tag: "readings",
-    summary: "Record what the bench showed (designer or owner)",
-    description:
-      "JSON, or multipart form data with the same fields and an optional `file`: a PNG/JPEG scope capture up to 10 MB or a CSV up to 5 MB, judged by its content. The file goes to the object store first; when the store is down the answer is 503 and nothing is saved.",
-    auth: "token",
-    params: id("run"),
-    body: readingCreateSchema,
-    otherBodies: { "multipart/form-data": "the same fields as form fields, and an optional `file`" },
-    ok: { status: 201, description: "`{reading}`" },
-    errors: [400, 403, 404, 413, 503],
-  },
-  {
-    path: "/api/runs/{id}/readings/{readingId}",
-    method: "delete",
-    tag: "readings",
-    summary: "Delete a reading and its attachment (designer or owner)",
-    auth: "token",
-    params: readingParamsSchema,
-    ok: { status: 204, description: "deleted" },
-    errors: [403, 404, 503],
-  },
-  {
-    path: "/api/runs/{id}/readings/{readingId}/attachment",
-    method: "get",
-    tag: "readings",
-    summary: "Download a reading's attachment (members of the run's team only)",
-    auth: "token",
-    params: readingParamsSchema,
-    ok: { status: 200, description: "the file", contentType: "image/png, image/jpeg or text/csv" },
-    errors: [404, 503],
-  },
-  {
-    path: "/api/runs/{id}/overlays",
-    method: "get",
-    tag: "runs",
-    summary: "The bench data sets drawn on a run's plot",
-    auth: "token",
-    params: id("run"),
-    ok: { status: 200, description: "`{measurementIds}`" },
-    errors: [404],
-  },
-  {
-    path: "/api/runs/{id}/overlays",
-    method: "put",
-    tag: "runs",
-    summary: "Choose the bench data sets (of the run's project) drawn on a run's plot (designers, owners)",
-    auth: "token",
-    params: id("run"),
-    body: overlaysSchema,
-    ok: { status: 200, description: "`{measurementIds}`" },
-    errors: [400, 403, 404],
-  },
-  {
-    path: "/api/compare",
-    method: "get",
-    tag: "runs",
-    summary: "Compare two runs: netlist diff, parts, measures with Δ and Δ%, flipped checks, traces",
-    auth: "token",
-    query: compareQuerySchema,
-    ok: { status: 200, description: "`{a, b, comparison}`" },
-    errors: [400, 404],
-  },
+  // Routes under /api/runs/{id}: lib/openapi/run-routes.ts.
+  ...RUN_ROUTES,
   {
     path: "/api/teams/{id}/invitations",
     method: "get",

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { roleSchema } from "@/lib/validations/team";
 
 /** `POST /api/teams/:id/invitations` (owner only). */
 export const invitationCreateSchema = z.object({
@@ -6,7 +7,7 @@ export const invitationCreateSchema = z.object({
     .email("Enter an e-mail address.")
     .max(320)
     .transform((s) => s.toLowerCase()),
-  role: z.enum(["owner", "designer", "reviewer", "viewer"], "Choose owner, designer, reviewer or viewer."),
+  role: roleSchema,
 });
 export type InvitationCreateInput = z.infer<typeof invitationCreateSchema>;
 

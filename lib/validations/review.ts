@@ -2,7 +2,6 @@ import { z } from "zod";
 import { NOTE_REQUIRED_ACTIONS, REVIEW_ACTIONS, type ReviewAction } from "@/lib/review-states";
 
 export { REVIEW_ACTIONS };
-export type ReviewActionInput = ReviewAction;
 
 const needsNote = (action: ReviewAction) =>
   (NOTE_REQUIRED_ACTIONS as readonly ReviewAction[]).includes(action);

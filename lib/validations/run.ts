@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { REVIEW_STATES } from "@/lib/review-states";
+import { MAX_RUN_PAGE_SIZE, RUN_LIST_DEFAULTS, RUN_SORT_KEYS, SORT_DIRECTIONS } from "@/lib/run-list";
 
 /** `POST /api/projects/:id/runs`: solve the netlist and save it as a new run. */
 export const runCreateSchema = z.object({
@@ -9,19 +10,18 @@ export const runCreateSchema = z.object({
 });
 export type RunCreateInput = z.infer<typeof runCreateSchema>;
 
-export const RUN_SORT_KEYS = ["createdAt", "title", "author", "reviewState", "checksPassed"] as const;
-export type RunSortKey = (typeof RUN_SORT_KEYS)[number];
+export { RUN_SORT_KEYS, type RunSortKey } from "@/lib/run-list";
 export const RUN_REVIEW_FILTERS = REVIEW_STATES;
 
 /** Query string of the runs list: server-side sorting, filtering and pagination. */
 export const runListQuerySchema = z.object({
-  sort: z.enum(RUN_SORT_KEYS).default("createdAt"),
-  dir: z.enum(["asc", "desc"]).default("desc"),
+  sort: z.enum(RUN_SORT_KEYS).default(RUN_LIST_DEFAULTS.sort),
+  dir: z.enum(SORT_DIRECTIONS).default(RUN_LIST_DEFAULTS.dir),
   q: z.string().trim().max(200).optional(),
   review: z.enum(RUN_REVIEW_FILTERS).optional(),
   author: z.uuid("Not a user id.").optional(),
-  page: z.coerce.number().int().min(1).default(1),
-  pageSize: z.coerce.number().int().min(1).max(100).default(20),
+  page: z.coerce.number().int().min(1).default(RUN_LIST_DEFAULTS.page),
+  pageSize: z.coerce.number().int().min(1).max(MAX_RUN_PAGE_SIZE).default(RUN_LIST_DEFAULTS.pageSize),
 });
 export type RunListQuery = z.infer<typeof runListQuerySchema>;
 

@@ -4,5 +4,3 @@ import { z } from "zod";
 export const solveRequestSchema = z.object({
   netlist: z.string({ error: "netlist must be the netlist text" }),
 });
-
-export type SolveRequest = z.infer<typeof solveRequestSchema>;

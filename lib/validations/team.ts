@@ -1,8 +1,7 @@
 import { z } from "zod";
+import { ROLE_CHOICE_MESSAGE, ROLES } from "@/lib/roles";
 
-export const roleSchema = z.enum(["owner", "designer", "reviewer", "viewer"], {
-  error: "Choose one of owner, designer, reviewer or viewer.",
-});
+export const roleSchema = z.enum(ROLES, { error: ROLE_CHOICE_MESSAGE });
 
 const uuid = (what: string) => z.uuid({ error: `Not a valid ${what} id.` });
 
@@ -16,5 +15,3 @@ export const memberRemoveSchema = z.object({
   teamId: uuid("team"),
   membershipId: uuid("membership"),
 });
-
-export type MemberRoleUpdateInput = z.infer<typeof memberRoleUpdateSchema>;

@@ -78,3 +78,30 @@ describe("bench data overlays of a run", () => {
     });
   });
 });
+
+describe("what the pages load (issue 14: only what they draw)", () => {
+  it("the project's list carries each set's range but not its points; a run loads the points of its overlays only", async () => {
+    const { listMeasurements } = await import("@/lib/measurements");
+    const { overlaidData, setOverlays } = await import("@/lib/run-overlays");
+    const run = await insertRun(fx.project.id, fx.users.designer.id, { title: "Overlay run" });
+    const m1 = await measurement(fx.project.id, "board 1");
+    await Measurement.create({
+      projectId: fx.project.id,
+      uploadedById: fx.users.designer.id,
+      name: "board 2",
+      data: { frequencies: [20, 200, 2000], magnitudeDb: [0, -1, -9], phaseDeg: [0, -10, -60] },
+      points: 3,
+    });
+    const designer = { userId: fx.users.designer.id, email: fx.users.designer.email, name: "d" };
+
+    const list = await listMeasurements(designer, fx.project.id);
+    expect(list.map((m) => [m.name, m.points, m.fromHz, m.toHz, "data" in m])).toEqual([
+      ["board 2", 3, 20, 2000, false],
+      ["board 1", 2, 100, 1000, false],
+    ]);
+
+    expect(await overlaidData(run.id)).toEqual([]);
+    await setOverlays(designer, run.id, [m1.id]);
+    expect(await overlaidData(run.id)).toEqual([{ id: m1.id, name: "board 1", data }]);
+  });
+});

@@ -128,6 +128,7 @@ describe("POST /api/runs/:id/review", () => {
 
   it("supersede links a later run of the same project and records the event on the older run", async () => {
     const older = await insertRun(fx.project.id, fx.users.designer.id, { title: "rev 1" });
+    const sibling = await insertRun(fx.project.id, fx.users.designer.id, { title: "rev 1b" });
     const newer = await insertRun(fx.project.id, fx.users.designer.id, { title: "rev 2" });
     const elsewhere = await insertRun(fx.otherProject.id, fx.users.outsider.id);
 
@@ -150,6 +151,12 @@ describe("POST /api/runs/:id/review", () => {
     expect((await review("reviewer", older.id, { action: "supersede", supersededBy: newer.id })).status).toBe(
       403,
     );
+    // lib/supersede.ts: a link is made once, and a run supersedes at most one run.
+    const again = await review("designer", older.id, { action: "supersede", supersededBy: newer.id });
+    expect([again.status, again.body.error.code]).toEqual([409, "conflict"]);
+    const another = await review("designer", sibling.id, { action: "supersede", supersededBy: newer.id });
+    expect(another.body.error.code).toBe("conflict");
+    expect(await ReviewEvent.count({ where: { runId: older.id, action: "supersede" } })).toBe(1);
   });
 });
 

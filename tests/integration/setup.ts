@@ -7,7 +7,7 @@
 import bcrypt from "bcryptjs";
 import { afterAll, beforeAll, beforeEach } from "vitest";
 import { Membership, Project, sequelize, Team, User } from "@/lib/db";
-import type { MembershipRole } from "@/models/membership";
+import { ROLES, type Role } from "@/lib/roles";
 import { createMigrator } from "../../scripts/lib/migrator";
 
 /** Password of every fixture user (hashed with bcrypt cost 4 to keep tests fast). */
@@ -54,7 +54,7 @@ export function useTestDb(options: { truncate?: "each" | "file" } = {}): void {
 export interface Fixtures {
   team: Team;
   otherTeam: Team;
-  users: Record<MembershipRole | "outsider", User>;
+  users: Record<Role | "outsider", User>;
   project: Project;
   otherProject: Project;
 }
@@ -67,8 +67,8 @@ export async function createFixtures(): Promise<Fixtures> {
   const passwordHash = await bcrypt.hash(FIXTURE_PASSWORD, 4);
   const team = await Team.create({ name: "Fixture Bench", slug: "fixture-bench" });
   const otherTeam = await Team.create({ name: "Elsewhere Lab", slug: "elsewhere-lab" });
-  const roles: MembershipRole[] = ["owner", "designer", "reviewer", "viewer"];
-  const users = {} as Record<MembershipRole | "outsider", User>;
+  const roles = ROLES;
+  const users = {} as Record<Role | "outsider", User>;
   for (const role of roles) {
     users[role] = await User.create({
       email: `${role}@fixture.test`,

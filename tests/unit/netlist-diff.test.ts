@@ -1,6 +1,12 @@
 import { describe, expect, it } from "vitest";
-import { diffNetlists } from "@/lib/compare";
-import { foldRows, lineSegments, lineSubject, netlistDiffStats, netlistRows } from "@/lib/netlist-diff";
+import {
+  diffNetlists,
+  foldRows,
+  lineSegments,
+  lineSubject,
+  netlistDiffStats,
+  netlistRows,
+} from "@/lib/netlist-diff";
 
 const rowsOf = (a: string, b: string) => netlistRows(diffNetlists(a, b));
 

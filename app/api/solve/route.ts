@@ -1,11 +1,10 @@
-import { json, withApi } from "@/lib/api";
+import { json, withActor } from "@/lib/api";
 import { readJsonBody } from "@/lib/body";
 import { RateLimitError, TooLargeError } from "@/lib/errors";
 import { previewOptions } from "@/lib/jobs";
 import { MAX_NETLIST_BYTES, MAX_PREVIEW_POINTS, SOLVE_RATE_PER_MINUTE } from "@/lib/limits";
 import { solvePreview } from "@/lib/preview-pool";
 import { createRateLimiter } from "@/lib/rate-limit";
-import { requireActor } from "@/lib/session";
 import { solveRequestSchema } from "@/lib/validations/solve";
 
 // The solver runs on the preview pool's worker threads (lib/preview-pool.ts); never cached.
@@ -24,9 +23,7 @@ const MAX_BODY_BYTES = MAX_NETLIST_BYTES * 2 + 1024;
  * streams in), 429 over the per-user rate, 503 when the preview pool is full or a preview runs too long.
  * Over the work budget (lib/jobs.ts `solveWork`) the answer is the nominal sweep with `deferred` saying why.
  */
-export const POST = withApi(async (req: Request) => {
-  const actor = await requireActor(req);
-
+export const POST = withActor(async (actor, _params, req) => {
   const hit = limiter.hit(actor.userId);
   if (!hit.ok) {
     throw new RateLimitError("Too many previews in a minute. Wait a moment and try again.", {

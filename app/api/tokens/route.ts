@@ -1,11 +1,10 @@
-import { json, readJson, withApi } from "@/lib/api";
-import { requireActor, requireSessionActor } from "@/lib/session";
+import { json, readJson, withActor, withApi } from "@/lib/api";
+import { requireSessionActor } from "@/lib/session";
 import { createApiToken, listApiTokens } from "@/lib/tokens";
 import { tokenCreateSchema } from "@/lib/validations/project";
 
 /** GET /api/tokens — the caller's tokens (prefix only). */
-export const GET = withApi(async (req: Request) => {
-  const actor = await requireActor(req);
+export const GET = withActor(async (actor) => {
   return json({ tokens: await listApiTokens(actor.userId) });
 });
 

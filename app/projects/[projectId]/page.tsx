@@ -102,7 +102,7 @@ export default async function ProjectPage({ params, searchParams }: Props) {
           <MeasurementsPanel
             projectId={project.id}
             canUpload={project.canUpload}
-            measurements={measurements.map(({ data: _d, ...m }) => m)}
+            measurements={measurements}
           />
         </div>
       </Panel>

@@ -5,10 +5,11 @@ import { InviteForm } from "@/components/team/invite-form";
 import { MemberList } from "@/components/team/member-list";
 import { PageHeading, Panel, PanelHeader } from "@/components/ui/panel";
 import { RoleBadge } from "@/components/ui/role-badge";
-import { can, isRole, isUuid } from "@/lib/authz";
+import { can, isUuid } from "@/lib/authz";
 import { NotFoundError } from "@/lib/errors";
 import { listInvitations } from "@/lib/invitations";
 import { teamPageMetadata } from "@/lib/page-titles";
+import { isRole, ROLE_DUTIES, ROLES } from "@/lib/roles";
 import { requireUser } from "@/lib/session";
 import { getTeamForMember } from "@/lib/teams";
 import { formatDate } from "@/lib/utils";
@@ -16,13 +17,6 @@ import { formatDate } from "@/lib/utils";
 export function generateMetadata({ params }: { params: Promise<{ teamId: string }> }): Promise<Metadata> {
   return params.then(({ teamId }) => teamPageMetadata(teamId));
 }
-
-const ROLE_HELP = [
-  ["owner", "everything, plus members, roles and deleting projects"],
-  ["designer", "creates projects and runs, uploads measurements, asks for review"],
-  ["reviewer", "reads, comments, signs off or sends back runs"],
-  ["viewer", "reads only"],
-] as const;
 
 export default async function TeamPage({ params }: { params: Promise<{ teamId: string }> }) {
   const { teamId } = await params;
@@ -81,12 +75,12 @@ export default async function TeamPage({ params }: { params: Promise<{ teamId: s
         </Panel>
       ) : null}
       <dl className="mt-8 grid gap-3 text-sm sm:grid-cols-2">
-        {ROLE_HELP.map(([role, help]) => (
+        {ROLES.map((role) => (
           <div key={role} className="border-paper-200 rounded-md border bg-white p-3">
             <dt>
               <RoleBadge role={role} />
             </dt>
-            <dd className="text-ink-600 mt-1">{help}</dd>
+            <dd className="text-ink-600 mt-1">{ROLE_DUTIES[role]}</dd>
           </div>
         ))}
       </dl>

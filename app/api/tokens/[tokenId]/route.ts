@@ -1,13 +1,10 @@
-import { withApi } from "@/lib/api";
-import { requireActor } from "@/lib/session";
+import { withActor } from "@/lib/api";
 import { revokeApiToken } from "@/lib/tokens";
 
 type Ctx = { params: Promise<{ tokenId: string }> };
 
 /** DELETE /api/tokens/:id — revoke one of the caller's tokens (someone else's → 404). */
-export const DELETE = withApi(async (req: Request, ctx: Ctx) => {
-  const actor = await requireActor(req);
-  const { tokenId } = await ctx.params;
+export const DELETE = withActor<Ctx>(async (actor, { tokenId }) => {
   await revokeApiToken(actor.userId, tokenId);
   return new Response(null, { status: 204 });
 });

@@ -1,8 +1,7 @@
-import { json, readJson, withApi } from "@/lib/api";
+import { json, readJson, withActor } from "@/lib/api";
 import { readBodyText, readFormData } from "@/lib/body";
 import { BadRequestError } from "@/lib/errors";
-import { createMeasurement, listMeasurements, MAX_MEASUREMENT_BYTES } from "@/lib/measurements";
-import { requireActor } from "@/lib/session";
+import { createMeasurement, listMeasurementsWithData, MAX_MEASUREMENT_BYTES } from "@/lib/measurements";
 import { measurementUploadSchema } from "@/lib/validations/measurement";
 
 export const runtime = "nodejs";
@@ -11,10 +10,8 @@ export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };
 
 /** GET /api/projects/:id/measurements → the project's bench data, newest first. */
-export const GET = withApi(async (req: Request, { params }: Ctx) => {
-  const actor = await requireActor(req);
-  const { id } = await params;
-  return json({ measurements: await listMeasurements(actor, id) });
+export const GET = withActor<Ctx>(async (actor, { id }) => {
+  return json({ measurements: await listMeasurementsWithData(actor, id) });
 });
 
 /**
@@ -22,9 +19,7 @@ export const GET = withApi(async (req: Request, { params }: Ctx) => {
  * multipart form data (`file`, `name`), as JSON `{name, csv}`, or as `text/csv` with `?name=`.
  * Bad rows → 400 with `details.errors` [{line, message}].
  */
-export const POST = withApi(async (req: Request, { params }: Ctx) => {
-  const actor = await requireActor(req);
-  const { id } = await params;
+export const POST = withActor<Ctx>(async (actor, { id }, req) => {
   // Counted while the body streams in (lib/body.ts): 413 before an oversized upload is buffered.
   const limit = MAX_MEASUREMENT_BYTES + 64_000;
   const what = "The file";

@@ -1,6 +1,5 @@
-import { json, readJson, withApi } from "@/lib/api";
+import { json, readJson, withActor } from "@/lib/api";
 import { createComment, listComments } from "@/lib/comments";
-import { requireActor } from "@/lib/session";
 import { commentCreateSchema } from "@/lib/validations/comment";
 
 export const runtime = "nodejs";
@@ -9,16 +8,12 @@ export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };
 
 /** GET /api/runs/:id/comments → the run's comments, oldest first. */
-export const GET = withApi(async (req: Request, { params }: Ctx) => {
-  const actor = await requireActor(req);
-  const { id } = await params;
+export const GET = withActor<Ctx>(async (actor, { id }) => {
   return json({ comments: await listComments(actor, id) });
 });
 
 /** POST /api/runs/:id/comments `{body, frequencyHz?, trace?, parentId?}` → 201 with the comment. */
-export const POST = withApi(async (req: Request, { params }: Ctx) => {
-  const actor = await requireActor(req);
-  const { id } = await params;
+export const POST = withActor<Ctx>(async (actor, { id }, req) => {
   const input = await readJson(req, commentCreateSchema);
   return json({ comment: await createComment(actor, id, input) }, 201);
 });

@@ -1,7 +1,6 @@
-import { json, withApi } from "@/lib/api";
+import { json, withActor } from "@/lib/api";
 import { authorizeRun } from "@/lib/authz";
 import { cancelRunJob, getRunJob, type RunJobView } from "@/lib/jobs";
-import { requireActor } from "@/lib/session";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
@@ -22,17 +21,13 @@ function shape(runStatus: string, job: RunJobView | null) {
 }
 
 /** GET /api/runs/:id/job → {state, progress 0..1, error, cancelRequested} (run:read). */
-export const GET = withApi(async (req: Request, { params }: Ctx) => {
-  const actor = await requireActor(req);
-  const { id } = await params;
+export const GET = withActor<Ctx>(async (actor, { id }) => {
   const { run } = await authorizeRun(actor.userId, id, "run:read");
   return json(shape(run.status, await getRunJob(id)));
 });
 
 /** DELETE /api/runs/:id/job → cancel a queued or running solve (run:create); answers the new state. */
-export const DELETE = withApi(async (req: Request, { params }: Ctx) => {
-  const actor = await requireActor(req);
-  const { id } = await params;
+export const DELETE = withActor<Ctx>(async (actor, { id }) => {
   const { run } = await authorizeRun(actor.userId, id, "run:create");
   const job = await cancelRunJob(id);
   const fresh = await getRunJob(id);

@@ -1,8 +1,7 @@
-import { json, readJson, withApi, zodFieldErrors } from "@/lib/api";
+import { json, readJson, withActor, zodFieldErrors } from "@/lib/api";
 import { BadRequestError, TooLargeError } from "@/lib/errors";
 import { MAX_READING_IMAGE_BYTES } from "@/lib/limits";
 import { createReading, listReadings, type UploadedFile } from "@/lib/readings";
-import { requireActor } from "@/lib/session";
 import { readingCreateSchema } from "@/lib/validations/reading";
 
 export const runtime = "nodejs";
@@ -11,9 +10,7 @@ export const dynamic = "force-dynamic";
 type Ctx = { params: Promise<{ id: string }> };
 
 /** GET /api/runs/:id/readings → `{readings}`, each beside the run's prediction. */
-export const GET = withApi(async (req: Request, { params }: Ctx) => {
-  const actor = await requireActor(req);
-  const { id } = await params;
+export const GET = withActor<Ctx>(async (actor, { id }) => {
   return json({ readings: await listReadings(actor, id) });
 });
 
@@ -44,9 +41,7 @@ async function readForm(req: Request) {
  * POST /api/runs/:id/readings — JSON, or multipart form data with the same fields and an optional
  * `file` (PNG/JPEG scope capture ≤ 10 MB, CSV ≤ 5 MB; the content decides the type).
  */
-export const POST = withApi(async (req: Request, { params }: Ctx) => {
-  const actor = await requireActor(req);
-  const { id } = await params;
+export const POST = withActor<Ctx>(async (actor, { id }, req) => {
   if (Number(req.headers.get("content-length") ?? "0") > MAX_READING_IMAGE_BYTES + 64_000) {
     const message = `Files are accepted up to ${MAX_READING_IMAGE_BYTES / (1024 * 1024)} MB.`;
     throw new TooLargeError(message, { fields: { file: [message] } });

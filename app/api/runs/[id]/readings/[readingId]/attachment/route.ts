@@ -1,16 +1,13 @@
-import { withApi } from "@/lib/api";
+import { withActor } from "@/lib/api";
 import { contentDisposition } from "@/lib/attachments";
 import { readAttachment } from "@/lib/readings";
-import { requireActor } from "@/lib/session";
 
 export const runtime = "nodejs";
 export const dynamic = "force-dynamic";
 
 /** GET /api/runs/:id/readings/:readingId/attachment → the stored file, for members of the run's team only. */
-export const GET = withApi(
-  async (req: Request, { params }: { params: Promise<{ id: string; readingId: string }> }) => {
-    const actor = await requireActor(req);
-    const { id, readingId } = await params;
+export const GET = withActor<{ params: Promise<{ id: string; readingId: string }> }>(
+  async (actor, { id, readingId }) => {
     const file = await readAttachment(actor, id, readingId);
     return new Response(Buffer.from(file.body), {
       status: 200,
