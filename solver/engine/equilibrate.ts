@@ -126,3 +126,102 @@ function rescale(factor: Float64Array, max: Float64Array): number {
   }
   return moved;
 }
+
+/**
+ * The maxima of one Ruiz step from D = I (`Equilibration.step` without its square roots): the
+ * largest |re| + |im| of every row into rmax and of every column into cmax. One O(nnz) pass.
+ */
+export function rowColumnMaxima(
+  a: SparseComplexMatrix,
+  re: Float64Array,
+  im: Float64Array,
+  rmax: Float64Array,
+  cmax: Float64Array,
+): void {
+  const { rowPtr, colIdx, n } = a;
+  cmax.fill(0);
+  for (let i = 0; i < n; i++) {
+    let m = 0;
+    const p1 = rowPtr[i + 1]!;
+    for (let p = rowPtr[i]!; p < p1; p++) {
+      const j = colIdx[p]!;
+      const v = Math.abs(re[p]!) + Math.abs(im[p]!);
+      if (v > m) m = v;
+      if (v > cmax[j]!) cmax[j] = v;
+    }
+    rmax[i] = m;
+  }
+}
+
+/**
+ * Each row's and column's largest |re| + |im| of A = G + jωC as terms |g| + ω·|c| (ω ≥ 0), kept
+ * only where no other entry of the same row (column) has both a larger-or-equal |g| and |c|:
+ * a dropped term is ≤ a kept one at every ω, and stays so after rounding (rounded + and × are
+ * monotone), so the maximum over the kept terms is bit for bit the maximum over all entries. A
+ * row of a circuit matrix keeps one or two terms, so a frequency's maxima cost O(n), not O(nnz).
+ */
+export interface PencilMaxima {
+  rowPtr: Int32Array;
+  rowG: Float64Array;
+  rowC: Float64Array;
+  colPtr: Int32Array;
+  colG: Float64Array;
+  colC: Float64Array;
+}
+
+export function pencilMaxima(a: SparseComplexMatrix, g: Float64Array, c: Float64Array): PencilMaxima {
+  const { rowPtr, colIdx, n } = a;
+  const byRow: number[][] = Array.from({ length: n }, () => []);
+  const byCol: number[][] = Array.from({ length: n }, () => []);
+  for (let i = 0; i < n; i++) {
+    for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
+      byRow[i]!.push(p);
+      byCol[colIdx[p]!]!.push(p);
+    }
+  }
+  const pack = (lists: number[][]) => {
+    const ptr = new Int32Array(n + 1);
+    const gs: number[] = [];
+    const cs: number[] = [];
+    for (let i = 0; i < n; i++) {
+      // Largest |g| first (ties: largest |c| first); keep a term only if its |c| beats every kept one.
+      const terms = lists[i]!.map((p) => [Math.abs(g[p]!), Math.abs(c[p]!)] as const)
+        .filter(([x, y]) => !Number.isNaN(x) && !Number.isNaN(y))
+        .sort((u, v) => v[0] - u[0] || v[1] - u[1]);
+      let bestC = -1;
+      for (const [x, y] of terms) {
+        if (y <= bestC) continue;
+        gs.push(x);
+        cs.push(y);
+        bestC = y;
+      }
+      ptr[i + 1] = gs.length;
+    }
+    return { ptr, g: Float64Array.from(gs), c: Float64Array.from(cs) };
+  };
+  const rows = pack(byRow);
+  const cols = pack(byCol);
+  return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
+}
+
+/** out[i] = max over i's kept terms of g + w·c (0 for none): the maxima at ω = w ≥ 0. */
+export function evalMaxima(
+  ptr: Int32Array,
+  g: Float64Array,
+  c: Float64Array,
+  w: number,
+  out: Float64Array,
+): void {
+  const n = out.length;
+  let p0 = 0;
+  for (let i = 0; i < n; i++) {
+    const p1 = ptr[i + 1]!;
+    let m = 0;
+    for (let p = p0; p < p1; p++) {
+      const v = g[p]! + w * c[p]!;
+      if (v > m) m = v;
+    }
+    out[i] = m;
+    p0 = p1;
+  }
+}

@@ -1,4 +1,10 @@
-import { Equilibration } from "./equilibrate";
+import {
+  Equilibration,
+  evalMaxima,
+  type PencilMaxima,
+  pencilMaxima,
+  rowColumnMaxima,
+} from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
@@ -47,6 +53,8 @@ export class SparseComplexLU {
   private base: Symbolic | null = null;
   private sym: Symbolic | null = null;
   private aPos: Int32Array = new Int32Array(0);
+  /** aPos of every order in use (the sweep's and its alternates), so switching allocates nothing. */
+  private readonly positions = new Map<Symbolic, Int32Array>();
   private lRe = new Float64Array(0);
   private lIm = new Float64Array(0);
   private uRe = new Float64Array(0);
@@ -56,7 +64,21 @@ export class SparseComplexLU {
   private readonly wRe: Float64Array;
   private readonly wIm: Float64Array;
   private readonly eq: Equilibration;
-  private readonly colStep: Float64Array;
+  /**
+   * The pivot tests of the current values, in pivot order, squared so that no step needs a square
+   * root: colSq[k] = c_k² (the column factor of step k), rowDen[k] = 1/r_k² (of its row). After a
+   * full equilibration these are `eq`'s powers of two; on the refactor path they come from one
+   * Ruiz step, c_j = 1/√cmax_j and r_i = 1/√rmax_i, i.e. colSq = 1/cmax, rowDen = rmax.
+   */
+  private readonly colSq: Float64Array;
+  private readonly rowDen: Float64Array;
+  /** Largest |re| + |im| of each original row and column (the one Ruiz step of a refactor). */
+  private readonly rmax: Float64Array;
+  private readonly cmax: Float64Array;
+  /** Where the current tests came from: a full equilibration (`eq`) or the maxima. */
+  private testsFromEq = true;
+  /** A pencil G + s·C the values come from (`setPencil`): its maxima per row and column. */
+  private pencil: PencilMaxima | null = null;
   /** Zero-pivot bound of the current values: singularRel · max |scaled entry|. */
   private absTol = 0;
   private singular = false;
@@ -85,7 +107,10 @@ export class SparseComplexLU {
     this.wRe = new Float64Array(a.n);
     this.wIm = new Float64Array(a.n);
     this.eq = new Equilibration(a.n);
-    this.colStep = new Float64Array(a.n);
+    this.colSq = new Float64Array(a.n);
+    this.rowDen = new Float64Array(a.n);
+    this.rmax = new Float64Array(a.n);
+    this.cmax = new Float64Array(a.n);
     this.scale(a.re, a.im);
     this.analyse(a.re, a.im, true);
   }
@@ -99,7 +124,19 @@ export class SparseComplexLU {
 
   /** Row and column scale factors of the last (re)factorization (D_r, D_c of the original indices). */
   get scaling(): { row: Float64Array; col: Float64Array } {
-    return { row: this.eq.row, col: this.eq.col };
+    if (this.testsFromEq) return { row: this.eq.row, col: this.eq.col };
+    const f = (m: number) => (m > 0 && m < Number.POSITIVE_INFINITY ? 1 / Math.sqrt(m) : 1);
+    return { row: this.rmax.map(f), col: this.cmax.map(f) };
+  }
+
+  /**
+   * Declare that every later `refactorAt(ω, re, im)` gets re = g, im = ω·c (A = G + jωC with
+   * G, C in A's CSR order): the one Ruiz step per frequency then reads each row's and column's
+   * largest |re| + |im| = |g| + |ω|·|c| off a few precomputed terms (see `pencilMaxima`) instead
+   * of a pass over every entry. Same numbers, bit for bit, as the pass.
+   */
+  setPencil(g: Float64Array, c: Float64Array): void {
+    this.pencil = pencilMaxima(this.a, g, c);
   }
 
   /** Original column indices left unpivoted when the factorization failed (diagnostics). */
@@ -167,8 +204,30 @@ export class SparseComplexLU {
       return this.analyse(re, im, true);
     }
     // One scaling step per frequency (one pass over the values); a re-pivot equilibrates fully.
-    this.absTol = this.singularRel * this.eq.step(this.a, re, im);
-    if (this.base !== this.sym) this.use(this.base);
+    rowColumnMaxima(this.a, re, im, this.rmax, this.cmax);
+    return this.refactorScaled(re, im);
+  }
+
+  /**
+   * `refactor` for values re = g, im = ω·c of the pencil given to `setPencil` (the caller has
+   * written them): the same factors and verdicts, with the scaling step read off the pencil.
+   */
+  refactorAt(omega: number, re: Float64Array, im: Float64Array): boolean {
+    const pen = this.pencil;
+    if (!pen || !this.base) return this.refactor(re, im);
+    const w = Math.abs(omega);
+    evalMaxima(pen.rowPtr, pen.rowG, pen.rowC, w, this.rmax);
+    evalMaxima(pen.colPtr, pen.colG, pen.colC, w, this.cmax);
+    return this.refactorScaled(re, im);
+  }
+
+  /** The refactor path after the maxima of one Ruiz step are in rmax/cmax. */
+  private refactorScaled(re: Float64Array, im: Float64Array): boolean {
+    // Every entry of the once-scaled matrix is at most 1 (|a_ij| ≤ √(rmax_i·cmax_j)).
+    this.absTol = this.singularRel;
+    this.testsFromEq = false;
+    if (this.base !== this.sym) this.use(this.base!);
+    else this.prepareTests();
     if (this.numeric(re, im)) return true;
     // The sweep's order failed here: try the orders earlier frequencies needed (newest first),
     // so a band of frequencies that needs another order analyses it once, not at every point.
@@ -181,7 +240,9 @@ export class SparseComplexLU {
     const ok = this.analyse(re, im, false);
     if (ok && this.sym) {
       this.alternates.push(this.sym);
-      if (this.alternates.length > 8) this.alternates.shift();
+      if (this.alternates.length > 8) this.positions.delete(this.alternates.shift()!);
+    } else if (this.sym && this.sym !== this.base && !this.alternates.includes(this.sym)) {
+      this.positions.delete(this.sym);
     }
     return ok;
   }
@@ -189,6 +250,30 @@ export class SparseComplexLU {
   /** Equilibrate the values re/im: factors into `eq`, the zero-pivot bound into `absTol`. */
   private scale(re: Float64Array, im: Float64Array): void {
     this.absTol = this.singularRel * this.eq.compute(this.a, re, im);
+    this.testsFromEq = true;
+  }
+
+  /** colSq/rowDen in the current pivot order, from `eq` or from the maxima (see the fields). */
+  private prepareTests(): void {
+    const { rowPerm, colPerm } = this.sym!;
+    const { colSq, rowDen, n } = this;
+    if (this.testsFromEq) {
+      const { row, col } = this.eq;
+      for (let k = 0; k < n; k++) {
+        const c = col[colPerm[k]!]!;
+        const r = row[rowPerm[k]!]!;
+        colSq[k] = c * c;
+        rowDen[k] = 1 / (r * r);
+      }
+      return;
+    }
+    const { rmax, cmax } = this;
+    for (let k = 0; k < n; k++) {
+      const cm = cmax[colPerm[k]!]!;
+      const rm = rmax[rowPerm[k]!]!;
+      colSq[k] = cm > 0 && cm < Number.POSITIVE_INFINITY ? 1 / cm : 1;
+      rowDen[k] = rm > 0 && rm < Number.POSITIVE_INFINITY ? rm : 1;
+    }
   }
 
   private analyse(re: Float64Array, im: Float64Array, asBase: boolean): boolean {
@@ -220,9 +305,15 @@ export class SparseComplexLU {
 
   private use(s: Symbolic): void {
     this.sym = s;
+    this.prepareTests();
     const a = this.a;
-    this.aPos = new Int32Array(a.colIdx.length);
-    for (let p = 0; p < a.colIdx.length; p++) this.aPos[p] = s.colPos[a.colIdx[p]!]!;
+    let aPos = this.positions.get(s);
+    if (!aPos) {
+      aPos = new Int32Array(a.colIdx.length);
+      for (let p = 0; p < a.colIdx.length; p++) aPos[p] = s.colPos[a.colIdx[p]!]!;
+      this.positions.set(s, aPos);
+    }
+    this.aPos = aPos;
     if (this.lRe.length !== s.lIdx.length) {
       this.lRe = new Float64Array(s.lIdx.length);
       this.lIm = new Float64Array(s.lIdx.length);
@@ -233,33 +324,38 @@ export class SparseComplexLU {
     }
   }
 
-  /** Numeric factorization over the current pattern; false on a failed pivot. */
+  /**
+   * Numeric factorization over the current pattern; false on a failed pivot.
+   * The tests, squared (no square root per step; colSq/rowDen from `prepareTests`):
+   *  - zero pivot: |u_kk|·c_k·r_k ≤ absTol  ⇔  |u_kk|²·c_k² ≤ absTol²/r_k²;
+   *  - threshold: |u_kk|·c_k ≥ τ·max_j (|re|+|im|)(u_kj)·c_j/√2 (|x|₁/√2 ≤ |x|₂, a conservative
+   *    bound), compared as squares.
+   */
   private numeric(re: Float64Array, im: Float64Array, lenient = false): boolean {
     const s = this.sym!;
     const { rowPtr } = this.a;
-    const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = s;
-    const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, absTol } = this;
-    const { row, col } = this.eq;
-    // Column factors in pivot order, for the tests below.
-    const cs = this.colStep;
-    for (let k = 0; k < this.n; k++) cs[k] = col[colPerm[k]!]!;
+    const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
+    const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, colSq, rowDen, n } = this;
+    const tol2 = this.absTol * this.absTol;
     const tau = lenient ? 0 : this.opt.pivotThreshold;
+    const half = 0.5 * tau * tau;
     this.singular = false;
     this.failedStep = -1;
-    this.failedCols = [];
+    if (this.failedCols.length > 0) this.failedCols = [];
     // The scatter vector starts at zero (`solve` uses it as scratch too); each row leaves it zero,
     // so no row has to clear its pattern first.
     wRe.fill(0);
     wIm.fill(0);
-    for (let k = 0; k < this.n; k++) {
-      const l0 = lPtr[k]!;
+    let l0 = 0;
+    let u0 = 0;
+    for (let k = 0; k < n; k++) {
       const l1 = lPtr[k + 1]!;
-      const u0 = uPtr[k]!;
       const u1 = uPtr[k + 1]!;
       // Scatter row rowPerm[k] of A (w is zero here: every entry of the row's pattern is zeroed as
       // it is read below, and every entry written lies in that pattern).
       const r = rowPerm[k]!;
-      for (let p = rowPtr[r]!; p < rowPtr[r + 1]!; p++) {
+      const p1 = rowPtr[r + 1]!;
+      for (let p = rowPtr[r]!; p < p1; p++) {
         const j = aPos[p]!;
         wRe[j] = wRe[j]! + re[p]!;
         wIm[j] = wIm[j]! + im[p]!;
@@ -271,12 +367,15 @@ export class SparseComplexLU {
         const xi = wIm[j]!;
         wRe[j] = 0;
         wIm[j] = 0;
-        const lr = xr * invRe[j]! - xi * invIm[j]!;
-        const li = xr * invIm[j]! + xi * invRe[j]!;
+        const ir = invRe[j]!;
+        const ii = invIm[j]!;
+        const lr = xr * ir - xi * ii;
+        const li = xr * ii + xi * ir;
         lRe[q] = lr;
         lIm[q] = li;
         if (lr === 0 && li === 0) continue;
-        for (let t = uPtr[j]!; t < uPtr[j + 1]!; t++) {
+        const t1 = uPtr[j + 1]!;
+        for (let t = uPtr[j]!; t < t1; t++) {
           const c = uIdx[t]!;
           const ur = uRe[t]!;
           const ui = uIm[t]!;
@@ -284,8 +383,8 @@ export class SparseComplexLU {
           wIm[c] = wIm[c]! - (lr * ui + li * ur);
         }
       }
-      // Gather U's row and check the pivot against the row's largest entry.
-      let rowMax = 0;
+      // Gather U's row and find its largest scaled entry (squared).
+      let rowMax2 = 0;
       for (let t = u0; t < u1; t++) {
         const c = uIdx[t]!;
         const vr = wRe[c]!;
@@ -294,22 +393,21 @@ export class SparseComplexLU {
         uIm[t] = vi;
         wRe[c] = 0;
         wIm[c] = 0;
-        const m = (Math.abs(vr) + Math.abs(vi)) * cs[c]!;
-        if (m > rowMax) rowMax = m;
+        const m = Math.abs(vr) + Math.abs(vi);
+        const m2 = m * m * colSq[c]!;
+        if (m2 > rowMax2) rowMax2 = m2;
       }
+      l0 = l1;
+      u0 = u1;
       const pr = wRe[k]!;
       const pi = wIm[k]!;
       wRe[k] = 0;
       wIm[k] = 0;
-      // |pivot|² is needed for its reciprocal anyway; √ of it instead of Math.hypot (which guards
-      // against an overflow that the reciprocal would meet regardless) is a quarter of the refactor.
       const d = pr * pr + pi * pi;
-      // |pivot| of the equilibrated matrix: the row factor cancels in the threshold test.
-      const pc = Math.sqrt(d) * cs[k]!;
-      const pm = pc * row[rowPerm[k]!]!;
-      // |x|₁/√2 ≤ |x|₂: a cheap lower bound keeps the comparison conservative.
-      if (pm <= absTol || pc < tau * rowMax * Math.SQRT1_2) {
-        this.singular = pm <= absTol;
+      // |pivot|² of the equilibrated matrix without its row factor (which cancels in the threshold).
+      const pc2 = d * colSq[k]!;
+      if (pc2 <= tol2 * rowDen[k]! || pc2 < half * rowMax2) {
+        this.singular = pc2 <= tol2 * rowDen[k]!;
         this.failedStep = k;
         this.failedCols = Array.from(s.colPerm.subarray(k));
         return false;
