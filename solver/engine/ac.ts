@@ -84,10 +84,10 @@ export class AcSolver {
   solveAt(f: number): string | null {
     const sys = this.sys;
     if (sys.n === 0) return "the circuit has no nodes besides gnd";
-    assemble(sys, f);
     const omega = 2 * Math.PI * f;
     let ok: boolean;
     if (!this.lu) {
+      assemble(sys, f);
       this.lu = new SparseComplexLU(sys.matrix);
       this.lu.setPencil(sys.g, sys.c);
       this.pencilOf = sys;
@@ -97,7 +97,8 @@ export class AcSolver {
         this.lu.setPencil(sys.g, sys.c);
         this.pencilOf = sys;
       }
-      ok = this.lu.refactorAt(omega, sys.matrix.re, sys.matrix.im);
+      // Reads G and C itself; sys.matrix's values are written only when a frequency re-pivots.
+      ok = this.lu.refactorAt(omega);
     }
     if (!ok) return this.singularReason(f);
     this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);

@@ -204,24 +204,29 @@ export function pencilMaxima(a: SparseComplexMatrix, g: Float64Array, c: Float64
   return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
 }
 
-/** out[i] = max over i's kept terms of g + w·c (0 for none): the maxima at ω = w ≥ 0. */
-export function evalMaxima(
+/**
+ * The maxima at ω = w ≥ 0 in a pivot order, as the LU's tests take them: for k = 0…n−1 with
+ * i = perm[k], m = max over i's kept terms of g + w·c (0 for none), and out[k] = 1/m (`invert`)
+ * or m — or 1 where m is 0 or not finite (the factor of an empty row or column stays 1).
+ */
+export function pencilTests(
   ptr: Int32Array,
   g: Float64Array,
   c: Float64Array,
   w: number,
+  perm: Int32Array,
   out: Float64Array,
+  invert: boolean,
 ): void {
   const n = out.length;
-  let p0 = 0;
-  for (let i = 0; i < n; i++) {
+  for (let k = 0; k < n; k++) {
+    const i = perm[k]!;
     const p1 = ptr[i + 1]!;
     let m = 0;
-    for (let p = p0; p < p1; p++) {
+    for (let p = ptr[i]!; p < p1; p++) {
       const v = g[p]! + w * c[p]!;
       if (v > m) m = v;
     }
-    out[i] = m;
-    p0 = p1;
+    out[k] = m > 0 && m < Number.POSITIVE_INFINITY ? (invert ? 1 / m : m) : 1;
   }
 }

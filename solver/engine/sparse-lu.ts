@@ -1,8 +1,8 @@
 import {
   Equilibration,
-  evalMaxima,
-  type PencilMaxima,
+    type PencilMaxima,
   pencilMaxima,
+  pencilTests,
   rowColumnMaxima,
 } from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
@@ -52,9 +52,13 @@ export class SparseComplexLU {
   private readonly opt: OrderingOptions;
   private base: Symbolic | null = null;
   private sym: Symbolic | null = null;
-  private aPos: Int32Array = new Int32Array(0);
-  /** aPos of every order in use (the sweep's and its alternates), so switching allocates nothing. */
-  private readonly positions = new Map<Symbolic, Int32Array>();
+  /** The numeric plan of the current order (see `Plan`). */
+  private plan: Plan | null = null;
+  /** The plan of every order in use (the sweep's and its alternates), so switching allocates nothing. */
+  private readonly positions = new Map<Symbolic, Plan>();
+  /** L, U and the pivots in one array pair (slots: L at 0, U at nnz(L), pivots at nnz(L)+nnz(U)). */
+  private fRe = new Float64Array(0);
+  private fIm = new Float64Array(0);
   private lRe = new Float64Array(0);
   private lIm = new Float64Array(0);
   private uRe = new Float64Array(0);
@@ -78,7 +82,7 @@ export class SparseComplexLU {
   /** Where the current tests came from: a full equilibration (`eq`) or the maxima. */
   private testsFromEq = true;
   /** A pencil G + s·C the values come from (`setPencil`): its maxima per row and column. */
-  private pencil: PencilMaxima | null = null;
+  private pencil: (PencilMaxima & { g: Float64Array; c: Float64Array }) | null = null;
   /** Zero-pivot bound of the current values: singularRel · max |scaled entry|. */
   private absTol = 0;
   private singular = false;
@@ -122,21 +126,15 @@ export class SparseComplexLU {
     return this.singular;
   }
 
-  /** Row and column scale factors of the last (re)factorization (D_r, D_c of the original indices). */
-  get scaling(): { row: Float64Array; col: Float64Array } {
-    if (this.testsFromEq) return { row: this.eq.row, col: this.eq.col };
-    const f = (m: number) => (m > 0 && m < Number.POSITIVE_INFINITY ? 1 / Math.sqrt(m) : 1);
-    return { row: this.rmax.map(f), col: this.cmax.map(f) };
-  }
-
   /**
-   * Declare that every later `refactorAt(ω, re, im)` gets re = g, im = ω·c (A = G + jωC with
-   * G, C in A's CSR order): the one Ruiz step per frequency then reads each row's and column's
+   * Declare the pencil A(s) = G + s·C (G, C real, in A's CSR order) that `refactorAt(ω)`
+   * factors at s = jω: the one Ruiz step per frequency then reads each row's and column's
    * largest |re| + |im| = |g| + |ω|·|c| off a few precomputed terms (see `pencilMaxima`) instead
-   * of a pass over every entry. Same numbers, bit for bit, as the pass.
+   * of a pass over every entry. Same numbers, bit for bit, as the pass. G and C are kept by
+   * reference (not copied).
    */
   setPencil(g: Float64Array, c: Float64Array): void {
-    this.pencil = pencilMaxima(this.a, g, c);
+    this.pencil = { ...pencilMaxima(this.a, g, c), g, c };
   }
 
   /** Original column indices left unpivoted when the factorization failed (diagnostics). */
@@ -209,31 +207,59 @@ export class SparseComplexLU {
   }
 
   /**
-   * `refactor` for values re = g, im = ω·c of the pencil given to `setPencil` (the caller has
-   * written them): the same factors and verdicts, with the scaling step read off the pencil.
+   * `refactor` of A = G + jωC for the pencil given to `setPencil`: the same factors and verdicts
+   * as `refactor(g, ω·c)`, but the values are read from G and C directly (no assembled copy) and
+   * the scaling step off the pencil's precomputed terms. A's value arrays are written only when
+   * this frequency needs more than the sweep's order (a re-pivot reads them).
    */
-  refactorAt(omega: number, re: Float64Array, im: Float64Array): boolean {
+  refactorAt(omega: number): boolean {
     const pen = this.pencil;
-    if (!pen || !this.base) return this.refactor(re, im);
+    if (!pen) throw new Error("refactorAt needs setPencil first");
+    const { g, c } = pen;
+    if (!this.base) {
+      this.fill(omega, g, c);
+      return this.refactor(this.a.re, this.a.im);
+    }
+    if (this.base !== this.sym) this.use(this.base);
     const w = Math.abs(omega);
-    evalMaxima(pen.rowPtr, pen.rowG, pen.rowC, w, this.rmax);
-    evalMaxima(pen.colPtr, pen.colG, pen.colC, w, this.cmax);
-    return this.refactorScaled(re, im);
+    // One Ruiz step, its maxima straight into the tests of the sweep's order.
+    const { rowPerm, colPerm } = this.base;
+    pencilTests(pen.colPtr, pen.colG, pen.colC, w, colPerm, this.colSq, true);
+    pencilTests(pen.rowPtr, pen.rowG, pen.rowC, w, rowPerm, this.rowDen, false);
+    this.absTol = this.singularRel;
+    this.testsFromEq = false;
+    if (this.numeric(g, c, omega)) return true;
+    this.fill(omega, g, c);
+    const { re, im } = this.a;
+    rowColumnMaxima(this.a, re, im, this.rmax, this.cmax);
+    return this.refactorScaled(re, im, true);
+  }
+
+  /** A's values = G + jωC. */
+  private fill(omega: number, g: Float64Array, c: Float64Array): void {
+    const { re, im } = this.a;
+    for (let p = 0; p < re.length; p++) {
+      re[p] = g[p]!;
+      im[p] = omega * c[p]!;
+    }
   }
 
   /** The refactor path after the maxima of one Ruiz step are in rmax/cmax. */
-  private refactorScaled(re: Float64Array, im: Float64Array): boolean {
+  private refactorScaled(re: Float64Array, im: Float64Array, baseFailed = false): boolean {
     // Every entry of the once-scaled matrix is at most 1 (|a_ij| ≤ √(rmax_i·cmax_j)).
     this.absTol = this.singularRel;
     this.testsFromEq = false;
-    if (this.base !== this.sym) this.use(this.base!);
-    else this.prepareTests();
-    if (this.numeric(re, im)) return true;
+    if (!baseFailed) {
+      this.use(this.base!);
+      this.prepareTests();
+      if (this.numeric(re, im, 1)) return true;
+    }
     // The sweep's order failed here: try the orders earlier frequencies needed (newest first),
     // so a band of frequencies that needs another order analyses it once, not at every point.
     for (let k = this.alternates.length - 1; k >= 0; k--) {
       this.use(this.alternates[k]!);
-      if (this.numeric(re, im)) return true;
+      this.prepareTests();
+      if (this.numeric(re, im, 1)) return true;
     }
     this.repivots++;
     this.scale(re, im);
@@ -297,31 +323,33 @@ export class SparseComplexLU {
       return false;
     }
     this.use(res.symbolic);
+    this.prepareTests();
     if (asBase) this.base = res.symbolic;
     // Same numbers as the ordering pass, so the threshold checks pass (up to rounding ties).
-    if (!this.numeric(re, im, true)) return false;
+    if (!this.numeric(re, im, 1, true)) return false;
     return true;
   }
 
+  /** Make s the current order (its plan and factor storage); the tests are the caller's. */
   private use(s: Symbolic): void {
+    if (this.sym === s && this.plan) return;
     this.sym = s;
-    this.prepareTests();
-    const a = this.a;
-    let aPos = this.positions.get(s);
-    if (!aPos) {
-      aPos = new Int32Array(a.colIdx.length);
-      for (let p = 0; p < a.colIdx.length; p++) aPos[p] = s.colPos[a.colIdx[p]!]!;
-      this.positions.set(s, aPos);
+    let plan = this.positions.get(s);
+    if (!plan) {
+      plan = makePlan(this.a, s);
+      this.positions.set(s, plan);
     }
-    this.aPos = aPos;
-    if (this.lRe.length !== s.lIdx.length) {
-      this.lRe = new Float64Array(s.lIdx.length);
-      this.lIm = new Float64Array(s.lIdx.length);
+    this.plan = plan;
+    const nl = s.lIdx.length;
+    const nu = s.uIdx.length;
+    if (this.fRe.length !== nl + nu + this.n) {
+      this.fRe = new Float64Array(nl + nu + this.n);
+      this.fIm = new Float64Array(nl + nu + this.n);
     }
-    if (this.uRe.length !== s.uIdx.length) {
-      this.uRe = new Float64Array(s.uIdx.length);
-      this.uIm = new Float64Array(s.uIdx.length);
-    }
+    this.lRe = this.fRe.subarray(0, nl);
+    this.lIm = this.fIm.subarray(0, nl);
+    this.uRe = this.fRe.subarray(nl, nl + nu);
+    this.uIm = this.fIm.subarray(nl, nl + nu);
   }
 
   /**
@@ -331,11 +359,107 @@ export class SparseComplexLU {
    *  - threshold: |u_kk|·c_k ≥ τ·max_j (|re|+|im|)(u_kj)·c_j/√2 (|x|₁/√2 ≤ |x|₂, a conservative
    *    bound), compared as squares.
    */
-  private numeric(re: Float64Array, im: Float64Array, lenient = false): boolean {
+  private numeric(re: Float64Array, im: Float64Array, imScale: number, lenient = false): boolean {
+    const s = this.sym!;
+    const plan = this.plan!;
+    if (!plan.upd) return this.numericScatter(re, im, imScale, lenient);
+    const { rowPtr } = this.a;
+    const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
+    const { aDst, updStart, upd } = plan;
+    const { fRe, fIm, invRe, invIm, colSq, rowDen, n } = this;
+    const offU = lIdx.length;
+    const offD = offU + uIdx.length;
+    const tol2 = this.absTol * this.absTol;
+    const tau = lenient ? 0 : this.opt.pivotThreshold;
+    const half = 0.5 * tau * tau;
+    this.singular = false;
+    this.failedStep = -1;
+    if (this.failedCols.length > 0) this.failedCols = [];
+    let l0 = 0;
+    let u0 = offU;
+    for (let k = 0; k < n; k++) {
+      const l1 = lPtr[k + 1]!;
+      const u1 = offU + uPtr[k + 1]!;
+      const dk = offD + k;
+      // Row k of the factors starts as row rowPerm[k] of A, zero at its fill.
+      for (let q = l0; q < l1; q++) {
+        fRe[q] = 0;
+        fIm[q] = 0;
+      }
+      for (let t = u0; t < u1; t++) {
+        fRe[t] = 0;
+        fIm[t] = 0;
+      }
+      fRe[dk] = 0;
+      fIm[dk] = 0;
+      const r = rowPerm[k]!;
+      const p1 = rowPtr[r + 1]!;
+      for (let p = rowPtr[r]!; p < p1; p++) {
+        const d = aDst[p]!;
+        fRe[d] = re[p]!;
+        fIm[d] = imScale * im[p]!;
+      }
+      // Eliminate with earlier rows, in ascending order of the L pattern: l = a_kj / u_jj, then
+      // row k −= l·(row j of U), each product landing on the slot the plan recorded for it.
+      for (let q = l0; q < l1; q++) {
+        const j = lIdx[q]!;
+        const xr = fRe[q]!;
+        const xi = fIm[q]!;
+        const ir = invRe[j]!;
+        const ii = invIm[j]!;
+        const lr = xr * ir - xi * ii;
+        const li = xr * ii + xi * ir;
+        fRe[q] = lr;
+        fIm[q] = li;
+        if (lr === 0 && li === 0) continue;
+        const t0 = offU + uPtr[j]!;
+        const m0 = updStart[q]!;
+        const m1 = updStart[q + 1]!;
+        for (let m = m0, t = t0; m < m1; m++, t++) {
+          const c = upd[m]!;
+          const ur = fRe[t]!;
+          const ui = fIm[t]!;
+          fRe[c] = fRe[c]! - (lr * ur - li * ui);
+          fIm[c] = fIm[c]! - (lr * ui + li * ur);
+        }
+      }
+      // The largest scaled entry of U's row (squared).
+      let rowMax2 = 0;
+      for (let t = u0; t < u1; t++) {
+        const m = Math.abs(fRe[t]!) + Math.abs(fIm[t]!);
+        const m2 = m * m * colSq[uIdx[t - offU]!]!;
+        if (m2 > rowMax2) rowMax2 = m2;
+      }
+      l0 = l1;
+      u0 = u1;
+      const pr = fRe[dk]!;
+      const pi = fIm[dk]!;
+      const d = pr * pr + pi * pi;
+      // |pivot|² of the equilibrated matrix without its row factor (which cancels in the threshold).
+      const pc2 = d * colSq[k]!;
+      if (pc2 <= tol2 * rowDen[k]! || pc2 < half * rowMax2) {
+        this.singular = pc2 <= tol2 * rowDen[k]!;
+        this.failedStep = k;
+        this.failedCols = Array.from(s.colPerm.subarray(k));
+        return false;
+      }
+      const inv = 1 / d;
+      invRe[k] = pr * inv;
+      invIm[k] = -pi * inv;
+    }
+    return true;
+  }
+
+  /**
+   * `numeric` with a dense scatter vector instead of the plan's update slots: for orders whose
+   * elimination would need more than PLAN_LIMIT recorded updates (much fill). Same arithmetic.
+   */
+  private numericScatter(re: Float64Array, im: Float64Array, imScale: number, lenient: boolean): boolean {
     const s = this.sym!;
     const { rowPtr } = this.a;
     const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
-    const { aPos, lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, colSq, rowDen, n } = this;
+    const aPos = this.plan!.aPos;
+    const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, colSq, rowDen, n } = this;
     const tol2 = this.absTol * this.absTol;
     const tau = lenient ? 0 : this.opt.pivotThreshold;
     const half = 0.5 * tau * tau;
@@ -358,7 +482,7 @@ export class SparseComplexLU {
       for (let p = rowPtr[r]!; p < p1; p++) {
         const j = aPos[p]!;
         wRe[j] = wRe[j]! + re[p]!;
-        wIm[j] = wIm[j]! + im[p]!;
+        wIm[j] = wIm[j]! + imScale * im[p]!;
       }
       // Eliminate with earlier rows, in ascending order of the L pattern.
       for (let q = l0; q < l1; q++) {
@@ -412,8 +536,9 @@ export class SparseComplexLU {
         this.failedCols = Array.from(s.colPerm.subarray(k));
         return false;
       }
-      invRe[k] = pr / d;
-      invIm[k] = -pi / d;
+      const inv = 1 / d;
+      invRe[k] = pr * inv;
+      invIm[k] = -pi * inv;
     }
     return true;
   }
@@ -430,31 +555,41 @@ export class SparseComplexLU {
     }
     const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = this.sym;
     const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = this;
+    let q0 = 0;
     for (let k = 0; k < n; k++) {
-      let yr = bRe[rowPerm[k]!]!;
-      let yi = bIm[rowPerm[k]!]!;
-      for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
+      const r = rowPerm[k]!;
+      let yr = bRe[r]!;
+      let yi = bIm[r]!;
+      const q1 = lPtr[k + 1]!;
+      for (let q = q0; q < q1; q++) {
         const j = lIdx[q]!;
         yr -= lRe[q]! * wRe[j]! - lIm[q]! * wIm[j]!;
         yi -= lRe[q]! * wIm[j]! + lIm[q]! * wRe[j]!;
       }
+      q0 = q1;
       wRe[k] = yr;
       wIm[k] = yi;
     }
+    // Backward; x may alias b, whose entries the forward pass has read already.
+    let t1 = uPtr[n]!;
     for (let k = n - 1; k >= 0; k--) {
       let yr = wRe[k]!;
       let yi = wIm[k]!;
-      for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) {
+      const t0 = uPtr[k]!;
+      for (let t = t0; t < t1; t++) {
         const j = uIdx[t]!;
         yr -= uRe[t]! * wRe[j]! - uIm[t]! * wIm[j]!;
         yi -= uRe[t]! * wIm[j]! + uIm[t]! * wRe[j]!;
       }
-      wRe[k] = yr * invRe[k]! - yi * invIm[k]!;
-      wIm[k] = yr * invIm[k]! + yi * invRe[k]!;
-    }
-    for (let k = 0; k < n; k++) {
-      xRe[colPerm[k]!] = wRe[k]!;
-      xIm[colPerm[k]!] = wIm[k]!;
+      t1 = t0;
+      const ir = invRe[k]!;
+      const ii = invIm[k]!;
+      const zr = yr * ir - yi * ii;
+      const zi = yr * ii + yi * ir;
+      wRe[k] = zr;
+      wIm[k] = zi;
+      xRe[colPerm[k]!] = zr;
+      xIm[colPerm[k]!] = zi;
     }
   }
 
@@ -508,4 +643,61 @@ export class SparseComplexLU {
       zIm[rowPerm[k]!] = wIm[k]!;
     }
   }
+}
+
+/** Most update slots a plan records (4 bytes each); an order needing more factors by scatter. */
+const PLAN_LIMIT = 1 << 22;
+
+/**
+ * Where each number of a refactor goes, for one pivot order (the factors live in one array:
+ * L's entries at 0…, U's at nnz(L)…, the pivots at nnz(L)+nnz(U)…):
+ *  - aDst[p]: the slot of A's entry p (CSR position) in its pivot row;
+ *  - upd[updStart[q] + i]: the slot that the i-th entry of U's row j (j = lIdx[q]) updates when
+ *    L's entry q (row k, column j) eliminates it, i.e. the slot of (k, uIdx[uPtr[j] + i]).
+ * With them a refactor needs no scatter vector: each product lands directly on its slot.
+ * `aPos` (A's entry → pivot column) serves the scatter fallback when `upd` would exceed PLAN_LIMIT.
+ */
+interface Plan {
+  aPos: Int32Array;
+  aDst: Int32Array;
+  updStart: Int32Array;
+  upd: Int32Array | null;
+}
+
+function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
+  const { n, rowPtr, colIdx } = a;
+  const { rowPerm, colPos, lPtr, lIdx, uPtr, uIdx } = s;
+  const offU = lIdx.length;
+  const offD = offU + uIdx.length;
+  const aPos = new Int32Array(colIdx.length);
+  for (let p = 0; p < colIdx.length; p++) aPos[p] = colPos[colIdx[p]!]!;
+  const aDst = new Int32Array(colIdx.length);
+  const updStart = new Int32Array(lIdx.length + 1);
+  let total = 0;
+  for (let q = 0; q < lIdx.length; q++) {
+    const j = lIdx[q]!;
+    total += uPtr[j + 1]! - uPtr[j]!;
+    updStart[q + 1] = total;
+  }
+  const upd = total <= PLAN_LIMIT ? new Int32Array(total) : null;
+  // slot[c] = the slot of (k, c) in the row k being planned (−1 outside its pattern).
+  const slot = new Int32Array(n).fill(-1);
+  for (let k = 0; k < n; k++) {
+    for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) slot[lIdx[q]!] = q;
+    for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = offU + t;
+    slot[k] = offD + k;
+    const r = rowPerm[k]!;
+    for (let p = rowPtr[r]!; p < rowPtr[r + 1]!; p++) aDst[p] = slot[aPos[p]!]!;
+    if (upd) {
+      for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
+        const j = lIdx[q]!;
+        let m = updStart[q]!;
+        for (let t = uPtr[j]!; t < uPtr[j + 1]!; t++) upd[m++] = slot[uIdx[t]!]!;
+      }
+    }
+    for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) slot[lIdx[q]!] = -1;
+    for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = -1;
+    slot[k] = -1;
+  }
+  return { aPos, aDst, updStart, upd };
 }
