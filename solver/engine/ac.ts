@@ -101,11 +101,10 @@ export class AcSolver {
       ok = this.lu.refactorAt(omega);
     }
     if (!ok) return this.singularReason(f);
-    this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);
-    if (sys.second) this.lu.solve(sys.second.bRe, sys.second.bIm, this.x2Re, this.x2Im);
+    let finite = this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);
+    if (sys.second) finite = this.lu.solve(sys.second.bRe, sys.second.bIm, this.x2Re, this.x2Im) && finite;
     this.omega = omega;
-    if (!allFinite(this.xRe, this.xIm) || (sys.second && !allFinite(this.x2Re, this.x2Im)))
-      return this.singularReason(f);
+    if (!finite) return this.singularReason(f);
     return null;
   }
 
@@ -197,11 +196,4 @@ export class AcSolver {
       `${names ? `; undetermined: ${names}` : ""}`
     );
   }
-}
-
-/** No NaN or ±∞ in re/im: x·0 is 0 for every finite x and NaN otherwise, so one sum tells. */
-function allFinite(re: Float64Array, im: Float64Array): boolean {
-  let z = 0;
-  for (let i = 0; i < re.length; i++) z += re[i]! * 0 + im[i]! * 0;
-  return z === 0;
 }

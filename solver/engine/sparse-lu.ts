@@ -1,10 +1,4 @@
-import {
-  Equilibration,
-    type PencilMaxima,
-  pencilMaxima,
-  pencilTests,
-  rowColumnMaxima,
-} from "./equilibrate";
+import { Equilibration, type PencilMaxima, pencilMaxima, pencilTests, rowColumnMaxima } from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
@@ -363,9 +357,8 @@ export class SparseComplexLU {
     const s = this.sym!;
     const plan = this.plan!;
     if (!plan.upd) return this.numericScatter(re, im, imScale, lenient);
-    const { rowPtr } = this.a;
-    const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
-    const { aDst, updStart, upd } = plan;
+    const { lPtr, lIdx, uPtr, uIdx } = s;
+    const { src, updStart, upd } = plan;
     const { fRe, fIm, invRe, invIm, colSq, rowDen, n } = this;
     const offU = lIdx.length;
     const offD = offU + uIdx.length;
@@ -383,22 +376,18 @@ export class SparseComplexLU {
       const dk = offD + k;
       // Row k of the factors starts as row rowPerm[k] of A, zero at its fill.
       for (let q = l0; q < l1; q++) {
-        fRe[q] = 0;
-        fIm[q] = 0;
+        const p = src[q]!;
+        fRe[q] = p >= 0 ? re[p]! : 0;
+        fIm[q] = p >= 0 ? imScale * im[p]! : 0;
       }
       for (let t = u0; t < u1; t++) {
-        fRe[t] = 0;
-        fIm[t] = 0;
+        const p = src[t]!;
+        fRe[t] = p >= 0 ? re[p]! : 0;
+        fIm[t] = p >= 0 ? imScale * im[p]! : 0;
       }
-      fRe[dk] = 0;
-      fIm[dk] = 0;
-      const r = rowPerm[k]!;
-      const p1 = rowPtr[r + 1]!;
-      for (let p = rowPtr[r]!; p < p1; p++) {
-        const d = aDst[p]!;
-        fRe[d] = re[p]!;
-        fIm[d] = imScale * im[p]!;
-      }
+      const pd = src[dk]!;
+      fRe[dk] = pd >= 0 ? re[pd]! : 0;
+      fIm[dk] = pd >= 0 ? imScale * im[pd]! : 0;
       // Eliminate with earlier rows, in ascending order of the L pattern: l = a_kj / u_jj, then
       // row k −= l·(row j of U), each product landing on the slot the plan recorded for it.
       for (let q = l0; q < l1; q++) {
@@ -545,9 +534,10 @@ export class SparseComplexLU {
 
   /**
    * Solve A·x = b with the current factors. x may alias b. Cost O(nnz(L)+nnz(U)+n).
+   * Returns false when x has a NaN or ±∞ (an overflow: the equations are singular in effect).
    * Throws if the last factorization was singular (a programming error, never user input).
    */
-  solve(bRe: Float64Array, bIm: Float64Array, xRe: Float64Array = bRe, xIm: Float64Array = bIm): void {
+  solve(bRe: Float64Array, bIm: Float64Array, xRe: Float64Array = bRe, xIm: Float64Array = bIm): boolean {
     if (this.singular || !this.sym) throw new Error("matrix is singular: cannot solve");
     const n = this.n;
     if (bRe.length !== n || bIm.length !== n || xRe.length !== n || xIm.length !== n) {
@@ -572,6 +562,7 @@ export class SparseComplexLU {
     }
     // Backward; x may alias b, whose entries the forward pass has read already.
     let t1 = uPtr[n]!;
+    let finite = 0;
     for (let k = n - 1; k >= 0; k--) {
       let yr = wRe[k]!;
       let yi = wIm[k]!;
@@ -590,7 +581,10 @@ export class SparseComplexLU {
       wIm[k] = zi;
       xRe[colPerm[k]!] = zr;
       xIm[colPerm[k]!] = zi;
+      // x·0 is 0 for every finite x and NaN for ±∞ or NaN.
+      finite += zr * 0 + zi * 0;
     }
+    return finite === 0;
   }
 
   /**
@@ -651,7 +645,7 @@ const PLAN_LIMIT = 1 << 22;
 /**
  * Where each number of a refactor goes, for one pivot order (the factors live in one array:
  * L's entries at 0…, U's at nnz(L)…, the pivots at nnz(L)+nnz(U)…):
- *  - aDst[p]: the slot of A's entry p (CSR position) in its pivot row;
+ *  - src[slot]: the entry of A (CSR position) that starts the slot, or −1 for fill;
  *  - upd[updStart[q] + i]: the slot that the i-th entry of U's row j (j = lIdx[q]) updates when
  *    L's entry q (row k, column j) eliminates it, i.e. the slot of (k, uIdx[uPtr[j] + i]).
  * With them a refactor needs no scatter vector: each product lands directly on its slot.
@@ -659,7 +653,7 @@ const PLAN_LIMIT = 1 << 22;
  */
 interface Plan {
   aPos: Int32Array;
-  aDst: Int32Array;
+  src: Int32Array;
   updStart: Int32Array;
   upd: Int32Array | null;
 }
@@ -671,7 +665,7 @@ function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
   const offD = offU + uIdx.length;
   const aPos = new Int32Array(colIdx.length);
   for (let p = 0; p < colIdx.length; p++) aPos[p] = colPos[colIdx[p]!]!;
-  const aDst = new Int32Array(colIdx.length);
+  const src = new Int32Array(offD + n).fill(-1);
   const updStart = new Int32Array(lIdx.length + 1);
   let total = 0;
   for (let q = 0; q < lIdx.length; q++) {
@@ -687,7 +681,7 @@ function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
     for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = offU + t;
     slot[k] = offD + k;
     const r = rowPerm[k]!;
-    for (let p = rowPtr[r]!; p < rowPtr[r + 1]!; p++) aDst[p] = slot[aPos[p]!]!;
+    for (let p = rowPtr[r]!; p < rowPtr[r + 1]!; p++) src[slot[aPos[p]!]!] = p;
     if (upd) {
       for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
         const j = lIdx[q]!;
@@ -699,5 +693,5 @@ function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
     for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = -1;
     slot[k] = -1;
   }
-  return { aPos, aDst, updStart, upd };
+  return { aPos, src, updStart, upd };
 }
