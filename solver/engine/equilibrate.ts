@@ -206,8 +206,8 @@ export function pencilMaxima(a: SparseComplexMatrix, g: Float64Array, c: Float64
 
 /**
  * The maxima at ω = w ≥ 0 in a pivot order, as the LU's tests take them: for k = 0…n−1 with
- * i = perm[k], m = max over i's kept terms of g + w·c (0 for none), and out[k] = 1/m (`invert`)
- * or m — or 1 where m is 0 or not finite (the factor of an empty row or column stays 1).
+ * i = perm[k], out[k] = max over i's kept terms of g + w·c — or 1 where that is 0 (no entry) or
+ * not finite (the factor of such a row or column stays 1).
  */
 export function pencilTests(
   ptr: Int32Array,
@@ -216,7 +216,6 @@ export function pencilTests(
   w: number,
   perm: Int32Array,
   out: Float64Array,
-  invert: boolean,
 ): void {
   const n = out.length;
   for (let k = 0; k < n; k++) {
@@ -227,6 +226,6 @@ export function pencilTests(
       const v = g[p]! + w * c[p]!;
       if (v > m) m = v;
     }
-    out[k] = m > 0 && m < Number.POSITIVE_INFINITY ? (invert ? 1 / m : m) : 1;
+    out[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
   }
 }

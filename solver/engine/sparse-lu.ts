@@ -63,13 +63,13 @@ export class SparseComplexLU {
   private readonly wIm: Float64Array;
   private readonly eq: Equilibration;
   /**
-   * The pivot tests of the current values, in pivot order, squared so that no step needs a square
-   * root: colSq[k] = c_k² (the column factor of step k), rowDen[k] = 1/r_k² (of its row). After a
-   * full equilibration these are `eq`'s powers of two; on the refactor path they come from one
-   * Ruiz step, c_j = 1/√cmax_j and r_i = 1/√rmax_i, i.e. colSq = 1/cmax, rowDen = rmax.
+   * The pivot tests of the current values, in pivot order, so that no step needs a square root
+   * or a division: cm[k] = 1/c_k² (c_k the column factor of step k), rm[k] = 1/r_k² (of its row).
+   * After a full equilibration c, r are `eq`'s powers of two; on the refactor path they come from
+   * one Ruiz step, c_j = 1/√cmax_j and r_i = 1/√rmax_i, i.e. cm = cmax, rm = rmax.
    */
-  private readonly colSq: Float64Array;
-  private readonly rowDen: Float64Array;
+  private readonly cm: Float64Array;
+  private readonly rm: Float64Array;
   /** Largest |re| + |im| of each original row and column (the one Ruiz step of a refactor). */
   private readonly rmax: Float64Array;
   private readonly cmax: Float64Array;
@@ -105,8 +105,8 @@ export class SparseComplexLU {
     this.wRe = new Float64Array(a.n);
     this.wIm = new Float64Array(a.n);
     this.eq = new Equilibration(a.n);
-    this.colSq = new Float64Array(a.n);
-    this.rowDen = new Float64Array(a.n);
+    this.cm = new Float64Array(a.n);
+    this.rm = new Float64Array(a.n);
     this.rmax = new Float64Array(a.n);
     this.cmax = new Float64Array(a.n);
     this.scale(a.re, a.im);
@@ -218,8 +218,8 @@ export class SparseComplexLU {
     const w = Math.abs(omega);
     // One Ruiz step, its maxima straight into the tests of the sweep's order.
     const { rowPerm, colPerm } = this.base;
-    pencilTests(pen.colPtr, pen.colG, pen.colC, w, colPerm, this.colSq, true);
-    pencilTests(pen.rowPtr, pen.rowG, pen.rowC, w, rowPerm, this.rowDen, false);
+    pencilTests(pen.colPtr, pen.colG, pen.colC, w, colPerm, this.cm);
+    pencilTests(pen.rowPtr, pen.rowG, pen.rowC, w, rowPerm, this.rm);
     this.absTol = this.singularRel;
     this.testsFromEq = false;
     if (this.numeric(g, c, omega)) return true;
@@ -273,26 +273,26 @@ export class SparseComplexLU {
     this.testsFromEq = true;
   }
 
-  /** colSq/rowDen in the current pivot order, from `eq` or from the maxima (see the fields). */
+  /** cm/rm in the current pivot order, from `eq` or from the maxima (see the fields). */
   private prepareTests(): void {
     const { rowPerm, colPerm } = this.sym!;
-    const { colSq, rowDen, n } = this;
+    const { cm, rm, n } = this;
     if (this.testsFromEq) {
       const { row, col } = this.eq;
       for (let k = 0; k < n; k++) {
         const c = col[colPerm[k]!]!;
         const r = row[rowPerm[k]!]!;
-        colSq[k] = c * c;
-        rowDen[k] = 1 / (r * r);
+        cm[k] = 1 / (c * c);
+        rm[k] = 1 / (r * r);
       }
       return;
     }
     const { rmax, cmax } = this;
     for (let k = 0; k < n; k++) {
-      const cm = cmax[colPerm[k]!]!;
-      const rm = rmax[rowPerm[k]!]!;
-      colSq[k] = cm > 0 && cm < Number.POSITIVE_INFINITY ? 1 / cm : 1;
-      rowDen[k] = rm > 0 && rm < Number.POSITIVE_INFINITY ? rm : 1;
+      const c = cmax[colPerm[k]!]!;
+      const r = rmax[rowPerm[k]!]!;
+      cm[k] = c > 0 && c < Number.POSITIVE_INFINITY ? c : 1;
+      rm[k] = r > 0 && r < Number.POSITIVE_INFINITY ? r : 1;
     }
   }
 
@@ -348,10 +348,11 @@ export class SparseComplexLU {
 
   /**
    * Numeric factorization over the current pattern; false on a failed pivot.
-   * The tests, squared (no square root per step; colSq/rowDen from `prepareTests`):
-   *  - zero pivot: |u_kk|·c_k·r_k ≤ absTol  ⇔  |u_kk|²·c_k² ≤ absTol²/r_k²;
-   *  - threshold: |u_kk|·c_k ≥ τ·max_j (|re|+|im|)(u_kj)·c_j/√2 (|x|₁/√2 ≤ |x|₂, a conservative
-   *    bound), compared as squares.
+   * The tests, squared and multiplied out (no square root or division per step): with
+   * cm[k] = 1/c_k², rm[k] = 1/r_k² from `prepareTests` (c, r: the column and row factors),
+   *  - zero pivot: |u_kk|·c_k·r_k ≤ absTol  ⇔  |u_kk|² ≤ absTol²·rm[k]·cm[k];
+   *  - threshold: |u_kk|·c_k ≥ τ·(|re|+|im|)(u_kj)·c_j/√2 for every j of U's row k (|x|₁/√2 ≤ |x|₂,
+   *    a conservative bound; the row factor cancels)  ⇔  |u_kk|²·cm[j] ≥ ½τ²·(|re|+|im|)²·cm[k].
    */
   private numeric(re: Float64Array, im: Float64Array, imScale: number, lenient = false): boolean {
     const s = this.sym!;
@@ -359,7 +360,7 @@ export class SparseComplexLU {
     if (!plan.upd) return this.numericScatter(re, im, imScale, lenient);
     const { lPtr, lIdx, uPtr, uIdx } = s;
     const { src, updStart, upd } = plan;
-    const { fRe, fIm, invRe, invIm, colSq, rowDen, n } = this;
+    const { fRe, fIm, invRe, invIm, cm, rm, n } = this;
     const offU = lIdx.length;
     const offD = offU + uIdx.length;
     const tol2 = this.absTol * this.absTol;
@@ -412,22 +413,20 @@ export class SparseComplexLU {
           fIm[c] = fIm[c]! - (lr * ui + li * ur);
         }
       }
-      // The largest scaled entry of U's row (squared).
-      let rowMax2 = 0;
-      for (let t = u0; t < u1; t++) {
-        const m = Math.abs(fRe[t]!) + Math.abs(fIm[t]!);
-        const m2 = m * m * colSq[uIdx[t - offU]!]!;
-        if (m2 > rowMax2) rowMax2 = m2;
-      }
-      l0 = l1;
-      u0 = u1;
       const pr = fRe[dk]!;
       const pi = fIm[dk]!;
       const d = pr * pr + pi * pi;
-      // |pivot|² of the equilibrated matrix without its row factor (which cancels in the threshold).
-      const pc2 = d * colSq[k]!;
-      if (pc2 <= tol2 * rowDen[k]! || pc2 < half * rowMax2) {
-        this.singular = pc2 <= tol2 * rowDen[k]!;
+      const ck = cm[k]!;
+      const hk = half * ck;
+      let small = d <= tol2 * rm[k]! * ck;
+      for (let t = u0; t < u1 && !small; t++) {
+        const m = Math.abs(fRe[t]!) + Math.abs(fIm[t]!);
+        if (d * cm[uIdx[t - offU]!]! < hk * m * m) small = true;
+      }
+      l0 = l1;
+      u0 = u1;
+      if (small) {
+        this.singular = d <= tol2 * rm[k]! * ck;
         this.failedStep = k;
         this.failedCols = Array.from(s.colPerm.subarray(k));
         return false;
@@ -448,7 +447,7 @@ export class SparseComplexLU {
     const { rowPtr } = this.a;
     const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
     const aPos = this.plan!.aPos;
-    const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, colSq, rowDen, n } = this;
+    const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, cm, rm, n } = this;
     const tol2 = this.absTol * this.absTol;
     const tau = lenient ? 0 : this.opt.pivotThreshold;
     const half = 0.5 * tau * tau;
@@ -496,8 +495,15 @@ export class SparseComplexLU {
           wIm[c] = wIm[c]! - (lr * ui + li * ur);
         }
       }
-      // Gather U's row and find its largest scaled entry (squared).
-      let rowMax2 = 0;
+      const pr = wRe[k]!;
+      const pi = wIm[k]!;
+      wRe[k] = 0;
+      wIm[k] = 0;
+      const d = pr * pr + pi * pi;
+      const ck = cm[k]!;
+      const hk = half * ck;
+      let small = d <= tol2 * rm[k]! * ck;
+      // Gather U's row (leaving w zero) and test each entry against the pivot.
       for (let t = u0; t < u1; t++) {
         const c = uIdx[t]!;
         const vr = wRe[c]!;
@@ -507,20 +513,12 @@ export class SparseComplexLU {
         wRe[c] = 0;
         wIm[c] = 0;
         const m = Math.abs(vr) + Math.abs(vi);
-        const m2 = m * m * colSq[c]!;
-        if (m2 > rowMax2) rowMax2 = m2;
+        if (d * cm[c]! < hk * m * m) small = true;
       }
       l0 = l1;
       u0 = u1;
-      const pr = wRe[k]!;
-      const pi = wIm[k]!;
-      wRe[k] = 0;
-      wIm[k] = 0;
-      const d = pr * pr + pi * pi;
-      // |pivot|² of the equilibrated matrix without its row factor (which cancels in the threshold).
-      const pc2 = d * colSq[k]!;
-      if (pc2 <= tol2 * rowDen[k]! || pc2 < half * rowMax2) {
-        this.singular = pc2 <= tol2 * rowDen[k]!;
+      if (small) {
+        this.singular = d <= tol2 * rm[k]! * ck;
         this.failedStep = k;
         this.failedCols = Array.from(s.colPerm.subarray(k));
         return false;
