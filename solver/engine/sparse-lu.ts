@@ -608,31 +608,43 @@ export class SparseComplexLU {
       wRe[k] = dRe[colPerm[k]!]!;
       wIm[k] = dIm[colPerm[k]!]!;
     }
+    // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
+    let t0 = 0;
     for (let k = 0; k < n; k++) {
       const br = wRe[k]!;
       const bi = wIm[k]!;
-      const yr = br * invRe[k]! - bi * invIm[k]!;
-      const yi = br * invIm[k]! + bi * invRe[k]!;
+      const ir = invRe[k]!;
+      const ii = invIm[k]!;
+      const yr = br * ir - bi * ii;
+      const yi = br * ii + bi * ir;
       wRe[k] = yr;
       wIm[k] = yi;
-      for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) {
+      const t1 = uPtr[k + 1]!;
+      for (let t = t0; t < t1; t++) {
         const j = uIdx[t]!;
-        wRe[j] = wRe[j]! - (uRe[t]! * yr - uIm[t]! * yi);
-        wIm[j] = wIm[j]! - (uRe[t]! * yi + uIm[t]! * yr);
+        const ur = uRe[t]!;
+        const ui = uIm[t]!;
+        wRe[j] = wRe[j]! - (ur * yr - ui * yi);
+        wIm[j] = wIm[j]! - (ur * yi + ui * yr);
       }
+      t0 = t1;
     }
+    // Lᵀ·v = y, backward: row k of L scatters −l_kj·v_k into w_j (j < k); z = Pᵀ·v as it goes.
+    let q1 = lPtr[n]!;
     for (let k = n - 1; k >= 0; k--) {
       const vr = wRe[k]!;
       const vi = wIm[k]!;
-      for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
+      const q0 = lPtr[k]!;
+      for (let q = q0; q < q1; q++) {
         const j = lIdx[q]!;
-        wRe[j] = wRe[j]! - (lRe[q]! * vr - lIm[q]! * vi);
-        wIm[j] = wIm[j]! - (lRe[q]! * vi + lIm[q]! * vr);
+        const lr = lRe[q]!;
+        const li = lIm[q]!;
+        wRe[j] = wRe[j]! - (lr * vr - li * vi);
+        wIm[j] = wIm[j]! - (lr * vi + li * vr);
       }
-    }
-    for (let k = 0; k < n; k++) {
-      zRe[rowPerm[k]!] = wRe[k]!;
-      zIm[rowPerm[k]!] = wIm[k]!;
+      q1 = q0;
+      zRe[rowPerm[k]!] = vr;
+      zIm[rowPerm[k]!] = vi;
     }
   }
 }
