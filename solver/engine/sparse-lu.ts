@@ -19,11 +19,15 @@ export interface SparseLUOptions {
  *
  * Use: the constructor analyses A once (Markowitz ordering with threshold pivoting, fill pattern —
  * see `markowitzOrder`) and factors it. For each further matrix of the same pattern (the next
- * frequency of a sweep) `refactor(re, im)` recomputes only the numbers, row by row with a dense
- * scatter vector ("up-looking" elimination over the fixed pattern), checking every pivot against
- * the same threshold. If a pivot fails at some frequency, that frequency is re-pivoted (its order
- * is kept as an alternate for later frequencies that fail too); every `refactor` tries the sweep's
- * ordering first.
+ * frequency of a sweep) `refactor(re, im)` recomputes only the numbers, row by row ("up-looking"
+ * elimination over the fixed pattern), checking every pivot against the same threshold. Each
+ * order gets a plan once (`makePlan`): the slot of every entry of A in the factors and the slot
+ * every product of the elimination lands on, so a refactor writes the factors directly, with no
+ * scatter vector to fill and clear (an order whose plan would exceed PLAN_LIMIT slots falls back
+ * to the scatter vector). If a pivot fails at some frequency, that frequency is re-pivoted (its
+ * order is kept as an alternate for later frequencies that fail too); every `refactor` tries the
+ * sweep's ordering first. A sweep of A(s) = G + s·C declares the pencil once (`setPencil`) and
+ * calls `refactorAt(ω)`: the values are read from G and C (no assembled copy per frequency).
  *
  * Equilibration: every (re)factorization first computes row and column factors D_r, D_c
  * (`Equilibration`: Ruiz's max-norm scaling — iterated to convergence in powers of two before an
@@ -32,11 +36,12 @@ export interface SparseLUOptions {
  * compare scaled quantities (the pivot of step k of D_r·A·D_c is u_kk·r_k·c_k for the same order).
  * The numbers themselves are factored unscaled, so `solve` needs no scaling. A "singular" verdict therefore
  * means: the equilibrated matrix is singular to working precision — never merely "values far
- * apart" (1 fF beside 1 TΩ, 1 F at 1 GHz).
+ * apart" (1 fF beside 1 TΩ, 1 F at 1 GHz). The tests are squared and multiplied out, so a step
+ * needs no square root or division besides the pivot's reciprocal; with a pencil the one Ruiz
+ * step's maxima cost O(n) per frequency (`pencilMaxima`), not a pass over the values.
  *
- * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern plus one O(nnz) scaling pass
- * (a few before an analysis),
- * solve O(nnz(L)+nnz(U)+n).
+ * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern plus the scaling step (O(n) with a
+ * pencil, O(nnz) without; a few passes before an analysis), solve O(nnz(L)+nnz(U)+n).
  * Assumes: A square, values given in A's CSR order. A pivot is zero when |pivot| ≤
  * singularTolerance·max|(D_r·A·D_c)_ij|; then `isSingular()` is true and `solve` must not be called.
  */
