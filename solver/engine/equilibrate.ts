@@ -205,27 +205,62 @@ export function pencilMaxima(a: SparseComplexMatrix, g: Float64Array, c: Float64
 }
 
 /**
- * The maxima at ω = w ≥ 0 in a pivot order, as the LU's tests take them: for k = 0…n−1 with
- * i = perm[k], out[k] = max over i's kept terms of g + w·c — or 1 where that is 0 (no entry) or
- * not finite (the factor of such a row or column stays 1).
+ * The pencil's kept terms renumbered to a pivot order: row k of the result holds the terms of
+ * original row rowPerm[k], column k those of original column colPerm[k] (so `pencilTests` walks
+ * both in step order, without indirection).
  */
-export function pencilTests(
-  ptr: Int32Array,
-  g: Float64Array,
-  c: Float64Array,
-  w: number,
-  perm: Int32Array,
-  out: Float64Array,
-): void {
-  const n = out.length;
+export function pencilInOrder(
+  pen: PencilMaxima,
+  order: { rowPerm: Int32Array; colPerm: Int32Array },
+): PencilMaxima {
+  const permute = (ptr: Int32Array, g: Float64Array, c: Float64Array, perm: Int32Array) => {
+    const n = perm.length;
+    const outPtr = new Int32Array(n + 1);
+    const outG = new Float64Array(g.length);
+    const outC = new Float64Array(c.length);
+    let at = 0;
+    for (let k = 0; k < n; k++) {
+      const i = perm[k]!;
+      for (let p = ptr[i]!; p < ptr[i + 1]!; p++) {
+        outG[at] = g[p]!;
+        outC[at] = c[p]!;
+        at++;
+      }
+      outPtr[k + 1] = at;
+    }
+    return { ptr: outPtr, g: outG, c: outC };
+  };
+  const rows = permute(pen.rowPtr, pen.rowG, pen.rowC, order.rowPerm);
+  const cols = permute(pen.colPtr, pen.colG, pen.colC, order.colPerm);
+  return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
+}
+
+/**
+ * The maxima at ω = w ≥ 0 of a pencil in pivot order (`pencilInOrder`), as the LU's tests take
+ * them: cm[k] = max over column k's kept terms of g + w·c, rm[k] the same over row k's — or 1
+ * where that is 0 (no entry) or not finite (the factor of such a row or column stays 1).
+ */
+export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
+  const { rowPtr, rowG, rowC, colPtr, colG, colC } = pen;
+  const n = cm.length;
+  let c0 = 0;
+  let r0 = 0;
   for (let k = 0; k < n; k++) {
-    const i = perm[k]!;
-    const p1 = ptr[i + 1]!;
+    const c1 = colPtr[k + 1]!;
     let m = 0;
-    for (let p = ptr[i]!; p < p1; p++) {
-      const v = g[p]! + w * c[p]!;
+    for (let p = c0; p < c1; p++) {
+      const v = colG[p]! + w * colC[p]!;
       if (v > m) m = v;
     }
-    out[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+    cm[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+    c0 = c1;
+    const r1 = rowPtr[k + 1]!;
+    m = 0;
+    for (let p = r0; p < r1; p++) {
+      const v = rowG[p]! + w * rowC[p]!;
+      if (v > m) m = v;
+    }
+    rm[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+    r0 = r1;
   }
 }

@@ -1,4 +1,11 @@
-import { Equilibration, type PencilMaxima, pencilMaxima, pencilTests, rowColumnMaxima } from "./equilibrate";
+import {
+  Equilibration,
+  type PencilMaxima,
+  pencilInOrder,
+  pencilMaxima,
+  pencilTests,
+  rowColumnMaxima,
+} from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
@@ -222,9 +229,12 @@ export class SparseComplexLU {
     if (this.base !== this.sym) this.use(this.base);
     const w = Math.abs(omega);
     // One Ruiz step, its maxima straight into the tests of the sweep's order.
-    const { rowPerm, colPerm } = this.base;
-    pencilTests(pen.colPtr, pen.colG, pen.colC, w, colPerm, this.cm);
-    pencilTests(pen.rowPtr, pen.rowG, pen.rowC, w, rowPerm, this.rm);
+    const plan = this.plan!;
+    if (plan.pencilOf !== pen) {
+      plan.pencil = pencilInOrder(pen, this.base);
+      plan.pencilOf = pen;
+    }
+    pencilTests(plan.pencil!, w, this.cm, this.rm);
     this.absTol = this.singularRel;
     this.testsFromEq = false;
     if (this.numeric(g, c, omega)) return true;
@@ -669,6 +679,9 @@ const PLAN_LIMIT = 1 << 22;
 interface Plan {
   aPos: Int32Array;
   src: Int32Array;
+  /** The pencil's terms in this order (step k's column, then its row), for `pencilTests`. */
+  pencil: PencilMaxima | null;
+  pencilOf: PencilMaxima | null;
   updStart: Int32Array;
   upd: Int32Array | null;
 }
@@ -708,5 +721,5 @@ function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
     for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = -1;
     slot[k] = -1;
   }
-  return { aPos, src, updStart, upd };
+  return { aPos, src, updStart, upd, pencil: null, pencilOf: null };
 }
