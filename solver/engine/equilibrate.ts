@@ -62,35 +62,6 @@ export class Equilibration {
     }
     return biggest;
   }
-
-  /**
-   * One simultaneous Ruiz step from D = I (one O(nnz) pass), factors 1/√max not rounded to powers
-   * of two: every scaled entry is then at most 1 in size (|a_ij| ≤ √(max_i·max_j)); the value
-   * returned is that bound. The per-frequency path of a sweep uses this — nearly as cheap as the
-   * single pass for the largest entry it replaces; the factors only enter the pivot tests, never
-   * the numbers — and the pivot-order analysis uses `compute`.
-   */
-  step(a: SparseComplexMatrix, re: Float64Array, im: Float64Array): number {
-    const { row, col, cmax } = this;
-    const { rowPtr, colIdx, n } = a;
-    cmax.fill(0);
-    for (let i = 0; i < n; i++) {
-      let m = 0;
-      for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
-        const j = colIdx[p]!;
-        const v = Math.abs(re[p]!) + Math.abs(im[p]!);
-        if (v > m) m = v;
-        if (v > cmax[j]!) cmax[j] = v;
-      }
-      row[i] = m > 0 && m < Number.POSITIVE_INFINITY ? 1 / Math.sqrt(m) : 1;
-    }
-    for (let j = 0; j < n; j++) {
-      const m = cmax[j]!;
-      col[j] = m > 0 && m < Number.POSITIVE_INFINITY ? 1 / Math.sqrt(m) : 1;
-    }
-    this.sweeps = 1;
-    return 1;
-  }
 }
 
 // Exponent arithmetic on the bits of a double (IEEE 754 binary64, little-endian as on every
@@ -128,8 +99,9 @@ function rescale(factor: Float64Array, max: Float64Array): number {
 }
 
 /**
- * The maxima of one Ruiz step from D = I (`Equilibration.step` without its square roots): the
- * largest |re| + |im| of every row into rmax and of every column into cmax. One O(nnz) pass.
+ * The maxima of one simultaneous Ruiz step from D = I (whose factors are 1/√max; the LU's tests
+ * take the maxima themselves): the largest |re| + |im| of every row into rmax and of every column
+ * into cmax. One O(nnz) pass.
  */
 export function rowColumnMaxima(
   a: SparseComplexMatrix,
