@@ -53,17 +53,31 @@ const logPoints = (points: number) => {
   return f;
 };
 
-/** Time the engine over a sweep: ms for all points (best of `repeat`). */
+/**
+ * Milliseconds of CPU time this process spent in `run` (user + system). The ladder rows compare
+ * CPU time, not wall time: on a shared two-core machine under load the wall time of the same
+ * sweep varies by 2–4× within seconds, the CPU time by a few per cent. Single-threaded work only
+ * (a worker's time would count too).
+ */
+export function cpuMs(run: () => void): number {
+  const c0 = process.cpuUsage();
+  run();
+  const c = process.cpuUsage(c0);
+  return (c.user + c.system) / 1000;
+}
+
+/** Time the engine over a sweep: CPU ms for all points (best of `repeat`). */
 function timeEngine(sys: MnaSystem, freqs: number[], repeat: number): number {
   let best = Number.POSITIVE_INFINITY;
   for (let r = 0; r < repeat; r++) {
     const solver = new AcSolver(sys);
-    const t0 = performance.now();
-    for (const f of freqs) {
-      const err = solver.solveAt(f);
-      if (err) throw new Error(err);
-    }
-    best = Math.min(best, performance.now() - t0);
+    const ms = cpuMs(() => {
+      for (const f of freqs) {
+        const err = solver.solveAt(f);
+        if (err) throw new Error(err);
+      }
+    });
+    best = Math.min(best, ms);
   }
   return best;
 }
@@ -88,7 +102,8 @@ function timeMathjs(sys: MnaSystem, freqs: number[]): number {
 /**
  * The speed limit of the ladder: the same sweep solved by a hand-specialized complex tridiagonal
  * (Thomas) elimination over the node voltages v1…vN with v0 = 1 V, split re/im Float64Arrays, the
- * source current from v1 at the end — no pattern, no pivoting, no indirection. Best of `repeat`, ms.
+ * source current from v1 at the end — no pattern, no pivoting, no indirection. Best of `repeat`,
+ * CPU ms (see `cpuMs`).
  * Returns the output voltage at the last frequency too, so the work cannot be optimized away.
  */
 export function tridiagonalMs(
@@ -108,7 +123,7 @@ export function tridiagonalMs(
   let best = Number.POSITIVE_INFINITY;
   let out = 0;
   for (let r = 0; r < repeat; r++) {
-    const t0 = performance.now();
+    const c0 = process.cpuUsage();
     for (const f of freqs) {
       const wc = 2 * Math.PI * f * c;
       // Row i: −G·v(i−1) + (2G + jωC)·v(i) − G·v(i+1) = 0 (the last row has G + jωC); v0 = 1 V.
@@ -144,7 +159,8 @@ export function tridiagonalMs(
       }
       out = Math.hypot(xRe[n - 1]!, xIm[n - 1]!) + g * (1 - xRe[0]!); // |v(N)| and the source current
     }
-    best = Math.min(best, performance.now() - t0);
+    const used = process.cpuUsage(c0);
+    best = Math.min(best, (used.user + used.system) / 1000);
   }
   return { ms: best, out };
 }
@@ -158,11 +174,22 @@ function ladderCase(sections: number, mathjsPoints: number): BenchCase {
     run() {
       const sys = rcLadder(sections);
       const freqs = logPoints(1001).slice(0, 1000);
-      const repeat = sections >= 10_000 ? 3 : 5;
-      const ms = timeEngine(sys, freqs, repeat);
+      const repeat = sections >= 10_000 ? 4 : 9;
+      // Small ladders sweep the points several times per timing, so that each timing is tens of
+      // milliseconds (CPU time is counted coarsely for shorter spans).
+      const laps = Math.max(1, Math.ceil(1000 / sections));
+      const swept = Array.from({ length: laps }, () => freqs).flat();
+      // The engine and the limit alternately, best of each: a shared machine's load changes
+      // within seconds, and alternating lets it hit both sides of the ratio alike.
+      let ms = Number.POSITIVE_INFINITY;
+      let limit = { ms: Number.POSITIVE_INFINITY, out: 0 };
+      for (let r = 0; r < repeat; r++) {
+        ms = Math.min(ms, timeEngine(sys, swept, 1) / laps);
+        const l = tridiagonalMs(sections, swept, 1);
+        if (l.ms / laps < limit.ms) limit = { ms: l.ms / laps, out: l.out };
+      }
       const ours = ms / freqs.length;
       const dense = mathjsPoints > 0 ? timeMathjs(sys, logPoints(mathjsPoints)) : null;
-      const limit = tridiagonalMs(sections, freqs, repeat);
       return {
         name: this.name,
         unknowns: sys.n,
@@ -176,11 +203,72 @@ function ladderCase(sections: number, mathjsPoints: number): BenchCase {
   };
 }
 
+/**
+ * Where a point of the 1 000-section ladder goes, each stage over the same limit: the refactor
+ * (scaling step + numeric LU), the solve, and the dx/ds solve that every point of a full sweep
+ * adds for group delay (not part of the rows above). Best of 9 (CPU time), alternating with the limit.
+ */
+function stagesCase(sections: number): BenchCase {
+  return {
+    name: `RC ladder ${sections} sections, per stage`,
+    run() {
+      const sys = rcLadder(sections);
+      const freqs = logPoints(1001).slice(0, 1000);
+      const ac = new AcSolver(sys);
+      const fail = ac.solveAt(freqs[0]!);
+      if (fail) throw new Error(fail);
+      // biome-ignore lint/suspicious/noExplicitAny: the LU is private; timed here stage by stage
+      const lu = (ac as any).lu;
+      const x = new Float64Array(sys.n);
+      const y = new Float64Array(sys.n);
+      const stages: [string, () => void][] = [
+        [
+          "refactor",
+          () => {
+            for (const f of freqs) lu.refactorAt(2 * Math.PI * f);
+          },
+        ],
+        [
+          "solve",
+          () => {
+            for (let k = 0; k < freqs.length; k++) lu.solve(sys.bRe, sys.bIm, x, y);
+          },
+        ],
+        [
+          "dx/ds",
+          () => {
+            for (let k = 0; k < freqs.length; k++) ac.derivative();
+          },
+        ],
+      ];
+      const best = stages.map(() => Number.POSITIVE_INFINITY);
+      let limit = Number.POSITIVE_INFINITY;
+      for (let r = 0; r < 9; r++) {
+        stages.forEach(([, run], i) => {
+          best[i] = Math.min(best[i]!, cpuMs(run));
+        });
+        limit = Math.min(limit, tridiagonalMs(sections, freqs, 1).ms);
+      }
+      const parts = stages.map(([label], i) => `${label} ${(best[i]! / limit).toFixed(2)}×`).join(", ");
+      return {
+        name: `${this.name} (${parts})`,
+        unknowns: sys.n,
+        points: freqs.length,
+        msPerSweep: best.reduce((a, b) => a + b, 0),
+        unknownPointsPerSecond: (sys.n * freqs.length) / (best.reduce((a, b) => a + b, 0) / 1000),
+        vsMathjs: null,
+        vsLimit: { ratio: best.reduce((a, b) => a + b, 0) / limit, goal: Number.NaN },
+      };
+    },
+  };
+}
+
 export const BENCH_CASES: BenchCase[] = [
   ladderCase(10, 200),
   ladderCase(100, 10),
   ladderCase(1000, 0),
   ladderCase(10_000, 0),
+  stagesCase(1000),
 ];
 
 /**

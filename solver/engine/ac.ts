@@ -38,6 +38,12 @@ export class AcSolver {
   readonly dx2Re: Float64Array;
   readonly dx2Im: Float64Array;
   private lu: SparseComplexLU | null = null;
+  /** The system whose G and C the LU's pencil maxima were computed from (a rebind changes it). */
+  private pencilOf: MnaSystem | null = null;
+  /** C's nonzeros only, in CSR order (dx/ds multiplies by C; most of A's entries have none). */
+  private cRows: Int32Array | null = null;
+  private cCols = new Int32Array(0);
+  private cVals = new Float64Array(0);
   /** Angular frequency of the last successful solve. */
   omega = 0;
 
@@ -78,20 +84,27 @@ export class AcSolver {
   solveAt(f: number): string | null {
     const sys = this.sys;
     if (sys.n === 0) return "the circuit has no nodes besides gnd";
-    assemble(sys, f);
+    const omega = 2 * Math.PI * f;
     let ok: boolean;
     if (!this.lu) {
+      assemble(sys, f);
       this.lu = new SparseComplexLU(sys.matrix);
+      this.lu.setPencil(sys.g, sys.c);
+      this.pencilOf = sys;
       ok = !this.lu.isSingular();
     } else {
-      ok = this.lu.refactor(sys.matrix.re, sys.matrix.im);
+      if (this.pencilOf !== sys) {
+        this.lu.setPencil(sys.g, sys.c);
+        this.pencilOf = sys;
+      }
+      // Reads G and C itself; sys.matrix's values are written only when a frequency re-pivots.
+      ok = this.lu.refactorAt(omega);
     }
     if (!ok) return this.singularReason(f);
-    this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);
-    if (sys.second) this.lu.solve(sys.second.bRe, sys.second.bIm, this.x2Re, this.x2Im);
-    this.omega = 2 * Math.PI * f;
-    if (!allFinite(this.xRe, this.xIm) || (sys.second && !allFinite(this.x2Re, this.x2Im)))
-      return this.singularReason(f);
+    let finite = this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);
+    if (sys.second) finite = this.lu.solve(sys.second.bRe, sys.second.bIm, this.x2Re, this.x2Im) && finite;
+    this.omega = omega;
+    if (!finite) return this.singularReason(f);
     return null;
   }
 
@@ -111,21 +124,49 @@ export class AcSolver {
 
   /** d = −A⁻¹·C·x (the right-hand sides do not depend on s). */
   private derive(xRe: Float64Array, xIm: Float64Array, dRe: Float64Array, dIm: Float64Array): void {
-    const { matrix, c, n } = this.sys;
-    const { rowPtr, colIdx } = matrix;
+    if (this.cRows === null || this.cOf !== this.sys) this.compactC();
+    const { n } = this.sys;
+    const cRows = this.cRows!;
+    const { cCols, cVals } = this;
+    let q0 = 0;
     for (let i = 0; i < n; i++) {
+      const q1 = cRows[i + 1]!;
       let r = 0;
       let im = 0;
-      for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
-        const cv = c[p]!;
-        if (cv === 0) continue;
-        r -= cv * xRe[colIdx[p]!]!;
-        im -= cv * xIm[colIdx[p]!]!;
+      for (let q = q0; q < q1; q++) {
+        const cv = cVals[q]!;
+        const j = cCols[q]!;
+        r -= cv * xRe[j]!;
+        im -= cv * xIm[j]!;
       }
       dRe[i] = r;
       dIm[i] = im;
+      q0 = q1;
     }
     this.lu!.solve(dRe, dIm);
+  }
+
+  private cOf: MnaSystem | null = null;
+
+  /** C without its zeros, as row pointers, columns and values. */
+  private compactC(): void {
+    const { matrix, c, n } = this.sys;
+    const { rowPtr, colIdx } = matrix;
+    const rows = new Int32Array(n + 1);
+    const cols: number[] = [];
+    const vals: number[] = [];
+    for (let i = 0; i < n; i++) {
+      for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
+        if (c[p] === 0) continue;
+        cols.push(colIdx[p]!);
+        vals.push(c[p]!);
+      }
+      rows[i + 1] = cols.length;
+    }
+    this.cRows = rows;
+    this.cCols = Int32Array.from(cols);
+    this.cVals = Float64Array.from(vals);
+    this.cOf = this.sys;
   }
 
   private singularReason(f: number): string {
@@ -155,9 +196,4 @@ export class AcSolver {
       `${names ? `; undetermined: ${names}` : ""}`
     );
   }
-}
-
-function allFinite(re: Float64Array, im: Float64Array): boolean {
-  for (let i = 0; i < re.length; i++) if (!Number.isFinite(re[i]!) || !Number.isFinite(im[i]!)) return false;
-  return true;
 }

@@ -62,35 +62,6 @@ export class Equilibration {
     }
     return biggest;
   }
-
-  /**
-   * One simultaneous Ruiz step from D = I (one O(nnz) pass), factors 1/√max not rounded to powers
-   * of two: every scaled entry is then at most 1 in size (|a_ij| ≤ √(max_i·max_j)); the value
-   * returned is that bound. The per-frequency path of a sweep uses this — nearly as cheap as the
-   * single pass for the largest entry it replaces; the factors only enter the pivot tests, never
-   * the numbers — and the pivot-order analysis uses `compute`.
-   */
-  step(a: SparseComplexMatrix, re: Float64Array, im: Float64Array): number {
-    const { row, col, cmax } = this;
-    const { rowPtr, colIdx, n } = a;
-    cmax.fill(0);
-    for (let i = 0; i < n; i++) {
-      let m = 0;
-      for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
-        const j = colIdx[p]!;
-        const v = Math.abs(re[p]!) + Math.abs(im[p]!);
-        if (v > m) m = v;
-        if (v > cmax[j]!) cmax[j] = v;
-      }
-      row[i] = m > 0 && m < Number.POSITIVE_INFINITY ? 1 / Math.sqrt(m) : 1;
-    }
-    for (let j = 0; j < n; j++) {
-      const m = cmax[j]!;
-      col[j] = m > 0 && m < Number.POSITIVE_INFINITY ? 1 / Math.sqrt(m) : 1;
-    }
-    this.sweeps = 1;
-    return 1;
-  }
 }
 
 // Exponent arithmetic on the bits of a double (IEEE 754 binary64, little-endian as on every
@@ -125,4 +96,143 @@ function rescale(factor: Float64Array, max: Float64Array): number {
     moved++;
   }
   return moved;
+}
+
+/**
+ * The maxima of one simultaneous Ruiz step from D = I (whose factors are 1/√max; the LU's tests
+ * take the maxima themselves): the largest |re| + |im| of every row into rmax and of every column
+ * into cmax. One O(nnz) pass.
+ */
+export function rowColumnMaxima(
+  a: SparseComplexMatrix,
+  re: Float64Array,
+  im: Float64Array,
+  rmax: Float64Array,
+  cmax: Float64Array,
+): void {
+  const { rowPtr, colIdx, n } = a;
+  cmax.fill(0);
+  for (let i = 0; i < n; i++) {
+    let m = 0;
+    const p1 = rowPtr[i + 1]!;
+    for (let p = rowPtr[i]!; p < p1; p++) {
+      const j = colIdx[p]!;
+      const v = Math.abs(re[p]!) + Math.abs(im[p]!);
+      if (v > m) m = v;
+      if (v > cmax[j]!) cmax[j] = v;
+    }
+    rmax[i] = m;
+  }
+}
+
+/**
+ * Each row's and column's largest |re| + |im| of A = G + jωC as terms |g| + ω·|c| (ω ≥ 0), kept
+ * only where no other entry of the same row (column) has both a larger-or-equal |g| and |c|:
+ * a dropped term is ≤ a kept one at every ω, and stays so after rounding (rounded + and × are
+ * monotone), so the maximum over the kept terms is bit for bit the maximum over all entries. A
+ * row of a circuit matrix keeps one or two terms, so a frequency's maxima cost O(n), not O(nnz).
+ */
+export interface PencilMaxima {
+  rowPtr: Int32Array;
+  rowG: Float64Array;
+  rowC: Float64Array;
+  colPtr: Int32Array;
+  colG: Float64Array;
+  colC: Float64Array;
+}
+
+export function pencilMaxima(a: SparseComplexMatrix, g: Float64Array, c: Float64Array): PencilMaxima {
+  const { rowPtr, colIdx, n } = a;
+  const byRow: number[][] = Array.from({ length: n }, () => []);
+  const byCol: number[][] = Array.from({ length: n }, () => []);
+  for (let i = 0; i < n; i++) {
+    for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
+      byRow[i]!.push(p);
+      byCol[colIdx[p]!]!.push(p);
+    }
+  }
+  const pack = (lists: number[][]) => {
+    const ptr = new Int32Array(n + 1);
+    const gs: number[] = [];
+    const cs: number[] = [];
+    for (let i = 0; i < n; i++) {
+      // Largest |g| first (ties: largest |c| first); keep a term only if its |c| beats every kept one.
+      const terms = lists[i]!.map((p) => [Math.abs(g[p]!), Math.abs(c[p]!)] as const)
+        .filter(([x, y]) => !Number.isNaN(x) && !Number.isNaN(y))
+        .sort((u, v) => v[0] - u[0] || v[1] - u[1]);
+      let bestC = -1;
+      for (const [x, y] of terms) {
+        if (y <= bestC) continue;
+        gs.push(x);
+        cs.push(y);
+        bestC = y;
+      }
+      ptr[i + 1] = gs.length;
+    }
+    return { ptr, g: Float64Array.from(gs), c: Float64Array.from(cs) };
+  };
+  const rows = pack(byRow);
+  const cols = pack(byCol);
+  return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
+}
+
+/**
+ * The pencil's kept terms renumbered to a pivot order: row k of the result holds the terms of
+ * original row rowPerm[k], column k those of original column colPerm[k] (so `pencilTests` walks
+ * both in step order, without indirection).
+ */
+export function pencilInOrder(
+  pen: PencilMaxima,
+  order: { rowPerm: Int32Array; colPerm: Int32Array },
+): PencilMaxima {
+  const permute = (ptr: Int32Array, g: Float64Array, c: Float64Array, perm: Int32Array) => {
+    const n = perm.length;
+    const outPtr = new Int32Array(n + 1);
+    const outG = new Float64Array(g.length);
+    const outC = new Float64Array(c.length);
+    let at = 0;
+    for (let k = 0; k < n; k++) {
+      const i = perm[k]!;
+      for (let p = ptr[i]!; p < ptr[i + 1]!; p++) {
+        outG[at] = g[p]!;
+        outC[at] = c[p]!;
+        at++;
+      }
+      outPtr[k + 1] = at;
+    }
+    return { ptr: outPtr, g: outG, c: outC };
+  };
+  const rows = permute(pen.rowPtr, pen.rowG, pen.rowC, order.rowPerm);
+  const cols = permute(pen.colPtr, pen.colG, pen.colC, order.colPerm);
+  return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
+}
+
+/**
+ * The maxima at ω = w ≥ 0 of a pencil in pivot order (`pencilInOrder`), as the LU's tests take
+ * them: cm[k] = max over column k's kept terms of g + w·c, rm[k] the same over row k's — or 1
+ * where that is 0 (no entry) or not finite (the factor of such a row or column stays 1).
+ */
+export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
+  const { rowPtr, rowG, rowC, colPtr, colG, colC } = pen;
+  const n = cm.length;
+  let c0 = 0;
+  let r0 = 0;
+  for (let k = 0; k < n; k++) {
+    const c1 = colPtr[k + 1]!;
+    let m = 0;
+    for (let p = c0; p < c1; p++) {
+      const v = colG[p]! + w * colC[p]!;
+      if (v > m) m = v;
+    }
+    cm[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+    c0 = c1;
+    const r1 = rowPtr[k + 1]!;
+    m = 0;
+    for (let p = r0; p < r1; p++) {
+      const v = rowG[p]! + w * rowC[p]!;
+      if (v > m) m = v;
+    }
+    rm[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+    r0 = r1;
+  }
 }

@@ -49,8 +49,9 @@ export interface OrderingOptions {
  * Fill is recorded structurally (an update creates an entry even when it is numerically zero), so
  * the pattern holds for every frequency whose matrix has A's pattern.
  *
- * Cost: one pass of sparse elimination with Map/Set rows and columns; fine for the tens of
- * thousands of unknowns of circuit matrices, and run once per sweep.
+ * Cost: one pass of sparse elimination over array rows and columns (insertion-ordered, as the
+ * search's tie-breaking needs); fine for the tens of thousands of unknowns of circuit matrices,
+ * and run once per sweep.
  */
 export function markowitzOrder(
   a: SparseComplexMatrix,
@@ -59,32 +60,65 @@ export function markowitzOrder(
   opt: OrderingOptions,
 ): OrderingResult {
   const n = a.n;
-  // Active matrix: rows as Map<col, [re, im]>, columns as Set<row>.
-  const rows: Map<number, [number, number]>[] = [];
-  const cols: Set<number>[] = [];
-  for (let j = 0; j < n; j++) cols.push(new Set());
+  // Active matrix in plain arrays (no Map/Set, no per-entry objects: the analysis runs once per
+  // sweep, usually before the JIT has warmed up, where a Map of [re, im] pairs cost ~0.2 s for
+  // 1 000 unknowns). Every list keeps insertion order with order-preserving deletion, as a Map
+  // or Set would, so the search visits rows and entries in the same order as before.
+  //  rowCols[i], rowRe[i], rowIm[i]: the active entries of row i;  colRows[j]: rows with an entry in j.
+  const rowCols: number[][] = [];
+  const rowRe: number[][] = [];
+  const rowIm: number[][] = [];
+  const colRows: number[][] = [];
+  for (let j = 0; j < n; j++) colRows.push([]);
   for (let i = 0; i < n; i++) {
-    const m = new Map<number, [number, number]>();
+    const cs: number[] = [];
+    const rs: number[] = [];
+    const is: number[] = [];
     for (let p = a.rowPtr[i]!; p < a.rowPtr[i + 1]!; p++) {
       const j = a.colIdx[p]!;
-      m.set(j, [re[p]!, im[p]!]);
-      cols[j]!.add(i);
+      cs.push(j);
+      rs.push(re[p]!);
+      is.push(im[p]!);
+      colRows[j]!.push(i);
     }
-    rows.push(m);
+    rowCols.push(cs);
+    rowRe.push(rs);
+    rowIm.push(is);
   }
-  // Buckets of active rows by count, so the sparsest rows are searched first.
-  const buckets: Set<number>[] = [];
-  for (let c = 0; c <= n; c++) buckets.push(new Set());
-  for (let i = 0; i < n; i++) buckets[rows[i]!.size]!.add(i);
+  // Buckets of active rows by count, so the sparsest rows are searched first: doubly linked lists
+  // appended at the tail (a row moved to a bucket goes last, as Set delete + add would put it).
+  const head = new Int32Array(n + 1).fill(-1);
+  const tail = new Int32Array(n + 1).fill(-1);
+  const next = new Int32Array(n).fill(-1);
+  const prev = new Int32Array(n).fill(-1);
   const rowCount = new Int32Array(n);
-  for (let i = 0; i < n; i++) rowCount[i] = rows[i]!.size;
+  const link = (i: number, cnt: number) => {
+    rowCount[i] = cnt;
+    prev[i] = tail[cnt]!;
+    next[i] = -1;
+    if (tail[cnt]! >= 0) next[tail[cnt]!] = i;
+    else head[cnt] = i;
+    tail[cnt] = i;
+  };
+  const unlink = (i: number) => {
+    const cnt = rowCount[i]!;
+    if (prev[i]! >= 0) next[prev[i]!] = next[i]!;
+    else head[cnt] = next[i]!;
+    if (next[i]! >= 0) prev[next[i]!] = prev[i]!;
+    else tail[cnt] = prev[i]!;
+  };
+  for (let i = 0; i < n; i++) link(i, rowCols[i]!.length);
   let maxCount = 0;
   for (let i = 0; i < n; i++) maxCount = Math.max(maxCount, rowCount[i]!);
   const moveRow = (i: number, size: number) => {
     if (size > maxCount) maxCount = size;
-    buckets[rowCount[i]!]!.delete(i);
-    rowCount[i] = size;
-    buckets[size]!.add(i);
+    unlink(i);
+    link(i, size);
+  };
+  /** Remove the first `v` from `list`, keeping the order of the rest. */
+  const remove = (list: number[], v: number) => {
+    const at = list.indexOf(v);
+    if (at >= 0) list.splice(at, 1);
   };
 
   const rowPerm = new Int32Array(n);
@@ -93,6 +127,8 @@ export function markowitzOrder(
   const uCols: number[][] = [];
   const rowDone = new Uint8Array(n);
   const colDone = new Uint8Array(n);
+  // Position of column j in the row being updated (−1 elsewhere).
+  const pos = new Int32Array(n).fill(-1);
 
   for (let step = 0; step < n; step++) {
     let bestR = -1;
@@ -101,17 +137,20 @@ export function markowitzOrder(
     let bestRatio = 0;
     let searched = 0;
     for (let cnt = 1; cnt <= maxCount && searched < opt.searchRows && bestCost > 0; cnt++) {
-      for (const r of buckets[cnt]!) {
-        const row = rows[r]!;
+      for (let r = head[cnt]!; r >= 0; r = next[r]!) {
+        const cs = rowCols[r]!;
+        const rs = rowRe[r]!;
+        const is = rowIm[r]!;
         let rowMax = 0;
-        for (const v of row.values()) rowMax = Math.max(rowMax, Math.hypot(v[0], v[1]));
+        for (let t = 0; t < cs.length; t++) rowMax = Math.max(rowMax, Math.hypot(rs[t]!, is[t]!));
         if (rowMax <= opt.absTolerance) continue;
         let found = false;
-        for (const [c, v] of row) {
-          const mag = Math.hypot(v[0], v[1]);
+        for (let t = 0; t < cs.length; t++) {
+          const c = cs[t]!;
+          const mag = Math.hypot(rs[t]!, is[t]!);
           if (mag <= opt.absTolerance || mag < opt.pivotThreshold * rowMax) continue;
           found = true;
-          const cost = (cnt - 1) * (cols[c]!.size - 1);
+          const cost = (cnt - 1) * (colRows[c]!.length - 1);
           const ratio = mag / rowMax;
           if (cost < bestCost || (cost === bestCost && ratio > bestRatio)) {
             bestCost = cost;
@@ -137,40 +176,66 @@ export function markowitzOrder(
     colPerm[step] = c;
     rowDone[r] = 1;
     colDone[c] = 1;
-    const pivotRow = rows[r]!;
-    const piv = pivotRow.get(c)!;
-    const den = piv[0] * piv[0] + piv[1] * piv[1];
+    // The pivot row without the pivot: U's columns, in the row's order, and their values.
+    const pCols = rowCols[r]!;
+    const pRe = rowRe[r]!;
+    const pIm = rowIm[r]!;
+    const at = pCols.indexOf(c);
+    const pivRe = pRe[at]!;
+    const pivIm = pIm[at]!;
+    const den = pivRe * pivRe + pivIm * pivIm;
     const u: number[] = [];
-    for (const j of pivotRow.keys()) if (j !== c) u.push(j);
+    const uRe: number[] = [];
+    const uIm: number[] = [];
+    for (let t = 0; t < pCols.length; t++) {
+      if (t === at) continue;
+      u.push(pCols[t]!);
+      uRe.push(pRe[t]!);
+      uIm.push(pIm[t]!);
+    }
     uCols.push(u);
-    for (const i of cols[c]!) {
+    const col = colRows[c]!;
+    for (let e = 0; e < col.length; e++) {
+      const i = col[e]!;
       if (i === r) continue;
-      const row = rows[i]!;
-      const aic = row.get(c)!;
+      const cs = rowCols[i]!;
+      const rs = rowRe[i]!;
+      const is = rowIm[i]!;
+      const ic = cs.indexOf(c);
+      const aicRe = rs[ic]!;
+      const aicIm = is[ic]!;
       // l = a_ic / a_rc
-      const lr = (aic[0] * piv[0] + aic[1] * piv[1]) / den;
-      const li = (aic[1] * piv[0] - aic[0] * piv[1]) / den;
+      const lr = (aicRe * pivRe + aicIm * pivIm) / den;
+      const li = (aicIm * pivRe - aicRe * pivIm) / den;
       lSteps[i]!.push(step);
-      row.delete(c);
-      for (const j of u) {
-        const arj = pivotRow.get(j)!;
-        const cur = row.get(j);
-        const dr = lr * arj[0] - li * arj[1];
-        const di = lr * arj[1] + li * arj[0];
-        if (cur) {
-          cur[0] -= dr;
-          cur[1] -= di;
+      cs.splice(ic, 1);
+      rs.splice(ic, 1);
+      is.splice(ic, 1);
+      for (let t = 0; t < cs.length; t++) pos[cs[t]!] = t;
+      for (let t = 0; t < u.length; t++) {
+        const j = u[t]!;
+        const dr = lr * uRe[t]! - li * uIm[t]!;
+        const di = lr * uIm[t]! + li * uRe[t]!;
+        const q = pos[j]!;
+        if (q >= 0) {
+          rs[q] = rs[q]! - dr;
+          is[q] = is[q]! - di;
         } else {
-          row.set(j, [-dr, -di]);
-          cols[j]!.add(i);
+          cs.push(j);
+          rs.push(-dr);
+          is.push(-di);
+          colRows[j]!.push(i);
         }
       }
-      moveRow(i, row.size);
+      for (let t = 0; t < cs.length; t++) pos[cs[t]!] = -1;
+      moveRow(i, cs.length);
     }
-    for (const j of u) cols[j]!.delete(r);
-    cols[c]!.clear();
-    buckets[rowCount[r]!]!.delete(r);
-    rows[r] = new Map();
+    for (const j of u) remove(colRows[j]!, r);
+    colRows[c] = [];
+    unlink(r);
+    rowCols[r] = [];
+    rowRe[r] = [];
+    rowIm[r] = [];
   }
 
   const colPos = new Int32Array(n);
