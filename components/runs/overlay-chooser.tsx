@@ -6,6 +6,7 @@ import { useId, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { useHydrated } from "@/components/ui/use-hydrated";
 import { apiErrorMessage } from "@/lib/api-error";
+import type { MeasurementSummary } from "@/lib/measurements";
 import { formatQuantity } from "@/solver/format";
 
 /** What the chooser shows of each data set (the server's summary, lib/measurements.ts). */

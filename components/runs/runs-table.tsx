@@ -27,7 +27,6 @@ export type RunsTableProps = {
   members: { id: string; name: string }[];
 };
 
-
 /** The project's runs: sorting, filters and paging live in the URL and run on the server. */
 export function RunsTable({ projectId, runs, total, pages, query, members }: RunsTableProps) {
   const router = useRouter();
