@@ -3,12 +3,14 @@
  *   1. preview solve round trip of the demo oscillator: median < 100 ms (POST /api/solve, bearer token)
  *   2. a run of 10 000 points × 8 traces saves and loads in < 300 ms (lib/runs.ts, GET /api/runs/:id)
  *   3. first-load JavaScript of each page, kB gzip, from the `.next` build output
+ *   4. page loads in headless Chromium, cold and warm, and the live preview (scripts/bench-pages.ts)
  * Writes only to the bench database (DATABASE_URL must name it; the shared databases are refused).
  */
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import vm from "node:vm";
 import { gzipSync } from "node:zlib";
+import { benchPages, ensurePagesFixture, type PagesFixture } from "./bench-pages";
 
 const ROOT = path.join(__dirname, "..");
 const SHARED_DATABASES = new Set(["phasewright", "phasewright_test"]);
@@ -434,6 +436,7 @@ function firstLoadJs(): { rows: (string | number)[][]; note: string } | string {
 async function main(): Promise<void> {
   const db = benchDatabase();
   const { sequelize } = await import("@/lib/db");
+  let pages: PagesFixture | null = null;
   try {
     const fixture = await ensureFixture();
 
@@ -460,6 +463,7 @@ async function main(): Promise<void> {
     const run = await benchRun(fixture);
     table(["step", "median", "max", "goal (median)", ""], run.rows);
     table(["size", ""], run.sizes);
+    pages = process.env.BENCH_OWN_URL ? await ensurePagesFixture(oscillatorNetlist()) : null;
   } finally {
     await sequelize.close();
   }
@@ -472,6 +476,9 @@ async function main(): Promise<void> {
     table(["page", "first load", "page's own", "budget", ""], js.rows);
     console.log(js.note);
   }
+
+  console.log("\n## 4. Page loads in headless Chromium (bench app), and the live preview");
+  await benchPages(process.env.BENCH_OWN_URL, pages, table);
 }
 
 if (require.main === module) {
