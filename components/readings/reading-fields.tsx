@@ -1,6 +1,6 @@
 "use client";
 
-import { FieldErrors, inputClass } from "@/components/ui/field";
+import { FieldErrors, fileInputClass, inputClass } from "@/components/ui/field";
 import {
   FORMS_OF,
   formLabel,
@@ -127,7 +127,7 @@ export function AboutFields({ kit }: { kit: FieldKit }) {
             id={id("node")}
             name="node"
             className={inputClass}
-            placeholder="out"
+            placeholder="e.g. out"
             maxLength={100}
             {...err("node")}
           />
@@ -143,7 +143,7 @@ export function AboutFields({ kit }: { kit: FieldKit }) {
             rows={2}
             className={inputClass}
             maxLength={2000}
-            placeholder="Board 2, probe ×10, after 10 min warm-up"
+            placeholder="e.g. Board 2, probe ×10, after 10 min warm-up"
             {...err("note")}
           />
           <FieldErrors id={id("note-err")} errors={errors.note} />
@@ -158,7 +158,7 @@ export function AboutFields({ kit }: { kit: FieldKit }) {
           name="file"
           type="file"
           accept="image/png,image/jpeg,.csv,text/csv"
-          className="text-sm"
+          className={fileInputClass}
           aria-describedby={cn(id("file-hint"), errors.file?.length && id("file-err"))}
           aria-invalid={errors.file?.length ? true : undefined}
         />

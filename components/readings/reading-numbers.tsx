@@ -118,7 +118,7 @@ export function NumberFields({
           className={inputClass}
           value={numbers.divisions}
           onChange={(e) => onChange({ divisions: e.target.value })}
-          placeholder="9.8"
+          placeholder="e.g. 9.8"
           {...err("divisions")}
         />
         <FieldErrors id={id("divisions-err")} errors={errors.divisions} />
@@ -133,7 +133,7 @@ export function NumberFields({
           field="perDivision"
           value={numbers.perDivision}
           onValue={(perDivision) => onChange({ perDivision })}
-          placeholder={quantity === "period" ? "10" : "1"}
+          placeholder={quantity === "period" ? "e.g. 10" : "e.g. 1"}
           unit={numbers.perUnit}
           onUnit={(perUnit) => onChange({ perUnit })}
           units={units}

@@ -3,6 +3,14 @@
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
+import {
+  stackBody,
+  stackCell,
+  stackHead,
+  stackRow,
+  stackTable,
+  stackTitle,
+} from "@/components/ui/stacked-table";
 import { QUANTITY_LABEL } from "@/lib/reading-kinds";
 import { percentileWords } from "@/lib/reading-math";
 import type { ReadingView } from "@/lib/readings";
@@ -14,10 +22,6 @@ const sizeText = (bytes: number) =>
   bytes >= 1024 * 1024
     ? `${(bytes / (1024 * 1024)).toFixed(1)} MB`
     : `${Math.max(1, Math.round(bytes / 1024))} kB`;
-
-/** A cell that, on a phone, stacks under its column name (`data-label`) beside its value. */
-const stacked =
-  "py-2 pr-3 max-sm:flex max-sm:items-baseline max-sm:justify-between max-sm:gap-4 max-sm:py-1 max-sm:pr-0 max-sm:text-right max-sm:before:shrink-0 max-sm:before:text-left max-sm:before:text-xs max-sm:before:tracking-wide max-sm:before:uppercase max-sm:before:text-ink-600 max-sm:before:content-[attr(data-label)]";
 
 /** The spread verdict of one reading, or why there is none. */
 function SpreadCell({ r }: { r: ReadingView }) {
@@ -72,9 +76,14 @@ export function ReadingsList({
   return (
     <div className="space-y-3">
       <div className="sm:overflow-x-auto">
-        <table className="w-full text-left text-sm max-sm:block sm:min-w-[44rem]">
+        <table className={cn("w-full text-left text-sm sm:min-w-[44rem]", stackTable)}>
           <caption className="sr-only">Bench readings beside the run's prediction</caption>
-          <thead className="text-ink-600 border-paper-200 border-b text-xs tracking-wide uppercase max-sm:sr-only">
+          <thead
+            className={cn(
+              "text-ink-600 border-paper-200 border-b text-xs tracking-wide uppercase",
+              stackHead,
+            )}
+          >
             <tr>
               <th scope="col" className="py-2 pr-3 font-medium">
                 Reading
@@ -96,15 +105,12 @@ export function ReadingsList({
               </th>
             </tr>
           </thead>
-          <tbody className="divide-paper-200 divide-y max-sm:block max-sm:space-y-3 max-sm:divide-y-0">
+          <tbody className={cn("divide-paper-200 divide-y max-sm:divide-y-0", stackBody)}>
             {readings.map((r) => {
               const c = r.comparison;
               return (
-                <tr
-                  key={r.id}
-                  className="max-sm:border-paper-200 align-top max-sm:block max-sm:rounded-md max-sm:border max-sm:px-3 max-sm:py-2"
-                >
-                  <td className="py-2 pr-3 [overflow-wrap:anywhere] max-sm:block max-sm:pr-0">
+                <tr key={r.id} className={cn("align-top", stackRow)}>
+                  <td className={cn("py-2 pr-3", stackTitle)}>
                     <span className="text-ink-900 font-medium">{QUANTITY_LABEL[r.quantity]}</span>
                     {r.measureName ? <span className="text-ink-600"> vs {r.measureName}</span> : null}
                     {r.node ? <span className="text-ink-600"> at {r.node}</span> : null}
@@ -125,16 +131,16 @@ export function ReadingsList({
                       </a>
                     ) : null}
                   </td>
-                  <td data-label="Predicted" className={cn(stacked, "tabular-nums")}>
+                  <td data-label="Predicted" className={cn("py-2 pr-3 tabular-nums", stackCell)}>
                     {c.unit ? formatQuantity(c.predicted, c.unit, 4) : "—"}
                   </td>
-                  <td data-label="Measured" className={cn(stacked, "tabular-nums")}>
+                  <td data-label="Measured" className={cn("py-2 pr-3 tabular-nums", stackCell)}>
                     {c.unit ? formatQuantity(c.measured, c.unit, 4) : "—"}
                   </td>
-                  <td data-label="Deviation" className={cn(stacked, "tabular-nums")}>
+                  <td data-label="Deviation" className={cn("py-2 pr-3 tabular-nums", stackCell)}>
                     {formatPercent(c.deviationPct, 3)}
                   </td>
-                  <td data-label="Spread" className={stacked}>
+                  <td data-label="Spread" className={cn("py-2 pr-3", stackCell)}>
                     <SpreadCell r={r} />
                   </td>
                   <td className="py-2 text-right max-sm:block max-sm:pb-0 max-sm:text-left">

@@ -67,7 +67,7 @@ export function RunsTable({ projectId, runs, total, pages, query, members }: Run
                 columns still hold it for screen readers, so this line is hidden from them). */}
             <span
               aria-hidden="true"
-              className="text-caption text-ink-600 flex basis-full items-center gap-2 sm:hidden"
+              className="text-caption text-ink-600 flex basis-full flex-wrap items-center gap-x-2 gap-y-1 sm:hidden"
             >
               <ReviewStateBadge state={c.row.original.reviewState} />
               <ChecksCell passed={c.row.original.checksPassed} total={c.row.original.checksTotal} />
