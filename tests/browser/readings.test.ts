@@ -92,7 +92,7 @@ describe("bench readings", () => {
         page: document.documentElement.scrollWidth - window.innerWidth,
         inside: scroller ? scroller.scrollWidth - scroller.clientWidth : -1,
         right: Math.max(
-          ...[...(table?.querySelectorAll("tr") ?? [])].map((r) => r.getBoundingClientRect().right),
+          ...[...(table?.querySelectorAll("tbody tr") ?? [])].map((r) => r.getBoundingClientRect().right),
         ),
         width: window.innerWidth,
       };
