@@ -59,9 +59,9 @@ export function SignUpForm({ callbackUrl }: { callbackUrl: string }) {
         router.push("/signin");
         return;
       }
-      // Signed in: say where the verification link went before moving on.
+      // Signed in: say where the verification link went before moving on. No refresh here: the page
+      // would send a signed-in visitor on at once, before this could be read.
       setSentTo(parsed.data.email);
-      router.refresh();
     });
   }
 
@@ -75,9 +75,10 @@ export function SignUpForm({ callbackUrl }: { callbackUrl: string }) {
           team invitations. The link works for two days; no mail after a few minutes? Look in your spam
           folder.
         </p>
-        <Link href={callbackUrl} className={buttonClass({ size: "lg", className: "w-full" })}>
+        {/* A full page load, so that the header shows the signed-in account. */}
+        <a href={callbackUrl} className={buttonClass({ size: "lg", className: "w-full" })}>
           Continue to your projects
-        </Link>
+        </a>
       </div>
     );
   }
