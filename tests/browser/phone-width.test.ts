@@ -34,7 +34,7 @@ describe("phone width", () => {
       await page
         .locator(".js-plotly-plot")
         .first()
-        .waitFor({ timeout: 60_000 })
+        .waitFor({ timeout: 30_000 })
         .catch(() => undefined);
       const over = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth);
       expect(over, `${path} is wider than the screen`).toBeLessThanOrEqual(0);
@@ -46,5 +46,5 @@ describe("phone width", () => {
     const rights = await cells.evaluateAll((tds) => tds.map((td) => td.getBoundingClientRect().right));
     for (const r of rights) expect(r).toBeLessThanOrEqual(390);
     await context.close();
-  });
+  }, 240_000);
 });
