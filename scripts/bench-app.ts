@@ -3,6 +3,7 @@
  *   1. preview solve round trip of the demo oscillator: median < 100 ms (POST /api/solve, bearer token)
  *   2. a run of 10 000 points × 8 traces saves and loads in < 300 ms (lib/runs.ts, GET /api/runs/:id)
  *   3. first-load JavaScript of each page, kB gzip, from the `.next` build output
+ *   4. page loads in headless Chromium, cold and warm, and the live preview (scripts/bench-pages.ts)
  * Writes only to the bench database (DATABASE_URL must name it; the shared databases are refused).
  */
 import { readFileSync } from "node:fs";
@@ -11,6 +12,7 @@ import vm from "node:vm";
 import { gzipSync } from "node:zlib";
 import { ApiToken, Membership, Project, Run, sequelize, Team, User } from "@/lib/db";
 import { generateToken, hashToken } from "@/lib/tokens";
+import { benchPages, ensurePagesFixture, type PagesFixture } from "./bench-pages";
 
 const ROOT = path.join(__dirname, "..");
 const SHARED_DATABASES = new Set(["phasewright", "phasewright_test"]);
@@ -429,6 +431,7 @@ function firstLoadJs(): { rows: (string | number)[][]; note: string } | string {
 
 async function main(): Promise<void> {
   const db = benchDatabase();
+  let pages: PagesFixture | null = null;
   try {
     const fixture = await ensureFixture();
 
@@ -455,6 +458,7 @@ async function main(): Promise<void> {
     const run = await benchRun(fixture);
     table(["step", "median", "max", "goal (median)", ""], run.rows);
     table(["size", ""], run.sizes);
+    pages = process.env.BENCH_OWN_URL ? await ensurePagesFixture(oscillatorNetlist()) : null;
   } finally {
     await sequelize.close();
   }
@@ -467,6 +471,9 @@ async function main(): Promise<void> {
     table(["page", "first load", "page's own", "budget", ""], js.rows);
     console.log(js.note);
   }
+
+  console.log("\n## 4. Page loads in headless Chromium (bench app), and the live preview");
+  await benchPages(process.env.BENCH_OWN_URL, pages, table);
 }
 
 if (require.main === module) {

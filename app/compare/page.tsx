@@ -96,10 +96,11 @@ async function Comparison({ actor, a: idA, b: idB }: { actor: Actor; a: string; 
           </div>
         </Panel>
         <DelayComparePanel traces={comparison.traces} />
-        <div className="grid gap-6 lg:grid-cols-2">
+        {/* min-w-0: a grid cell may shrink below its table's width (the table then fits or stacks). */}
+        <div className="grid gap-6 lg:grid-cols-2 [&>*]:min-w-0">
           <Panel aria-labelledby="measures-h">
             <PanelHeader id="measures-h" title="Measures" description="Side by side with Δ and Δ%." />
-            <div className="overflow-x-auto p-3">
+            <div className="p-3">
               <MeasuresCompare measures={comparison.measures} labelA="A" labelB="B" />
             </div>
           </Panel>

@@ -1,6 +1,7 @@
 "use client";
 
 import type { Data, Layout } from "plotly.js";
+import { deltaTicks } from "@/components/plot/delta-ticks";
 import { frequencyChartLayout, plotColors, traceColor } from "@/components/plot/palette";
 import { plotText } from "@/components/plot/plot-text";
 import type { DrawnTrace } from "@/lib/drawn-result";
@@ -51,6 +52,8 @@ export function GroupDelayView({
             showgrid: false,
             exponentformat: "SI",
             tickfont: { color: plotColors.difference },
+            // Round steps from zero, not the left axis' grid spacing (as on the Bode plot's Δ axes).
+            ...deltaTicks(curves.filter((c) => c.difference).flatMap((c) => c.y)),
           },
         }
       : {}),

@@ -5,6 +5,7 @@ import { useRouter } from "next/navigation";
 import { signIn } from "next-auth/react";
 import { type FormEvent, useState, useTransition } from "react";
 import { Button } from "@/components/ui/button";
+import { buttonClass } from "@/components/ui/button-class";
 import { Field } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useHydrated } from "@/components/ui/use-hydrated";
@@ -19,6 +20,8 @@ export function SignUpForm({ callbackUrl }: { callbackUrl: string }) {
   const router = useRouter();
   const [errors, setErrors] = useState<Errors>({});
   const [message, setMessage] = useState<string | null>(null);
+  /** The address the verification link went to, once the account exists. */
+  const [sentTo, setSentTo] = useState<string | null>(null);
   const [pending, startTransition] = useTransition();
   // Marks the form as interactive (browser checks wait for it before submitting).
   const hydrated = useHydrated();
@@ -56,9 +59,28 @@ export function SignUpForm({ callbackUrl }: { callbackUrl: string }) {
         router.push("/signin");
         return;
       }
-      router.push(callbackUrl);
-      router.refresh();
+      // Signed in: say where the verification link went before moving on. No refresh here: the page
+      // would send a signed-in visitor on at once, before this could be read.
+      setSentTo(parsed.data.email);
     });
+  }
+
+  if (sentTo) {
+    return (
+      <div role="status" className="space-y-4" data-testid="signup-check-mail">
+        <h2 className="text-ink-950 text-lead font-semibold">Check your mail</h2>
+        <p className="text-ink-800 text-sm">
+          Your account is ready. We sent a link to <strong className="break-all">{sentTo}</strong>: open it to
+          confirm your address. Until then you can work in your own workbench, but you cannot send or accept
+          team invitations. The link works for two days; no mail after a few minutes? Look in your spam
+          folder.
+        </p>
+        {/* A full page load, so that the header shows the signed-in account. */}
+        <a href={callbackUrl} className={buttonClass({ size: "lg", className: "w-full" })}>
+          Continue to your projects
+        </a>
+      </div>
+    );
   }
 
   return (

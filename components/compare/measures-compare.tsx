@@ -1,3 +1,11 @@
+import {
+  stackBody,
+  stackCell,
+  stackHead,
+  stackRow,
+  stackTable,
+  stackTitle,
+} from "@/components/ui/stacked-table";
 import type { MeasureComparison } from "@/lib/compare";
 import { cn } from "@/lib/utils";
 import { formatDelta, formatPercent, formatQuantity } from "@/solver/format";
@@ -9,7 +17,7 @@ export interface MeasuresCompareProps {
   className?: string;
 }
 
-/** Every measure of both runs side by side with Δ = b − a and Δ% = Δ / |a|. */
+/** Every measure of both runs side by side with Δ = b − a and Δ% = Δ / |a|; one card per measure on a phone. */
 export function MeasuresCompare({
   measures,
   labelA = "before",
@@ -20,10 +28,10 @@ export function MeasuresCompare({
     return <p className={cn("text-ink-500 text-sm", className)}>Neither run has measures.</p>;
   }
   return (
-    <div className={cn("overflow-x-auto", className)}>
-      <table className="w-full border-collapse text-sm">
+    <div className={cn("sm:overflow-x-auto", className)}>
+      <table className={cn("w-full border-collapse text-sm", stackTable)}>
         <caption className="sr-only">Measures side by side</caption>
-        <thead>
+        <thead className={stackHead}>
           <tr className="border-paper-200 text-caption text-ink-500 border-b text-left uppercase">
             <th scope="col" className="py-1.5 pr-3 font-medium">
               Measure
@@ -42,28 +50,36 @@ export function MeasuresCompare({
             </th>
           </tr>
         </thead>
-        <tbody className="font-mono tabular-nums">
+        <tbody className={cn("font-mono tabular-nums", stackBody)}>
           {measures.map((m) => (
-            <tr key={m.name} className="border-paper-100 border-b align-top last:border-0">
-              <th scope="row" className="text-ink-900 py-1.5 pr-3 text-left font-medium">
+            <tr key={m.name} className={cn("border-paper-100 border-b align-top sm:last:border-0", stackRow)}>
+              <th scope="row" className={cn("text-ink-900 py-1.5 pr-3 text-left font-medium", stackTitle)}>
                 {m.name}
               </th>
               <td
-                className="text-ink-700 py-1.5 pr-3 text-right"
+                data-label={labelA}
+                className={cn("text-ink-700 py-1.5 pr-3 text-right", stackCell)}
                 title={m.a === null ? (m.reasonA ?? undefined) : undefined}
               >
                 {m.a === null ? <NoValue reason={m.reasonA} /> : formatQuantity(m.a, m.unit)}
               </td>
               <td
-                className="text-ink-900 py-1.5 pr-3 text-right"
+                data-label={labelB}
+                className={cn("text-ink-900 py-1.5 pr-3 text-right", stackCell)}
                 title={m.b === null ? (m.reasonB ?? undefined) : undefined}
               >
                 {m.b === null ? <NoValue reason={m.reasonB} /> : formatQuantity(m.b, m.unit)}
               </td>
-              <td className={cn("py-1.5 pr-3 text-right whitespace-nowrap", tone(m.delta))}>
+              <td
+                data-label="Δ"
+                className={cn("py-1.5 pr-3 text-right whitespace-nowrap", stackCell, tone(m.delta))}
+              >
                 {formatDelta(m.delta, m.unit)}
               </td>
-              <td className={cn("py-1.5 text-right whitespace-nowrap", tone(m.deltaPct))}>
+              <td
+                data-label="Δ%"
+                className={cn("py-1.5 text-right whitespace-nowrap", stackCell, tone(m.deltaPct))}
+              >
                 {formatPercent(m.deltaPct)}
               </td>
             </tr>

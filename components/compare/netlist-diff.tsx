@@ -143,7 +143,9 @@ export function NetlistDiff({ rows, context = 2, labelA = "A", labelB = "B", cla
     );
   }
   return (
-    <div className={cn("border-paper-200 bg-paper-50 overflow-x-auto rounded-md border", className)}>
+    // relative: the screen-reader words (sr-only, absolutely placed) stay inside this scroller; without
+    // it they hang out past its right edge and widen a phone's page by the diff's overflow.
+    <div className={cn("border-paper-200 bg-paper-50 relative overflow-x-auto rounded-md border", className)}>
       <p className="sr-only">
         Netlist changes from {labelA} to {labelB}. Each row gives its line in A, its line in B, what happened,
         and the text.

@@ -1,3 +1,11 @@
+import {
+  stackBody,
+  stackCell,
+  stackHead,
+  stackRow,
+  stackTable,
+  stackTitle,
+} from "@/components/ui/stacked-table";
 import type { ReadingCompareRow } from "@/lib/compare-readings";
 import { QUANTITY_LABEL } from "@/lib/reading-kinds";
 import type { Comparison } from "@/lib/reading-math";
@@ -30,10 +38,10 @@ export function ReadingsCompare({ rows }: { rows: ReadingCompareRow[] }) {
     return <p className="text-ink-500 text-sm">Neither run has bench readings.</p>;
   }
   return (
-    <div className="overflow-x-auto">
-      <table className="w-full min-w-[40rem] border-collapse text-sm">
+    <div className="sm:overflow-x-auto">
+      <table className={cn("w-full border-collapse text-sm sm:min-w-[40rem]", stackTable)}>
         <caption className="sr-only">Bench readings against both runs' predictions</caption>
-        <thead>
+        <thead className={stackHead}>
           <tr className="border-paper-200 text-caption text-ink-500 border-b text-left uppercase">
             <th scope="col" className="py-1.5 pr-3 font-medium">
               Reading
@@ -49,22 +57,25 @@ export function ReadingsCompare({ rows }: { rows: ReadingCompareRow[] }) {
             </th>
           </tr>
         </thead>
-        <tbody className="font-mono tabular-nums">
+        <tbody className={cn("font-mono tabular-nums", stackBody)}>
           {rows.map(({ reading: r, of, against }) => (
-            <tr key={r.id} className="border-paper-100 border-b align-top last:border-0">
-              <th scope="row" className="text-ink-900 py-1.5 pr-3 text-left font-sans font-normal">
+            <tr key={r.id} className={cn("border-paper-100 border-b align-top sm:last:border-0", stackRow)}>
+              <th
+                scope="row"
+                className={cn("text-ink-900 py-1.5 pr-3 text-left font-sans font-normal", stackTitle)}
+              >
                 <span className="font-medium">{QUANTITY_LABEL[r.quantity]}</span>
                 {r.measureName ? ` vs ${r.measureName}` : ""} · on run {of.toUpperCase()}
                 <span className="text-ink-600 block font-mono text-xs">{r.steps}</span>
                 {r.note ? <span className="text-ink-500 block text-xs">{r.note}</span> : null}
               </th>
-              <td className="py-1.5 pr-3 text-right">
+              <td data-label="Measured" className={cn("py-1.5 pr-3 text-right", stackCell)}>
                 {against.a.unit ? formatQuantity(against.a.measured, against.a.unit, 4) : "—"}
               </td>
-              <td className="py-1.5 pr-3 text-right">
+              <td data-label="A predicts" className={cn("py-1.5 pr-3 text-right", stackCell)}>
                 <Against c={against.a} />
               </td>
-              <td className="py-1.5 text-right">
+              <td data-label="B predicts" className={cn("py-1.5 text-right", stackCell)}>
                 <Against c={against.b} />
               </td>
             </tr>

@@ -4,6 +4,7 @@
  */
 import type { Annotation, Layout, LayoutAxis, Shape } from "plotly.js";
 import { type BodeCursor, cursorShapes } from "./cursors";
+import { deltaTicks } from "./delta-ticks";
 import { formatHz } from "./hover-format";
 import { plotColors, plotFonts, plotHoverLabel } from "./palette";
 import { plotText } from "./plot-text";
@@ -142,7 +143,12 @@ export function bodeLayout(input: BodeFrameInput): Partial<Layout> {
       ...rowAxis([0, 0.45], "phase (°)", axisFont),
       ...phaseTicks([...input.series, ...input.overlays.filter((o) => o.role !== "difference")]),
     },
-    ...(hasDelta ? deltaAxes(axisFont) : {}),
+    ...(hasDelta
+      ? deltaAxes(
+          axisFont,
+          input.overlays.filter((o) => o.role === "difference"),
+        )
+      : {}),
     shapes,
     annotations,
   };
@@ -196,7 +202,7 @@ export function phaseTicks(series: readonly Pick<BodeSeries, "phaseDeg">[]): Par
 }
 
 /** The difference's own axes on the right of each row: Δ dB and Δ°, their zero line drawn. */
-function deltaAxes(font: AxisFont): Partial<Layout> {
+function deltaAxes(font: AxisFont, diffs: readonly BodeOverlay[]): Partial<Layout> {
   const common = {
     side: "right" as const,
     showgrid: false,
@@ -209,11 +215,13 @@ function deltaAxes(font: AxisFont): Partial<Layout> {
     yaxis3: {
       ...common,
       overlaying: "y",
+      ...deltaTicks(diffs.flatMap((d) => d.magnitudeDb)),
       title: { text: "Δ dB", font: { ...font, color: plotColors.difference } },
     },
     yaxis4: {
       ...common,
       overlaying: "y2",
+      ...deltaTicks(diffs.flatMap((d) => d.phaseDeg)),
       title: { text: "Δ°", font: { ...font, color: plotColors.difference } },
     },
   } as Partial<Layout>;

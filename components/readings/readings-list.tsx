@@ -1,14 +1,22 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { useState } from "react";
 import { Button } from "@/components/ui/button";
+import { EmptyState } from "@/components/ui/empty-state";
 import { Notice } from "@/components/ui/notice";
+import {
+  stackBody,
+  stackCell,
+  stackHead,
+  stackRow,
+  stackTable,
+  stackTitle,
+} from "@/components/ui/stacked-table";
 import { QUANTITY_LABEL } from "@/lib/reading-kinds";
 import { percentileWords } from "@/lib/reading-math";
 import type { ReadingView } from "@/lib/readings";
-import { formatDate } from "@/lib/utils";
+import { cn, formatDate } from "@/lib/utils";
 import { formatPercent, formatQuantity } from "@/solver/format";
+import { useDeleteReading, useReadings } from "./readings-query";
 
 const sizeText = (bytes: number) =>
   bytes >= 1024 * 1024
@@ -31,46 +39,51 @@ function SpreadCell({ r }: { r: ReadingView }) {
   return <span className="text-ink-500">{c.reason}</span>;
 }
 
-/** The run's readings beside the prediction; designers and owners may delete them. */
+/**
+ * The run's readings beside the prediction (through the query cache, seeded by the page); designers
+ * and owners may delete them. Below `sm` each reading is a card: the table's cells stack under their
+ * column names, so a phone never scrolls sideways.
+ */
 export function ReadingsList({
   runId,
-  readings,
+  readings: initial,
   canDelete,
 }: {
   runId: string;
   readings: ReadingView[];
   canDelete: boolean;
 }) {
-  const router = useRouter();
-  const [busy, setBusy] = useState<string | null>(null);
-  const [error, setError] = useState<string | null>(null);
+  const { data: readings } = useReadings(runId, initial);
+  const del = useDeleteReading(runId);
+  const busy = del.isPending ? del.variables : null;
+  const error = del.error?.message ?? null;
 
-  async function remove(r: ReadingView) {
+  function remove(r: ReadingView) {
     if (!window.confirm(`Delete the reading “${r.steps}”${r.attachment ? " and its attached file" : ""}?`))
       return;
-    setBusy(r.id);
-    setError(null);
-    try {
-      const res = await fetch(`/api/runs/${runId}/readings/${r.id}`, { method: "DELETE" });
-      if (!res.ok) {
-        const body = await res.json().catch(() => null);
-        setError(body?.error?.message ?? `Deleting failed (${res.status}).`);
-        return;
-      }
-      router.refresh();
-    } catch {
-      setError("The request did not reach the server. Try again.");
-    } finally {
-      setBusy(null);
-    }
+    del.mutate(r.id);
   }
 
+  if (readings.length === 0) {
+    return (
+      <EmptyState title="No bench readings yet">
+        {canDelete
+          ? "Record a frequency, an oscilloscope period or an amplitude below to set it beside the prediction."
+          : "Designers and owners record what the bench showed here."}
+      </EmptyState>
+    );
+  }
   return (
     <div className="space-y-3">
-      <div className="overflow-x-auto">
-        <table className="w-full min-w-[44rem] text-left text-sm">
+      <div className="sm:overflow-x-auto">
+        <table className={cn("w-full text-left text-sm sm:min-w-[44rem]", stackTable)}>
           <caption className="sr-only">Bench readings beside the run's prediction</caption>
-          <thead className="text-ink-600 border-paper-200 border-b text-xs tracking-wide uppercase">
+          <thead
+            className={cn(
+              "text-ink-600 border-paper-200 border-b text-xs tracking-wide uppercase",
+              stackHead,
+            )}
+          >
             <tr>
               <th scope="col" className="py-2 pr-3 font-medium">
                 Reading
@@ -92,12 +105,12 @@ export function ReadingsList({
               </th>
             </tr>
           </thead>
-          <tbody className="divide-paper-200 divide-y">
+          <tbody className={cn("divide-paper-200 divide-y max-sm:divide-y-0", stackBody)}>
             {readings.map((r) => {
               const c = r.comparison;
               return (
-                <tr key={r.id} className="align-top">
-                  <td className="py-2 pr-3">
+                <tr key={r.id} className={cn("align-top", stackRow)}>
+                  <td className={cn("py-2 pr-3", stackTitle)}>
                     <span className="text-ink-900 font-medium">{QUANTITY_LABEL[r.quantity]}</span>
                     {r.measureName ? <span className="text-ink-600"> vs {r.measureName}</span> : null}
                     {r.node ? <span className="text-ink-600"> at {r.node}</span> : null}
@@ -118,17 +131,19 @@ export function ReadingsList({
                       </a>
                     ) : null}
                   </td>
-                  <td className="py-2 pr-3 tabular-nums">
+                  <td data-label="Predicted" className={cn("py-2 pr-3 tabular-nums", stackCell)}>
                     {c.unit ? formatQuantity(c.predicted, c.unit, 4) : "—"}
                   </td>
-                  <td className="py-2 pr-3 tabular-nums">
+                  <td data-label="Measured" className={cn("py-2 pr-3 tabular-nums", stackCell)}>
                     {c.unit ? formatQuantity(c.measured, c.unit, 4) : "—"}
                   </td>
-                  <td className="py-2 pr-3 tabular-nums">{formatPercent(c.deviationPct, 3)}</td>
-                  <td className="py-2 pr-3">
+                  <td data-label="Deviation" className={cn("py-2 pr-3 tabular-nums", stackCell)}>
+                    {formatPercent(c.deviationPct, 3)}
+                  </td>
+                  <td data-label="Spread" className={cn("py-2 pr-3", stackCell)}>
                     <SpreadCell r={r} />
                   </td>
-                  <td className="py-2 text-right">
+                  <td className="py-2 text-right max-sm:block max-sm:pb-0 max-sm:text-left">
                     {canDelete ? (
                       <Button
                         variant="ghost"

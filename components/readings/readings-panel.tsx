@@ -1,4 +1,3 @@
-import { EmptyState } from "@/components/ui/empty-state";
 import { Panel, PanelHeader } from "@/components/ui/panel";
 import type { ReadingView } from "@/lib/readings";
 import type { MeasureResult, MeasureStats } from "@/solver/types";
@@ -34,12 +33,6 @@ export function ReadingsPanel({
           <p role="alert" className="text-signal-fault text-sm">
             {error}
           </p>
-        ) : readings.length === 0 ? (
-          <EmptyState title="No bench readings yet">
-            {canRecord
-              ? "Record a frequency, an oscilloscope period or an amplitude below to set it beside the prediction."
-              : "Designers and owners record what the bench showed here."}
-          </EmptyState>
         ) : (
           <ReadingsList runId={runId} readings={readings} canDelete={canRecord} />
         )}

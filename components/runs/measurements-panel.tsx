@@ -5,7 +5,7 @@ import { useRouter } from "next/navigation";
 import { useRef } from "react";
 import { Button } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
-import { inputClass } from "@/components/ui/field";
+import { fileInputClass, inputClass } from "@/components/ui/field";
 import { Notice } from "@/components/ui/notice";
 import { useHydrated } from "@/components/ui/use-hydrated";
 import type { MeasurementSummary } from "@/lib/measurements";
@@ -111,7 +111,7 @@ export function MeasurementsPanel({
               type="file"
               accept=".csv,text/csv,text/plain"
               required
-              className="text-sm"
+              className={fileInputClass}
             />
           </div>
           <Button type="submit" variant="secondary" disabled={busy || !hydrated}>

@@ -65,7 +65,7 @@ function TitleCell({ run }: { run: RunSummary }) {
           columns still hold it for screen readers, so this line is hidden from them). */}
       <span
         aria-hidden="true"
-        className="text-caption text-ink-600 flex basis-full items-center gap-2 sm:hidden"
+        className="text-caption text-ink-600 flex basis-full flex-wrap items-center gap-x-2 gap-y-1 sm:hidden"
       >
         <ReviewStateBadge state={run.reviewState} />
         <ChecksCell passed={run.checksPassed} total={run.checksTotal} />

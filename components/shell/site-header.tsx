@@ -9,7 +9,7 @@ import { UserMenu } from "./user-menu";
 export function SiteHeader({ actor }: { actor: Actor | null }) {
   return (
     <header className="border-paper-200 bg-paper-50/90 sticky top-0 z-20 border-b backdrop-blur">
-      <div className="mx-auto flex h-14 max-w-6xl items-center gap-6 px-4 sm:px-6">
+      <div className="mx-auto flex h-14 max-w-[96rem] items-center gap-6 px-4 sm:px-6">
         <Link href={actor ? "/projects" : "/"} aria-label="Phasewright home" className="rounded-md">
           <Wordmark />
         </Link>

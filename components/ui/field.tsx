@@ -4,6 +4,10 @@ import { cn } from "@/lib/utils";
 export const inputClass =
   "block w-full rounded-md border border-paper-300 bg-white px-3 py-2 text-body text-ink-900 shadow-xs placeholder:text-ink-500 hover:border-ink-300 focus-visible:border-board-500 aria-invalid:border-signal-fault";
 
+/** A file input in our look: its button drawn like a secondary button, not the browser's stock one. */
+export const fileInputClass =
+  "block w-full text-sm text-ink-700 file:mr-3 file:rounded-md file:border file:border-paper-300 file:bg-white file:px-3 file:py-1.5 file:text-sm file:font-medium file:text-ink-900 hover:file:bg-paper-100";
+
 export type FieldProps = InputHTMLAttributes<HTMLInputElement> & {
   label: string;
   name: string;

@@ -65,4 +65,43 @@ describe("bench readings", () => {
     await expect.poll(() => rows.count()).toBe(2);
     await context.close();
   });
+
+  it("names each missing number under its own field, and the table stacks on a phone", async () => {
+    const { context, page } = await signedIn(browser, "designer@demo.test", { width: 390, height: 844 });
+    const panel = await openSpreadRun(page);
+    // Only the divisions typed: the scale per division is named as missing, under its own input.
+    await panel.getByLabel("One period spans (divisions)").fill("9.8");
+    await panel.getByRole("button", { name: "Record reading" }).click();
+    const per = panel.getByLabel("Time per division");
+    await expect.poll(() => per.getAttribute("aria-invalid")).toBe("true");
+    const describedBy = (await per.getAttribute("aria-describedby")) ?? "";
+    expect(await page.locator(`[id="${describedBy}"]`).textContent()).toContain(
+      "Enter the scale per division.",
+    );
+    expect(await panel.getByLabel("One period spans (divisions)").getAttribute("aria-invalid")).toBeNull();
+    // Nothing was saved: still the demo's two readings.
+    const rows = panel.getByRole("table").locator("tbody tr");
+    expect(await rows.count()).toBe(2);
+
+    // 390 px: no sideways scroll, neither of the page nor inside the readings; each reading a card
+    // whose cells carry their column names.
+    const fit = await page.evaluate(() => {
+      const table = document.querySelector('[aria-labelledby="readings-h"] table');
+      const scroller = table?.parentElement as HTMLElement | null | undefined;
+      return {
+        page: document.documentElement.scrollWidth - window.innerWidth,
+        inside: scroller ? scroller.scrollWidth - scroller.clientWidth : -1,
+        right: Math.max(
+          ...[...(table?.querySelectorAll("tbody tr") ?? [])].map((r) => r.getBoundingClientRect().right),
+        ),
+        width: window.innerWidth,
+      };
+    });
+    expect(fit.inside).toBe(0);
+    expect(fit.page).toBeLessThanOrEqual(0);
+    expect(fit.right).toBeLessThanOrEqual(fit.width);
+    const predicted = rows.nth(0).locator('td[data-label="Predicted"]');
+    expect(await predicted.evaluate((td) => getComputedStyle(td, "::before").content)).toBe('"Predicted"');
+    await context.close();
+  });
 });

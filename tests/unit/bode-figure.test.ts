@@ -2,6 +2,7 @@ import { describe, expect, it } from "vitest";
 import { buildBodeFigure } from "@/components/plot/bode-figure";
 import { phaseTicks } from "@/components/plot/bode-layout";
 import { GL_THRESHOLD } from "@/components/plot/bode-traces";
+import { deltaTicks } from "@/components/plot/delta-ticks";
 
 function series(name: string, n: number) {
   const frequencies = Array.from({ length: n }, (_, k) => 10 * 10 ** (k / 100));
@@ -97,5 +98,14 @@ describe("phase ticks and the difference axes", () => {
     expect(layout.yaxis3).toMatchObject({ overlaying: "y", side: "right" });
     expect(layout.yaxis4).toMatchObject({ overlaying: "y2", side: "right" });
     expect((layout.yaxis3 as { title: { text: string } }).title.text).toBe("Δ dB");
+    // 0 … 0.24 dB: ticks every 0.1 dB from 0, not spaced to the left axis' grid.
+    expect(layout.yaxis3).toMatchObject({ tickmode: "linear", tick0: 0, dtick: 0.1 });
+  });
+
+  it("puts the Δ axes' ticks on round steps from zero", () => {
+    expect(deltaTicks([0.05, 0.543])).toEqual({ tickmode: "linear", tick0: 0, dtick: 0.2 });
+    expect(deltaTicks([-0.96, 0.006])).toEqual({ tickmode: "linear", tick0: 0, dtick: 0.25 });
+    expect(deltaTicks([-12, 3, null])).toEqual({ tickmode: "linear", tick0: 0, dtick: 5 });
+    expect(deltaTicks([0, 0])).toEqual({ tickmode: "auto" });
   });
 });
