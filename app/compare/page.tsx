@@ -157,6 +157,7 @@ function DelayComparePanel({ traces }: { traces: RunComparison["traces"] }) {
       />
       <div className="p-2 sm:p-4">
         <GroupDelayView
+          inPanel
           frequencies={traces.find((t) => t.delay)?.frequencies ?? []}
           series={traces.flatMap((t) =>
             t.delay

@@ -2,9 +2,11 @@
 
 import type { Data, Layout } from "plotly.js";
 import { deltaTicks } from "@/components/plot/delta-ticks";
+import { formatHz } from "@/components/plot/hover-format";
 import { frequencyChartLayout, plotColors, traceColor } from "@/components/plot/palette";
 import { plotText } from "@/components/plot/plot-text";
 import type { DrawnTrace } from "@/lib/drawn-result";
+import { formatQuantity } from "@/solver/format";
 import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
 import { SectionTitle } from "./section";
 
@@ -19,10 +21,13 @@ export function GroupDelayView({
   traces = [],
   frequencies,
   series,
+  inPanel = false,
 }: {
   traces?: Pick<DrawnTrace, "name" | "groupDelay">[];
   frequencies: number[];
   series?: DelaySeries[];
+  /** Inside a panel that already names it (compare): the plot only, open, without its own title. */
+  inPanel?: boolean;
 }) {
   const curves: DelaySeries[] =
     series ?? traces.filter((t) => t.groupDelay).map((t) => ({ name: t.name, y: t.groupDelay! }));
@@ -39,7 +44,9 @@ export function GroupDelayView({
       width: c.difference ? 1.5 : 2,
       dash: c.dash ?? "solid",
     },
-    hovertemplate: `${plotText(c.name)}: %{y:.4s}s at %{x:.4s}Hz<extra></extra>`,
+    // One formatter for every number on screen: "1.2346 ms at 1.5915 kHz", with a space and the unit.
+    text: c.y.map((v, k) => `${formatQuantity(v, "s")} at ${formatHz(frequencies[k] ?? Number.NaN)}`),
+    hovertemplate: `${plotText(c.name)}: %{text}<extra></extra>`,
   }));
   const layout: Partial<Layout> = {
     ...frequencyChartLayout({ title: "group delay (s)", rightMargin: hasDelta ? 72 : 16 }),
@@ -58,23 +65,27 @@ export function GroupDelayView({
         }
       : {}),
   };
+  const figure = (
+    <figure
+      className={`border-paper-200 rounded-panel h-72 w-full border bg-white p-1 ${inPanel ? "" : "mt-3"}`}
+      aria-label="Group delay"
+    >
+      <LazyPlot
+        data={data}
+        layout={layout}
+        config={PLOT_CONFIG}
+        useResizeHandler
+        style={{ width: "100%", height: "100%" }}
+      />
+    </figure>
+  );
+  if (inPanel) return <div data-testid="group-delay">{figure}</div>;
   return (
     <details className="group space-y-3" data-testid="group-delay">
       <summary className="cursor-pointer list-none">
         <SectionTitle id="delay-title" title="Group delay" note="−d∠/dω of each trace · open to plot" />
       </summary>
-      <figure
-        className="border-paper-200 rounded-panel mt-3 h-72 w-full border bg-white p-1"
-        aria-label="Group delay"
-      >
-        <LazyPlot
-          data={data}
-          layout={layout}
-          config={PLOT_CONFIG}
-          useResizeHandler
-          style={{ width: "100%", height: "100%" }}
-        />
-      </figure>
+      {figure}
     </details>
   );
 }

@@ -12,6 +12,13 @@ import { SectionTitle } from "./section";
 
 const RHP_FILL = "rgba(176, 39, 31, 0.08)";
 
+/** A root's hover text in the table's own numbers: "pole s = −6283.2 + j62832 rad/s · 10.000 kHz". */
+function rootHover(kind: "pole" | "zero", r: { re: number; im: number }): string {
+  const im = `${r.im < 0 ? "−" : "+"} j${formatQuantity(Math.abs(r.im), "", 6)}`;
+  const hz = Math.hypot(r.re, r.im) / (2 * Math.PI);
+  return `${kind} s = ${formatQuantity(r.re, "", 5)} ${im} rad/s<br>|s|/2π = ${formatQuantity(hz, "Hz", 5)}`;
+}
+
 /**
  * Pole–zero map: σ against jω with the right half-plane shaded (poles ×, zeros ○), zoomed to the
  * dominant roots (within 100× the smallest |s|) with the far ones listed, and a table of f, Q,
@@ -103,7 +110,8 @@ export function PoleMap({ poles, zeros = [] }: { poles: PoleResult[]; zeros?: Ze
                     color: poles.map((p) => (p.re > 0 ? plotColors.difference : plotColors.text)),
                   },
                 },
-                hovertemplate: "pole σ = %{x:.4g}<br>ω = %{y:.6g}<extra></extra>",
+                text: poles.map((p) => rootHover("pole", p)),
+                hovertemplate: "%{text}<extra></extra>",
               },
               {
                 type: "scatter",
@@ -111,7 +119,8 @@ export function PoleMap({ poles, zeros = [] }: { poles: PoleResult[]; zeros?: Ze
                 x: zeros.map((z) => z.re),
                 y: zeros.map((z) => z.im),
                 marker: { symbol: "circle-open", size: 11, line: { width: 2 }, color: plotColors.marker },
-                hovertemplate: "zero σ = %{x:.4g}<br>ω = %{y:.6g}<extra></extra>",
+                text: zeros.map((z) => rootHover("zero", z)),
+                hovertemplate: "%{text}<extra></extra>",
               },
             ]}
             layout={layout}
