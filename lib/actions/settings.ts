@@ -4,12 +4,13 @@ import { revalidatePath } from "next/cache";
 import { headers } from "next/headers";
 import { type FormState, failureState, formValues, issuesToFields } from "@/lib/actions/state";
 import { User } from "@/lib/db";
-import { withDb } from "@/lib/errors";
+import { AppError, withDb } from "@/lib/errors";
 import { requireUser } from "@/lib/session";
 import { bumpSessionVersion } from "@/lib/session-version";
 import { createApiToken, revokeApiToken } from "@/lib/tokens";
 import { profileUpdateSchema } from "@/lib/validations/auth";
 import { tokenCreateSchema } from "@/lib/validations/project";
+import { resendVerification } from "@/lib/verification";
 
 /** Form action: rename the signed-in user. */
 export async function updateProfileAction(_prev: FormState, formData: FormData): Promise<FormState> {
@@ -66,4 +67,20 @@ export async function signOutEverywhereAction(_prev: FormState): Promise<FormSta
     return failureState(err, "signOutEverywhere");
   }
   return { ok: true, message: "Every session has ended. Sign in again to continue." };
+}
+
+export type ResendState = { message: string | null };
+
+/** Sends a new e-mail verification link to the signed-in user. */
+export async function resendVerificationAction(_prev: ResendState): Promise<ResendState> {
+  const actor = await requireUser();
+  try {
+    const sent = await resendVerification(actor.userId);
+    return {
+      message: sent ? `A new link is on its way to ${actor.email}.` : "Your address is already confirmed.",
+    };
+  } catch (err) {
+    if (err instanceof AppError && err.status < 500) return { message: err.message };
+    return { message: "The link could not be sent just now. Try again in a moment." };
+  }
 }

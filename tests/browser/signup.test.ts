@@ -39,6 +39,12 @@ describe("sign-up", () => {
     await page.getByRole("link", { name: "Continue to your projects" }).click();
     await page.waitForURL((u) => u.pathname === "/projects");
     await expect.poll(() => page.locator("body").textContent()).toContain("Wren's workbench");
+    // Settings says the address is not confirmed yet; asking again within the minute is refused politely.
+    await page.goto("/settings");
+    const state = page.getByTestId("email-state");
+    await expect.poll(() => state.textContent()).toContain(`${email} is not confirmed yet`);
+    await page.getByRole("button", { name: "Send the link again" }).click();
+    await expect.poll(() => state.textContent(), { timeout: 15_000 }).toContain("less than a minute ago"); // sign-up sent one just now
     await context.close();
   });
 });

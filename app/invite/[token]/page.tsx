@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ResendVerification } from "@/components/auth/resend-verification";
 import { buttonClass } from "@/components/ui/button-class";
 import { Notice } from "@/components/ui/notice";
 import { Panel } from "@/components/ui/panel";
@@ -8,7 +9,6 @@ import { getActor } from "@/lib/session";
 import { formatDate } from "@/lib/utils";
 import { isEmailVerified } from "@/lib/verification";
 import { AcceptForm } from "./accept-form";
-import { ResendForm } from "./resend-form";
 
 export const metadata: Metadata = { title: "Invitation" };
 
@@ -68,7 +68,10 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
                   sign in with that address.
                 </Notice>
               ) : !verified ? (
-                <ResendForm email={actor.email} />
+                <ResendVerification
+                  email={actor.email}
+                  why="Confirm {email} before joining: open the link in the e-mail we sent when you created your account."
+                />
               ) : (
                 <AcceptForm token={token} teamName={invitation.teamName} />
               )}
