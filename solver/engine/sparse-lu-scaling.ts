@@ -6,6 +6,15 @@ import type { SparseComplexMatrix } from "./sparse-matrix";
  * The scaling behind the pivot tests of `SparseComplexLU`: the row and column factors D_r, D_c of
  * the current values and the zero-pivot bound, as the numeric factorization reads them.
  *
+ * Every (re)factorization first computes D_r, D_c (`Equilibration`: Ruiz's max-norm scaling —
+ * iterated to convergence in powers of two before an ordering is analysed, one step per frequency
+ * on the fast refactor path) and pivots as if it factored D_r·A·D_c: the ordering sees the scaled
+ * values (`scaled`), and the threshold and zero-pivot tests compare scaled quantities (the pivot
+ * of step k of D_r·A·D_c is u_kk·r_k·c_k for the same order). The numbers themselves are factored
+ * unscaled, so the solves need no scaling. The tests are squared and multiplied out, so a step
+ * needs no square root or division besides the pivot's reciprocal; with a pencil the one Ruiz
+ * step's maxima cost O(n) per frequency (`pencilMaxima`), not a pass over the values.
+ *
  * The tests, in pivot order, need no square root or division per step: cm[k] = 1/c_k² (c_k the
  * column factor of step k), rm[k] = 1/r_k² (of its row). After a full equilibration (`full`) c, r
  * are `eq`'s powers of two; on the refactor path (`oneStep`) they come from one Ruiz step,

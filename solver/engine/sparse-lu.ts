@@ -18,8 +18,7 @@ export interface SparseLUOptions {
  *
  * Invariant after a successful (re)factorization: P·A·Q = L·U, where P takes row rowPerm[k] to
  * row k, Q takes column colPerm[k] to column k, L is unit lower triangular and U upper triangular
- * with the pivots on its diagonal. Storage: L and U in CSR over the permuted indices with split
- * re/im Float64Arrays; the pivots' reciprocals are kept so the solves multiply only.
+ * with the pivots on its diagonal (storage: `LUFactors`).
  *
  * Use: the constructor analyses A once (Markowitz ordering with threshold pivoting, fill pattern —
  * see `markowitzOrder`) and factors it. For each further matrix of the same pattern (the next
@@ -33,16 +32,10 @@ export interface SparseLUOptions {
  * sweep's ordering first. A sweep of A(s) = G + s·C declares the pencil once (`setPencil`) and
  * calls `refactorAt(ω)`: the values are read from G and C (no assembled copy per frequency).
  *
- * Equilibration: every (re)factorization first computes row and column factors D_r, D_c
- * (`Equilibration`: Ruiz's max-norm scaling — iterated to convergence in powers of two before an
- * ordering is analysed, one step per frequency on the fast refactor path) and pivots as if it
- * factored D_r·A·D_c: the ordering sees the scaled values, and the threshold and zero-pivot tests
- * compare scaled quantities (the pivot of step k of D_r·A·D_c is u_kk·r_k·c_k for the same order).
- * The numbers themselves are factored unscaled, so `solve` needs no scaling. A "singular" verdict therefore
- * means: the equilibrated matrix is singular to working precision — never merely "values far
- * apart" (1 fF beside 1 TΩ, 1 F at 1 GHz). The tests are squared and multiplied out, so a step
- * needs no square root or division besides the pivot's reciprocal; with a pencil the one Ruiz
- * step's maxima cost O(n) per frequency (`pencilMaxima`), not a pass over the values.
+ * Equilibration (`PivotTests`): the ordering and the pivot tests see D_r·A·D_c (Ruiz's max-norm
+ * scaling), the numbers are factored unscaled. A "singular" verdict therefore means: the
+ * equilibrated matrix is singular to working precision — never merely "values far apart"
+ * (1 fF beside 1 TΩ, 1 F at 1 GHz).
  *
  * Files: this class (the sweep's policy: which order, when to re-pivot), `sparse-lu-plan.ts` (an
  * order's plan), `sparse-lu-factors.ts` (the numbers of the factors), `sparse-lu-scaling.ts` (the
