@@ -1,0 +1,127 @@
+import type { LUFactors } from "./sparse-lu-factors";
+
+/**
+ * Solve A·x = b with the factors f (P·A·Q = L·U): forward with L, backward with U. x may alias b.
+ * Cost O(nnz(L)+nnz(U)+n).
+ * Returns false when x has a NaN or ±∞ (an overflow: the equations are singular in effect).
+ * Throws if the last factorization was singular (a programming error, never user input).
+ */
+export function solveFactors(
+  f: LUFactors,
+  bRe: Float64Array,
+  bIm: Float64Array,
+  xRe: Float64Array,
+  xIm: Float64Array,
+): boolean {
+  if (f.singular || !f.sym) throw new Error("matrix is singular: cannot solve");
+  const n = f.n;
+  if (bRe.length !== n || bIm.length !== n || xRe.length !== n || xIm.length !== n) {
+    throw new RangeError("dimension mismatch: right-hand side length ≠ n");
+  }
+  const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
+  const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  let q0 = 0;
+  for (let k = 0; k < n; k++) {
+    const r = rowPerm[k]!;
+    let yr = bRe[r]!;
+    let yi = bIm[r]!;
+    const q1 = lPtr[k + 1]!;
+    for (let q = q0; q < q1; q++) {
+      const j = lIdx[q]!;
+      yr -= lRe[q]! * wRe[j]! - lIm[q]! * wIm[j]!;
+      yi -= lRe[q]! * wIm[j]! + lIm[q]! * wRe[j]!;
+    }
+    q0 = q1;
+    wRe[k] = yr;
+    wIm[k] = yi;
+  }
+  // Backward; x may alias b, whose entries the forward pass has read already.
+  let t1 = uPtr[n]!;
+  let finite = 0;
+  for (let k = n - 1; k >= 0; k--) {
+    let yr = wRe[k]!;
+    let yi = wIm[k]!;
+    const t0 = uPtr[k]!;
+    for (let t = t0; t < t1; t++) {
+      const j = uIdx[t]!;
+      yr -= uRe[t]! * wRe[j]! - uIm[t]! * wIm[j]!;
+      yi -= uRe[t]! * wIm[j]! + uIm[t]! * wRe[j]!;
+    }
+    t1 = t0;
+    const ir = invRe[k]!;
+    const ii = invIm[k]!;
+    const zr = yr * ir - yi * ii;
+    const zi = yr * ii + yi * ir;
+    wRe[k] = zr;
+    wIm[k] = zi;
+    xRe[colPerm[k]!] = zr;
+    xIm[colPerm[k]!] = zi;
+    // x·0 is 0 for every finite x and NaN for ±∞ or NaN.
+    finite += zr * 0 + zi * 0;
+  }
+  return finite === 0;
+}
+
+/**
+ * Solve Aᵀ·z = d (the plain transpose, no conjugate) with the factors f: the adjoint
+ * system of noise analysis. With P·A·Q = L·U, Aᵀ = Q·Uᵀ·Lᵀ·P, so w = Qᵀ·d, Uᵀ·y = w (forward,
+ * scattering U's rows), Lᵀ·v = y (backward, scattering L's rows), z = Pᵀ·v. z may alias d.
+ * Cost O(nnz(L)+nnz(U)+n), as `solve`.
+ */
+export function solveFactorsTransposed(
+  f: LUFactors,
+  dRe: Float64Array,
+  dIm: Float64Array,
+  zRe: Float64Array,
+  zIm: Float64Array,
+): void {
+  if (f.singular || !f.sym) throw new Error("matrix is singular: cannot solve");
+  const n = f.n;
+  if (dRe.length !== n || dIm.length !== n || zRe.length !== n || zIm.length !== n) {
+    throw new RangeError("dimension mismatch: right-hand side length ≠ n");
+  }
+  const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
+  const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  for (let k = 0; k < n; k++) {
+    wRe[k] = dRe[colPerm[k]!]!;
+    wIm[k] = dIm[colPerm[k]!]!;
+  }
+  // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
+  let t0 = 0;
+  for (let k = 0; k < n; k++) {
+    const br = wRe[k]!;
+    const bi = wIm[k]!;
+    const ir = invRe[k]!;
+    const ii = invIm[k]!;
+    const yr = br * ir - bi * ii;
+    const yi = br * ii + bi * ir;
+    wRe[k] = yr;
+    wIm[k] = yi;
+    const t1 = uPtr[k + 1]!;
+    for (let t = t0; t < t1; t++) {
+      const j = uIdx[t]!;
+      const ur = uRe[t]!;
+      const ui = uIm[t]!;
+      wRe[j] = wRe[j]! - (ur * yr - ui * yi);
+      wIm[j] = wIm[j]! - (ur * yi + ui * yr);
+    }
+    t0 = t1;
+  }
+  // Lᵀ·v = y, backward: row k of L scatters −l_kj·v_k into w_j (j < k); z = Pᵀ·v as it goes.
+  let q1 = lPtr[n]!;
+  for (let k = n - 1; k >= 0; k--) {
+    const vr = wRe[k]!;
+    const vi = wIm[k]!;
+    const q0 = lPtr[k]!;
+    for (let q = q0; q < q1; q++) {
+      const j = lIdx[q]!;
+      const lr = lRe[q]!;
+      const li = lIm[q]!;
+      wRe[j] = wRe[j]! - (lr * vr - li * vi);
+      wIm[j] = wIm[j]! - (lr * vi + li * vr);
+    }
+    q1 = q0;
+    zRe[rowPerm[k]!] = vr;
+    zIm[rowPerm[k]!] = vi;
+  }
+}
