@@ -18,11 +18,15 @@ describe("phone width", () => {
   it("fits compare, run, project and editor pages into 390 px, with compare's Δ% on screen", async () => {
     const { context, page } = await signedIn(browser, "designer@demo.test", { width: 390, height: 844 });
     const projectId = await openProject(page, "Reference oscillator board");
-    const hrefs = await page
-      .locator('a[href^="/runs/"]')
-      .evaluateAll((as) => as.map((a) => a.getAttribute("href") ?? ""));
-    const [runA, runB] = [...new Set(hrefs)];
-    expect(runA && runB).toBeTruthy();
+    // The project page streams in after the URL changes: wait until its run links are there.
+    const runLinks = async () => {
+      const hrefs = await page
+        .locator('a[href^="/runs/"]')
+        .evaluateAll((as) => as.map((a) => /^\/runs\/[0-9a-f-]{36}/.exec(a.getAttribute("href") ?? "")?.[0]));
+      return [...new Set(hrefs.filter((h): h is string => Boolean(h)))];
+    };
+    await expect.poll(async () => (await runLinks()).length, { timeout: 30_000 }).toBeGreaterThanOrEqual(2);
+    const [runA, runB] = await runLinks();
     const pages = [
       `/compare?a=${runA!.slice(6)}&b=${runB!.slice(6)}`,
       runA!,
