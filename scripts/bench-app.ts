@@ -10,8 +10,9 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import vm from "node:vm";
 import { gzipSync } from "node:zlib";
-import { ApiToken, Membership, Project, Run, sequelize, Team, User } from "@/lib/db";
+import { ApiToken, Run, sequelize } from "@/lib/db";
 import { generateToken, hashToken } from "@/lib/tokens";
+import { benchWorkspace } from "./bench-fixture";
 import { benchPages, ensurePagesFixture, type PagesFixture } from "./bench-pages";
 
 const ROOT = path.join(__dirname, "..");
@@ -99,29 +100,12 @@ export function ladderNetlist(traces: number, points: number): string {
 async function ensureFixture(): Promise<Fixture> {
   const email = "bench-runner@bench.test";
   return sequelize.transaction(async (transaction) => {
-    const [user] = await User.findOrCreate({
-      where: { email },
-      // Not a bcrypt hash: nobody can sign in as this user; it acts through API tokens only.
-      defaults: { email, name: "Bench Runner", passwordHash: "!bench-no-login" },
+    // Not a bcrypt hash: nobody can sign in as this user; it acts through API tokens only.
+    const { user, project } = await benchWorkspace(
+      { email, name: "Bench Runner", passwordHash: "!bench-no-login", project: "Timing ladder" },
       transaction,
-    });
-    const [team] = await Team.findOrCreate({
-      where: { slug: "bench-bay" },
-      defaults: { slug: "bench-bay", name: "Bench Bay" },
-      transaction,
-    });
-    await Membership.findOrCreate({
-      where: { teamId: team.id, userId: user.id },
-      defaults: { teamId: team.id, userId: user.id, role: "owner" },
-      transaction,
-    });
-    const [project] = await Project.findOrCreate({
-      where: { teamId: team.id, name: "Timing ladder" },
-      defaults: { teamId: team.id, name: "Timing ladder", createdById: user.id },
-      transaction,
-    });
-    // Fresh runs and one fresh token per bench: the earlier ones are removed.
-    await Run.destroy({ where: { projectId: project.id }, transaction });
+    );
+    // One fresh token per bench: the earlier ones are removed.
     await ApiToken.destroy({ where: { userId: user.id }, transaction });
     const token = generateToken();
     await ApiToken.create(

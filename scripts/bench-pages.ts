@@ -13,8 +13,9 @@ import { existsSync } from "node:fs";
 import { loadavg } from "node:os";
 import bcrypt from "bcryptjs";
 import type { Browser, BrowserContext, Page } from "playwright-core";
-import { Membership, Project, Run, sequelize, Team, User } from "@/lib/db";
+import { sequelize } from "@/lib/db";
 import { createRun } from "@/lib/run-create";
+import { benchWorkspace } from "./bench-fixture";
 
 export const COLD_GOAL_MS = 2500;
 export const WARM_GOAL_MS = 1000;
@@ -41,30 +42,11 @@ export async function ensurePagesFixture(oscillator: string): Promise<PagesFixtu
   const password = randomBytes(12).toString("base64url");
   const passwordHash = await bcrypt.hash(password, 10);
   const { user, project } = await sequelize.transaction(async (transaction) => {
-    const [user] = await User.findOrCreate({
-      where: { email },
-      defaults: { email, name: "Bench Pages", passwordHash, emailVerifiedAt: new Date() },
-      transaction,
-    });
     // A fresh password per bench: nothing outside this process knows it.
-    await user.update({ passwordHash }, { transaction });
-    const [team] = await Team.findOrCreate({
-      where: { slug: "bench-bay" },
-      defaults: { slug: "bench-bay", name: "Bench Bay" },
+    return benchWorkspace(
+      { email, name: "Bench Pages", passwordHash, project: "Page loads", verified: true },
       transaction,
-    });
-    await Membership.findOrCreate({
-      where: { teamId: team.id, userId: user.id },
-      defaults: { teamId: team.id, userId: user.id, role: "owner" },
-      transaction,
-    });
-    const [project] = await Project.findOrCreate({
-      where: { teamId: team.id, name: "Page loads" },
-      defaults: { teamId: team.id, name: "Page loads", createdById: user.id },
-      transaction,
-    });
-    await Run.destroy({ where: { projectId: project.id }, transaction });
-    return { user, project };
+    );
   });
   const actor = { userId: user.id, email, name: user.name };
   const a = await createRun(actor, project.id, { title: "Oscillator as designed", netlist: oscillator });
