@@ -96,11 +96,12 @@ const IEC = /^([0-9]*)([fpnu\u00B5\u03BCmkMGTR])([0-9]*)(.*)$/;
 
 /** Read a number token's text (no sign). Never throws. */
 export function parseNumberText(text: string): NumberResult {
-  const match = /^([0-9]*\.?[0-9]*(?:[eE][+-]?[0-9]+)?)(.*)$/.exec(text);
-  const mantissa = match?.[1] ?? "";
-  const suffix = match?.[2] ?? text;
+  const split = mantissaEnd(text);
+  const mantissa = text.slice(0, split.end);
+  const suffix = text.slice(split.end);
   // IEC 60062: the prefix letter (or R) stands for the decimal point: 4k7, 2R2, 1n5, R47, 10R.
-  if (/^[0-9]*$/.test(mantissa)) {
+  // Only a letter followed by a digit, or R, can make one (the regex below is skipped otherwise).
+  if (split.digitsOnly && suffix !== "" && (suffix[0] === "R" || isDigitCode(suffix.charCodeAt(1)))) {
     const iec = IEC.exec(text);
     const [, whole = "", letter = "", fraction = "", unitText = ""] = iec ?? [];
     if (
@@ -137,6 +138,34 @@ export function parseNumberText(text: string): NumberResult {
     }
   }
   return badSuffix(text, suffix);
+}
+
+const isDigitCode = (k: number) => k >= 48 && k <= 57;
+
+/**
+ * Where the mantissa of `text` ends, as the pattern `[0-9]*\.?[0-9]*(?:[eE][+-]?[0-9]+)?` at its
+ * start would match it, and whether it is digits only. A scan by char code: it runs once per number.
+ */
+function mantissaEnd(text: string): { end: number; digitsOnly: boolean } {
+  let i = 0;
+  while (isDigitCode(text.charCodeAt(i))) i++;
+  let digitsOnly = true;
+  if (text.charCodeAt(i) === 46 /* . */) {
+    digitsOnly = false;
+    i++;
+    while (isDigitCode(text.charCodeAt(i))) i++;
+  }
+  const e = text.charCodeAt(i);
+  if (e === 101 || e === 69 /* e E */) {
+    const s = text.charCodeAt(i + 1);
+    let j = s === 43 || s === 45 /* + - */ ? i + 2 : i + 1;
+    if (isDigitCode(text.charCodeAt(j))) {
+      while (isDigitCode(text.charCodeAt(j))) j++;
+      i = j;
+      digitsOnly = false;
+    }
+  }
+  return { end: i, digitsOnly };
 }
 
 function scaleUnit(value: number, unit: Unit | null): number {
