@@ -149,7 +149,11 @@ function lexSegment(body: string, line: number, out: Token[], errors: NetlistErr
     let kind: TokenKind;
     if (isLetterCode(k)) {
       i = scanWord(body, i);
-      if (body.charCodeAt(i) === 45 /* - */ && isLetter(body[i + 1]) && HYPHEN_HEADS.has(body.slice(start, i))) {
+      if (
+        body.charCodeAt(i) === 45 /* - */ &&
+        isLetter(body[i + 1]) &&
+        HYPHEN_HEADS.has(body.slice(start, i))
+      ) {
         i += 1;
         while (isLetter(body[i])) i++;
       }
