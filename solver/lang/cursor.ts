@@ -54,7 +54,12 @@ export class Cursor {
   /** Span of the whole statement on its first line. */
   get span(): SourceSpan {
     const first = this.tokens[0]!;
-    return spanBetween(spanOf(first), spanOf(this.tokens[this.tokens.length - 1] ?? first));
+    const last = this.tokens[this.tokens.length - 1] ?? first;
+    return {
+      line: first.line,
+      column: first.column,
+      endColumn: first.line === last.line ? last.endColumn : first.endColumn,
+    };
   }
 
   /** Where "something is missing" errors point: just past the last token. */
