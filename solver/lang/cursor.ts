@@ -54,7 +54,12 @@ export class Cursor {
   /** Span of the whole statement on its first line. */
   get span(): SourceSpan {
     const first = this.tokens[0]!;
-    return spanBetween(spanOf(first), spanOf(this.tokens[this.tokens.length - 1] ?? first));
+    const last = this.tokens[this.tokens.length - 1] ?? first;
+    return {
+      line: first.line,
+      column: first.column,
+      endColumn: first.line === last.line ? last.endColumn : first.endColumn,
+    };
   }
 
   /** Where "something is missing" errors point: just past the last token. */
@@ -89,22 +94,26 @@ export class Cursor {
     return this.fail(this.peek(), message, hint);
   }
 
-  /** A name token (letters, digits, `_`; dots only when `dotted`). */
-  expectName(what: string, dotted = false, hint?: string): Named | null {
+  /**
+   * A name token (letters, digits, `_`; dots only when `dotted`). `what` may be a function, so a
+   * message built from parts is only built when it is shown.
+   */
+  expectName(what: string | (() => string), dotted = false, hint?: string): Named | null {
     const t = this.peek();
     if (t?.kind === "word" && (dotted || !t.text.includes("."))) {
       this.i++;
       return { name: t.text, span: spanOf(t) };
     }
-    if (t === undefined) return this.fail(undefined, `${what} is missing`, hint);
-    return this.fail(t, `expected ${what}, found \`${t.text}\``, hint);
+    const said = typeof what === "string" ? what : what();
+    if (t === undefined) return this.fail(undefined, `${said} is missing`, hint);
+    return this.fail(t, `expected ${said}, found \`${t.text}\``, hint);
   }
 
   /**
    * A node name: a word (dots allowed) or digits only. `0`, once an alias of ground, is an error with
    * the fix `gnd`; reading goes on as if `gnd` were written, so the line's other errors show too.
    */
-  expectNode(what: string, hint?: string): Named | null {
+  expectNode(what: string | (() => string), hint?: string): Named | null {
     const t = this.peek();
     if (t?.kind === "number" && t.text === "0") {
       this.i++;

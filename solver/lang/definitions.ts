@@ -32,12 +32,14 @@ const UNIT_WORDS = new Set([
 ]);
 
 /** `NAME: KIND TERMINALS… [VALUE] [key=value…]` */
+const KINDS_HINT = `kinds: ${KIND_NAMES.join(", ")}`;
+
 export function parsePart(c: Cursor, kinds: KindTable): PartStatement | null {
   const name = c.expectName("a part name");
   if (name === null) return null;
   c.next(); // the colon
   const kindTok = c.peek();
-  const kind = c.expectName("a part kind", false, `kinds: ${KIND_NAMES.join(", ")}`);
+  const kind = c.expectName("a part kind", false, KINDS_HINT);
   if (kind === null || kindTok === undefined) return null;
   const block = kinds.blocks.get(kind.name);
   const base: PartKind | null = isPartKind(kind.name) ? kind.name : (kinds.presets.get(kind.name) ?? null);
@@ -65,7 +67,7 @@ export function parsePart(c: Cursor, kinds: KindTable): PartStatement | null {
       if (option === null) return null;
       options.push(option);
     } else if (terminals.length < count) {
-      const node = c.expectNode(`a node name (${kind.name} connects ${count} nodes)`);
+      const node = c.expectNode(() => `a node name (${kind.name} connects ${count} nodes)`);
       if (node === null) return null;
       terminals.push(node);
     } else if (value === null && info !== null && info.value !== "none") {

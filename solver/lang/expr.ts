@@ -63,7 +63,12 @@ class ExprError extends Error {
   }
 }
 
-const { parse: mathParse } = create({ parseDependencies: parseDependencies! });
+/** mathjs's parser, created on the first expression (a netlist without one never pays for it). */
+let mathParser: ((expr: string) => MathNode) | null = null;
+function mathParse(expr: string): MathNode {
+  mathParser ??= create({ parseDependencies: parseDependencies! }).parse;
+  return mathParser(expr);
+}
 
 const parsedCache = new WeakMap<Token[], MathNode>();
 

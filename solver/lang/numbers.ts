@@ -96,11 +96,14 @@ const IEC = /^([0-9]*)([fpnu\u00B5\u03BCmkMGTR])([0-9]*)(.*)$/;
 
 /** Read a number token's text (no sign). Never throws. */
 export function parseNumberText(text: string): NumberResult {
-  const match = /^([0-9]*\.?[0-9]*(?:[eE][+-]?[0-9]+)?)(.*)$/.exec(text);
-  const mantissa = match?.[1] ?? "";
-  const suffix = match?.[2] ?? text;
+  let digitsEnd = 0;
+  while (isDigitCode(text.charCodeAt(digitsEnd))) digitsEnd++;
+  const end = mantissaEnd(text, digitsEnd);
+  const mantissa = text.slice(0, end);
+  const suffix = text.slice(end);
   // IEC 60062: the prefix letter (or R) stands for the decimal point: 4k7, 2R2, 1n5, R47, 10R.
-  if (/^[0-9]*$/.test(mantissa)) {
+  // Only a letter followed by a digit, or R, can make one (the regex below is skipped otherwise).
+  if (end === digitsEnd && suffix !== "" && (suffix[0] === "R" || isDigitCode(suffix.charCodeAt(1)))) {
     const iec = IEC.exec(text);
     const [, whole = "", letter = "", fraction = "", unitText = ""] = iec ?? [];
     if (
@@ -124,19 +127,45 @@ export function parseNumberText(text: string): NumberResult {
     return { ok: false, message: `\`${text}\` is not a number` };
   }
   if (suffix === "") return { ok: true, value: base, unit: null };
-  const whole = readUnit(suffix);
-  if (whole.ok) return { ok: true, value: scaleUnit(base, whole.unit), unit: whole.unit };
+  // The unit tables are read directly (not through readUnit): a failed read would build its message.
+  const whole = UNITS[suffix];
+  if (whole !== undefined) return { ok: true, value: scaleUnit(base, whole), unit: whole };
   const prefix = PREFIXES[suffix[0] ?? ""];
   if (prefix !== undefined) {
-    const rest = readUnit(suffix.slice(1));
-    if (rest.ok) {
-      if (rest.unit === "%" || rest.unit === "dB" || rest.unit === "deg") {
-        return { ok: false, message: `no prefix may stand before ${UNIT_NAMES[rest.unit]}` };
+    const restText = suffix.slice(1);
+    const rest = restText === "" ? null : UNITS[restText];
+    if (rest !== undefined) {
+      if (rest === "%" || rest === "dB" || rest === "deg") {
+        return { ok: false, message: `no prefix may stand before ${UNIT_NAMES[rest]}` };
       }
-      return { ok: true, value: Number((base * prefix).toPrecision(15)), unit: rest.unit };
+      return { ok: true, value: Number((base * prefix).toPrecision(15)), unit: rest };
     }
   }
   return badSuffix(text, suffix);
+}
+
+const isDigitCode = (k: number) => k >= 48 && k <= 57;
+
+/**
+ * Where the mantissa of `text` ends, as the pattern `[0-9]*\.?[0-9]*(?:[eE][+-]?[0-9]+)?` at its
+ * start would match it; `i` is past its leading digits. A scan by char code: it runs once per number.
+ */
+function mantissaEnd(text: string, digitsEnd: number): number {
+  let i = digitsEnd;
+  if (text.charCodeAt(i) === 46 /* . */) {
+    i++;
+    while (isDigitCode(text.charCodeAt(i))) i++;
+  }
+  const e = text.charCodeAt(i);
+  if (e === 101 || e === 69 /* e E */) {
+    const s = text.charCodeAt(i + 1);
+    let j = s === 43 || s === 45 /* + - */ ? i + 2 : i + 1;
+    if (isDigitCode(text.charCodeAt(j))) {
+      while (isDigitCode(text.charCodeAt(j))) j++;
+      i = j;
+    }
+  }
+  return i;
 }
 
 function scaleUnit(value: number, unit: Unit | null): number {

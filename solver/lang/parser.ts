@@ -109,7 +109,11 @@ function prescan(lines: LogicalLine[]): KindTable {
   const presets = new Map<string, PartKind | null>();
   const blocks = new Map<string, number>();
   for (const { tokens } of lines) {
-    const [a, b, c, d] = tokens;
+    // Indexing, not destructuring: this runs once per line, mostly before the JIT has warmed up.
+    const a = tokens[0];
+    const b = tokens[1];
+    const c = tokens[2];
+    const d = tokens[3];
     if (a?.text === "block" && b?.kind === "word" && c?.text === "(") {
       const close = tokens.findIndex((t) => t.text === ")");
       const inside = tokens.slice(3, close < 0 ? tokens.length : close);

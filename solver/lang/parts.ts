@@ -175,19 +175,19 @@ function primitive(st: PartStatement, fullName: string, inst: Instance, ctx: Fla
   const part: Part = { name: fullName, kind, nodes, value, span: st.span };
   if (kind === "diode") part.diode = { is: DIODE_IS, n: DIODE_N, kelvin: ctx.kelvin };
   // Preset options first, the line's own options override them.
-  const options: [OptionNode, Scope][] = [
-    ...(preset?.options ?? []).map((o): [OptionNode, Scope] => [o, ctx.global]),
-    ...st.options.map((o): [OptionNode, Scope] => [o, inst.scope]),
-  ];
-  for (const [o, scope] of options) {
-    const v = evaluate(o.value, scope, ctx.errors);
-    if (v !== null) applyOption(part, o.key, v, o.value, ctx.errors);
-  }
+  if (preset !== undefined) for (const o of preset.options) optionOf(part, o, ctx.global, ctx.errors);
+  for (const o of st.options) optionOf(part, o, inst.scope, ctx.errors);
   // A part whose value or options failed still takes part in the structure checks; its errors fail the compile.
   return part;
 }
 
+function optionOf(part: Part, o: OptionNode, scope: Scope, errors: NetlistError[]): void {
+  const v = evaluate(o.value, scope, errors);
+  if (v !== null) applyOption(part, o.key, v, o.value, errors);
+}
+
 function resolveSenses(parts: Part[], pending: PendingSense[], errors: NetlistError[]): void {
+  if (pending.length === 0) return;
   const byName = new Map(parts.map((p) => [p.name, p]));
   for (const p of pending) {
     const target = byName.get(p.prefix + p.written) ?? byName.get(p.written);

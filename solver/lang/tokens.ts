@@ -27,7 +27,7 @@ export interface LogicalLine {
 
 /** Hyphenated keywords are single words; the lexer joins `head-tail` when head is one of these. */
 const HYPHEN_HEADS = new Set(["zero", "phase", "gain", "half", "monte", "group", "input"]);
-const OPERATORS = ["<=", ">=", "<", ">", "=", ":", ",", "(", ")", "+", "-", "*", "/", "^"];
+/** Operators: <= >= < > = : , ( ) + - * / ^ (read by `operatorLength`). */
 // Character classes by code point: the lexer runs once per keystroke in the editor.
 const isLetterCode = (k: number) => (k >= 65 && k <= 90) || (k >= 97 && k <= 122) || k === 95;
 const isDigitCode = (k: number) => k >= 48 && k <= 57;
@@ -50,7 +50,8 @@ export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[
   const lines: LogicalLine[] = [];
   const physical = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
   let current: LogicalLine | null = null;
-  physical.forEach((raw, index) => {
+  for (let index = 0; index < physical.length; index++) {
+    const raw = physical[index]!;
     const lineNo = index + 1;
     const starting = current === null;
     if (current === null) current = { line: lineNo, tokens: [], segments: [] };
@@ -67,7 +68,7 @@ export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[
       if (current.tokens.length > 0) lines.push(current);
       current = null;
     }
-  });
+  }
   const last = current as LogicalLine | null;
   if (last !== null && last.tokens.length > 0) lines.push(last);
   return { lines, errors };
@@ -131,56 +132,82 @@ export function titleText(logical: LogicalLine): string {
 }
 
 function lexSegment(body: string, line: number, out: Token[], errors: NetlistError[]): void {
+  // One pass by char code, tokens pushed inline: this runs for every line of a netlist, mostly
+  // before the JIT has warmed up, so it avoids a closure per line and a search per operator.
   let i = 0;
   let spaceBefore = true;
-  const push = (kind: TokenKind, start: number, end: number) => {
-    out.push({
-      kind,
-      text: body.slice(start, end),
-      line,
-      column: start + 1,
-      endColumn: end + 1,
-      spaceBefore,
-    });
-    spaceBefore = false;
-  };
-  while (i < body.length) {
-    const c = body[i];
-    if (c === " " || c === "\t" || c === "\u00A0" || c === "\u202F" || c === "\u2009") {
+  const n = body.length;
+  while (i < n) {
+    const k = body.charCodeAt(i);
+    if (k === 32 || k === 9 || k === 0xa0 || k === 0x202f || k === 0x2009) {
       // Non-breaking and thin spaces pasted from documents count as blanks.
       spaceBefore = true;
       i++;
-    } else if (isLetter(c)) {
-      const start = i;
+      continue;
+    }
+    const start = i;
+    let kind: TokenKind;
+    if (isLetterCode(k)) {
       i = scanWord(body, i);
-      const head = body.slice(start, i);
-      if (HYPHEN_HEADS.has(head) && body[i] === "-" && isLetter(body[i + 1])) {
+      if (
+        body.charCodeAt(i) === 45 /* - */ &&
+        isLetter(body[i + 1]) &&
+        HYPHEN_HEADS.has(body.slice(start, i))
+      ) {
         i += 1;
         while (isLetter(body[i])) i++;
       }
-      push("word", start, i);
-    } else if (isDigit(c) || (c === "." && isDigit(body[i + 1]))) {
-      const start = i;
+      kind = "word";
+    } else if (isDigitCode(k) || (k === 46 /* . */ && isDigit(body[i + 1]))) {
       i = scanNumber(body, i);
-      push("number", start, i);
+      kind = "number";
     } else {
-      const op = OPERATORS.find((o) => body.startsWith(o, i));
-      if (op !== undefined) {
-        push("op", i, i + op.length);
-        i += op.length;
-      } else {
+      const length = operatorLength(body, i, k);
+      if (length === 0) {
         errors.push(strayCharacter(body, i, line));
         spaceBefore = true;
         i++;
+        continue;
       }
+      i += length;
+      kind = "op";
     }
+    out.push({ kind, text: body.slice(start, i), line, column: start + 1, endColumn: i + 1, spaceBefore });
+    spaceBefore = false;
   }
 }
 
+/** Length of the operator starting at `i`, whose char code is `k`; 0 when there is none. */
+function operatorLength(body: string, i: number, k: number): number {
+  switch (k) {
+    case 60: // <
+    case 62: // >
+      return body.charCodeAt(i + 1) === 61 /* = */ ? 2 : 1;
+    case 61: // =
+    case 58: // :
+    case 44: // ,
+    case 40: // (
+    case 41: // )
+    case 43: // +
+    case 45: // -
+    case 42: // *
+    case 47: // /
+    case 94: // ^
+      return 1;
+    default:
+      return 0;
+  }
+}
+
+const isWordCode = (k: number) => isLetterCode(k) || isDigitCode(k);
+
 function scanWord(body: string, start: number): number {
   let i = start;
-  while (isWordChar(body[i]) || (body[i] === "." && isWordChar(body[i + 1]))) i++;
-  return i;
+  for (;;) {
+    const k = body.charCodeAt(i);
+    if (isWordCode(k) || (k === 46 /* . */ && isWordCode(body.charCodeAt(i + 1)))) i++;
+    else return i;
+  }
 }
 
 function scanNumber(body: string, start: number): number {

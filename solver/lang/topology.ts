@@ -46,25 +46,27 @@ export function checkTopology(parts: Part[], errors: NetlistError[], warnings: W
 }
 
 function openEnds(parts: Part[], warnings: Warning[]): void {
-  const touching = new Map<string, Set<string>>();
-  const firstPart = new Map<string, Part>();
+  // Per node: how many parts touch it (part names are unique after flattening) and the first one.
+  // Counts, not a set of names per node: gnd alone is touched by most parts.
+  const touching = new Map<string, { count: number; first: Part }>();
   for (const p of parts) {
-    const distinct = new Set(p.nodes);
-    if (distinct.size === 1 && p.kind !== "vsource") {
+    const nodes = p.nodes;
+    if (nodes.length > 0 && nodes.every((n) => n === nodes[0]) && p.kind !== "vsource") {
       warnings.push({
         line: p.span.line,
-        message: `every terminal of ${p.name} is on node ${p.nodes[0]}, so it does nothing`,
+        message: `every terminal of ${p.name} is on node ${nodes[0]}, so it does nothing`,
       });
     }
-    for (const n of distinct) {
-      if (!touching.has(n)) touching.set(n, new Set());
-      touching.get(n)!.add(p.name);
-      if (!firstPart.has(n)) firstPart.set(n, p);
+    for (let i = 0; i < nodes.length; i++) {
+      const n = nodes[i]!;
+      if (nodes.indexOf(n) < i) continue; // counted already for this part
+      const seen = touching.get(n);
+      if (seen === undefined) touching.set(n, { count: 1, first: p });
+      else seen.count++;
     }
   }
-  for (const [n, names] of touching) {
-    if (n === "gnd" || names.size !== 1) continue;
-    const p = firstPart.get(n)!;
+  for (const [n, { count, first: p }] of touching) {
+    if (n === "gnd" || count !== 1) continue;
     warnings.push({
       line: p.span.line,
       message: `node ${n} connects only to ${p.name}: that terminal is left open`,
