@@ -3,6 +3,7 @@
 import type { Layout } from "plotly.js";
 import { useState } from "react";
 import { plotColors } from "@/components/plot/palette";
+import { PlainButton } from "@/components/ui/button";
 import { formatQuantity } from "@/solver/format";
 import type { PoleResult, ZeroResult } from "@/solver/types";
 import { sortedPoles } from "./analysis-math";
@@ -195,9 +196,9 @@ export function PoleMap({ poles, zeros = [] }: { poles: PoleResult[]; zeros?: Ze
                 : view.far
                     .map((r) => `${r.kind} at ${formatQuantity(r.frequencyHz, "Hz", 4)}`)
                     .join(", ")}{" "}
-              <button type="button" className="text-copper-700 underline" onClick={() => setAll(!all)}>
+              <PlainButton type="button" className="text-copper-700 underline" onClick={() => setAll(!all)}>
                 {all ? "zoom to the dominant roots" : "show all"}
-              </button>
+              </PlainButton>
             </p>
           ) : null}
           {zeros.length > 0 ? (

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { BodePlot } from "@/components/plot/bode-plot";
+import { PlainButton } from "@/components/ui/button";
 import type { DrawnVariant } from "@/lib/drawn-result";
 import { formatQuantity } from "@/solver/format";
 import type { MeasureResult } from "@/solver/types";
@@ -47,7 +48,7 @@ export function VariantsView({
           <legend className="sr-only">Trace shown for every variant</legend>
           <span className="text-ink-500">trace</span>
           {traceNames.map((n) => (
-            <button
+            <PlainButton
               key={n}
               type="button"
               aria-pressed={n === shown}
@@ -59,7 +60,7 @@ export function VariantsView({
               }`}
             >
               {n}
-            </button>
+            </PlainButton>
           ))}
         </fieldset>
       ) : null}

@@ -2,7 +2,7 @@
 
 import { useId, useState } from "react";
 import { formatHz } from "@/components/plot/hover-format";
-import { Button } from "@/components/ui/button";
+import { Button, PlainButton } from "@/components/ui/button";
 import { inputClass } from "@/components/ui/field";
 import type { CommentView } from "@/lib/comments";
 import { usePostComment } from "./comments-query";
@@ -75,9 +75,13 @@ export function CommentForm({
             <PinIcon /> {formatHz(pin.frequencyHz)}
             {pin.trace ? ` · ${pin.trace}` : ""}
           </span>
-          <button type="button" className="text-ink-500 hover:text-ink-800 underline" onClick={onClearPin}>
+          <PlainButton
+            type="button"
+            className="text-ink-500 hover:text-ink-800 underline"
+            onClick={onClearPin}
+          >
             Remove pin
-          </button>
+          </PlainButton>
         </p>
       ) : onPin ? (
         <PinPicker traces={traces} onPin={onPin} />

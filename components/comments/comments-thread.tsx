@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { formatHz } from "@/components/plot/hover-format";
-import { Button } from "@/components/ui/button";
+import { Button, PlainButton } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import type { CommentView } from "@/lib/comments";
 import { THREAD_STATE_LABELS, type ThreadState } from "@/lib/review-states";
@@ -151,7 +151,7 @@ function CommentBody({ c, onFocusPin }: { c: CommentView; onFocusPin: (hz: numbe
         <span className="text-ink-900 font-medium">{c.authorName}</span>
         <span className="text-ink-500"> · {formatDate(c.createdAt)}</span>
         {c.frequencyHz !== null ? (
-          <button
+          <PlainButton
             type="button"
             onClick={() => onFocusPin(c.frequencyHz as number)}
             className="bg-copper-50 text-caption text-copper-700 ring-copper-200 hover:bg-copper-100 ml-2 rounded-full px-2 py-0.5 font-mono ring-1 ring-inset"
@@ -159,7 +159,7 @@ function CommentBody({ c, onFocusPin }: { c: CommentView; onFocusPin: (hz: numbe
           >
             <PinIcon /> {formatHz(c.frequencyHz)}
             {c.trace ? ` · ${c.trace}` : ""}
-          </button>
+          </PlainButton>
         ) : null}
       </p>
       <p className="text-ink-800 mt-1 text-sm whitespace-pre-wrap">{c.body}</p>

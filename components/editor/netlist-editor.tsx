@@ -4,6 +4,7 @@ import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { BodePlot } from "@/components/plot/bode-plot";
 import type { BodeMarker, BodeOverlay } from "@/components/plot/types";
 import { variantOverlays } from "@/components/plot/variants";
+import { PlainButton } from "@/components/ui/button";
 import { MAX_NETLIST_BYTES } from "@/lib/limits";
 import { freePairNames } from "@/lib/snap-pairs";
 import type { NetlistError } from "@/solver/types";
@@ -114,13 +115,13 @@ export function NetlistEditor({
                 setNotice(`Loaded the example “${ex.title}”. Undo (Ctrl+Z) brings back your text.`);
               }}
             />
-            <button
+            <PlainButton
               type="button"
               onClick={() => fileRef.current?.click()}
               className="border-paper-300 text-ink-800 hover:bg-paper-100 h-8 rounded-md border bg-white px-3 text-sm font-medium"
             >
               Open .pwn file
-            </button>
+            </PlainButton>
             <input
               ref={fileRef}
               type="file"
@@ -209,13 +210,13 @@ export function NetlistEditor({
             Preview
           </h2>
           {focusHz !== null ? (
-            <button
+            <PlainButton
               type="button"
               onClick={() => setFocusHz(null)}
               className="border-paper-300 text-ink-700 hover:bg-paper-100 h-8 rounded-md border bg-white px-3 text-sm"
             >
               Show the whole sweep
-            </button>
+            </PlainButton>
           ) : null}
         </div>
         <PreviewPanel

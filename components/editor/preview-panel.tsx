@@ -6,7 +6,7 @@ import { Caution } from "@/components/run/caution";
 import { CheckBadges } from "@/components/run/check-badges";
 import { MeasuresTable } from "@/components/run/measures-table";
 import { WarningsList } from "@/components/run/warnings-list";
-import { Button } from "@/components/ui/button";
+import { Button, PlainButton } from "@/components/ui/button";
 import { TickedText } from "@/components/ui/ticked-text";
 import { cn } from "@/lib/utils";
 import { type PreviewView, previewStatus } from "./preview-view";
@@ -57,7 +57,7 @@ export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency, onRunF
         <ol className="flex flex-col gap-1 text-sm" aria-label="Netlist errors">
           {errors.map((e, i) => (
             <li key={`${e.line}-${e.column}-${i}`}>
-              <button
+              <PlainButton
                 type="button"
                 onClick={() => onGoToLine(e.line, e.column)}
                 className="border-signal-fault/20 hover:bg-signal-fault-soft w-full rounded-md border bg-white px-2.5 py-1.5 text-left"
@@ -73,7 +73,7 @@ export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency, onRunF
                     <TickedText text={e.hint} />
                   </span>
                 ) : null}
-              </button>
+              </PlainButton>
             </li>
           ))}
         </ol>

@@ -1,5 +1,6 @@
 "use client";
 
+import { PlainButton } from "@/components/ui/button";
 import { cn } from "@/lib/utils";
 
 /** What a click on the plot does. */
@@ -31,7 +32,7 @@ export function PlotToolbar({ mode, onMode, canPin, ready, onReset, onPng }: Plo
       <fieldset className="flex flex-wrap items-center gap-1">
         <legend className="text-caption text-ink-500 float-left mr-1">Click places</legend>
         {modes.map((m) => (
-          <button
+          <PlainButton
             key={m.id}
             type="button"
             aria-pressed={mode === m.id}
@@ -44,27 +45,27 @@ export function PlotToolbar({ mode, onMode, canPin, ready, onReset, onPng }: Plo
             )}
           >
             {m.label}
-          </button>
+          </PlainButton>
         ))}
       </fieldset>
       <div className="flex items-center gap-1">
-        <button
+        <PlainButton
           type="button"
           disabled={!ready}
           onClick={onReset}
           className={cn(chip, "border-paper-300 text-ink-700 hover:bg-paper-100 bg-white")}
         >
           Reset view
-        </button>
+        </PlainButton>
         {onPng ? (
-          <button
+          <PlainButton
             type="button"
             disabled={!ready}
             onClick={onPng}
             className={cn(chip, "border-paper-300 text-ink-700 hover:bg-paper-100 bg-white")}
           >
             PNG
-          </button>
+          </PlainButton>
         ) : null}
       </div>
     </div>

@@ -2,6 +2,7 @@
 
 import { useState } from "react";
 import { downloadPlotPng } from "@/components/plot/plot-registry";
+import { PlainButton } from "@/components/ui/button";
 import { buttonClass } from "@/components/ui/button-class";
 import { cn } from "@/lib/utils";
 
@@ -26,7 +27,7 @@ export function ExportButtons({ runId, plotId, fileName = `run-${runId}`, classN
       >
         Download CSV
       </a>
-      <button
+      <PlainButton
         type="button"
         className={buttonClass({ variant: "secondary", size: "sm" })}
         onClick={async () => {
@@ -36,7 +37,7 @@ export function ExportButtons({ runId, plotId, fileName = `run-${runId}`, classN
         }}
       >
         Download PNG
-      </button>
+      </PlainButton>
       <span role="status" aria-live="polite" className="text-caption text-signal-warn">
         {message}
       </span>

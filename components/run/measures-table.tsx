@@ -1,3 +1,4 @@
+import { PlainButton } from "@/components/ui/button";
 import { cn } from "@/lib/utils";
 import { formatQuantity } from "@/solver/format";
 import type { MeasureResult } from "@/solver/types";
@@ -39,14 +40,14 @@ export function MeasuresTable({ measures, onSelectFrequency, className }: Measur
                   no value <span className="text-ink-500">— {m.reason ?? "not available"}</span>
                 </span>
               ) : m.unit === "Hz" && onSelectFrequency ? (
-                <button
+                <PlainButton
                   type="button"
                   onClick={() => onSelectFrequency(m.value as number)}
                   className="text-board-700 decoration-board-200 hover:decoration-board-600 font-mono tabular-nums underline underline-offset-2"
                   title="Show this frequency on the plot"
                 >
                   {formatQuantity(m.value, m.unit)}
-                </button>
+                </PlainButton>
               ) : (
                 <span className="text-ink-900 font-mono tabular-nums">{formatQuantity(m.value, m.unit)}</span>
               )}

@@ -1,3 +1,4 @@
+import { PlainButton } from "@/components/ui/button";
 import { TickedText } from "@/components/ui/ticked-text";
 import { cn } from "@/lib/utils";
 import type { Warning } from "@/solver/types";
@@ -31,13 +32,13 @@ export function WarningsList({
             {w.line === null ? (
               "note"
             ) : onLineClick ? (
-              <button
+              <PlainButton
                 type="button"
                 onClick={() => onLineClick(w.line as number)}
                 className="underline underline-offset-2"
               >
                 line {w.line}
-              </button>
+              </PlainButton>
             ) : (
               <a href={`#${netlistLineId(netlistIdPrefix, w.line)}`} className="underline underline-offset-2">
                 line {w.line}

@@ -2,6 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { PlainButton } from "@/components/ui/button";
 import { buttonClass } from "@/components/ui/button-class";
 import { inputClass } from "@/components/ui/field";
 import { REVIEW_STATE_LABELS, REVIEW_STATES } from "@/lib/review-states";
@@ -104,9 +105,9 @@ export function RunsFilters({
             ))}
           </select>
         </div>
-        <button type="submit" className={buttonClass({ variant: "secondary" })}>
+        <PlainButton type="submit" className={buttonClass({ variant: "secondary" })}>
           Apply
-        </button>
+        </PlainButton>
       </form>
     </search>
   );

@@ -1,3 +1,4 @@
+import { PlainButton } from "@/components/ui/button";
 import { buttonClass } from "@/components/ui/button-class";
 import type { RunsQueryState } from "./runs-filters";
 
@@ -12,25 +13,25 @@ export function RunsPager(props: {
   return (
     <nav aria-label="Pages of runs" className="flex flex-wrap items-center justify-between gap-3 text-sm">
       <div className="flex items-center gap-2">
-        <button
+        <PlainButton
           type="button"
           className={buttonClass({ variant: "secondary", size: "sm" })}
           disabled={page <= 1}
           onClick={() => onGo({ page: page - 1 })}
         >
           Previous
-        </button>
+        </PlainButton>
         <span className="text-ink-600">
           Page {page} of {pages}
         </span>
-        <button
+        <PlainButton
           type="button"
           className={buttonClass({ variant: "secondary", size: "sm" })}
           disabled={page >= pages}
           onClick={() => onGo({ page: page + 1 })}
         >
           Next
-        </button>
+        </PlainButton>
       </div>
       <label className="text-ink-600 flex items-center gap-2">
         Rows per page

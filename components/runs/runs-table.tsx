@@ -10,6 +10,7 @@ import {
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useMemo, useState, useTransition } from "react";
+import { PlainButton } from "@/components/ui/button";
 import { buttonClass } from "@/components/ui/button-class";
 import { isRunSortKey } from "@/lib/run-list";
 import type { RunSummary } from "@/lib/run-types";
@@ -146,7 +147,7 @@ function HeaderCell(props: {
   return (
     <th scope="col" aria-sort={sortKey ? aria : undefined} className="px-3 py-2 font-medium">
       {sortKey ? (
-        <button
+        <PlainButton
           type="button"
           className="hover:text-ink-900 inline-flex items-center gap-1 rounded"
           onClick={() =>
@@ -161,7 +162,7 @@ function HeaderCell(props: {
           <span aria-hidden="true" className={active ? "text-copper-600" : "text-ink-500"}>
             {active ? (query.dir === "asc" ? "▲" : "▼") : "↕"}
           </span>
-        </button>
+        </PlainButton>
       ) : (
         label
       )}

@@ -3,6 +3,7 @@
 import Link from "next/link";
 import { signOut } from "next-auth/react";
 import { useEffect, useRef, useState } from "react";
+import { PlainButton } from "@/components/ui/button";
 
 /** The account menu: who is signed in, a link to settings, and sign out. Closes on Escape or outside click. */
 export function UserMenu({ name, email }: { name: string; email: string }) {
@@ -38,7 +39,7 @@ export function UserMenu({ name, email }: { name: string; email: string }) {
 
   return (
     <div ref={root} className="relative">
-      <button
+      <PlainButton
         ref={button}
         type="button"
         aria-expanded={open}
@@ -48,7 +49,7 @@ export function UserMenu({ name, email }: { name: string; email: string }) {
         className="bg-copper-100 text-copper-700 hover:bg-copper-200 flex h-9 w-9 items-center justify-center rounded-full text-sm font-semibold"
       >
         {initials}
-      </button>
+      </PlainButton>
       {open ? (
         <div
           id="user-menu"
@@ -65,13 +66,13 @@ export function UserMenu({ name, email }: { name: string; email: string }) {
           >
             Profile and API tokens
           </Link>
-          <button
+          <PlainButton
             type="button"
             onClick={() => signOut({ callbackUrl: "/" })}
             className="text-ink-700 hover:bg-paper-100 block w-full rounded-md px-3 py-2 text-left text-sm"
           >
             Sign out
-          </button>
+          </PlainButton>
         </div>
       ) : null}
     </div>

@@ -1,6 +1,6 @@
 "use client";
 
-import type { ButtonHTMLAttributes } from "react";
+import type { ButtonHTMLAttributes, ComponentProps } from "react";
 import { type ButtonSize, type ButtonVariant, buttonClass } from "./button-class";
 import { useHydrated } from "./use-hydrated";
 
@@ -25,4 +25,15 @@ export function Button({ variant, size, className, type = "button", disabled, ..
       {...props}
     />
   );
+}
+
+/**
+ * A button with no look of its own (a link-like or icon control styled by its caller), under the
+ * same rule as `Button`: a plain button that acts through `onClick` is disabled until hydration.
+ * Every `<button>` outside components/ui is one of these two (tests/unit/hydration-rule.test.ts).
+ */
+export function PlainButton({ type = "button", disabled, ...props }: ComponentProps<"button">) {
+  const hydrated = useHydrated();
+  const waiting = type === "button" && props.onClick !== undefined && !hydrated;
+  return <button type={type} disabled={disabled || waiting} {...props} />;
 }
