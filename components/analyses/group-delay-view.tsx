@@ -7,7 +7,7 @@ import { frequencyChartLayout, plotColors, traceColor } from "@/components/plot/
 import { plotText } from "@/components/plot/plot-text";
 import type { DrawnTrace } from "@/lib/drawn-result";
 import { formatQuantity } from "@/solver/format";
-import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
+import { ChartFigure } from "./lazy-plot";
 import { SectionTitle } from "./section";
 
 /** One curve of the plot: a run's delay, or a difference between two runs (drawn on the right axis). */
@@ -66,18 +66,12 @@ export function GroupDelayView({
       : {}),
   };
   const figure = (
-    <figure
+    <ChartFigure
       className={`border-paper-200 rounded-panel h-72 w-full border bg-white p-1 ${inPanel ? "" : "mt-3"}`}
-      aria-label="Group delay"
-    >
-      <LazyPlot
-        data={data}
-        layout={layout}
-        config={PLOT_CONFIG}
-        useResizeHandler
-        style={{ width: "100%", height: "100%" }}
-      />
-    </figure>
+      label="Group delay"
+      data={data}
+      layout={layout}
+    />
   );
   if (inPanel) return <div data-testid="group-delay">{figure}</div>;
   return (

@@ -1,6 +1,8 @@
 "use client";
 
 import dynamic from "next/dynamic";
+import type { Data, Layout } from "plotly.js";
+import { PLOT_CONFIG } from "@/components/plot/palette";
 
 /** Plotly, loaded on the client only (the same bundle the Bode plot uses). */
 export const LazyPlot = dynamic(() => import("@/components/plot/plotly-chart"), {
@@ -12,5 +14,30 @@ export const LazyPlot = dynamic(() => import("@/components/plot/plotly-chart"), 
   ),
 });
 
-/** No library icon bar on any chart (PlotlyChart enforces it too). */
-export const PLOT_CONFIG = { displaylogo: false, displayModeBar: false, responsive: true } as const;
+/** A chart in its frame: the figure (size and border from `className`, named by `label`) and the plot filling it. */
+export function ChartFigure({
+  label,
+  className,
+  data,
+  layout,
+  height,
+}: {
+  label: string;
+  className: string;
+  /** A height computed by the caller (px), when the class does not fix one. */
+  height?: number;
+  data: Partial<Data>[];
+  layout: Partial<Layout>;
+}) {
+  return (
+    <figure className={className} style={height ? { height } : undefined} aria-label={label}>
+      <LazyPlot
+        data={data as Data[]}
+        layout={layout}
+        config={PLOT_CONFIG}
+        useResizeHandler
+        style={{ width: "100%", height: "100%" }}
+      />
+    </figure>
+  );
+}

@@ -5,7 +5,7 @@ import { plotColors, traceColor } from "@/components/plot/palette";
 import { formatQuantity } from "@/solver/format";
 import type { MeasureResult, MeasureStats, MonteCarloCheck, MonteCarloResult } from "@/solver/types";
 import { histogramBars, histogramMarks } from "./analysis-math";
-import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
+import { ChartFigure } from "./lazy-plot";
 import { SectionTitle } from "./section";
 
 const COLUMNS: { key: string; label: string; read: (s: MeasureStats) => number | null }[] = [
@@ -176,26 +176,20 @@ function Histogram({
     })),
   };
   return (
-    <figure
+    <ChartFigure
       className="border-paper-200 rounded-panel h-64 border bg-white p-1"
-      aria-label={`Histogram of ${stats.name}`}
-    >
-      <LazyPlot
-        data={[
-          {
-            type: "bar",
-            x: bars.x,
-            y: bars.y,
-            width: bars.width,
-            marker: { color: traceColor(index), line: { color: "#ffffff", width: 0.5 } },
-            hovertemplate: `%{x:.4g} ${axisUnit}: %{y} samples<extra></extra>`,
-          },
-        ]}
-        layout={layout}
-        config={PLOT_CONFIG}
-        useResizeHandler
-        style={{ width: "100%", height: "100%" }}
-      />
-    </figure>
+      label={`Histogram of ${stats.name}`}
+      data={[
+        {
+          type: "bar",
+          x: bars.x,
+          y: bars.y,
+          width: bars.width,
+          marker: { color: traceColor(index), line: { color: "#ffffff", width: 0.5 } },
+          hovertemplate: `%{x:.4g} ${axisUnit}: %{y} samples<extra></extra>`,
+        },
+      ]}
+      layout={layout}
+    />
   );
 }

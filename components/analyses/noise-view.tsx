@@ -5,7 +5,7 @@ import { useMemo, useState } from "react";
 import { frequencyChartLayout, plotColors, traceColor } from "@/components/plot/palette";
 import { formatQuantity } from "@/solver/format";
 import type { NoiseResult } from "@/solver/types";
-import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
+import { ChartFigure } from "./lazy-plot";
 import { bandRms, noiseShares } from "./noise-math";
 import { SectionTitle } from "./section";
 
@@ -97,18 +97,12 @@ export function NoiseView({ noise, frequencies }: { noise: NoiseResult; frequenc
         note={`at ${noise.probe}, ${formatQuantity(noise.temperature, "K", 5)}`}
       />
       <div className="grid gap-4 lg:grid-cols-[1fr_minmax(0,20rem)]">
-        <figure
+        <ChartFigure
           className="border-paper-200 rounded-panel h-80 w-full border bg-white p-1"
-          aria-label="Noise density"
-        >
-          <LazyPlot
-            data={data}
-            layout={layout}
-            config={PLOT_CONFIG}
-            useResizeHandler
-            style={{ width: "100%", height: "100%" }}
-          />
-        </figure>
+          label="Noise density"
+          data={data}
+          layout={layout}
+        />
         <div className="space-y-3 text-sm">
           <fieldset className="flex flex-wrap items-end gap-2">
             <legend className="text-caption text-ink-500 mb-1">Band</legend>

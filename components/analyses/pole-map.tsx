@@ -7,7 +7,7 @@ import { PlainButton } from "@/components/ui/button";
 import { formatQuantity } from "@/solver/format";
 import type { PoleResult, ZeroResult } from "@/solver/types";
 import { sortedPoles } from "./analysis-math";
-import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
+import { ChartFigure } from "./lazy-plot";
 import { dominantView } from "./noise-math";
 import { SectionTitle } from "./section";
 
@@ -92,44 +92,38 @@ export function PoleMap({ poles, zeros = [] }: { poles: PoleResult[]; zeros?: Ze
         }
       />
       <div className="grid gap-4 lg:grid-cols-[minmax(0,22rem)_1fr]">
-        <figure
+        <ChartFigure
           className="border-paper-200 rounded-panel aspect-square w-full border bg-white p-1"
-          aria-label="Pole map"
-        >
-          <LazyPlot
-            data={[
-              {
-                type: "scatter",
-                mode: "markers",
-                x: poles.map((p) => p.re),
-                y: poles.map((p) => p.im),
-                marker: {
-                  symbol: "x-thin",
-                  size: 12,
-                  line: {
-                    width: 2.5,
-                    color: poles.map((p) => (p.re > 0 ? plotColors.difference : plotColors.text)),
-                  },
+          label="Pole map"
+          data={[
+            {
+              type: "scatter",
+              mode: "markers",
+              x: poles.map((p) => p.re),
+              y: poles.map((p) => p.im),
+              marker: {
+                symbol: "x-thin",
+                size: 12,
+                line: {
+                  width: 2.5,
+                  color: poles.map((p) => (p.re > 0 ? plotColors.difference : plotColors.text)),
                 },
-                text: poles.map((p) => rootHover("pole", p)),
-                hovertemplate: "%{text}<extra></extra>",
               },
-              {
-                type: "scatter",
-                mode: "markers",
-                x: zeros.map((z) => z.re),
-                y: zeros.map((z) => z.im),
-                marker: { symbol: "circle-open", size: 11, line: { width: 2 }, color: plotColors.marker },
-                text: zeros.map((z) => rootHover("zero", z)),
-                hovertemplate: "%{text}<extra></extra>",
-              },
-            ]}
-            layout={layout}
-            config={PLOT_CONFIG}
-            useResizeHandler
-            style={{ width: "100%", height: "100%" }}
-          />
-        </figure>
+              text: poles.map((p) => rootHover("pole", p)),
+              hovertemplate: "%{text}<extra></extra>",
+            },
+            {
+              type: "scatter",
+              mode: "markers",
+              x: zeros.map((z) => z.re),
+              y: zeros.map((z) => z.im),
+              marker: { symbol: "circle-open", size: 11, line: { width: 2 }, color: plotColors.marker },
+              text: zeros.map((z) => rootHover("zero", z)),
+              hovertemplate: "%{text}<extra></extra>",
+            },
+          ]}
+          layout={layout}
+        />
         <div className="overflow-x-auto">
           <table className="w-full text-sm">
             <caption className="sr-only">Poles with frequency, quality factor and growth per cycle</caption>

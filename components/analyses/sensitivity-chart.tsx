@@ -5,7 +5,7 @@ import { useState } from "react";
 import { plotColors } from "@/components/plot/palette";
 import type { SensitivityResult } from "@/solver/types";
 import { rankSensitivities } from "./analysis-math";
-import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
+import { ChartFigure } from "./lazy-plot";
 import { SectionTitle } from "./section";
 
 /** Normalized sensitivities of one measure to every part, ranked by size, as horizontal bars. */
@@ -52,30 +52,24 @@ export function SensitivityChart({ rows }: { rows: SensitivityResult[] }) {
       {shown.length === 0 ? (
         <p className="text-ink-500 text-sm">No part changes {measure} measurably.</p>
       ) : (
-        <figure
+        <ChartFigure
           className="border-paper-200 rounded-panel border bg-white p-1"
-          style={{ height }}
-          aria-label={`Sensitivity of ${measure} to each part, largest first`}
-        >
-          <LazyPlot
-            data={[
-              {
-                type: "bar",
-                orientation: "h",
-                y: shown.map((r) => r.part),
-                x: shown.map((r) => r.value ?? 0),
-                marker: {
-                  color: shown.map((r) => ((r.value ?? 0) >= 0 ? plotColors.text : plotColors.marker)),
-                },
-                hovertemplate: "%{y}: %{x:.4f}<extra></extra>",
+          height={height}
+          label={`Sensitivity of ${measure} to each part, largest first`}
+          data={[
+            {
+              type: "bar",
+              orientation: "h",
+              y: shown.map((r) => r.part),
+              x: shown.map((r) => r.value ?? 0),
+              marker: {
+                color: shown.map((r) => ((r.value ?? 0) >= 0 ? plotColors.text : plotColors.marker)),
               },
-            ]}
-            layout={layout}
-            config={PLOT_CONFIG}
-            useResizeHandler
-            style={{ width: "100%", height: "100%" }}
-          />
-        </figure>
+              hovertemplate: "%{y}: %{x:.4f}<extra></extra>",
+            },
+          ]}
+          layout={layout}
+        />
       )}
       <p className="text-caption text-ink-500">
         A value of −0.5 means a 1 % larger part moves {measure || "the measure"} 0.5 % lower.

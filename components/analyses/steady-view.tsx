@@ -5,7 +5,7 @@ import { useState } from "react";
 import { plotColors } from "@/components/plot/palette";
 import { formatQuantity } from "@/solver/format";
 import type { SteadyResult } from "@/solver/types";
-import { LazyPlot, PLOT_CONFIG } from "./lazy-plot";
+import { ChartFigure } from "./lazy-plot";
 import { SectionTitle } from "./section";
 import { spectrumDbc, timeAxis } from "./steady-math";
 
@@ -27,15 +27,12 @@ const baseLayout = (x: string, y: string, extra: Partial<Layout> = {}): Partial<
 
 function Chart({ label, data, layout }: { label: string; data: Plotly.Data[]; layout: Partial<Layout> }) {
   return (
-    <figure className="border-paper-200 rounded-panel h-64 w-full border bg-white p-1" aria-label={label}>
-      <LazyPlot
-        data={data}
-        layout={layout}
-        config={PLOT_CONFIG}
-        useResizeHandler
-        style={{ width: "100%", height: "100%" }}
-      />
-    </figure>
+    <ChartFigure
+      className="border-paper-200 rounded-panel h-64 w-full border bg-white p-1"
+      label={label}
+      data={data}
+      layout={layout}
+    />
   );
 }
 

@@ -6,6 +6,7 @@ import { useCallback, useEffect, useId, useMemo, useRef, useState } from "react"
 import { buildBodeFigure } from "./bode-figure";
 import { CursorReadout } from "./cursor-readout";
 import type { BodeCursor } from "./cursors";
+import { PLOT_CONFIG } from "./palette";
 import {
   downloadPlotPng,
   type PlotStamp,
@@ -185,9 +186,6 @@ export function BodePlot({
     </figure>
   );
 }
-
-/** No library icon bar: our own toolbar above does reset and PNG; drag zooms, a double click resets. */
-const PLOT_CONFIG = { displaylogo: false, displayModeBar: false, responsive: true } as const;
 
 function PlotSkeleton() {
   return (

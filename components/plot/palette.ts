@@ -83,3 +83,6 @@ export function frequencyChartLayout(y: { title: string; log?: boolean; rightMar
     legend: { orientation: "h" as const, y: -0.2 },
   };
 }
+
+/** No library icon bar on any chart (PlotlyChart enforces it too); charts follow their container. */
+export const PLOT_CONFIG = { displaylogo: false, displayModeBar: false, responsive: true } as const;

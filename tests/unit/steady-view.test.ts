@@ -5,8 +5,8 @@ import { describe, expect, it, vi } from "vitest";
 import { solveNetlist } from "@/solver";
 
 vi.mock("@/components/analyses/lazy-plot", () => ({
-  LazyPlot: () => createElement("div", { "data-chart": "1" }),
-  PLOT_CONFIG: {},
+  ChartFigure: ({ label }: { label: string }) =>
+    createElement("figure", { "aria-label": label, "data-chart": "1" }),
 }));
 
 const { SteadyView } = await import("@/components/analyses/steady-view");
