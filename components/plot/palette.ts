@@ -63,7 +63,7 @@ export function traceColor(index: number): string {
  */
 export function frequencyChartLayout(y: { title: string; log?: boolean; rightMargin?: number }) {
   return {
-    margin: { l: 72, r: y.rightMargin ?? 16, t: 12, b: 48 },
+    margin: { l: 72, r: y.rightMargin ?? 16, t: 32, b: 48 },
     paper_bgcolor: "rgba(0,0,0,0)",
     plot_bgcolor: plotColors.plotBg,
     font: { family: plotFonts.sans, size: 11, color: plotColors.muted },
@@ -80,7 +80,8 @@ export function frequencyChartLayout(y: { title: string; log?: boolean; rightMar
       gridcolor: plotColors.grid,
       exponentformat: "SI" as const,
     },
-    legend: { orientation: "h" as const, y: -0.2 },
+    // Above the plot: below it, the legend ran into the frequency axis title.
+    legend: { orientation: "h" as const, x: 0, y: 1, yanchor: "bottom" as const },
   };
 }
 
