@@ -23,6 +23,7 @@ import {
   STEADY_CUBE_DIVISOR,
   STEADY_WORK_PER_HARMONIC,
 } from "@/lib/limits";
+import type { PreviewStudy } from "@/lib/preview-stages";
 import {
   attachQueueJob,
   fail,
@@ -74,20 +75,47 @@ export function solveWork(circuit: Circuit): number {
  * ("Run full analysis") queues the whole analysis.
  */
 export function previewOptions(netlist: string, maxPoints: number): SolveOptions {
+  return previewPlan(netlist, maxPoints).options;
+}
+
+export interface PreviewPlan {
+  /** What `previewOptions` answers. */
+  options: SolveOptions;
+  /**
+   * The studies these options solve beyond the nominal sweep (none when there are none, or when the
+   * preview is the nominal sweep only anyway): what a first, sweep-only answer leaves to follow.
+   */
+  studies: PreviewStudy[];
+}
+
+/** `previewOptions` with the studies it solves beyond the nominal sweep (the sweep-first preview). */
+export function previewPlan(netlist: string, maxPoints: number): PreviewPlan {
   const compiled = compile(netlist);
-  if (!compiled.ok) return { maxPoints };
+  if (!compiled.ok) return { options: { maxPoints }, studies: [] };
   const c = compiled.circuit;
   const samples = c.monteCarlo?.samples ?? 0;
+  const studies = (steady: boolean): PreviewStudy[] =>
+    [
+      c.vary ? ("vary" as const) : null,
+      c.monteCarlo ? ("monte-carlo" as const) : null,
+      c.sensitivity.length > 0 ? ("sensitivity" as const) : null,
+      steady && c.steady ? ("steady" as const) : null,
+    ].filter((s): s is PreviewStudy => s !== null);
   const full = solveWork(c);
-  if (full <= MAX_INLINE_WORK && samples <= MAX_MC_INLINE_SAMPLES) return { maxPoints };
-  const studies = solveWork({ ...c, steady: null });
-  if (c.steady && studies <= MAX_INLINE_WORK && samples <= MAX_MC_INLINE_SAMPLES) {
+  if (full <= MAX_INLINE_WORK && samples <= MAX_MC_INLINE_SAMPLES) {
+    return { options: { maxPoints }, studies: studies(true) };
+  }
+  const withoutSteady = solveWork({ ...c, steady: null });
+  if (c.steady && withoutSteady <= MAX_INLINE_WORK && samples <= MAX_MC_INLINE_SAMPLES) {
     return {
-      maxPoints,
-      deferSteady: `the steady oscillation with ${c.steady.harmonics} harmonics is too large for a preview: save the run to solve it (queued)`,
+      options: {
+        maxPoints,
+        deferSteady: `the steady oscillation with ${c.steady.harmonics} harmonics is too large for a preview: save the run to solve it (queued)`,
+      },
+      studies: studies(false),
     };
   }
-  return { maxPoints, nominalOnly: deferredReason(c, full) };
+  return { options: { maxPoints, nominalOnly: deferredReason(c, full) }, studies: [] };
 }
 
 /** "the full analysis (monte-carlo 2000 samples) is 302 151 sweep points of work, over the preview's 200 000 …" */

@@ -11,6 +11,8 @@ import { type SolveOptions, type SolveResult, solveNetlist } from "@/solver";
  * wait in order (up to MAX_WAITING, then 503). A preview past PREVIEW_TIMEOUT_MS ends its thread and
  * answers 503. Without the worker entry (lib/workers/preview-worker.mjs, or PHASEWRIGHT_PREVIEW_WORKER)
  * or when no thread starts, previews solve in the request's own thread as before.
+ * An urgent preview (the sweep-first answer, lib/preview-stages.ts) waits ahead of the others, and a
+ * preview whose request is gone (its `signal` aborted: the user typed on) leaves the line unsolved.
  */
 export const POOL_SIZE = Math.max(1, Math.min(2, availableParallelism() - 1));
 export const MAX_WAITING = 64;
@@ -20,6 +22,7 @@ type Task = {
   id: number;
   netlist: string;
   options: SolveOptions;
+  urgent: boolean;
   resolve: (r: SolveResult) => void;
   reject: (e: Error) => void;
 };
@@ -129,11 +132,49 @@ function pump(): void {
   }
 }
 
+export interface PreviewTaskOptions {
+  /** Waits ahead of the previews that are not urgent (behind earlier urgent ones). */
+  urgent?: boolean;
+  /** When it aborts before a thread takes the preview, the preview is dropped and rejects with its reason. */
+  signal?: AbortSignal;
+}
+
 /** Solves a preview on the pool (or inline when no thread can start). */
-export function solvePreview(netlist: string, options: SolveOptions): Promise<SolveResult> {
+export function solvePreview(
+  netlist: string,
+  options: SolveOptions,
+  { urgent = false, signal }: PreviewTaskOptions = {},
+): Promise<SolveResult> {
   if (waiting.length >= MAX_WAITING) return Promise.reject(busy());
+  if (signal?.aborted) return Promise.reject(signal.reason);
   return new Promise<SolveResult>((resolve, reject) => {
-    waiting.push({ id: nextId++, netlist, options, resolve, reject });
+    const task: Task = { id: nextId++, netlist, options, urgent, resolve, reject };
+    if (signal) {
+      const drop = () => {
+        const i = waiting.indexOf(task);
+        if (i < 0) return;
+        waiting.splice(i, 1);
+        reject(signal.reason);
+      };
+      signal.addEventListener("abort", drop, { once: true });
+      const done = () => signal.removeEventListener("abort", drop);
+      task.resolve = (r) => {
+        done();
+        resolve(r);
+      };
+      task.reject = (e) => {
+        done();
+        reject(e);
+      };
+    }
+    const at = urgent ? waiting.findIndex((t) => !t.urgent) : -1;
+    if (at < 0) waiting.push(task);
+    else waiting.splice(at, 0, task);
     pump();
   });
+}
+
+/** Previews waiting for a thread (for tests and the health figures). */
+export function waitingPreviews(): number {
+  return waiting.length;
 }

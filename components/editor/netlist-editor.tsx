@@ -14,7 +14,7 @@ import { PreviewPanel } from "./preview-panel";
 import { previewView } from "./preview-view";
 import { SAVE_RUN_FORM_ID, SaveRunForm } from "./save-run-form";
 import { SnapHelper } from "./snap-helper";
-import { useLiveSolve } from "./use-live-solve";
+import { type PreviewAnswer, useLiveSolve } from "./use-live-solve";
 
 export interface NetlistEditorProps {
   projectId: string;
@@ -24,11 +24,26 @@ export interface NetlistEditorProps {
   initialNetlist?: string;
   /** Revising a saved run: its netlist is the starting text and the saved run supersedes it. */
   revise?: { id: string; title: string; netlist: string };
+  /** The preview of the starting text, solved by the page on the server (no request for it here). */
+  initialPreview?: PreviewAnswer | null;
 }
+
+const NO_OVERLAYS: BodeOverlay[] = [];
 
 /** The unsaved draft of a project — or of one revision, so revising never picks up another draft. */
 const draftKey = (projectId: string, reviseId?: string) =>
   reviseId ? `phasewright:draft:${projectId}:revise:${reviseId}` : `phasewright:draft:${projectId}`;
+
+/** The markers of the previous render while they are the same, value for value. */
+function useSameMarkers(markers: BodeMarker[]): BodeMarker[] {
+  const kept = useRef<BodeMarker[]>(markers);
+  const prev = kept.current;
+  const same =
+    prev.length === markers.length &&
+    prev.every((m, i) => m.frequencyHz === markers[i]!.frequencyHz && m.label === markers[i]!.label);
+  if (!same) kept.current = markers;
+  return kept.current;
+}
 
 /** The editor page's interactive part: netlist text, live preview, upload, examples and "Save run". */
 export function NetlistEditor({
@@ -37,6 +52,7 @@ export function NetlistEditor({
   examples,
   initialNetlist,
   revise,
+  initialPreview = null,
 }: NetlistEditorProps) {
   const [netlist, setNetlist] = useState(revise?.netlist ?? initialNetlist ?? examples[0]?.text ?? "");
   const key = draftKey(projectId, revise?.id);
@@ -46,7 +62,7 @@ export function NetlistEditor({
   const [focusHz, setFocusHz] = useState<number | null>(null);
   const editorRef = useRef<CodeEditorHandle>(null);
   const fileRef = useRef<HTMLInputElement>(null);
-  const live = useLiveSolve(netlist);
+  const live = useLiveSolve(netlist, { initial: initialPreview });
 
   /** Replaces the text from outside the editor (draft, upload, example); undo brings the old text back. */
   const replaceNetlist = useCallback((text: string) => {
@@ -70,15 +86,18 @@ export function NetlistEditor({
   const lastGood = view.kind === "result" ? view.result : null;
   const warnings = lastGood?.warnings ?? [];
 
-  const markers = useMemo<BodeMarker[]>(
-    () =>
-      (lastGood?.measures ?? [])
-        .filter((m) => m.unit === "Hz" && m.value !== null && m.value > 0)
-        .map((m) => ({ frequencyHz: m.value as number, label: m.name })),
-    [lastGood],
+  // The plot is redrawn only when what it draws changes: markers by value (a new answer with the same
+  // measures keeps them), overlays only for a vary family.
+  const markers = useSameMarkers(
+    (lastGood?.measures ?? [])
+      .filter((m) => m.unit === "Hz" && m.value !== null && m.value > 0)
+      .map((m) => ({ frequencyHz: m.value as number, label: m.name })),
   );
 
-  const overlays = useMemo<BodeOverlay[]>(() => (lastGood ? variantOverlays(lastGood) : []), [lastGood]);
+  const overlays = useMemo<BodeOverlay[]>(
+    () => (lastGood?.variants ? variantOverlays(lastGood) : NO_OVERLAYS),
+    [lastGood],
+  );
 
   const onChange = useCallback((text: string) => {
     setNetlist(text);

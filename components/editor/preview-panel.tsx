@@ -1,7 +1,8 @@
 "use client";
 
-import type { ReactNode } from "react";
+import { memo, type ReactNode } from "react";
 import { AnalysesPanel } from "@/components/analyses/analyses-panel";
+import { analysisSections } from "@/components/analyses/analysis-math";
 import { Caution } from "@/components/run/caution";
 import { CheckBadges } from "@/components/run/check-badges";
 import { MeasuresTable } from "@/components/run/measures-table";
@@ -10,6 +11,9 @@ import { Button, PlainButton } from "@/components/ui/button";
 import { TickedText } from "@/components/ui/ticked-text";
 import { cn } from "@/lib/utils";
 import { type PreviewView, previewStatus } from "./preview-view";
+
+// The studies' charts are redrawn only when the studies shown change (not on every keystroke).
+const Analyses = memo(AnalysesPanel);
 
 export interface PreviewPanelProps {
   view: PreviewView;
@@ -29,6 +33,8 @@ export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency, onRunF
   const result = view.kind === "result" ? view.result : null;
   const stale = view.kind === "result" && view.stale;
   const errors = view.kind === "errors" ? view.errors : [];
+  const analyses = view.kind === "result" ? view.analyses : null;
+  const studying = view.kind === "result" && view.pendingStudies.length > 0;
   return (
     <>
       <div
@@ -44,7 +50,7 @@ export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency, onRunF
               : "border-paper-200 text-ink-600 bg-white",
         )}
       >
-        {view.kind === "solving" || stale || (view.kind === "errors" && view.checking) ? (
+        {view.kind === "solving" || stale || studying || (view.kind === "errors" && view.checking) ? (
           <span
             className="border-board-300 inline-block size-3 animate-spin rounded-full border-2 border-t-transparent"
             aria-hidden
@@ -128,7 +134,22 @@ export function PreviewPanel({ view, plot, onGoToLine, onSelectFrequency, onRunF
           </div>
         </div>
       ) : null}
-      {result && !stale ? <AnalysesPanel result={result} /> : null}
+      {analyses ? (
+        <div
+          data-testid="preview-analyses"
+          data-stale={analyses.stale || undefined}
+          className={cn(analyses.stale && "opacity-60")}
+        >
+          {analyses.stale && analysisSections(analyses.result, "ok").length > 0 ? (
+            <p className="text-caption text-ink-600 mb-2">
+              {stale
+                ? "Stale: solved before your last edit."
+                : "Stale: from before your last edit; updating…"}
+            </p>
+          ) : null}
+          <Analyses result={analyses.result} />
+        </div>
+      ) : null}
       <WarningsList warnings={result?.warnings ?? []} onLineClick={(line) => onGoToLine(line)} />
       <Caution />
     </>

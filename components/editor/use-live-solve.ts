@@ -1,8 +1,9 @@
 "use client";
 
-import { keepPreviousData, useQuery } from "@tanstack/react-query";
+import { keepPreviousData, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useRef, useState } from "react";
-import type { SolveResult, SolveSuccess } from "@/solver/types";
+import { keepSweepOf, type PreviewResult, type PreviewStage } from "@/lib/preview-stages";
+import type { SolveSuccess } from "@/solver/types";
 import type { PreviewInput } from "./preview-view";
 
 /** The text after it has stayed unchanged for `delayMs`. */
@@ -15,20 +16,27 @@ function useDebounced(text: string, delayMs: number): string {
   return settled;
 }
 
-async function solvePreview(netlist: string, signal: AbortSignal): Promise<SolveResult> {
+async function solvePreview(
+  netlist: string,
+  stage: PreviewStage,
+  signal: AbortSignal,
+): Promise<PreviewResult> {
   let res: Response;
   try {
     res = await fetch("/api/solve", {
       method: "POST",
       headers: { "content-type": "application/json" },
-      body: JSON.stringify({ netlist }),
+      body: JSON.stringify({ netlist, stage }),
       signal,
     });
   } catch (err) {
     if (signal.aborted) throw err;
     throw new Error("the preview could not reach the server.");
   }
-  const body = (await res.json().catch(() => null)) as SolveResult | { error?: { message?: string } } | null;
+  const body = (await res.json().catch(() => null)) as
+    | PreviewResult
+    | { error?: { message?: string } }
+    | null;
   if (!res.ok || !body || !("ok" in body)) {
     const message = body && "error" in body ? body.error?.message : undefined;
     throw new Error(message ?? `the preview failed (HTTP ${res.status}).`);
@@ -36,29 +44,54 @@ async function solvePreview(netlist: string, signal: AbortSignal): Promise<Solve
   return body;
 }
 
+/** A preview answer and the text it was solved from. */
+export type PreviewAnswer = { text: string; result: PreviewResult };
+
+const previewKey = (text: string) => ["preview", text] as const;
+
 /**
  * The live preview through the query cache: the netlist is solved by `POST /api/solve` once it has
  * rested `delayMs`; the key is the text itself, so a change aborts the request in flight (the query's
- * signal) and typing back to an earlier text shows its cached answer at once. Returns what
- * `previewView` needs; the view decides what may be shown.
+ * signal) and typing back to an earlier text shows its cached answer at once. Each text is asked
+ * sweep first (lib/preview-stages.ts): that answer goes into the cache at once, and when it names
+ * studies still to come the same query asks for the whole preview, which then replaces it.
+ * `initial` is the server's answer for the page's first text (the editor page solves it while it
+ * renders), so that text needs no request. Returns what `previewView` needs; the view decides what
+ * may be shown.
  */
-export function useLiveSolve(netlist: string, delayMs = 300): Omit<PreviewInput, "saveErrors"> {
+export function useLiveSolve(
+  netlist: string,
+  { delayMs = 300, initial = null }: { delayMs?: number; initial?: PreviewAnswer | null } = {},
+): Omit<PreviewInput, "saveErrors"> {
   const settled = useDebounced(netlist, delayMs);
+  const queryClient = useQueryClient();
   const query = useQuery({
-    queryKey: ["preview", settled],
-    queryFn: async ({ signal }) => ({ text: settled, result: await solvePreview(settled, signal) }),
+    queryKey: previewKey(settled),
+    queryFn: async ({ signal }): Promise<PreviewAnswer> => {
+      const first = await solvePreview(settled, "sweep", signal);
+      if (!first.ok || !first.pending?.length) return { text: settled, result: first };
+      queryClient.setQueryData<PreviewAnswer>(previewKey(settled), { text: settled, result: first });
+      const whole = await solvePreview(settled, "all", signal);
+      return { text: settled, result: whole.ok ? keepSweepOf(first, whole) : whole };
+    },
+    initialData: initial && initial.text === settled ? initial : undefined,
     enabled: settled.trim() !== "",
     placeholderData: keepPreviousData,
     staleTime: Number.POSITIVE_INFINITY,
     gcTime: 60_000,
   });
   const lastGood = useRef<{ text: string; result: SolveSuccess } | null>(null);
+  const lastComplete = useRef<{ text: string; result: SolveSuccess } | null>(null);
   const answer = query.data ?? null;
-  if (answer?.result.ok) lastGood.current = { text: answer.text, result: answer.result };
+  if (answer?.result.ok) {
+    lastGood.current = { text: answer.text, result: answer.result };
+    if (!answer.result.pending?.length) lastComplete.current = lastGood.current;
+  }
   return {
     text: netlist,
     answer,
     lastGood: lastGood.current,
+    lastComplete: lastComplete.current,
     pending: settled !== netlist || query.isFetching,
     failure: query.isError && !query.isFetching ? query.error.message : null,
   };

@@ -18,7 +18,16 @@ const good = solveNetlist(GOOD) as SolveSuccess;
 const broken = solveNetlist(BROKEN);
 
 function input(over: Partial<PreviewInput>): PreviewInput {
-  return { text: GOOD, answer: null, lastGood: null, pending: false, failure: null, saveErrors: [], ...over };
+  return {
+    text: GOOD,
+    answer: null,
+    lastGood: null,
+    lastComplete: null,
+    pending: false,
+    failure: null,
+    saveErrors: [],
+    ...over,
+  };
 }
 
 describe("previewView", () => {

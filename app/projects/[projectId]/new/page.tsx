@@ -4,8 +4,9 @@ import { notFound } from "next/navigation";
 import { NetlistEditor } from "@/components/editor/netlist-editor";
 import { Notice } from "@/components/ui/notice";
 import { authorizeProject, isUuid } from "@/lib/authz";
-import { ForbiddenError, NotFoundError } from "@/lib/errors";
+import { AppError, ForbiddenError, NotFoundError } from "@/lib/errors";
 import { listExamples } from "@/lib/examples";
+import { solveLivePreview } from "@/lib/live-preview";
 import { projectPageMetadata } from "@/lib/page-titles";
 import { getRun } from "@/lib/runs";
 import { type Actor, requireUser } from "@/lib/session";
@@ -56,6 +57,20 @@ export default async function NewRunPage({ params, searchParams }: Props) {
     runToRevise(actor, projectId, typeof revise === "string" ? revise : undefined),
   ]);
   const projectName = String(access.project.get("name"));
+  // The first text's preview is solved here, as POST /api/solve would (same budget, same pool), so the
+  // page's HTML carries it and the editor asks nothing for it.
+  const initialText = revising?.netlist ?? examples[0]?.text ?? "";
+  const initialPreview =
+    initialText.trim() === ""
+      ? null
+      : await solveLivePreview(initialText)
+          .then((result) => ({ text: initialText, result }))
+          .catch((err: unknown) => {
+            // Pool full or too slow: the editor asks for it as before.
+            if (err instanceof AppError) return null;
+            throw err;
+          });
+
   return (
     <div className="mx-auto max-w-[96rem] px-4 py-6 sm:px-6">
       <nav aria-label="Breadcrumb" className="text-ink-500 mb-1 text-sm">
@@ -82,6 +97,7 @@ export default async function NewRunPage({ params, searchParams }: Props) {
         projectName={projectName}
         examples={examples}
         revise={revising ?? undefined}
+        initialPreview={initialPreview}
       />
     </div>
   );
