@@ -99,6 +99,27 @@ export function NetlistEditor({
     [lastGood],
   );
 
+  // One element while its data stays the same, so a keystroke (or a status change) re-renders the
+  // panel around the plot but never redraws the plot itself.
+  const frequencies = lastGood?.frequencies;
+  const traces = lastGood?.traces;
+  const plot = useMemo(
+    () =>
+      frequencies && traces ? (
+        <BodePlot
+          frequencies={frequencies}
+          traces={traces}
+          markers={markers}
+          overlays={overlays}
+          focusHz={focusHz}
+          plotId="editor-preview"
+          exportName="phasewright-preview"
+          height={440}
+        />
+      ) : null,
+    [frequencies, traces, markers, overlays, focusHz],
+  );
+
   const onChange = useCallback((text: string) => {
     setNetlist(text);
     setSaveErrors([]);
@@ -250,20 +271,7 @@ export function NetlistEditor({
               .getElementById("preview-heading")
               ?.scrollIntoView({ block: "nearest", behavior: "smooth" });
           }}
-          plot={
-            lastGood ? (
-              <BodePlot
-                frequencies={lastGood.frequencies}
-                traces={lastGood.traces}
-                markers={markers}
-                overlays={overlays}
-                focusHz={focusHz}
-                plotId="editor-preview"
-                exportName="phasewright-preview"
-                height={440}
-              />
-            ) : null
-          }
+          plot={plot}
         />
       </section>
     </div>

@@ -1,16 +1,24 @@
 "use client";
 
-import { keepPreviousData, useQuery, useQueryClient } from "@tanstack/react-query";
+import { keepPreviousData, type QueryClient, useQuery, useQueryClient } from "@tanstack/react-query";
 import { useEffect, useRef, useState } from "react";
 import { keepSweepOf, type PreviewResult, type PreviewStage } from "@/lib/preview-stages";
 import type { SolveSuccess } from "@/solver/types";
 import type { PreviewInput } from "./preview-view";
 
-/** The text after it has stayed unchanged for `delayMs`. */
-function useDebounced(text: string, delayMs: number): string {
+/**
+ * The text after it has stayed unchanged for `delayMs`. `onSettle` runs in the timer itself, before
+ * the render that the settled text causes (the preview's request leaves without waiting for it).
+ */
+function useDebounced(text: string, delayMs: number, onSettle: (text: string) => void): string {
   const [settled, setSettled] = useState(text);
+  const settle = useRef(onSettle);
+  settle.current = onSettle;
   useEffect(() => {
-    const t = setTimeout(() => setSettled(text), delayMs);
+    const t = setTimeout(() => {
+      settle.current(text);
+      setSettled(text);
+    }, delayMs);
     return () => clearTimeout(t);
   }, [text, delayMs]);
   return settled;
@@ -49,9 +57,25 @@ export type PreviewAnswer = { text: string; result: PreviewResult };
 
 const previewKey = (text: string) => ["preview", text] as const;
 
+/** The preview query of one text: asked sweep first, then, when studies are pending, whole. */
+function previewQuery(queryClient: QueryClient, text: string) {
+  return {
+    queryKey: previewKey(text),
+    queryFn: async ({ signal }: { signal: AbortSignal }): Promise<PreviewAnswer> => {
+      const first = await solvePreview(text, "sweep", signal);
+      if (!first.ok || !first.pending?.length) return { text, result: first };
+      queryClient.setQueryData<PreviewAnswer>(previewKey(text), { text, result: first });
+      const whole = await solvePreview(text, "all", signal);
+      return { text, result: whole.ok ? keepSweepOf(first, whole) : whole };
+    },
+    staleTime: Number.POSITIVE_INFINITY,
+    gcTime: 60_000,
+  };
+}
+
 /**
  * The live preview through the query cache: the netlist is solved by `POST /api/solve` once it has
- * rested `delayMs`; the key is the text itself, so a change aborts the request in flight (the query's
+ * rested `delayMs` (the request leaves from the debounce's timer); the key is the text itself, so a change aborts the request in flight (the query's
  * signal) and typing back to an earlier text shows its cached answer at once. Each text is asked
  * sweep first (lib/preview-stages.ts): that answer goes into the cache at once, and when it names
  * studies still to come the same query asks for the whole preview, which then replaces it.
@@ -63,22 +87,15 @@ export function useLiveSolve(
   netlist: string,
   { delayMs = 300, initial = null }: { delayMs?: number; initial?: PreviewAnswer | null } = {},
 ): Omit<PreviewInput, "saveErrors"> {
-  const settled = useDebounced(netlist, delayMs);
   const queryClient = useQueryClient();
+  const settled = useDebounced(netlist, delayMs, (text) => {
+    if (text.trim() !== "") void queryClient.prefetchQuery(previewQuery(queryClient, text));
+  });
   const query = useQuery({
-    queryKey: previewKey(settled),
-    queryFn: async ({ signal }): Promise<PreviewAnswer> => {
-      const first = await solvePreview(settled, "sweep", signal);
-      if (!first.ok || !first.pending?.length) return { text: settled, result: first };
-      queryClient.setQueryData<PreviewAnswer>(previewKey(settled), { text: settled, result: first });
-      const whole = await solvePreview(settled, "all", signal);
-      return { text: settled, result: whole.ok ? keepSweepOf(first, whole) : whole };
-    },
+    ...previewQuery(queryClient, settled),
     initialData: initial && initial.text === settled ? initial : undefined,
     enabled: settled.trim() !== "",
     placeholderData: keepPreviousData,
-    staleTime: Number.POSITIVE_INFINITY,
-    gcTime: 60_000,
   });
   const lastGood = useRef<{ text: string; result: SolveSuccess } | null>(null);
   const lastComplete = useRef<{ text: string; result: SolveSuccess } | null>(null);

@@ -169,6 +169,51 @@ describe("POST /api/solve", () => {
     expect(body.deferred).toContain("Run the full analysis");
   });
 
+  it('stage "sweep" answers the nominal sweep first and names the studies still to come', async () => {
+    const netlist = `${RC.replace("R1: resistor in out 10k", "R1: resistor in out 10k tol=1%")}\nmonte-carlo 40 seed=5\n`;
+    const first = await post(JSON.stringify({ netlist, stage: "sweep" }));
+    expect(first.status).toBe(200);
+    expect(first.headers.get("server-timing")).toMatch(
+      /^read;dur=[\d.]+, solve;dur=[\d.]+, engine;dur=[\d.]+$/,
+    );
+    const sweep = await first.json();
+    expect(sweep.ok).toBe(true);
+    expect(sweep.pending).toEqual(["monte-carlo"]);
+    expect(sweep.monteCarlo).toBeUndefined();
+    expect(sweep.deferred).toBeUndefined();
+    // The nominal sweep is the one the whole preview holds: fc of CHECKS.md §1.
+    const fc = sweep.measures.find((m: { name: string }) => m.name === "fc");
+    expect(Math.abs(fc.value / 1591.549430919 - 1)).toBeLessThan(1e-7);
+
+    const whole = await (await post(JSON.stringify({ netlist, stage: "all" }))).json();
+    expect(whole.pending).toBeUndefined();
+    expect(whole.monteCarlo.samples).toBe(40);
+    expect(whole.monteCarlo.seed).toBe(5);
+    expect(sweep.frequencies).toEqual(whole.frequencies);
+    expect(sweep.traces).toEqual(whole.traces);
+    expect(sweep.measures).toEqual(whole.measures);
+    expect(sweep.checks).toEqual(whole.checks);
+    // Without `stage` the answer is the whole preview, as before.
+    const plain = await (await post(JSON.stringify({ netlist }))).json();
+    expect(plain.monteCarlo).toEqual(whole.monteCarlo);
+  });
+
+  it('stage "sweep" of a netlist without studies is the whole answer; an unknown stage is a 400 on its field', async () => {
+    const sweep = await (await post(JSON.stringify({ netlist: RC, stage: "sweep" }))).json();
+    expect(sweep.pending).toBeUndefined();
+    expect(sweep.frequencies).toHaveLength(151);
+    const bad = await post(JSON.stringify({ netlist: RC, stage: "fast" }));
+    expect(bad.status).toBe(400);
+    expect(Object.keys((await bad.json()).error.details.fields)).toEqual(["stage"]);
+  });
+
+  it('stage "sweep" over the budget is the deferred nominal sweep, with nothing pending', async () => {
+    const netlist = `${RC.replace("R1: resistor in out 10k", "R1: resistor in out 10k tol=1%")}\nmonte-carlo 4000\n`;
+    const body = await (await post(JSON.stringify({ netlist, stage: "sweep" }))).json();
+    expect(body.pending).toBeUndefined();
+    expect(body.deferred).toContain("monte-carlo 4000 samples");
+  });
+
   it("counts a sensitivity study as two re-solves per part", async () => {
     const sections = Array.from(
       { length: 400 },
