@@ -100,3 +100,80 @@ describe("previewView", () => {
     expect(previewStatus(previewView(input({ pending: true })))).toBe("Solving…");
   });
 });
+
+describe("previewView: the sweep first, the studies after", () => {
+  const MC = GOOD.replace("R1: resistor in out 1k", "R1: resistor in out 1k tol=1%").concat(
+    "monte-carlo 20\n",
+  );
+  const sweep = {
+    ...(solveNetlist(MC, { nominalOnly: "still solving" }) as SolveSuccess),
+    pending: ["monte-carlo" as const],
+  };
+  const whole = solveNetlist(MC) as SolveSuccess;
+
+  it("the sweep answer is shown fresh; the studies are the last complete ones marked stale, and the status says what is still solving", () => {
+    const view = previewView(
+      input({
+        text: MC,
+        answer: { text: MC, result: sweep },
+        lastGood: { text: MC, result: sweep },
+        lastComplete: { text: GOOD, result: good },
+        pending: true,
+      }),
+    );
+    expect(view).toMatchObject({ kind: "result", stale: false, pendingStudies: ["monte-carlo"] });
+    if (view.kind !== "result") return;
+    expect(view.result).toBe(sweep);
+    expect(view.analyses).toEqual({ result: good, stale: true });
+    expect(previewStatus(view)).toMatch(
+      /^Solved 11 points, 2 nodes, in [\d.]+ ms; still solving the Monte Carlo samples…$/,
+    );
+  });
+
+  it("the whole answer shows its studies fresh", () => {
+    const view = previewView(
+      input({
+        text: MC,
+        answer: { text: MC, result: whole },
+        lastGood: { text: MC, result: whole },
+        lastComplete: { text: MC, result: whole },
+      }),
+    );
+    expect(view).toMatchObject({
+      kind: "result",
+      stale: false,
+      pendingStudies: [],
+      analyses: { result: whole, stale: false },
+    });
+    expect(previewStatus(view)).toMatch(/ ms\.$/);
+  });
+
+  it("when the studies' request fails, the sweep stays and the studies show nothing older", () => {
+    const view = previewView(
+      input({
+        text: MC,
+        answer: { text: MC, result: sweep },
+        lastGood: { text: MC, result: sweep },
+        lastComplete: { text: GOOD, result: good },
+        failure: "Previews are busy right now.",
+      }),
+    );
+    expect(view).toMatchObject({ kind: "result", stale: false, analyses: null, pendingStudies: [] });
+    expect(previewStatus(view)).toMatch(
+      /; the Monte Carlo samples could not be solved: Previews are busy right now\.$/,
+    );
+  });
+
+  it("while typing, the plot and the studies are the last ones, both marked stale", () => {
+    const view = previewView(
+      input({
+        text: `${MC}# edit`,
+        answer: { text: MC, result: whole },
+        lastGood: { text: MC, result: whole },
+        lastComplete: { text: MC, result: whole },
+        pending: true,
+      }),
+    );
+    expect(view).toMatchObject({ kind: "result", stale: true, analyses: { result: whole, stale: true } });
+  });
+});
