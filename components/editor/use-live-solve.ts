@@ -7,18 +7,26 @@ import type { SolveSuccess } from "@/solver/types";
 import type { PreviewInput } from "./preview-view";
 
 /**
- * The text after it has stayed unchanged for `delayMs`. `onSettle` runs in the timer itself, before
- * the render that the settled text causes (the preview's request leaves without waiting for it).
+ * The text after it has stayed unchanged for `delayMs`, counted from the render that first saw it
+ * (not from the effect after it, which runs only once the keystroke's frame is painted). `onSettle`
+ * runs in the timer itself, before the render the settled text causes, so the preview's request
+ * leaves without waiting for that render.
  */
 function useDebounced(text: string, delayMs: number, onSettle: (text: string) => void): string {
   const [settled, setSettled] = useState(text);
   const settle = useRef(onSettle);
   settle.current = onSettle;
+  const seen = useRef({ text, at: 0 });
+  if (seen.current.text !== text) seen.current = { text, at: performance.now() };
   useEffect(() => {
-    const t = setTimeout(() => {
-      settle.current(text);
-      setSettled(text);
-    }, delayMs);
+    const waited = seen.current.text === text ? performance.now() - seen.current.at : 0;
+    const t = setTimeout(
+      () => {
+        settle.current(text);
+        setSettled(text);
+      },
+      Math.max(0, delayMs - waited),
+    );
     return () => clearTimeout(t);
   }, [text, delayMs]);
   return settled;
