@@ -7,7 +7,7 @@ import { variantOverlays } from "@/components/plot/variants";
 import { PlainButton } from "@/components/ui/button";
 import { MAX_NETLIST_BYTES } from "@/lib/limits";
 import { freePairNames } from "@/lib/snap-pairs";
-import type { NetlistError } from "@/solver/types";
+import type { NetlistError, Warning } from "@/solver/types";
 import { CodeEditor, type CodeEditorHandle } from "./code-editor";
 import { ExamplePicker, type NetlistExample } from "./example-picker";
 import { PreviewPanel } from "./preview-panel";
@@ -28,7 +28,10 @@ export interface NetlistEditorProps {
   initialPreview?: PreviewAnswer | null;
 }
 
+// Stable empty values, so a keystroke does not hand the editor and the plot "new" empty lists.
 const NO_OVERLAYS: BodeOverlay[] = [];
+const NO_ERRORS: NetlistError[] = [];
+const NO_WARNINGS: Warning[] = [];
 
 /** The unsaved draft of a project — or of one revision, so revising never picks up another draft. */
 const draftKey = (projectId: string, reviseId?: string) =>
@@ -82,9 +85,9 @@ export function NetlistEditor({
   }, [netlist, key]);
 
   const view = previewView({ ...live, saveErrors });
-  const errors = view.kind === "errors" ? view.errors : [];
+  const errors = view.kind === "errors" ? view.errors : NO_ERRORS;
   const lastGood = view.kind === "result" ? view.result : null;
-  const warnings = lastGood?.warnings ?? [];
+  const warnings = lastGood?.warnings ?? NO_WARNINGS;
 
   // The plot is redrawn only when what it draws changes: markers by value (a new answer with the same
   // measures keeps them), overlays only for a vary family.

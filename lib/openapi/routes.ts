@@ -63,12 +63,15 @@ export const API_ROUTES: ApiRoute[] = [
     tag: "solve",
     summary: "Solve a netlist without saving it",
     description:
-      "Answers the solver's JSON result; netlist errors are a 200 with `ok: false` and every error's line and column. The netlist's size is limited in bytes.",
+      "Answers the solver's JSON result; netlist errors are a 200 with `ok: false` and every error's line and column. The netlist's size is limited in bytes. " +
+      'With `stage: "sweep"` a netlist whose preview has studies beyond its nominal sweep (vary, monte-carlo, sensitivity, steady) answers the nominal sweep alone, with its measures and checks, and names those studies in `pending`; ask again without `stage` (or with `"all"`) for the whole preview. ' +
+      "A `Server-Timing` header says where the time went (read, solve, engine).",
     auth: "token",
     body: solveRequestSchema,
     ok: {
       status: 200,
-      description: "the solve result (`ok`, `frequencies`, `traces`, `measures`, `checks`, …)",
+      description:
+        "the solve result (`ok`, `frequencies`, `traces`, `measures`, `checks`, …; `pending` on a sweep-stage answer whose studies are still to come)",
     },
     errors: [400, 413, 429],
   },
