@@ -51,9 +51,10 @@ describe("editor: the first preview is in the page", () => {
     const withSamples = `${text.replace(/^(R1:[^\n#]*?)\s*$/m, "$1 tol=1%").trimEnd()}\nmonte-carlo 150 seed=3\n`;
     expect(withSamples).toContain("tol=1%");
     await page.evaluate((t) => editorOf()!.setValue(t), withSamples);
+    await expect.poll(() => solves.length, { timeout: 60_000 }).toBe(2);
     await expect
       .poll(() => page.getByTestId("preview-status").textContent(), { timeout: 60_000 })
-      .toMatch(/^Solved [\d,]+ points.*\.$/);
+      .toMatch(/^Solved [\d,]+ points[^;]*\.$/);
     expect(solves.map((s) => s.stage)).toEqual(["sweep", "all"]);
     await page
       .getByText(/Monte Carlo/i)
