@@ -15,9 +15,9 @@ afterAll(async () => {
   await browser?.close();
 });
 
+// Runs in the page (serialized by playwright): the page's one Monaco editor.
 type Edit = { getValue(): string; setValue(text: string): void };
-const editorOf = () =>
-  (window as unknown as { pwMonaco?: { editor: { getEditors(): Edit[] } } }).pwMonaco?.editor.getEditors()[0];
+type MonacoWindow = { pwMonaco?: { editor: { getEditors(): Edit[] } } };
 
 describe("editor: the first preview is in the page", () => {
   it("shows the first netlist's result without asking for it, then solves edits sweep first", async () => {
@@ -46,20 +46,23 @@ describe("editor: the first preview is in the page", () => {
     expect(solves).toEqual([]);
 
     // An edit with a Monte Carlo line: the sweep answer first (plot, measures), then the samples.
-    await page.waitForFunction(() => !!editorOf());
-    const text = await page.evaluate(() => editorOf()!.getValue());
+    await page.waitForFunction(() => !!(window as unknown as MonacoWindow).pwMonaco?.editor.getEditors()[0]);
+    const text = await page.evaluate(() =>
+      (window as unknown as MonacoWindow).pwMonaco!.editor.getEditors()[0]!.getValue(),
+    );
     const withSamples = `${text.replace(/^(R1:[^\n#]*?)\s*$/m, "$1 tol=1%").trimEnd()}\nmonte-carlo 150 seed=3\n`;
     expect(withSamples).toContain("tol=1%");
-    await page.evaluate((t) => editorOf()!.setValue(t), withSamples);
+    await page.evaluate(
+      (t) => (window as unknown as MonacoWindow).pwMonaco!.editor.getEditors()[0]!.setValue(t),
+      withSamples,
+    );
     await expect.poll(() => solves.length, { timeout: 60_000 }).toBe(2);
     await expect
       .poll(() => page.getByTestId("preview-status").textContent(), { timeout: 60_000 })
       .toMatch(/^Solved [\d,]+ points[^;]*\.$/);
     expect(solves.map((s) => s.stage)).toEqual(["sweep", "all"]);
-    await page
-      .getByText(/Monte Carlo/i)
-      .first()
-      .waitFor({ timeout: 30_000 });
+    // The samples' section of the studies, from the whole answer.
+    await page.getByTestId("preview-analyses").getByText("150 samples · seed 3").waitFor({ timeout: 30_000 });
     expect(await page.getByTestId("preview-analyses").getAttribute("data-stale")).toBeNull();
     await context.close();
   }, 180_000);
