@@ -173,8 +173,3 @@ export function solvePreview(
     pump();
   });
 }
-
-/** Previews waiting for a thread (for tests and the health figures). */
-export function waitingPreviews(): number {
-  return waiting.length;
-}
