@@ -49,6 +49,11 @@ function busy(): Error {
   );
 }
 
+/** The caller is gone (an answer nobody reads): a plain error, not a fault of ours. */
+function cancelled(): Error {
+  return new AppError(503, "cancelled", "The preview was cancelled: its request ended.");
+}
+
 function finish(slot: Slot): void {
   if (slot.timer) clearTimeout(slot.timer);
   slot.task = null;
@@ -135,7 +140,7 @@ function pump(): void {
 export interface PreviewTaskOptions {
   /** Waits ahead of the previews that are not urgent (behind earlier urgent ones). */
   urgent?: boolean;
-  /** When it aborts before a thread takes the preview, the preview is dropped and rejects with its reason. */
+  /** When it aborts before a thread takes the preview, the preview is dropped (rejects with `cancelled`). */
   signal?: AbortSignal;
 }
 
@@ -146,7 +151,7 @@ export function solvePreview(
   { urgent = false, signal }: PreviewTaskOptions = {},
 ): Promise<SolveResult> {
   if (waiting.length >= MAX_WAITING) return Promise.reject(busy());
-  if (signal?.aborted) return Promise.reject(signal.reason);
+  if (signal?.aborted) return Promise.reject(cancelled());
   return new Promise<SolveResult>((resolve, reject) => {
     const task: Task = { id: nextId++, netlist, options, urgent, resolve, reject };
     if (signal) {
@@ -154,7 +159,7 @@ export function solvePreview(
         const i = waiting.indexOf(task);
         if (i < 0) return;
         waiting.splice(i, 1);
-        reject(signal.reason);
+        reject(cancelled());
       };
       signal.addEventListener("abort", drop, { once: true });
       const done = () => signal.removeEventListener("abort", drop);

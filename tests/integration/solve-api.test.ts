@@ -214,6 +214,18 @@ describe("POST /api/solve", () => {
     expect(body.deferred).toContain("monte-carlo 4000 samples");
   });
 
+  it("a preview whose request is gone before a thread takes it is dropped, not solved", async () => {
+    const req = new Request("http://localhost/api/solve", {
+      method: "POST",
+      headers: { "content-type": "application/json" },
+      body: JSON.stringify({ netlist: RC, stage: "sweep" }),
+      signal: AbortSignal.abort(),
+    });
+    const res = await POST(req, undefined);
+    expect(res.status).toBe(503);
+    expect((await res.json()).error.code).toBe("cancelled");
+  });
+
   it("counts a sensitivity study as two re-solves per part", async () => {
     const sections = Array.from(
       { length: 400 },

@@ -19,7 +19,8 @@ const MAX_BODY_BYTES = MAX_NETLIST_BYTES * 2 + 1024;
  * POST /api/solve `{netlist, stage?}` → the solver's JSON result (NETLIST.md), nothing saved.
  * A netlist with errors is a normal preview state: 200 with `{ok: false, errors}` (line and column each).
  * 400 malformed body, 401 signed out, 413 netlist over MAX_NETLIST_BYTES (counted while the body
- * streams in), 429 over the per-user rate, 503 when the preview pool is full or a preview runs too long.
+ * streams in), 429 over the per-user rate, 503 when the preview pool is full or a preview runs too long
+ * (or, `cancelled`, when the request ended while its preview waited for a thread).
  * Over the work budget (lib/jobs.ts `solveWork`) the answer is the nominal sweep with `deferred` saying why.
  * `stage: "sweep"` answers the nominal sweep first, naming the studies still to come in `pending`
  * (lib/live-preview.ts). `Server-Timing` says where the time went: reading the body, pricing and
