@@ -10,9 +10,10 @@ import type { PivotTests } from "./sparse-lu-scaling";
  *  - zero pivot: |u_kk|·c_k·r_k ≤ absTol  ⇔  |u_kk|² ≤ absTol²·rm[k]·cm[k];
  *  - threshold: |u_kk|·c_k ≥ τ·(|re|+|im|)(u_kj)·c_j/√2 for every j of U's row k (|x|₁/√2 ≤ |x|₂,
  *    a conservative bound; the row factor cancels)  ⇔  |u_kk|²·cm[j] ≥ ½τ²·(|re|+|im|)²·cm[k].
- * One algorithm (up-looking elimination, one row per step: load the row, eliminate, test the
- * pivot), kept in one function on purpose: it is the sweep's hot loop, and a helper per stage
- * would add a call and re-read the arrays per row.
+ * Two steps: load every slot (one flat pass, or a copy from the pencil's slots: `factorPencil`),
+ * then one loop over the rows (up-looking elimination: eliminate, test the pivot), kept in one
+ * function on purpose: it is the sweep's hot loop, and a helper per row would add a call and
+ * re-read the arrays. Loading row by row inside that loop cost three short loops per row.
  */
 export function factorNumeric(
   f: LUFactors,
@@ -22,11 +23,46 @@ export function factorNumeric(
   imScale: number,
   tau: number,
 ): boolean {
-  const s = f.sym!;
   const plan = f.plan!;
   if (!plan.upd) return factorScatter(f, tests, re, im, imScale, tau);
+  // Every slot starts as its entry of A (zero at fill), in one flat pass before the elimination:
+  // a row's elimination writes only its own slots, so no slot is read before it is loaded.
+  const { src } = plan;
+  const { fRe, fIm } = f;
+  for (let t = 0; t < src.length; t++) {
+    const p = src[t]!;
+    fRe[t] = p >= 0 ? re[p]! : 0;
+    fIm[t] = p >= 0 ? imScale * im[p]! : 0;
+  }
+  return eliminate(f, tests, tau);
+}
+
+/**
+ * `factorNumeric` of A = G + jωC from the pencil's values laid out in the plan's slots
+ * (`Plan.slotG`, `Plan.slotC`, see `pencilSlots`): the load is a copy and a scaled copy, the same
+ * numbers bit for bit as gathering g[p] and ω·c[p] (and 0 at fill, for ω ≥ 0).
+ * Needs the plan's update slots and ω finite and ≥ 0 (the caller checks).
+ */
+export function factorPencil(f: LUFactors, tests: PivotTests, omega: number, tau: number): boolean {
+  const plan = f.plan!;
+  const gs = plan.slotG!;
+  const cs = plan.slotC!;
+  const { fRe, fIm } = f;
+  fRe.set(gs);
+  for (let t = 0; t < cs.length; t++) fIm[t] = omega * cs[t]!;
+  return eliminate(f, tests, tau);
+}
+
+/**
+ * The elimination over the plan's slots, after every slot holds its entry of A: row by row
+ * (up-looking), each product landing on the slot the plan recorded for it, then the pivot tests.
+ */
+function eliminate(f: LUFactors, tests: PivotTests, tau: number): boolean {
+  const s = f.sym!;
+  const plan = f.plan!;
   const { lPtr, lIdx, uPtr, uIdx } = s;
-  const { src, updStart, upd } = plan;
+  const { updStart } = plan;
+  const upd = plan.upd!;
   const { fRe, fIm, invRe, invIm, n } = f;
   const { cm, rm } = tests;
   const offU = lIdx.length;
@@ -42,20 +78,6 @@ export function factorNumeric(
     const l1 = lPtr[k + 1]!;
     const u1 = offU + uPtr[k + 1]!;
     const dk = offD + k;
-    // Row k of the factors starts as row rowPerm[k] of A, zero at its fill.
-    for (let q = l0; q < l1; q++) {
-      const p = src[q]!;
-      fRe[q] = p >= 0 ? re[p]! : 0;
-      fIm[q] = p >= 0 ? imScale * im[p]! : 0;
-    }
-    for (let t = u0; t < u1; t++) {
-      const p = src[t]!;
-      fRe[t] = p >= 0 ? re[p]! : 0;
-      fIm[t] = p >= 0 ? imScale * im[p]! : 0;
-    }
-    const pd = src[dk]!;
-    fRe[dk] = pd >= 0 ? re[pd]! : 0;
-    fIm[dk] = pd >= 0 ? imScale * im[pd]! : 0;
     // Eliminate with earlier rows, in ascending order of the L pattern: l = a_kj / u_jj, then
     // row k −= l·(row j of U), each product landing on the slot the plan recorded for it.
     for (let q = l0; q < l1; q++) {

@@ -22,6 +22,10 @@ export interface Plan {
   pencilOf: PencilMaxima | null;
   updStart: Int32Array;
   upd: Int32Array | null;
+  /** G's and C's entries in the slots (0 at fill) of the pencil `slotsOf` (`pencilSlots`). */
+  slotG: Float64Array | null;
+  slotC: Float64Array | null;
+  slotsOf: object | null;
 }
 
 export function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
@@ -59,5 +63,22 @@ export function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
     for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = -1;
     slot[k] = -1;
   }
-  return { aPos, src, updStart, upd, pencil: null, pencilOf: null };
+  return { aPos, src, updStart, upd, pencil: null, pencilOf: null, slotG: null, slotC: null, slotsOf: null };
+}
+
+/** Lay G and C (in A's CSR order) out in the plan's slots, so a refactor loads them by copying. */
+export function pencilSlots(plan: Plan, pen: { g: Float64Array; c: Float64Array }): void {
+  const { g, c } = pen;
+  const { src } = plan;
+  const sg = new Float64Array(src.length);
+  const sc = new Float64Array(src.length);
+  for (let t = 0; t < src.length; t++) {
+    const p = src[t]!;
+    if (p < 0) continue;
+    sg[t] = g[p]!;
+    sc[t] = c[p]!;
+  }
+  plan.slotG = sg;
+  plan.slotC = sc;
+  plan.slotsOf = pen;
 }

@@ -1,7 +1,8 @@
 import { type PencilMaxima, pencilInOrder, pencilMaxima, pencilTests, rowColumnMaxima } from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
 import { LUFactors } from "./sparse-lu-factors";
-import { factorNumeric } from "./sparse-lu-numeric";
+import { factorNumeric, factorPencil } from "./sparse-lu-numeric";
+import { type Plan, pencilSlots } from "./sparse-lu-plan";
 import { PivotTests } from "./sparse-lu-scaling";
 import { solveFactors, solveFactorsTransposed } from "./sparse-lu-solve";
 import type { SparseComplexMatrix } from "./sparse-matrix";
@@ -170,7 +171,7 @@ export class SparseComplexLU {
     }
     pencilTests(plan.pencil!, w, this.t.cm, this.t.rm);
     this.t.oneStep();
-    if (this.numeric(g, c, omega)) return true;
+    if (this.pencilNumeric(plan, pen, omega)) return true;
     this.fill(omega, g, c);
     const { re, im } = this.a;
     rowColumnMaxima(this.a, re, im, this.t.rmax, this.t.cmax);
@@ -230,6 +231,17 @@ export class SparseComplexLU {
     if (asBase) this.base = res.symbolic;
     // Same numbers as the ordering pass, so the threshold checks pass (up to rounding ties).
     return this.numeric(re, im, 1, true);
+  }
+
+  /**
+   * `numeric(G, C, ω)` of the current order, loading the pencil's values from the plan's slots
+   * when the plan has them (`pencilSlots`, laid out once per plan and pencil): same numbers.
+   */
+  private pencilNumeric(plan: Plan, pen: { g: Float64Array; c: Float64Array }, omega: number): boolean {
+    if (!plan.upd || !(omega >= 0 && omega < Number.POSITIVE_INFINITY))
+      return this.numeric(pen.g, pen.c, omega);
+    if (plan.slotsOf !== pen) pencilSlots(plan, pen);
+    return factorPencil(this.f, this.t, omega, this.opt.pivotThreshold);
   }
 
   /** Numeric factorization in the current order (`factorNumeric`); lenient skips the threshold. */
