@@ -98,7 +98,8 @@ export class AcSolver {
         this.pencilOf = sys;
       }
       // Reads G and C itself; sys.matrix's values are written only when a frequency re-pivots.
-      ok = this.lu.refactorAt(omega);
+      // Given b, it substitutes forward as it eliminates, so the solve below goes backward only.
+      ok = this.lu.refactorAt(omega, sys.bRe, sys.bIm);
     }
     if (!ok) return this.singularReason(f);
     let finite = this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);

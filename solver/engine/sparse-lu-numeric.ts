@@ -24,6 +24,8 @@ export function factorNumeric(
   tau: number,
 ): boolean {
   const plan = f.plan!;
+  f.forwardRe = null;
+  f.forwardIm = null;
   if (!plan.upd) return factorScatter(f, tests, re, im, imScale, tau);
   // Every slot starts as its entry of A (zero at fill), in one flat pass before the elimination:
   // a row's elimination writes only its own slots, so no slot is read before it is loaded.
@@ -34,7 +36,7 @@ export function factorNumeric(
     fRe[t] = p >= 0 ? re[p]! : 0;
     fIm[t] = p >= 0 ? imScale * im[p]! : 0;
   }
-  return eliminate(f, tests, tau);
+  return eliminate(f, tests, tau, null, null);
 }
 
 /**
@@ -42,25 +44,46 @@ export function factorNumeric(
  * (`Plan.slotG`, `Plan.slotC`, see `pencilSlots`): the load is a copy and a scaled copy, the same
  * numbers bit for bit as gathering g[p] and ω·c[p] (and 0 at fill, for ω ≥ 0).
  * Needs the plan's update slots and ω finite and ≥ 0 (the caller checks).
+ * With a right-hand side b it also runs the forward substitution L·y = P·b along the elimination
+ * (row k of L is final at step k), the same arithmetic as `solveFactors`' forward pass, which a
+ * `solve` of the same b arrays then skips (see `LUFactors.forwardRe`).
  */
-export function factorPencil(f: LUFactors, tests: PivotTests, omega: number, tau: number): boolean {
+export function factorPencil(
+  f: LUFactors,
+  tests: PivotTests,
+  omega: number,
+  tau: number,
+  bRe: Float64Array | null,
+  bIm: Float64Array | null,
+): boolean {
   const plan = f.plan!;
+  f.forwardRe = null;
+  f.forwardIm = null;
   const gs = plan.slotG!;
   const cs = plan.slotC!;
   const { fRe, fIm } = f;
   fRe.set(gs);
   for (let t = 0; t < cs.length; t++) fIm[t] = omega * cs[t]!;
-  return eliminate(f, tests, tau);
+  return eliminate(f, tests, tau, bRe, bIm);
 }
 
 /**
  * The elimination over the plan's slots, after every slot holds its entry of A: row by row
- * (up-looking), each product landing on the slot the plan recorded for it, then the pivot tests.
+ * (up-looking), each product landing on the slot the plan recorded for it, then the pivot tests;
+ * with b, the forward substitution into f.wRe/wIm as it goes (see `factorPencil`).
  */
-function eliminate(f: LUFactors, tests: PivotTests, tau: number): boolean {
+function eliminate(
+  f: LUFactors,
+  tests: PivotTests,
+  tau: number,
+  bRe: Float64Array | null,
+  bIm: Float64Array | null,
+): boolean {
   const s = f.sym!;
   const plan = f.plan!;
-  const { lPtr, lIdx, uPtr, uIdx } = s;
+  const { lPtr, lIdx, uPtr, uIdx, rowPerm } = s;
+  const { wRe, wIm } = f;
+  const fwd = bRe !== null && bIm !== null;
   const { updStart } = plan;
   const upd = plan.upd!;
   const { fRe, fIm, invRe, invIm, n } = f;
@@ -78,6 +101,12 @@ function eliminate(f: LUFactors, tests: PivotTests, tau: number): boolean {
     const l1 = lPtr[k + 1]!;
     const u1 = offU + uPtr[k + 1]!;
     const dk = offD + k;
+    let yr = 0;
+    let yi = 0;
+    if (fwd) {
+      yr = bRe[rowPerm[k]!]!;
+      yi = bIm[rowPerm[k]!]!;
+    }
     // Eliminate with earlier rows, in ascending order of the L pattern: l = a_kj / u_jj, then
     // row k −= l·(row j of U), each product landing on the slot the plan recorded for it.
     for (let q = l0; q < l1; q++) {
@@ -90,6 +119,10 @@ function eliminate(f: LUFactors, tests: PivotTests, tau: number): boolean {
       const li = xr * ii + xi * ir;
       fRe[q] = lr;
       fIm[q] = li;
+      if (fwd) {
+        yr -= lr * wRe[j]! - li * wIm[j]!;
+        yi -= lr * wIm[j]! + li * wRe[j]!;
+      }
       if (lr === 0 && li === 0) continue;
       const t0 = offU + uPtr[j]!;
       const m0 = updStart[q]!;
@@ -123,6 +156,12 @@ function eliminate(f: LUFactors, tests: PivotTests, tau: number): boolean {
     const inv = 1 / d;
     invRe[k] = pr * inv;
     invIm[k] = -pi * inv;
+    wRe[k] = yr;
+    wIm[k] = yi;
+  }
+  if (fwd) {
+    f.forwardRe = bRe;
+    f.forwardIm = bIm;
   }
   return true;
 }

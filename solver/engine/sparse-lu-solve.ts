@@ -20,8 +20,12 @@ export function solveFactors(
   }
   const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
   const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  // The factorization ran the forward pass of this b already (`factorPencil`): y is in w.
+  const forwarded = f.forwardRe === bRe && f.forwardIm === bIm;
+  f.forwardRe = null;
+  f.forwardIm = null;
   let q0 = 0;
-  for (let k = 0; k < n; k++) {
+  for (let k = forwarded ? n : 0; k < n; k++) {
     const r = rowPerm[k]!;
     let yr = bRe[r]!;
     let yi = bIm[r]!;
@@ -82,6 +86,8 @@ export function solveFactorsTransposed(
   }
   const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
   const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  f.forwardRe = null;
+  f.forwardIm = null;
   for (let k = 0; k < n; k++) {
     wRe[k] = dRe[colPerm[k]!]!;
     wIm[k] = dIm[colPerm[k]!]!;

@@ -152,8 +152,11 @@ export class SparseComplexLU {
    * as `refactor(g, ω·c)`, but the values are read from G and C directly (no assembled copy) and
    * the scaling step off the pencil's precomputed terms. A's value arrays are written only when
    * this frequency needs more than the sweep's order (a re-pivot reads them).
+   * With a right-hand side b, the forward substitution of b runs along the elimination when the
+   * sweep's order holds, and a following `solve(b)` of the same arrays (unchanged in between)
+   * only substitutes backward: the same numbers as without.
    */
-  refactorAt(omega: number): boolean {
+  refactorAt(omega: number, bRe: Float64Array | null = null, bIm: Float64Array | null = null): boolean {
     const pen = this.pencil;
     if (!pen) throw new Error("refactorAt needs setPencil first");
     const { g, c } = pen;
@@ -171,7 +174,7 @@ export class SparseComplexLU {
     }
     pencilTests(plan.pencil!, w, this.t.cm, this.t.rm);
     this.t.oneStep();
-    if (this.pencilNumeric(plan, pen, omega)) return true;
+    if (this.pencilNumeric(plan, pen, omega, bRe, bIm)) return true;
     this.fill(omega, g, c);
     const { re, im } = this.a;
     rowColumnMaxima(this.a, re, im, this.t.rmax, this.t.cmax);
@@ -237,11 +240,17 @@ export class SparseComplexLU {
    * `numeric(G, C, ω)` of the current order, loading the pencil's values from the plan's slots
    * when the plan has them (`pencilSlots`, laid out once per plan and pencil): same numbers.
    */
-  private pencilNumeric(plan: Plan, pen: { g: Float64Array; c: Float64Array }, omega: number): boolean {
+  private pencilNumeric(
+    plan: Plan,
+    pen: { g: Float64Array; c: Float64Array },
+    omega: number,
+    bRe: Float64Array | null,
+    bIm: Float64Array | null,
+  ): boolean {
     if (!plan.upd || !(omega >= 0 && omega < Number.POSITIVE_INFINITY))
       return this.numeric(pen.g, pen.c, omega);
     if (plan.slotsOf !== pen) pencilSlots(plan, pen);
-    return factorPencil(this.f, this.t, omega, this.opt.pivotThreshold);
+    return factorPencil(this.f, this.t, omega, this.opt.pivotThreshold, bRe, bIm);
   }
 
   /** Numeric factorization in the current order (`factorNumeric`); lenient skips the threshold. */
