@@ -139,41 +139,84 @@ export interface PencilMaxima {
   colPtr: Int32Array;
   colG: Float64Array;
   colC: Float64Array;
+  /** Every row and column keeps exactly one term (set by `pencilInOrder`): `pencilTests` is one flat pass. */
+  single?: boolean;
 }
 
 export function pencilMaxima(a: SparseComplexMatrix, g: Float64Array, c: Float64Array): PencilMaxima {
   const { rowPtr, colIdx, n } = a;
-  const byRow: number[][] = Array.from({ length: n }, () => []);
-  const byCol: number[][] = Array.from({ length: n }, () => []);
+  const nnz = colIdx.length;
+  // Each column's entries (CSR positions, rows ascending) by a counting sort; a row's are rowPtr's.
+  const colPtr = new Int32Array(n + 1);
+  for (let p = 0; p < nnz; p++) colPtr[colIdx[p]! + 1]!++;
+  for (let j = 0; j < n; j++) colPtr[j + 1]! += colPtr[j]!;
+  const byCol = new Int32Array(nnz);
+  const at = colPtr.slice(0, n);
+  for (let p = 0; p < nnz; p++) byCol[at[colIdx[p]!]!++] = p;
+  const byRow = new Int32Array(nnz);
+  for (let p = 0; p < nnz; p++) byRow[p] = p;
+  const rows = keptTerms(rowPtr, byRow, g, c);
+  const cols = keptTerms(colPtr, byCol, g, c);
+  return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
+}
+
+/**
+ * The terms (|g|, |c|) of each group (entries list[ptr[i]…ptr[i+1]) ) that no other term of the
+ * group dominates — larger-or-equal in both, larger in one, or equal and earlier — NaN terms left
+ * out: the Pareto front, one term per distinct pair. A group's terms in any order (the tests take
+ * their maximum). Allocates only the result (this runs before the JIT has warmed up).
+ */
+function keptTerms(
+  ptr: Int32Array,
+  list: Int32Array,
+  g: Float64Array,
+  c: Float64Array,
+): { ptr: Int32Array; g: Float64Array; c: Float64Array } {
+  const n = ptr.length - 1;
+  const out = new Int32Array(n + 1);
+  const gs = new Float64Array(list.length);
+  const cs = new Float64Array(list.length);
+  let m = 0;
   for (let i = 0; i < n; i++) {
-    for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
-      byRow[i]!.push(p);
-      byCol[colIdx[p]!]!.push(p);
-    }
-  }
-  const pack = (lists: number[][]) => {
-    const ptr = new Int32Array(n + 1);
-    const gs: number[] = [];
-    const cs: number[] = [];
-    for (let i = 0; i < n; i++) {
-      // Largest |g| first (ties: largest |c| first); keep a term only if its |c| beats every kept one.
-      const terms = lists[i]!.map((p) => [Math.abs(g[p]!), Math.abs(c[p]!)] as const)
+    const e0 = ptr[i]!;
+    const e1 = ptr[i + 1]!;
+    if (e1 - e0 > 32) {
+      // A long group (a node with many parts): sorted by |g| descending, then |c| descending, a
+      // term is kept when its |c| beats every kept one's — the same front in O(m log m).
+      const terms = Array.from(list.subarray(e0, e1), (p) => [Math.abs(g[p]!), Math.abs(c[p]!)] as const)
         .filter(([x, y]) => !Number.isNaN(x) && !Number.isNaN(y))
         .sort((u, v) => v[0] - u[0] || v[1] - u[1]);
       let bestC = -1;
       for (const [x, y] of terms) {
         if (y <= bestC) continue;
-        gs.push(x);
-        cs.push(y);
+        gs[m] = x;
+        cs[m] = y;
+        m++;
         bestC = y;
       }
-      ptr[i + 1] = gs.length;
+      out[i + 1] = m;
+      continue;
     }
-    return { ptr, g: Float64Array.from(gs), c: Float64Array.from(cs) };
-  };
-  const rows = pack(byRow);
-  const cols = pack(byCol);
-  return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
+    for (let e = e0; e < e1; e++) {
+      const x = Math.abs(g[list[e]!]!);
+      const y = Math.abs(c[list[e]!]!);
+      if (Number.isNaN(x) || Number.isNaN(y)) continue;
+      let dominated = false;
+      for (let f = e0; f < e1 && !dominated; f++) {
+        if (f === e) continue;
+        const xf = Math.abs(g[list[f]!]!);
+        const yf = Math.abs(c[list[f]!]!);
+        if (Number.isNaN(xf) || Number.isNaN(yf)) continue;
+        dominated = xf >= x && yf >= y && (xf > x || yf > y || f < e);
+      }
+      if (dominated) continue;
+      gs[m] = x;
+      cs[m] = y;
+      m++;
+    }
+    out[i + 1] = m;
+  }
+  return { ptr: out, g: gs.slice(0, m), c: cs.slice(0, m) };
 }
 
 /**
@@ -204,7 +247,19 @@ export function pencilInOrder(
   };
   const rows = permute(pen.rowPtr, pen.rowG, pen.rowC, order.rowPerm);
   const cols = permute(pen.colPtr, pen.colG, pen.colC, order.colPerm);
-  return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
+  let single = true;
+  for (let k = 0; k < order.rowPerm.length && single; k++) {
+    single = rows.ptr[k + 1]! - rows.ptr[k]! === 1 && cols.ptr[k + 1]! - cols.ptr[k]! === 1;
+  }
+  return {
+    rowPtr: rows.ptr,
+    rowG: rows.g,
+    rowC: rows.c,
+    colPtr: cols.ptr,
+    colG: cols.g,
+    colC: cols.c,
+    single,
+  };
 }
 
 /**
@@ -215,6 +270,17 @@ export function pencilInOrder(
 export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
   const { rowPtr, rowG, rowC, colPtr, colG, colC } = pen;
   const n = cm.length;
+  if (pen.single) {
+    // One term per row and column (most circuit matrices): the same maxima without the inner loops
+    // (a NaN or ∞ term gives 1 either way).
+    for (let k = 0; k < n; k++) {
+      const c = colG[k]! + w * colC[k]!;
+      cm[k] = c > 0 && c < Number.POSITIVE_INFINITY ? c : 1;
+      const r = rowG[k]! + w * rowC[k]!;
+      rm[k] = r > 0 && r < Number.POSITIVE_INFINITY ? r : 1;
+    }
+    return;
+  }
   let c0 = 0;
   let r0 = 0;
   for (let k = 0; k < n; k++) {
