@@ -1,5 +1,5 @@
-import type { PencilMaxima } from "./equilibrate";
 import type { Symbolic } from "./markowitz";
+import type { PencilMaxima } from "./pencil-maxima";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 /** Most update slots a plan records (4 bytes each); an order needing more factors by scatter. */

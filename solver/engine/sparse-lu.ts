@@ -1,5 +1,6 @@
-import { type PencilMaxima, pencilInOrder, pencilMaxima, pencilTests, rowColumnMaxima } from "./equilibrate";
+import { rowColumnMaxima } from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
+import { type PencilMaxima, pencilInOrder, pencilMaxima, pencilTests } from "./pencil-maxima";
 import { LUFactors } from "./sparse-lu-factors";
 import { factorNumeric, factorPencil } from "./sparse-lu-numeric";
 import { type Plan, pencilSlots } from "./sparse-lu-plan";

@@ -3,7 +3,8 @@
 // the forward substitution run along the refactor. "Same numbers" is the design (common practice
 // for such rewrites: compare against the straightforward form on seeded random inputs).
 import { describe, expect, it } from "vitest";
-import { pencilInOrder, pencilMaxima, pencilTests, rowColumnMaxima } from "@/solver/engine/equilibrate";
+import { rowColumnMaxima } from "@/solver/engine/equilibrate";
+import { pencilInOrder, pencilMaxima, pencilTests } from "@/solver/engine/pencil-maxima";
 import { SparseComplexLU } from "@/solver/engine/sparse-lu";
 import { type SparseComplexMatrix, sparseFromDense } from "@/solver/engine/sparse-matrix";
 import { mulberry32 } from "./engine-circuits";
