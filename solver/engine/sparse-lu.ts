@@ -5,7 +5,7 @@ import { LUFactors } from "./sparse-lu-factors";
 import { factorNumeric, factorPencil } from "./sparse-lu-numeric";
 import { type Plan, pencilSlots } from "./sparse-lu-plan";
 import { PivotTests } from "./sparse-lu-scaling";
-import { solveFactors, solveFactorsTransposed } from "./sparse-lu-solve";
+import { solveFactors, solveFactorsOfProduct, solveFactorsTransposed } from "./sparse-lu-solve";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 export interface SparseLUOptions {
@@ -266,6 +266,21 @@ export class SparseComplexLU {
    */
   solve(bRe: Float64Array, bIm: Float64Array, xRe: Float64Array = bRe, xIm: Float64Array = bIm): boolean {
     return solveFactors(this.f, bRe, bIm, xRe, xIm);
+  }
+
+  /**
+   * Solve A·x = −M·v (M sparse real in CSR, in A's row numbering; v must not alias x) without
+   * forming −M·v first (`solveFactorsOfProduct`): dx/ds = −A⁻¹·C·x in one pass. Same numbers as
+   * `solve` of −M·v.
+   */
+  solveProduct(
+    m: { ptr: Int32Array; idx: Int32Array; val: Float64Array },
+    vRe: Float64Array,
+    vIm: Float64Array,
+    xRe: Float64Array,
+    xIm: Float64Array,
+  ): boolean {
+    return solveFactorsOfProduct(this.f, m, vRe, vIm, xRe, xIm);
   }
 
   /**
