@@ -22,10 +22,9 @@ export interface Plan {
   pencilOf: PencilMaxima | null;
   updStart: Int32Array;
   upd: Int32Array | null;
-  /** G's and C's entries in the slots (0 at fill) of the pencil `slotsOf` (`pencilSlots`). */
+  /** G's and C's entries in the slots (0 at fill) of the pencil `pencilOf` (plans with `upd` only). */
   slotG: Float64Array | null;
   slotC: Float64Array | null;
-  slotsOf: object | null;
 }
 
 export function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
@@ -63,11 +62,23 @@ export function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
     for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = -1;
     slot[k] = -1;
   }
-  return { aPos, src, updStart, upd, pencil: null, pencilOf: null, slotG: null, slotC: null, slotsOf: null };
+  return { aPos, src, updStart, upd, pencil: null, pencilOf: null, slotG: null, slotC: null };
 }
 
-/** Lay G and C (in A's CSR order) out in the plan's slots, so a refactor loads them by copying. */
-export function pencilSlots(plan: Plan, pen: { g: Float64Array; c: Float64Array }): void {
+/**
+ * Bind the plan to a pencil G + s·C (G, C in A's CSR order): its maxima terms in this order, and
+ * (with update slots) G and C laid out in the factors' slots, so a refactor loads them by copying.
+ */
+export function planPencil(
+  plan: Plan,
+  pen: PencilMaxima & { g: Float64Array; c: Float64Array },
+  inOrder: PencilMaxima,
+): void {
+  plan.pencil = inOrder;
+  plan.pencilOf = pen;
+  plan.slotG = null;
+  plan.slotC = null;
+  if (!plan.upd) return;
   const { g, c } = pen;
   const { src } = plan;
   const sg = new Float64Array(src.length);
@@ -80,5 +91,4 @@ export function pencilSlots(plan: Plan, pen: { g: Float64Array; c: Float64Array 
   }
   plan.slotG = sg;
   plan.slotC = sc;
-  plan.slotsOf = pen;
 }

@@ -3,7 +3,7 @@ import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz
 import { type PencilMaxima, pencilInOrder, pencilMaxima, pencilTests } from "./pencil-maxima";
 import { LUFactors } from "./sparse-lu-factors";
 import { factorNumeric, factorPencil } from "./sparse-lu-numeric";
-import { type Plan, pencilSlots } from "./sparse-lu-plan";
+import { planPencil } from "./sparse-lu-plan";
 import { PivotTests } from "./sparse-lu-scaling";
 import { solveFactors, solveFactorsOfProduct, solveFactorsTransposed } from "./sparse-lu-solve";
 import type { SparseComplexMatrix } from "./sparse-matrix";
@@ -39,10 +39,9 @@ export interface SparseLUOptions {
  * equilibrated matrix is singular to working precision — never merely "values far apart"
  * (1 fF beside 1 TΩ, 1 F at 1 GHz).
  *
- * Files: this class (the sweep's policy: which order, when to re-pivot), `sparse-lu-plan.ts` (an
- * order's plan), `sparse-lu-factors.ts` (the numbers of the factors), `sparse-lu-scaling.ts` (the
- * scaling behind the pivot tests), `sparse-lu-numeric.ts` (the numeric factorization) and
- * `sparse-lu-solve.ts` (the triangular solves).
+ * Files: this class (which order, when to re-pivot), `sparse-lu-plan.ts` (an order's plan),
+ * `-factors.ts` (the numbers), `-scaling.ts` (the pivot tests' scaling), `-numeric.ts` and
+ * `-scatter.ts` (the numeric factorization), `-solve.ts` (the triangular solves).
  *
  * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern plus the scaling step (O(n) with a
  * pencil, O(nnz) without; a few passes before an analysis), solve O(nnz(L)+nnz(U)+n).
@@ -169,13 +168,13 @@ export class SparseComplexLU {
     const w = Math.abs(omega);
     // One Ruiz step, its maxima straight into the tests of the sweep's order.
     const plan = this.f.plan!;
-    if (plan.pencilOf !== pen) {
-      plan.pencil = pencilInOrder(pen, this.base);
-      plan.pencilOf = pen;
-    }
+    if (plan.pencilOf !== pen) planPencil(plan, pen, pencilInOrder(pen, this.base));
     pencilTests(plan.pencil!, w, this.t.cm, this.t.rm);
     this.t.oneStep();
-    if (this.pencilNumeric(plan, pen, omega, bRe, bIm)) return true;
+    // The values copied from the plan's slots of G and C (same numbers as reading G and C).
+    const slots = plan.slotG !== null && omega >= 0 && omega < Number.POSITIVE_INFINITY;
+    const tau = this.opt.pivotThreshold;
+    if (slots ? factorPencil(this.f, this.t, omega, tau, bRe, bIm) : this.numeric(g, c, omega)) return true;
     this.fill(omega, g, c);
     const { re, im } = this.a;
     rowColumnMaxima(this.a, re, im, this.t.rmax, this.t.cmax);
@@ -235,23 +234,6 @@ export class SparseComplexLU {
     if (asBase) this.base = res.symbolic;
     // Same numbers as the ordering pass, so the threshold checks pass (up to rounding ties).
     return this.numeric(re, im, 1, true);
-  }
-
-  /**
-   * `numeric(G, C, ω)` of the current order, loading the pencil's values from the plan's slots
-   * when the plan has them (`pencilSlots`, laid out once per plan and pencil): same numbers.
-   */
-  private pencilNumeric(
-    plan: Plan,
-    pen: { g: Float64Array; c: Float64Array },
-    omega: number,
-    bRe: Float64Array | null,
-    bIm: Float64Array | null,
-  ): boolean {
-    if (!plan.upd || !(omega >= 0 && omega < Number.POSITIVE_INFINITY))
-      return this.numeric(pen.g, pen.c, omega);
-    if (plan.slotsOf !== pen) pencilSlots(plan, pen);
-    return factorPencil(this.f, this.t, omega, this.opt.pivotThreshold, bRe, bIm);
   }
 
   /** Numeric factorization in the current order (`factorNumeric`); lenient skips the threshold. */
