@@ -75,7 +75,7 @@ function opampSources(p: Part, sys: MnaSystem, ix: (n: string) => number): Sourc
 export interface NoisePoint {
   /** Output density², V²/Hz. */
   total: number;
-  /** Each source's density², in the order of `NoiseProbe.sources`. */
+  /** Each source's density², in the order of `NoiseProbe.sources` (from the index `at` given to `evaluate`). */
   parts: Float64Array;
   /** |gain from the input source to the probe|², or null without `input`. */
   gain2: number | null;
@@ -87,9 +87,11 @@ export class NoiseProbe {
   readonly sources: Source[];
   private readonly dRe: Float64Array;
   private readonly dIm: Float64Array;
-  /** z with one more slot (index n, always 0) standing for gnd. */
+  /** z with one more slot (index n, always 0) standing for gnd; zRe0/zIm0 are its first n slots. */
   private readonly zRe: Float64Array;
   private readonly zIm: Float64Array;
+  private readonly zRe0: Float64Array;
+  private readonly zIm0: Float64Array;
   /** Sources flattened for the per-point loop: terms of source s are termStart[s]…termStart[s+1]−1. */
   private readonly termStart: Int32Array;
   private readonly termA: Int32Array;
@@ -106,6 +108,8 @@ export class NoiseProbe {
     this.dIm = new Float64Array(n);
     this.zRe = new Float64Array(n + 1);
     this.zIm = new Float64Array(n + 1);
+    this.zRe0 = this.zRe.subarray(0, n);
+    this.zIm0 = this.zIm.subarray(0, n);
     const g = (i: number) => (i < 0 ? n : i);
     const flat = this.sources.flatMap((x) => x.terms);
     this.termA = Int32Array.from(flat, ([a]) => g(a));
@@ -132,18 +136,24 @@ export class NoiseProbe {
       };
   }
 
+  /** Tell the solver which adjoint right-hand side its solves will be followed by. */
+  expectedBy(solver: AcSolver): void {
+    solver.expectAdjoint(this.dRe, this.dIm);
+  }
+
   /**
    * The densities at frequency f; `solver` must have just solved at f. Cost: one transposed solve
-   * and O(sources). `parts` receives each source's density² (a new array when not given).
+   * and O(sources). `parts` receives each source's density² from index `at` on (a new array when
+   * not given).
    */
   evaluate(
     solver: AcSolver,
     f: number,
     parts: Float64Array = new Float64Array(this.sources.length),
+    at = 0,
   ): NoisePoint {
     const { zRe, zIm, termStart, termA, termB, white, fc } = this;
-    const n = zRe.length - 1;
-    solver.adjoint(this.dRe, this.dIm, zRe.subarray(0, n), zIm.subarray(0, n));
+    solver.adjoint(this.dRe, this.dIm, this.zRe0, this.zIm0);
     let total = 0;
     for (let s = 0; s < white.length; s++) {
       let g2 = 0;
@@ -156,7 +166,7 @@ export class NoiseProbe {
       }
       const fcs = fc[s]!;
       const v = g2 * white[s]! * (fcs === 0 ? 1 : 1 + fcs / f);
-      parts[s] = v;
+      parts[at + s] = v;
       total += v;
     }
     let gain2: number | null = null;
@@ -187,7 +197,9 @@ export class NoiseSweep {
 
   record(solver: AcSolver, f: number): void {
     const S = this.probe.sources.length;
-    const p = this.probe.evaluate(solver, f, this.parts.subarray(this.k * S, (this.k + 1) * S));
+    const p = this.probe.evaluate(solver, f, this.parts, this.k * S);
+    // The next points' refactors can run the adjoint's first half along the elimination.
+    this.probe.expectedBy(solver);
     this.total[this.k] = p.total;
     this.gain2[this.k] = p.gain2 ?? 0;
     this.k++;
