@@ -209,25 +209,29 @@ export class NoiseSweep {
     const { def, sources } = this.probe;
     const S = sources.length;
     const pts = this.k;
-    const column = (get: (k: number) => number | null) => {
-      const out = new Array<number | null>(pts);
-      for (let k = 0; k < pts; k++) out[k] = get(k);
-      return out;
-    };
+    // Plain loops, no closure per value: a statement over 200 parts × 1 000 points has 200 000.
+    const density = new Array<number | null>(pts);
+    for (let k = 0; k < pts; k++) density[k] = root(this.total[k]!);
+    let inputDensity: (number | null)[] | null = null;
+    if (def.input !== undefined) {
+      inputDensity = new Array<number | null>(pts);
+      for (let k = 0; k < pts; k++) {
+        const g2 = this.gain2[k]!;
+        inputDensity[k] = g2 > 0 ? root(this.total[k]! / g2) : null;
+      }
+    }
+    const contributions = sources.map((src, s) => {
+      const d = new Array<number | null>(pts);
+      for (let k = 0, at = s; k < pts; k++, at += S) d[k] = root(this.parts[at]!);
+      return { part: src.part, source: src.source, density: d };
+    });
     return {
       name: def.name,
       probe: def.text,
-      density: column((k) => root(this.total[k]!)),
-      inputDensity:
-        def.input === undefined
-          ? null
-          : column((k) => (this.gain2[k]! > 0 ? root(this.total[k]! / this.gain2[k]!) : null)),
+      density,
+      inputDensity,
       input: def.input ?? null,
-      contributions: sources.map((src, s) => ({
-        part: src.part,
-        source: src.source,
-        density: column((k) => root(this.parts[k * S + s]!)),
-      })),
+      contributions,
       temperature: kelvin,
     };
   }
