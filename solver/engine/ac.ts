@@ -1,7 +1,6 @@
 import { floatingNodes, voltageLoop } from "./floating";
 import { assemble, type MnaSystem } from "./mna";
 import { SparseComplexLU } from "./sparse-lu";
-import type { SweepRhs } from "./sparse-lu-numeric";
 
 /** "1.59155 kHz": a frequency with an SI prefix, 6 significant digits. */
 export function formatHz(f: number): string {
@@ -46,8 +45,6 @@ export class AcSolver {
   private cCols = new Int32Array(0);
   private cVals = new Float64Array(0);
   private cMatrix: { ptr: Int32Array; idx: Int32Array; val: Float64Array } | null = null;
-  /** The right-hand sides the refactors substitute along (b, and the adjoint's d: `expectAdjoint`). */
-  private rhs: SweepRhs;
   /** Angular frequency of the last successful solve. */
   omega = 0;
 
@@ -61,15 +58,6 @@ export class AcSolver {
     this.x2Im = new Float64Array(sys.n);
     this.dx2Re = new Float64Array(sys.n);
     this.dx2Im = new Float64Array(sys.n);
-    this.rhs = { bRe: sys.bRe, bIm: sys.bIm, dRe: null, dIm: null };
-  }
-
-  /**
-   * The right-hand side of the adjoint solves to come (`adjoint(d)` after each `solveAt`, the same
-   * arrays, unchanged): the refactors then run its first half along the elimination. Same numbers.
-   */
-  expectAdjoint(dRe: Float64Array, dIm: Float64Array): void {
-    if (this.rhs.dRe !== dRe || this.rhs.dIm !== dIm) this.rhs = { ...this.rhs, dRe, dIm };
   }
 
   /**
@@ -111,10 +99,8 @@ export class AcSolver {
         this.pencilOf = sys;
       }
       // Reads G and C itself; sys.matrix's values are written only when a frequency re-pivots.
-      // Given b (and d), it substitutes forward as it eliminates, so the solve below goes backward
-      // only (and `adjoint(d)` does only its second half).
-      if (this.rhs.bRe !== sys.bRe) this.rhs = { ...this.rhs, bRe: sys.bRe, bIm: sys.bIm };
-      ok = this.lu.refactorAt(omega, this.rhs);
+      // Given b, it substitutes forward as it eliminates, so the solve below goes backward only.
+      ok = this.lu.refactorAt(omega, sys.bRe, sys.bIm);
     }
     if (!ok) return this.singularReason(f);
     let finite = this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);

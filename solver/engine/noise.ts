@@ -136,11 +136,6 @@ export class NoiseProbe {
       };
   }
 
-  /** Tell the solver which adjoint right-hand side its solves will be followed by. */
-  expectedBy(solver: AcSolver): void {
-    solver.expectAdjoint(this.dRe, this.dIm);
-  }
-
   /**
    * The densities at frequency f; `solver` must have just solved at f. Cost: one transposed solve
    * and O(sources). `parts` receives each source's density² from index `at` on (a new array when
@@ -198,8 +193,6 @@ export class NoiseSweep {
   record(solver: AcSolver, f: number): void {
     const S = this.probe.sources.length;
     const p = this.probe.evaluate(solver, f, this.parts, this.k * S);
-    // The next points' refactors can run the adjoint's first half along the elimination.
-    this.probe.expectedBy(solver);
     this.total[this.k] = p.total;
     this.gain2[this.k] = p.gain2 ?? 0;
     this.k++;

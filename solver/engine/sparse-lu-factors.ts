@@ -35,15 +35,6 @@ export class LUFactors {
    */
   forwardRe: Float64Array | null = null;
   forwardIm: Float64Array | null = null;
-  /**
-   * The adjoint right-hand side d whose first half of Aᵀ·z = d (Uᵀ·y = Qᵀ·d) the last
-   * factorization left in tRe/tIm (`factorPencil` with d), or null; a transposed solve or any
-   * factorization clears it.
-   */
-  adjointRe: Float64Array | null = null;
-  adjointIm: Float64Array | null = null;
-  readonly tRe: Float64Array;
-  readonly tIm: Float64Array;
   /** True when the last (re)factorization met a zero pivot. */
   singular = false;
   /** Step at which the last factorization failed, or −1. */
@@ -58,8 +49,6 @@ export class LUFactors {
     this.invIm = new Float64Array(a.n);
     this.wRe = new Float64Array(a.n);
     this.wIm = new Float64Array(a.n);
-    this.tRe = new Float64Array(a.n);
-    this.tIm = new Float64Array(a.n);
   }
 
   /** Make s the current order (its plan and factor storage); the values are the caller's. */

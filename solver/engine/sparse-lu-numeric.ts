@@ -27,8 +27,6 @@ export function factorNumeric(
   const plan = f.plan!;
   f.forwardRe = null;
   f.forwardIm = null;
-  f.adjointRe = null;
-  f.adjointIm = null;
   if (!plan.upd) return factorScatter(f, tests, re, im, imScale, tau);
   // Every slot starts as its entry of A (zero at fill), in one flat pass before the elimination:
   // a row's elimination writes only its own slots, so no slot is read before it is loaded.
@@ -39,7 +37,7 @@ export function factorNumeric(
     fRe[t] = p >= 0 ? re[p]! : 0;
     fIm[t] = p >= 0 ? imScale * im[p]! : 0;
   }
-  return eliminate(f, tests, tau, null, null, null, null);
+  return eliminate(f, tests, tau, null, null);
 }
 
 /**
@@ -49,44 +47,31 @@ export function factorNumeric(
  * Needs the plan's update slots and ω finite and ≥ 0 (the caller checks).
  * With a right-hand side b it also runs the forward substitution L·y = P·b along the elimination
  * (row k of L is final at step k), the same arithmetic as `solveFactors`' forward pass, which a
- * `solve` of the same b arrays then skips (see `LUFactors.forwardRe`). With an adjoint right-hand
- * side d it runs the first half of `solveFactorsTransposed` (Uᵀ·y = Qᵀ·d, scattering row k of U,
- * final at step k) into f.tRe/tIm, which a `solveTransposed` of the same d arrays then skips.
+ * `solve` of the same b arrays then skips (see `LUFactors.forwardRe`).
  */
 export function factorPencil(
   f: LUFactors,
   tests: PivotTests,
   omega: number,
   tau: number,
-  rhs: SweepRhs | null,
+  bRe: Float64Array | null,
+  bIm: Float64Array | null,
 ): boolean {
   const plan = f.plan!;
   f.forwardRe = null;
   f.forwardIm = null;
-  f.adjointRe = null;
-  f.adjointIm = null;
   const gs = plan.slotG!;
   const cs = plan.slotC!;
   const { fRe, fIm } = f;
   fRe.set(gs);
   for (let t = 0; t < cs.length; t++) fIm[t] = omega * cs[t]!;
-  if (rhs === null) return eliminate(f, tests, tau, null, null, null, null);
-  return eliminate(f, tests, tau, rhs.bRe, rhs.bIm, rhs.dRe, rhs.dIm);
-}
-
-/** The right-hand sides a sweep's refactor substitutes along: b of A·x = b, d of Aᵀ·z = d (or null). */
-export interface SweepRhs {
-  bRe: Float64Array;
-  bIm: Float64Array;
-  dRe: Float64Array | null;
-  dIm: Float64Array | null;
+  return eliminate(f, tests, tau, bRe, bIm);
 }
 
 /**
  * The elimination over the plan's slots, after every slot holds its entry of A: row by row
  * (up-looking), each product landing on the slot the plan recorded for it, then the pivot tests;
- * with b, the forward substitution into f.wRe/wIm as it goes, with d the transposed one into
- * f.tRe/tIm (see `factorPencil`).
+ * with b, the forward substitution into f.wRe/wIm as it goes (see `factorPencil`).
  */
 function eliminate(
   f: LUFactors,
@@ -94,23 +79,12 @@ function eliminate(
   tau: number,
   bRe: Float64Array | null,
   bIm: Float64Array | null,
-  dRe: Float64Array | null,
-  dIm: Float64Array | null,
 ): boolean {
   const s = f.sym!;
   const plan = f.plan!;
   const { lPtr, lIdx, uPtr, uIdx, rowPerm } = s;
   const { wRe, wIm } = f;
   const fwd = bRe !== null && bIm !== null;
-  const adj = dRe !== null && dIm !== null;
-  const { tRe, tIm } = f;
-  if (adj) {
-    const { colPerm } = s;
-    for (let k = 0; k < f.n; k++) {
-      tRe[k] = dRe[colPerm[k]!]!;
-      tIm[k] = dIm[colPerm[k]!]!;
-    }
-  }
   const { updStart } = plan;
   const upd = plan.upd!;
   const { fRe, fIm, invRe, invIm, n } = f;
@@ -172,6 +146,8 @@ function eliminate(
       const m = Math.abs(fRe[t]!) + Math.abs(fIm[t]!);
       if (d * cm[uIdx[t - offU]!]! < hk * m * m) small = true;
     }
+    l0 = l1;
+    u0 = u1;
     if (small) {
       f.singular = d <= tol2 * rm[k]! * ck;
       f.failedStep = k;
@@ -179,38 +155,14 @@ function eliminate(
       return false;
     }
     const inv = 1 / d;
-    const ir = pr * inv;
-    const ii = -pi * inv;
-    invRe[k] = ir;
-    invIm[k] = ii;
+    invRe[k] = pr * inv;
+    invIm[k] = -pi * inv;
     wRe[k] = yr;
     wIm[k] = yi;
-    if (adj) {
-      // Uᵀ·y = Qᵀ·d: y_k = t_k/u_kk, then row k of U scatters −u_kj·y_k into t_j (j > k).
-      const br = tRe[k]!;
-      const bi = tIm[k]!;
-      const zr = br * ir - bi * ii;
-      const zi = br * ii + bi * ir;
-      tRe[k] = zr;
-      tIm[k] = zi;
-      for (let t = u0; t < u1; t++) {
-        const j = uIdx[t - offU]!;
-        const ur = fRe[t]!;
-        const ui = fIm[t]!;
-        tRe[j] = tRe[j]! - (ur * zr - ui * zi);
-        tIm[j] = tIm[j]! - (ur * zi + ui * zr);
-      }
-    }
-    l0 = l1;
-    u0 = u1;
   }
   if (fwd) {
     f.forwardRe = bRe;
     f.forwardIm = bIm;
-  }
-  if (adj) {
-    f.adjointRe = dRe;
-    f.adjointIm = dIm;
   }
   return true;
 }

@@ -140,41 +140,33 @@ export function solveFactorsTransposed(
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
   const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
-  const { lRe, lIm, uRe, uIm, invRe, invIm } = f;
-  // The factorization ran the first half for this d already (`factorPencil`): y is in t.
-  const fused = f.adjointRe === dRe && f.adjointIm === dIm;
-  f.adjointRe = null;
-  f.adjointIm = null;
-  const wRe = fused ? f.tRe : f.wRe;
-  const wIm = fused ? f.tIm : f.wIm;
-  if (!fused) {
-    f.forwardRe = null;
-    f.forwardIm = null;
-    for (let k = 0; k < n; k++) {
-      wRe[k] = dRe[colPerm[k]!]!;
-      wIm[k] = dIm[colPerm[k]!]!;
+  const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  f.forwardRe = null;
+  f.forwardIm = null;
+  for (let k = 0; k < n; k++) {
+    wRe[k] = dRe[colPerm[k]!]!;
+    wIm[k] = dIm[colPerm[k]!]!;
+  }
+  // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
+  let t0 = 0;
+  for (let k = 0; k < n; k++) {
+    const br = wRe[k]!;
+    const bi = wIm[k]!;
+    const ir = invRe[k]!;
+    const ii = invIm[k]!;
+    const yr = br * ir - bi * ii;
+    const yi = br * ii + bi * ir;
+    wRe[k] = yr;
+    wIm[k] = yi;
+    const t1 = uPtr[k + 1]!;
+    for (let t = t0; t < t1; t++) {
+      const j = uIdx[t]!;
+      const ur = uRe[t]!;
+      const ui = uIm[t]!;
+      wRe[j] = wRe[j]! - (ur * yr - ui * yi);
+      wIm[j] = wIm[j]! - (ur * yi + ui * yr);
     }
-    // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
-    let t0 = 0;
-    for (let k = 0; k < n; k++) {
-      const br = wRe[k]!;
-      const bi = wIm[k]!;
-      const ir = invRe[k]!;
-      const ii = invIm[k]!;
-      const yr = br * ir - bi * ii;
-      const yi = br * ii + bi * ir;
-      wRe[k] = yr;
-      wIm[k] = yi;
-      const t1 = uPtr[k + 1]!;
-      for (let t = t0; t < t1; t++) {
-        const j = uIdx[t]!;
-        const ur = uRe[t]!;
-        const ui = uIm[t]!;
-        wRe[j] = wRe[j]! - (ur * yr - ui * yi);
-        wIm[j] = wIm[j]! - (ur * yi + ui * yr);
-      }
-      t0 = t1;
-    }
+    t0 = t1;
   }
   // Lᵀ·v = y, backward: row k of L scatters −l_kj·v_k into w_j (j < k); z = Pᵀ·v as it goes.
   let q1 = lPtr[n]!;

@@ -2,7 +2,7 @@ import { rowColumnMaxima } from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
 import { type PencilMaxima, pencilInOrder, pencilMaxima, pencilTests } from "./pencil-maxima";
 import { LUFactors } from "./sparse-lu-factors";
-import { factorNumeric, factorPencil, type SweepRhs } from "./sparse-lu-numeric";
+import { factorNumeric, factorPencil } from "./sparse-lu-numeric";
 import { planPencil } from "./sparse-lu-plan";
 import { PivotTests } from "./sparse-lu-scaling";
 import { solveFactors, solveFactorsOfProduct, solveFactorsTransposed } from "./sparse-lu-solve";
@@ -152,12 +152,11 @@ export class SparseComplexLU {
    * as `refactor(g, ω·c)`, but the values are read from G and C directly (no assembled copy) and
    * the scaling step off the pencil's precomputed terms. A's value arrays are written only when
    * this frequency needs more than the sweep's order (a re-pivot reads them).
-   * With right-hand sides (`SweepRhs`), the forward substitution of b (and the first half of the
-   * transposed solve of d) run along the elimination when the sweep's order holds, and a following
-   * `solve(b)` / `solveTransposed(d)` of the same arrays (unchanged in between) does only the rest:
-   * the same numbers as without.
+   * With a right-hand side b, the forward substitution of b runs along the elimination when the
+   * sweep's order holds, and a following `solve(b)` of the same arrays (unchanged in between)
+   * only substitutes backward: the same numbers as without.
    */
-  refactorAt(omega: number, rhs: SweepRhs | null = null): boolean {
+  refactorAt(omega: number, bRe: Float64Array | null = null, bIm: Float64Array | null = null): boolean {
     const pen = this.pencil;
     if (!pen) throw new Error("refactorAt needs setPencil first");
     const { g, c } = pen;
@@ -175,7 +174,7 @@ export class SparseComplexLU {
     // The values copied from the plan's slots of G and C (same numbers as reading G and C).
     const slots = plan.slotG !== null && omega >= 0 && omega < Number.POSITIVE_INFINITY;
     const tau = this.opt.pivotThreshold;
-    if (slots ? factorPencil(this.f, this.t, omega, tau, rhs) : this.numeric(g, c, omega)) return true;
+    if (slots ? factorPencil(this.f, this.t, omega, tau, bRe, bIm) : this.numeric(g, c, omega)) return true;
     this.fill(omega, g, c);
     const { re, im } = this.a;
     rowColumnMaxima(this.a, re, im, this.t.rmax, this.t.cmax);
