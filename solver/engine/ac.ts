@@ -44,6 +44,7 @@ export class AcSolver {
   private cRows: Int32Array | null = null;
   private cCols = new Int32Array(0);
   private cVals = new Float64Array(0);
+  private cMatrix: { ptr: Int32Array; idx: Int32Array; val: Float64Array } | null = null;
   /** Angular frequency of the last successful solve. */
   omega = 0;
 
@@ -98,7 +99,8 @@ export class AcSolver {
         this.pencilOf = sys;
       }
       // Reads G and C itself; sys.matrix's values are written only when a frequency re-pivots.
-      ok = this.lu.refactorAt(omega);
+      // Given b, it substitutes forward as it eliminates, so the solve below goes backward only.
+      ok = this.lu.refactorAt(omega, sys.bRe, sys.bIm);
     }
     if (!ok) return this.singularReason(f);
     let finite = this.lu.solve(sys.bRe, sys.bIm, this.xRe, this.xIm);
@@ -122,28 +124,10 @@ export class AcSolver {
     if (this.sys.second) this.derive(this.x2Re, this.x2Im, this.dx2Re, this.dx2Im);
   }
 
-  /** d = −A⁻¹·C·x (the right-hand sides do not depend on s). */
+  /** d = −A⁻¹·C·x (the right-hand sides do not depend on s), −C·x formed inside the solve. */
   private derive(xRe: Float64Array, xIm: Float64Array, dRe: Float64Array, dIm: Float64Array): void {
     if (this.cRows === null || this.cOf !== this.sys) this.compactC();
-    const { n } = this.sys;
-    const cRows = this.cRows!;
-    const { cCols, cVals } = this;
-    let q0 = 0;
-    for (let i = 0; i < n; i++) {
-      const q1 = cRows[i + 1]!;
-      let r = 0;
-      let im = 0;
-      for (let q = q0; q < q1; q++) {
-        const cv = cVals[q]!;
-        const j = cCols[q]!;
-        r -= cv * xRe[j]!;
-        im -= cv * xIm[j]!;
-      }
-      dRe[i] = r;
-      dIm[i] = im;
-      q0 = q1;
-    }
-    this.lu!.solve(dRe, dIm);
+    this.lu!.solveProduct(this.cMatrix!, xRe, xIm, dRe, dIm);
   }
 
   private cOf: MnaSystem | null = null;
@@ -166,6 +150,7 @@ export class AcSolver {
     this.cRows = rows;
     this.cCols = Int32Array.from(cols);
     this.cVals = Float64Array.from(vals);
+    this.cMatrix = { ptr: rows, idx: this.cCols, val: this.cVals };
     this.cOf = this.sys;
   }
 

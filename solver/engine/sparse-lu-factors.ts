@@ -29,6 +29,12 @@ export class LUFactors {
   /** Scratch of the scatter factorization and the solves (zero between uses by the former). */
   readonly wRe: Float64Array;
   readonly wIm: Float64Array;
+  /**
+   * The right-hand side whose forward substitution (y with L·y = P·b) the last factorization left
+   * in wRe/wIm (`factorPencil` with b), or null; any solve or factorization clears it.
+   */
+  forwardRe: Float64Array | null = null;
+  forwardIm: Float64Array | null = null;
   /** True when the last (re)factorization met a zero pivot. */
   singular = false;
   /** Step at which the last factorization failed, or −1. */

@@ -1,5 +1,6 @@
 import type { LUFactors } from "./sparse-lu-factors";
 import type { PivotTests } from "./sparse-lu-scaling";
+import { factorScatter } from "./sparse-lu-scatter";
 
 /**
  * Numeric factorization of A = re + j·imScale·im into `f` over its current order (`f.use`), by the
@@ -10,9 +11,10 @@ import type { PivotTests } from "./sparse-lu-scaling";
  *  - zero pivot: |u_kk|·c_k·r_k ≤ absTol  ⇔  |u_kk|² ≤ absTol²·rm[k]·cm[k];
  *  - threshold: |u_kk|·c_k ≥ τ·(|re|+|im|)(u_kj)·c_j/√2 for every j of U's row k (|x|₁/√2 ≤ |x|₂,
  *    a conservative bound; the row factor cancels)  ⇔  |u_kk|²·cm[j] ≥ ½τ²·(|re|+|im|)²·cm[k].
- * One algorithm (up-looking elimination, one row per step: load the row, eliminate, test the
- * pivot), kept in one function on purpose: it is the sweep's hot loop, and a helper per stage
- * would add a call and re-read the arrays per row.
+ * Two steps: load every slot (one flat pass, or a copy from the pencil's slots: `factorPencil`),
+ * then one loop over the rows (up-looking elimination: eliminate, test the pivot), kept in one
+ * function on purpose: it is the sweep's hot loop, and a helper per row would add a call and
+ * re-read the arrays. Loading row by row inside that loop cost three short loops per row.
  */
 export function factorNumeric(
   f: LUFactors,
@@ -22,11 +24,69 @@ export function factorNumeric(
   imScale: number,
   tau: number,
 ): boolean {
+  const plan = f.plan!;
+  f.forwardRe = null;
+  f.forwardIm = null;
+  if (!plan.upd) return factorScatter(f, tests, re, im, imScale, tau);
+  // Every slot starts as its entry of A (zero at fill), in one flat pass before the elimination:
+  // a row's elimination writes only its own slots, so no slot is read before it is loaded.
+  const { src } = plan;
+  const { fRe, fIm } = f;
+  for (let t = 0; t < src.length; t++) {
+    const p = src[t]!;
+    fRe[t] = p >= 0 ? re[p]! : 0;
+    fIm[t] = p >= 0 ? imScale * im[p]! : 0;
+  }
+  return eliminate(f, tests, tau, null, null);
+}
+
+/**
+ * `factorNumeric` of A = G + jωC from the pencil's values laid out in the plan's slots
+ * (`Plan.slotG`, `Plan.slotC`, see `planPencil`): the load is a copy and a scaled copy, the same
+ * numbers bit for bit as gathering g[p] and ω·c[p] (and 0 at fill, for ω ≥ 0).
+ * Needs the plan's update slots and ω finite and ≥ 0 (the caller checks).
+ * With a right-hand side b it also runs the forward substitution L·y = P·b along the elimination
+ * (row k of L is final at step k), the same arithmetic as `solveFactors`' forward pass, which a
+ * `solve` of the same b arrays then skips (see `LUFactors.forwardRe`).
+ */
+export function factorPencil(
+  f: LUFactors,
+  tests: PivotTests,
+  omega: number,
+  tau: number,
+  bRe: Float64Array | null,
+  bIm: Float64Array | null,
+): boolean {
+  const plan = f.plan!;
+  f.forwardRe = null;
+  f.forwardIm = null;
+  const gs = plan.slotG!;
+  const cs = plan.slotC!;
+  const { fRe, fIm } = f;
+  fRe.set(gs);
+  for (let t = 0; t < cs.length; t++) fIm[t] = omega * cs[t]!;
+  return eliminate(f, tests, tau, bRe, bIm);
+}
+
+/**
+ * The elimination over the plan's slots, after every slot holds its entry of A: row by row
+ * (up-looking), each product landing on the slot the plan recorded for it, then the pivot tests;
+ * with b, the forward substitution into f.wRe/wIm as it goes (see `factorPencil`).
+ */
+function eliminate(
+  f: LUFactors,
+  tests: PivotTests,
+  tau: number,
+  bRe: Float64Array | null,
+  bIm: Float64Array | null,
+): boolean {
   const s = f.sym!;
   const plan = f.plan!;
-  if (!plan.upd) return factorScatter(f, tests, re, im, imScale, tau);
-  const { lPtr, lIdx, uPtr, uIdx } = s;
-  const { src, updStart, upd } = plan;
+  const { lPtr, lIdx, uPtr, uIdx, rowPerm } = s;
+  const { wRe, wIm } = f;
+  const fwd = bRe !== null && bIm !== null;
+  const { updStart } = plan;
+  const upd = plan.upd!;
   const { fRe, fIm, invRe, invIm, n } = f;
   const { cm, rm } = tests;
   const offU = lIdx.length;
@@ -42,20 +102,12 @@ export function factorNumeric(
     const l1 = lPtr[k + 1]!;
     const u1 = offU + uPtr[k + 1]!;
     const dk = offD + k;
-    // Row k of the factors starts as row rowPerm[k] of A, zero at its fill.
-    for (let q = l0; q < l1; q++) {
-      const p = src[q]!;
-      fRe[q] = p >= 0 ? re[p]! : 0;
-      fIm[q] = p >= 0 ? imScale * im[p]! : 0;
+    let yr = 0;
+    let yi = 0;
+    if (fwd) {
+      yr = bRe[rowPerm[k]!]!;
+      yi = bIm[rowPerm[k]!]!;
     }
-    for (let t = u0; t < u1; t++) {
-      const p = src[t]!;
-      fRe[t] = p >= 0 ? re[p]! : 0;
-      fIm[t] = p >= 0 ? imScale * im[p]! : 0;
-    }
-    const pd = src[dk]!;
-    fRe[dk] = pd >= 0 ? re[pd]! : 0;
-    fIm[dk] = pd >= 0 ? imScale * im[pd]! : 0;
     // Eliminate with earlier rows, in ascending order of the L pattern: l = a_kj / u_jj, then
     // row k −= l·(row j of U), each product landing on the slot the plan recorded for it.
     for (let q = l0; q < l1; q++) {
@@ -68,6 +120,10 @@ export function factorNumeric(
       const li = xr * ii + xi * ir;
       fRe[q] = lr;
       fIm[q] = li;
+      if (fwd) {
+        yr -= lr * wRe[j]! - li * wIm[j]!;
+        yi -= lr * wIm[j]! + li * wRe[j]!;
+      }
       if (lr === 0 && li === 0) continue;
       const t0 = offU + uPtr[j]!;
       const m0 = updStart[q]!;
@@ -101,106 +157,12 @@ export function factorNumeric(
     const inv = 1 / d;
     invRe[k] = pr * inv;
     invIm[k] = -pi * inv;
+    wRe[k] = yr;
+    wIm[k] = yi;
   }
-  return true;
-}
-
-/**
- * `factorNumeric` with a dense scatter vector instead of the plan's update slots: for orders whose
- * elimination would need more than PLAN_LIMIT recorded updates (much fill). Same arithmetic, and
- * one algorithm in one function for the same reason.
- */
-function factorScatter(
-  f: LUFactors,
-  tests: PivotTests,
-  re: Float64Array,
-  im: Float64Array,
-  imScale: number,
-  tau: number,
-): boolean {
-  const s = f.sym!;
-  const { rowPtr } = f.a;
-  const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
-  const aPos = f.plan!.aPos;
-  const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, n } = f;
-  const { cm, rm } = tests;
-  const tol2 = tests.absTol * tests.absTol;
-  const half = 0.5 * tau * tau;
-  f.singular = false;
-  f.failedStep = -1;
-  if (f.failedCols.length > 0) f.failedCols = [];
-  // The scatter vector starts at zero (`solve` uses it as scratch too); each row leaves it zero,
-  // so no row has to clear its pattern first.
-  wRe.fill(0);
-  wIm.fill(0);
-  let l0 = 0;
-  let u0 = 0;
-  for (let k = 0; k < n; k++) {
-    const l1 = lPtr[k + 1]!;
-    const u1 = uPtr[k + 1]!;
-    // Scatter row rowPerm[k] of A (w is zero here: every entry of the row's pattern is zeroed as
-    // it is read below, and every entry written lies in that pattern).
-    const r = rowPerm[k]!;
-    const p1 = rowPtr[r + 1]!;
-    for (let p = rowPtr[r]!; p < p1; p++) {
-      const j = aPos[p]!;
-      wRe[j] = wRe[j]! + re[p]!;
-      wIm[j] = wIm[j]! + imScale * im[p]!;
-    }
-    // Eliminate with earlier rows, in ascending order of the L pattern.
-    for (let q = l0; q < l1; q++) {
-      const j = lIdx[q]!;
-      const xr = wRe[j]!;
-      const xi = wIm[j]!;
-      wRe[j] = 0;
-      wIm[j] = 0;
-      const ir = invRe[j]!;
-      const ii = invIm[j]!;
-      const lr = xr * ir - xi * ii;
-      const li = xr * ii + xi * ir;
-      lRe[q] = lr;
-      lIm[q] = li;
-      if (lr === 0 && li === 0) continue;
-      const t1 = uPtr[j + 1]!;
-      for (let t = uPtr[j]!; t < t1; t++) {
-        const c = uIdx[t]!;
-        const ur = uRe[t]!;
-        const ui = uIm[t]!;
-        wRe[c] = wRe[c]! - (lr * ur - li * ui);
-        wIm[c] = wIm[c]! - (lr * ui + li * ur);
-      }
-    }
-    const pr = wRe[k]!;
-    const pi = wIm[k]!;
-    wRe[k] = 0;
-    wIm[k] = 0;
-    const d = pr * pr + pi * pi;
-    const ck = cm[k]!;
-    const hk = half * ck;
-    let small = d <= tol2 * rm[k]! * ck;
-    // Gather U's row (leaving w zero) and test each entry against the pivot.
-    for (let t = u0; t < u1; t++) {
-      const c = uIdx[t]!;
-      const vr = wRe[c]!;
-      const vi = wIm[c]!;
-      uRe[t] = vr;
-      uIm[t] = vi;
-      wRe[c] = 0;
-      wIm[c] = 0;
-      const m = Math.abs(vr) + Math.abs(vi);
-      if (d * cm[c]! < hk * m * m) small = true;
-    }
-    l0 = l1;
-    u0 = u1;
-    if (small) {
-      f.singular = d <= tol2 * rm[k]! * ck;
-      f.failedStep = k;
-      f.failedCols = Array.from(s.colPerm.subarray(k));
-      return false;
-    }
-    const inv = 1 / d;
-    invRe[k] = pr * inv;
-    invIm[k] = -pi * inv;
+  if (fwd) {
+    f.forwardRe = bRe;
+    f.forwardIm = bIm;
   }
   return true;
 }

@@ -1,5 +1,5 @@
-import type { PencilMaxima } from "./equilibrate";
 import type { Symbolic } from "./markowitz";
+import type { PencilMaxima } from "./pencil-maxima";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 /** Most update slots a plan records (4 bytes each); an order needing more factors by scatter. */
@@ -22,6 +22,9 @@ export interface Plan {
   pencilOf: PencilMaxima | null;
   updStart: Int32Array;
   upd: Int32Array | null;
+  /** G's and C's entries in the slots (0 at fill) of the pencil `pencilOf` (plans with `upd` only). */
+  slotG: Float64Array | null;
+  slotC: Float64Array | null;
 }
 
 export function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
@@ -59,5 +62,33 @@ export function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
     for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = -1;
     slot[k] = -1;
   }
-  return { aPos, src, updStart, upd, pencil: null, pencilOf: null };
+  return { aPos, src, updStart, upd, pencil: null, pencilOf: null, slotG: null, slotC: null };
+}
+
+/**
+ * Bind the plan to a pencil G + s·C (G, C in A's CSR order): its maxima terms in this order, and
+ * (with update slots) G and C laid out in the factors' slots, so a refactor loads them by copying.
+ */
+export function planPencil(
+  plan: Plan,
+  pen: PencilMaxima & { g: Float64Array; c: Float64Array },
+  inOrder: PencilMaxima,
+): void {
+  plan.pencil = inOrder;
+  plan.pencilOf = pen;
+  plan.slotG = null;
+  plan.slotC = null;
+  if (!plan.upd) return;
+  const { g, c } = pen;
+  const { src } = plan;
+  const sg = new Float64Array(src.length);
+  const sc = new Float64Array(src.length);
+  for (let t = 0; t < src.length; t++) {
+    const p = src[t]!;
+    if (p < 0) continue;
+    sg[t] = g[p]!;
+    sc[t] = c[p]!;
+  }
+  plan.slotG = sg;
+  plan.slotC = sc;
 }

@@ -18,10 +18,14 @@ export function solveFactors(
   if (bRe.length !== n || bIm.length !== n || xRe.length !== n || xIm.length !== n) {
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
-  const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
-  const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  const { rowPerm, lPtr, lIdx } = f.sym;
+  const { lRe, lIm, wRe, wIm } = f;
+  // The factorization ran the forward pass of this b already (`factorPencil`): y is in w.
+  const forwarded = f.forwardRe === bRe && f.forwardIm === bIm;
+  f.forwardRe = null;
+  f.forwardIm = null;
   let q0 = 0;
-  for (let k = 0; k < n; k++) {
+  for (let k = forwarded ? n : 0; k < n; k++) {
     const r = rowPerm[k]!;
     let yr = bRe[r]!;
     let yi = bIm[r]!;
@@ -35,7 +39,62 @@ export function solveFactors(
     wRe[k] = yr;
     wIm[k] = yi;
   }
-  // Backward; x may alias b, whose entries the forward pass has read already.
+  return backward(f, xRe, xIm);
+}
+
+/**
+ * Solve A·x = −M·v with the factors f, for a sparse real M in CSR (mPtr, mIdx, mVal; the C of
+ * A(s) = G + s·C gives dx/ds = −A⁻¹·C·x): each entry of −M·v is formed as the forward pass
+ * reaches its row, the same arithmetic as forming −M·v first and calling `solveFactors`.
+ * v must not alias x. Cost O(nnz(M)+nnz(L)+nnz(U)+n). Returns false when x is not finite.
+ */
+export function solveFactorsOfProduct(
+  f: LUFactors,
+  m: { ptr: Int32Array; idx: Int32Array; val: Float64Array },
+  vRe: Float64Array,
+  vIm: Float64Array,
+  xRe: Float64Array,
+  xIm: Float64Array,
+): boolean {
+  if (f.singular || !f.sym) throw new Error("matrix is singular: cannot solve");
+  const n = f.n;
+  if (vRe.length !== n || vIm.length !== n || xRe.length !== n || xIm.length !== n) {
+    throw new RangeError("dimension mismatch: right-hand side length ≠ n");
+  }
+  const { rowPerm, lPtr, lIdx } = f.sym;
+  const { lRe, lIm, wRe, wIm } = f;
+  const { ptr, idx, val } = m;
+  f.forwardRe = null;
+  f.forwardIm = null;
+  let q0 = 0;
+  for (let k = 0; k < n; k++) {
+    const r = rowPerm[k]!;
+    let yr = 0;
+    let yi = 0;
+    const p1 = ptr[r + 1]!;
+    for (let p = ptr[r]!; p < p1; p++) {
+      const mv = val[p]!;
+      const j = idx[p]!;
+      yr -= mv * vRe[j]!;
+      yi -= mv * vIm[j]!;
+    }
+    const q1 = lPtr[k + 1]!;
+    for (let q = q0; q < q1; q++) {
+      const j = lIdx[q]!;
+      yr -= lRe[q]! * wRe[j]! - lIm[q]! * wIm[j]!;
+      yi -= lRe[q]! * wIm[j]! + lIm[q]! * wRe[j]!;
+    }
+    q0 = q1;
+    wRe[k] = yr;
+    wIm[k] = yi;
+  }
+  return backward(f, xRe, xIm);
+}
+
+/** U·z = y (y in f.w), x = Q·z; false when x has a NaN or ±∞. */
+function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array): boolean {
+  const { colPerm, uPtr, uIdx } = f.sym!;
+  const { uRe, uIm, invRe, invIm, wRe, wIm, n } = f;
   let t1 = uPtr[n]!;
   let finite = 0;
   for (let k = n - 1; k >= 0; k--) {
@@ -82,6 +141,8 @@ export function solveFactorsTransposed(
   }
   const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
   const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  f.forwardRe = null;
+  f.forwardIm = null;
   for (let k = 0; k < n; k++) {
     wRe[k] = dRe[colPerm[k]!]!;
     wIm[k] = dIm[colPerm[k]!]!;

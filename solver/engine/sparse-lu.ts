@@ -1,9 +1,11 @@
-import { type PencilMaxima, pencilInOrder, pencilMaxima, pencilTests, rowColumnMaxima } from "./equilibrate";
+import { rowColumnMaxima } from "./equilibrate";
 import { markowitzOrder, type OrderingOptions, type Symbolic } from "./markowitz";
+import { type PencilMaxima, pencilInOrder, pencilMaxima, pencilTests } from "./pencil-maxima";
 import { LUFactors } from "./sparse-lu-factors";
-import { factorNumeric } from "./sparse-lu-numeric";
+import { factorNumeric, factorPencil } from "./sparse-lu-numeric";
+import { planPencil } from "./sparse-lu-plan";
 import { PivotTests } from "./sparse-lu-scaling";
-import { solveFactors, solveFactorsTransposed } from "./sparse-lu-solve";
+import { solveFactors, solveFactorsOfProduct, solveFactorsTransposed } from "./sparse-lu-solve";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 export interface SparseLUOptions {
@@ -37,10 +39,9 @@ export interface SparseLUOptions {
  * equilibrated matrix is singular to working precision — never merely "values far apart"
  * (1 fF beside 1 TΩ, 1 F at 1 GHz).
  *
- * Files: this class (the sweep's policy: which order, when to re-pivot), `sparse-lu-plan.ts` (an
- * order's plan), `sparse-lu-factors.ts` (the numbers of the factors), `sparse-lu-scaling.ts` (the
- * scaling behind the pivot tests), `sparse-lu-numeric.ts` (the numeric factorization) and
- * `sparse-lu-solve.ts` (the triangular solves).
+ * Files: this class (which order, when to re-pivot), `sparse-lu-plan.ts` (an order's plan),
+ * `-factors.ts` (the numbers), `-scaling.ts` (the pivot tests' scaling), `-numeric.ts` and
+ * `-scatter.ts` (the numeric factorization), `-solve.ts` (the triangular solves).
  *
  * Cost: refactor O(Σ_k |U_k|·|L_k|) flops over the fill pattern plus the scaling step (O(n) with a
  * pencil, O(nnz) without; a few passes before an analysis), solve O(nnz(L)+nnz(U)+n).
@@ -151,8 +152,11 @@ export class SparseComplexLU {
    * as `refactor(g, ω·c)`, but the values are read from G and C directly (no assembled copy) and
    * the scaling step off the pencil's precomputed terms. A's value arrays are written only when
    * this frequency needs more than the sweep's order (a re-pivot reads them).
+   * With a right-hand side b, the forward substitution of b runs along the elimination when the
+   * sweep's order holds, and a following `solve(b)` of the same arrays (unchanged in between)
+   * only substitutes backward: the same numbers as without.
    */
-  refactorAt(omega: number): boolean {
+  refactorAt(omega: number, bRe: Float64Array | null = null, bIm: Float64Array | null = null): boolean {
     const pen = this.pencil;
     if (!pen) throw new Error("refactorAt needs setPencil first");
     const { g, c } = pen;
@@ -164,13 +168,13 @@ export class SparseComplexLU {
     const w = Math.abs(omega);
     // One Ruiz step, its maxima straight into the tests of the sweep's order.
     const plan = this.f.plan!;
-    if (plan.pencilOf !== pen) {
-      plan.pencil = pencilInOrder(pen, this.base);
-      plan.pencilOf = pen;
-    }
+    if (plan.pencilOf !== pen) planPencil(plan, pen, pencilInOrder(pen, this.base));
     pencilTests(plan.pencil!, w, this.t.cm, this.t.rm);
     this.t.oneStep();
-    if (this.numeric(g, c, omega)) return true;
+    // The values copied from the plan's slots of G and C (same numbers as reading G and C).
+    const slots = plan.slotG !== null && omega >= 0 && omega < Number.POSITIVE_INFINITY;
+    const tau = this.opt.pivotThreshold;
+    if (slots ? factorPencil(this.f, this.t, omega, tau, bRe, bIm) : this.numeric(g, c, omega)) return true;
     this.fill(omega, g, c);
     const { re, im } = this.a;
     rowColumnMaxima(this.a, re, im, this.t.rmax, this.t.cmax);
@@ -244,6 +248,21 @@ export class SparseComplexLU {
    */
   solve(bRe: Float64Array, bIm: Float64Array, xRe: Float64Array = bRe, xIm: Float64Array = bIm): boolean {
     return solveFactors(this.f, bRe, bIm, xRe, xIm);
+  }
+
+  /**
+   * Solve A·x = −M·v (M sparse real in CSR, in A's row numbering; v must not alias x) without
+   * forming −M·v first (`solveFactorsOfProduct`): dx/ds = −A⁻¹·C·x in one pass. Same numbers as
+   * `solve` of −M·v.
+   */
+  solveProduct(
+    m: { ptr: Int32Array; idx: Int32Array; val: Float64Array },
+    vRe: Float64Array,
+    vIm: Float64Array,
+    xRe: Float64Array,
+    xIm: Float64Array,
+  ): boolean {
+    return solveFactorsOfProduct(this.f, m, vRe, vIm, xRe, xIm);
   }
 
   /**
