@@ -29,12 +29,19 @@ export function makeTrace(
 
 /**
  * Group delay τ = −d∠X/dω from X and its exact derivative X' = dX/ds at s = jω:
- * dX/dω = j·X', so d∠X/dω = Im(j·X'/X) = Re(X'/X) and τ = −Re(X'/X). Null where |X| = 0
- * (the phase is undefined there).
+ * dX/dω = j·X', so d∠X/dω = Im(j·X'/X) = Re(X'/X) and τ = −Re(X'/X). Computed on X and X' divided by
+ * max(|Re X|, |Im X|), so |X|² cannot underflow deep in a stop band (a ladder's far end reaches 1e−160).
+ * Null where X = 0 (the phase is undefined there) and where X is subnormal (below 2.2e−308 a double keeps
+ * too few digits for a derivative ratio to mean anything).
  */
+/** The smallest normal double (2^−1022). */
+const MIN_NORMAL = 2.2250738585072014e-308;
+
 export function groupDelayOf(x: Dual): number | null {
-  const m2 = x.re * x.re + x.im * x.im;
-  if (!(m2 > 0) || !Number.isFinite(m2)) return null;
-  const t = -(x.dRe * x.re + x.dIm * x.im) / m2;
+  const scale = Math.max(Math.abs(x.re), Math.abs(x.im));
+  if (!(scale >= MIN_NORMAL) || !Number.isFinite(scale)) return null;
+  const re = x.re / scale;
+  const im = x.im / scale;
+  const t = -((x.dRe / scale) * re + (x.dIm / scale) * im) / (re * re + im * im);
   return Number.isFinite(t) ? t : null;
 }

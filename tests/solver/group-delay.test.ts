@@ -4,6 +4,7 @@
  */
 import { describe, expect, it } from "vitest";
 import { solveNetlist } from "@/solver";
+import { groupDelayOf } from "@/solver/engine/trace";
 import type { SolveSuccess } from "@/solver/types";
 import { expectClose } from "./engine-tolerance";
 
@@ -80,6 +81,29 @@ measure t2 = group-delay(H) at 2kHz
     expectClose(value(r, "t0"), a / wc, 1e-6);
     expectClose(value(r, "tc"), tau(1e3), 1e-9);
     expectClose(value(r, "t2"), tau(2e3), 1e-9);
+  });
+
+  it("keeps its value deep in a stop band, where |X|² would underflow, and is null once X is subnormal (first-order RC, common practice)", () => {
+    const rc = 1e-4;
+    const w = 2 * Math.PI * 20e3;
+    // X = a/(1 + jωRC), X' = dX/ds = −a·RC/(1 + jωRC)²; τ = RC/(1 + (ωRC)²) whatever the scale a.
+    const dual = (a: number) => {
+      const dRe = 1;
+      const dIm = w * rc;
+      const d2 = dRe * dRe + dIm * dIm;
+      const re = (a * dRe) / d2;
+      const im = (-a * dIm) / d2;
+      // 1/(1 + jωRC)² = (1 − jωRC)²/d2²
+      const sqRe = (dRe * dRe - dIm * dIm) / (d2 * d2);
+      const sqIm = (-2 * dRe * dIm) / (d2 * d2);
+      return { re, im, dRe: -a * rc * sqRe, dIm: -a * rc * sqIm };
+    };
+    const tau = rc / (1 + (w * rc) ** 2);
+    expectClose(groupDelayOf(dual(1))!, tau, 1e-12);
+    // |X| ≈ 1e−162: |X|² is 0 in doubles, yet X and X' are ordinary numbers.
+    expectClose(groupDelayOf(dual(1e-160))!, tau, 1e-12);
+    expect(groupDelayOf(dual(1e-310))).toBeNull();
+    expect(groupDelayOf({ re: 0, im: 0, dRe: 1, dIm: 0 })).toBeNull();
   });
 
   it("is null with a reason at a transmission zero", () => {
