@@ -145,7 +145,7 @@ export function BodePlot({
 
   const h = compact ? Math.round(height * 0.8) : height;
   return (
-    <figure className="w-full" aria-label={label}>
+    <figure className="w-full" aria-label={label} data-bode-plot="">
       {withCursors || pngButton ? (
         <PlotToolbar
           mode={withCursors ? mode : "pin"}

@@ -141,7 +141,8 @@ export function logTicks(
   for (let d = Math.floor(lo); d <= Math.ceil(hi); d++) {
     for (const k of digits) {
       const at = d + Math.log10(k);
-      if (at < lo - 1e-9 || at > hi + 1e-9) continue;
+      // The library leaves out a digit tick that falls right on the range's far end.
+      if (at < lo - 1e-9 || at > hi - 1e-9) continue;
       const value = Number((k * 10 ** d).toPrecision(12));
       if (k === 1 || spec.tickformat) ticks.push({ at, label: siLabel(value) });
       else ticks.push({ at, label: String(k), minor: true });

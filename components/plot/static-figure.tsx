@@ -148,6 +148,11 @@ export const StaticFigure = memo(function StaticFigure({
           <line key={i} x1={l.x1} y1={l.y1} x2={l.x2} y2={l.y2} stroke={l.color} strokeWidth={l.width} />
         ))}
       </g>
+      <g shapeRendering="crispEdges">
+        {scene.axisLines.map((l, i) => (
+          <line key={i} x1={l.x1} y1={l.y1} x2={l.x2} y2={l.y2} stroke={l.color} strokeWidth={l.width} />
+        ))}
+      </g>
       {scene.traces.map((t) => (
         <g
           key={t.index}

@@ -96,6 +96,8 @@ export interface Scene {
   plotBgs: RectItem[];
   grid: LineItem[];
   zero: LineItem[];
+  /** Axis lines (where an axis has a line colour). */
+  axisLines: LineItem[];
   below: (LineItem | RectItem)[];
   traces: TraceItem[];
   above: (LineItem | RectItem)[];
@@ -351,8 +353,9 @@ export function layoutScene(
   };
   const legendTraces = traces.filter((t) => t.t.showlegend !== false);
   const showLegend = layout.showlegend === true || (layout.showlegend !== false && legendTraces.length > 1);
+  // Each entry: a 40 px sample, the name, a small gap (as the library spaces them).
   const entryWidth = (t: TraceInfo) =>
-    40 + measure(plainText(str(t.t.name, `trace ${t.index}`)).text, legendFont.size, font.family) + 10;
+    40 + measure(plainText(str(t.t.name, `trace ${t.index}`)).text, legendFont.size, font.family) + 6;
   const rowH = Math.max(16, legendFont.size * 1.3) + 3;
   let legendRows = 0;
   if (showLegend && legendTraces.length > 0) {
@@ -368,7 +371,9 @@ export function layoutScene(
       x += w;
     }
   }
-  const legendH = legendRows > 0 ? legendRows * rowH + 6 : 0;
+  // The legend box (rows, 5 px padding above and below) plus the 12 px the library keeps clear of the edge.
+  const legendBox = legendRows > 0 ? legendRows * rowH + 10 : 0;
+  const legendH = legendRows > 0 ? legendBox + 12 : 0;
   const legendY = num(legendSpec.y) ?? 1;
   const legendYAnchor = str(legendSpec.yanchor, legendY < 0 ? "top" : "bottom");
   if (legendH > 0) {
@@ -518,6 +523,7 @@ export function layoutScene(
     plotBgs: [],
     grid: [],
     zero: [],
+    axisLines: [],
     below: [],
     traces: [],
     above: [],
@@ -618,6 +624,26 @@ export function layoutScene(
             },
       );
     }
+    // The library draws the axis line whenever a line colour is given (showline defaults to it).
+    const lineColor = typeof s.linecolor === "string" ? s.linecolor : null;
+    if (s.showline === true || (s.showline !== false && lineColor)) {
+      const lw = num(s.linewidth) ?? 1;
+      const color = lineColor ?? "#444";
+      if (ax.letter === "x") {
+        const y = s.side === "top" ? span[0]! - lw / 2 : span[1]! + lw / 2;
+        scene.axisLines.push({
+          x1: ax.start - lw,
+          y1: y,
+          x2: ax.start + ax.length + lw,
+          y2: y,
+          color,
+          width: lw,
+        });
+      } else {
+        const x = right ? span[1]! + lw / 2 : span[0]! - lw / 2;
+        scene.axisLines.push({ x1: x, y1: ax.start, x2: x, y2: ax.start - ax.length, color, width: lw });
+      }
+    }
     const [lo, hi] = [Math.min(...ax.range), Math.max(...ax.range)];
     if (ax.type === "linear" && s.zeroline !== false && 0 >= lo && 0 <= hi) {
       const p = scalePx(ax, 0);
@@ -639,7 +665,8 @@ export function layoutScene(
         const labelled = s.showticklabels !== false && ax.ticks.length > 0;
         scene.texts.push({
           x: ax.start + ax.length / 2,
-          y: span[1]! + (labelled ? tickSize + 6 : 4) + 10 + size * 0.8,
+          // The library sets the title's top two tick-label heights and 10 px below the plot.
+          y: span[1]! + (labelled ? 2 * tickSize : 4) + 10 + size * 0.8,
           text,
           bold,
           size,
@@ -648,7 +675,7 @@ export function layoutScene(
           anchor: "middle",
         });
       } else {
-        const edge = right ? span[1]! + 3 + widest + 10 + size * 0.8 : span[0]! - 3 - widest - 10;
+        const edge = right ? span[1]! + widest + 11 + size * 0.8 : span[0]! - widest - 11;
         scene.texts.push({
           x: edge,
           y: ax.start - ax.length / 2,
@@ -865,7 +892,7 @@ export function layoutScene(
   if (legendRows > 0) {
     const lx = plot.x + (num(legendSpec.x) ?? 0) * plot.w;
     const anchorY = plot.y + plot.h - legendY * plot.h;
-    const top = legendYAnchor === "top" ? anchorY : anchorY - legendH;
+    const top = legendYAnchor === "top" ? anchorY : anchorY - legendBox;
     const avail = Math.max(100, width - margin.l - margin.r);
     let x = 0;
     let row = 0;
@@ -875,7 +902,7 @@ export function layoutScene(
         row++;
         x = 0;
       }
-      const cy = top + 3 + row * rowH + rowH / 2;
+      const cy = top + 5 + row * rowH + rowH / 2;
       const ox = lx + x;
       const line = obj(t.t.line);
       const marker = obj(t.t.marker);
