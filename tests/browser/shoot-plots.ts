@@ -40,6 +40,24 @@ async function pair(page: Page, name: string, url: string | null) {
 
 async function main() {
   const browser = await launch();
+  /** Every chart on a page: full-page shots before any hover and after hovering each in turn. */
+  async function allCharts(page: Page, name: string, url: string) {
+    await page.goto(url);
+    await page.locator("[data-plot][data-hydrated]").first().waitFor({ timeout: 60_000 });
+    await page.evaluate(() => {
+      for (const d of document.querySelectorAll("details")) d.open = true;
+    });
+    await page.waitForTimeout(1000);
+    await page.screenshot({ path: `${out}/${name}-all-static.png`, fullPage: true });
+    const n = await page.locator("[data-plot]").count();
+    for (let i = 0; i < n; i++) {
+      if (await page.locator("[data-plot]").nth(i).isVisible()) await interactivePlot(page, i);
+    }
+    await page.mouse.move(0, 0);
+    await page.waitForTimeout(1000);
+    await page.screenshot({ path: `${out}/${name}-all-interactive.png`, fullPage: true });
+    console.log(`${name}: ${n} charts`);
+  }
   try {
     for (const [size, viewport] of Object.entries(SIZES)) {
       const { context, page } = await signedIn(browser, "designer@demo.test", viewport);
@@ -57,6 +75,8 @@ async function main() {
       const [a, b] = runs.map((r) => r.replace("/runs/", ""));
       await pair(page, `compare-${size}`, `/compare?a=${a}&b=${b}`);
       await pair(page, `editor-${size}`, `/projects/${projectId}/new`);
+      if (size === "wide")
+        for (const [i, r] of runs.slice(0, 4).entries()) await allCharts(page, `run${i + 1}`, r);
       await context.close();
     }
   } finally {
