@@ -98,6 +98,12 @@ export function linearLabels(values: readonly number[], step: number): string[] 
   return values.map((v) => `${plain(v / 10 ** exp, decimals)}${v === 0 ? "" : prefix}`);
 }
 
+/** A decade's label without a tickformat: plain from 0.001 to 1000, SI-prefixed beyond ("10k", "100µ"). */
+function decadeLabel(value: number): string {
+  const exp = Math.floor(Math.log10(value) + 1e-9);
+  return Math.abs(exp) > 3 ? siLabel(value) : plain(value, Math.max(0, -exp));
+}
+
 const LOG_DIGITS: Record<string, number[]> = {
   D1: [1, 2, 3, 4, 5, 6, 7, 8, 9],
   D2: [1, 2, 5],
@@ -121,10 +127,11 @@ export function logTicks(
     dtick = rough > 0.7 ? Math.ceil(rough) : hi - lo < 1 ? "L" : rough > 0.3 ? "D2" : "D1";
   }
   const ticks: Tick[] = [];
+  const label = spec.tickformat ? siLabel : decadeLabel;
   if (typeof dtick === "number" || (typeof dtick === "string" && /^\d+(\.\d+)?$/.test(dtick))) {
     const step = Math.max(1, Math.round(Number(dtick)));
     for (let d = Math.ceil(lo / step - 1e-9) * step; d <= hi + 1e-9; d += step) {
-      ticks.push({ at: d, label: siLabel(10 ** d) });
+      ticks.push({ at: d, label: label(Number((10 ** d).toPrecision(12))) });
     }
     return ticks;
   }
@@ -141,10 +148,10 @@ export function logTicks(
   for (let d = Math.floor(lo); d <= Math.ceil(hi); d++) {
     for (const k of digits) {
       const at = d + Math.log10(k);
-      // The library leaves out a digit tick that falls right on the range's far end.
-      if (at < lo - 1e-9 || at > hi - 1e-9) continue;
+      // No slack at the far end, as in the library: a range ending a hair below a decade leaves it out.
+      if (at < lo - 1e-9 || at > hi) continue;
       const value = Number((k * 10 ** d).toPrecision(12));
-      if (k === 1 || spec.tickformat) ticks.push({ at, label: siLabel(value) });
+      if (k === 1 || spec.tickformat) ticks.push({ at, label: label(value) });
       else ticks.push({ at, label: String(k), minor: true });
     }
   }

@@ -274,8 +274,10 @@ function barGeometry(tr: TraceInfo, bargap: number) {
   }
   const width = (i: number) =>
     Array.isArray(w) ? (num(w[i]) ?? step * (1 - bargap)) : (num(w) ?? step * (1 - bargap));
+  // The slot a bar sits in (what the auto range spans): its own width when given, else the spacing.
+  const slot = (i: number) => (Array.isArray(w) || num(w) !== null ? width(i) : step);
   const base = num(tr.t.base) ?? 0;
-  return { pos, val, width, base };
+  return { pos, val, width, slot, base };
 }
 
 /** The library pads auto ranges by 5 % of the axis length at each padded end. */
@@ -306,6 +308,8 @@ function autorange(
 
 interface Collected {
   values: number[];
+  /** Positions (on the axis' scale) that need this many pixels clear on each side (annotation text). */
+  pads: { at: number; px: number }[];
   padLo: boolean;
   padHi: boolean;
   tozero: boolean;
@@ -398,7 +402,7 @@ export function layoutScene(
   const col = (id: string) => {
     let c = data.get(id);
     if (!c) {
-      c = { values: [], padLo: false, padHi: false, tozero: false, categories: [], raw: [] };
+      c = { values: [], pads: [], padLo: false, padHi: false, tozero: false, categories: [], raw: [] };
       data.set(id, c);
     }
     return c;
@@ -414,7 +418,7 @@ export function layoutScene(
       const g = barGeometry(tr, bargap);
       g.pos.forEach((p, i) => {
         const n = num(p);
-        if (n !== null) cpos.values.push(n - g.width(i) / 2, n + g.width(i) / 2);
+        if (n !== null) cpos.values.push(n - g.slot(i) / 2, n + g.slot(i) / 2);
         const v = num(g.val[i]);
         if (v !== null) {
           cval.values.push(v + g.base, g.base);
@@ -440,6 +444,19 @@ export function layoutScene(
       for (const k of ["x0", "x1"]) if (num(s[k]) !== null) col(xr).values.push(s[k] as number);
     if (yr !== "paper")
       for (const k of ["y0", "y1"]) if (num(s[k]) !== null) col(yr).values.push(s[k] as number);
+  }
+
+  // Annotations on data axes stretch the auto range until their text fits (half its size each side).
+  const annotations = (Array.isArray(layout.annotations) ? layout.annotations : []).map(obj);
+  for (const a of annotations) {
+    const text = plainText(str(a.text, "")).text;
+    const size = num(obj(a.font).size) ?? font.size;
+    const w = measure(text, size, str(obj(a.font).family, font.family)) / 2 + (num(a.borderpad) ?? 1) + 1;
+    const xr = str(a.xref, "x");
+    const yr = str(a.yref, "y");
+    if (xr !== "paper" && num(a.x) !== null) col(xr).pads.push({ at: a.x as number, px: w });
+    if (yr !== "paper" && num(a.y) !== null)
+      col(yr).pads.push({ at: a.y as number, px: (size * 1.3) / 2 + 1 });
   }
 
   // Build the axes: type, pixel span, range.
@@ -488,6 +505,14 @@ export function layoutScene(
           padHi: all.some((a) => a.padHi),
           tozero: type !== "log" && (all.some((a) => a.tozero) || spec.rangemode === "tozero"),
         }) ?? (type === "log" ? [0, 1] : [-1, 1]);
+      // Annotation positions are on the axis' scale already (log10 on a log axis).
+      const pads = all.flatMap((a) => a.pads);
+      let r: [number, number] = range;
+      for (let pass = 0; pass < 3 && pads.length > 0; pass++) {
+        const perPx: number = (r[1] - r[0]) / Math.max(1, length);
+        for (const p of pads) r = [Math.min(r[0], p.at - p.px * perPx), Math.max(r[1], p.at + p.px * perPx)];
+      }
+      range = r;
     }
     axes.set(id, { id, letter, type, spec, range, start, length, categories, ticks: [] });
   }
@@ -817,7 +842,7 @@ export function layoutScene(
   }
 
   // Annotations (marker labels, cursor letters, limit labels).
-  for (const a of (Array.isArray(layout.annotations) ? layout.annotations : []).map(obj)) {
+  for (const a of annotations) {
     const xr = str(a.xref, "x");
     const yr = str(a.yref, "y");
     const axX = axes.get(xr);
@@ -879,7 +904,7 @@ export function layoutScene(
     const tx = num(title.x) ?? 0.5;
     scene.texts.push({
       x: tx * width,
-      y: margin.t / 2 + size * 0.35,
+      y: margin.t / 2 + size * 0.12,
       text: plainText(titleText).text,
       size,
       color: str(f.color, font.color),

@@ -60,5 +60,5 @@ export async function interactivePlot(page: Page, nth = 0): Promise<void> {
   const plot = page.locator("[data-plot]").nth(nth);
   await plot.and(page.locator("[data-hydrated]")).waitFor({ timeout: 60_000 });
   await plot.hover();
-  await plot.locator(".js-plotly-plot .scatterlayer .trace").first().waitFor({ timeout: 60_000 });
+  await plot.locator(".js-plotly-plot .trace").first().waitFor({ timeout: 60_000 });
 }

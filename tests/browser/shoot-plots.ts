@@ -51,7 +51,13 @@ async function main() {
     await page.screenshot({ path: `${out}/${name}-all-static.png`, fullPage: true });
     const n = await page.locator("[data-plot]").count();
     for (let i = 0; i < n; i++) {
-      if (await page.locator("[data-plot]").nth(i).isVisible()) await interactivePlot(page, i);
+      const chart = page.locator("[data-plot]").nth(i);
+      if (!(await chart.isVisible())) continue;
+      await chart.screenshot({ path: `${out}/${name}-chart${i}-static.png` });
+      await interactivePlot(page, i);
+      await page.mouse.move(0, 0);
+      await page.waitForTimeout(300);
+      await chart.screenshot({ path: `${out}/${name}-chart${i}-interactive.png` });
     }
     await page.mouse.move(0, 0);
     await page.waitForTimeout(1000);

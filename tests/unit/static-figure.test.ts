@@ -47,21 +47,30 @@ describe("static axes", () => {
     const decades = logTicks(1, 5, { dtick: 1, tickformat: "~s" }, 900, "x");
     expect(decades.map((t) => t.at)).toEqual([1, 2, 3, 4, 5]);
     expect(decades.map((t) => t.label)).toEqual(["10", "100", "1k", "10k", "100k"]);
-    // A digit tick right on the far end is left out, as the library does.
     const d2 = logTicks(2, 3.5, { dtick: "D2", tickformat: "~s" }, 900, "x");
     expect(d2.map((t) => t.label)).toEqual(["100", "200", "500", "1k", "2k"]);
-    expect(logTicks(2, 3, { dtick: "D2", tickformat: "~s" }, 900, "x").map((t) => t.label)).toEqual([
-      "100",
-      "200",
-      "500",
-    ]);
+    // No slack at the far end: a range ending a hair below 1 kHz leaves its tick out.
+    expect(logTicks(2, Math.log10(999.999), { dtick: "D2", tickformat: "~s" }, 900, "x")).toHaveLength(3);
     // Without a tickformat the digits between decades are small plain digits.
     const bare = logTicks(2, 3.1, { dtick: "D2" }, 900, "x");
     expect(bare.map((t) => [t.label, Boolean(t.minor)])).toEqual([
       ["100", false],
       ["2", true],
       ["5", true],
-      ["1k", false],
+      ["1000", false],
+    ]);
+    // …and decades are plain up to 1000, SI-prefixed beyond, as the library's default SI format.
+    expect(logTicks(-4, 5, { dtick: 1 }, 900, "x").map((t) => t.label)).toEqual([
+      "100µ",
+      "0.001",
+      "0.01",
+      "0.1",
+      "1",
+      "10",
+      "100",
+      "1000",
+      "10k",
+      "100k",
     ]);
   });
 
