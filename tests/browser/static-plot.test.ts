@@ -36,7 +36,9 @@ describe("static plot first", () => {
     // The HTML as served already holds the plot: an SVG with the traces' paths and the frequency axis.
     const html = await (await context.request.get(href)).text();
     const svg =
-      /<svg[^>]*data-static-plot[^>]*aria-label="Bode plot[^"]*"[\s\S]*?<\/svg>/.exec(html)?.[0] ?? "";
+      [...html.matchAll(/<svg\b[^>]*>[\s\S]*?<\/svg>/g)]
+        .map((m) => m[0])
+        .find((t) => /^<svg[^>]*data-static-plot/.test(t) && /^<svg[^>]*aria-label="Bode plot/.test(t)) ?? "";
     expect(svg).not.toBe("");
     expect(svg.match(/<path[^>]*data-line/g)?.length ?? 0).toBeGreaterThanOrEqual(2);
     expect(svg).toContain(">frequency (Hz)</text>");
@@ -51,6 +53,7 @@ describe("static plot first", () => {
     expect(await plot.locator("svg[data-static-plot] path[data-line]").count()).toBeGreaterThanOrEqual(4);
     expect(await page.locator(".js-plotly-plot").count()).toBe(0);
     expect(await bigScripts(page)).toEqual([]);
+    await plot.scrollIntoViewIfNeeded();
     const staticBox = await plot.boundingBox();
     const staticLabels = await plot.locator("svg[data-static-plot] text").allTextContents();
 
