@@ -700,7 +700,11 @@ export function layoutScene(
           anchor: "middle",
         });
       } else {
-        const edge = right ? span[1]! + widest + 11 + size * 0.8 : span[0]! - widest - 11;
+        // A right-hand (overlaying Δ) axis' title sits close to the plot, as the library places it;
+        // the left one clear of the widest tick label. Both kept inside the figure.
+        const edge = right
+          ? Math.min(span[1]! + 6 + size, width - size * 0.85)
+          : Math.max(span[0]! - widest - 11, size);
         scene.texts.push({
           x: edge,
           y: ax.start - ax.length / 2,
