@@ -127,13 +127,14 @@ export const StaticFigure = memo(function StaticFigure({
     >
       <defs>
         {scene.clips.map((c, i) => (
-          <clipPath key={`${c.x},${c.y},${c.w},${c.h}`} id={`${clipBase}-${i}`}>
+          // By index: two subplots can share one rectangle (a Δ axis over its row), and ids must stay unique.
+          <clipPath key={`${clipBase}-${i}`} id={`${clipBase}-${i}`}>
             <rect x={c.x} y={c.y} width={c.w} height={c.h} />
           </clipPath>
         ))}
       </defs>
-      {scene.plotBgs.map((r) => (
-        <rect key={`bg${r.x},${r.y}`} x={r.x} y={r.y} width={r.w} height={r.h} fill={r.fill} />
+      {scene.plotBgs.map((r, i) => (
+        <rect key={`bg${i}`} x={r.x} y={r.y} width={r.w} height={r.h} fill={r.fill} />
       ))}
       <g shapeRendering="crispEdges">
         {scene.grid.map((l, i) => (

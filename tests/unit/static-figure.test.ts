@@ -1,9 +1,12 @@
 // The static chart drawn before the charting library loads: ticks, paths, bars and lines laid out from
 // the same figure objects the interactive chart gets (components/plot/static-scene.ts).
+import { createElement } from "react";
+import { renderToStaticMarkup } from "react-dom/server";
 import { describe, expect, it } from "vitest";
 import { histogramBars, histogramMarks } from "@/components/analyses/analysis-math";
 import { buildBodeFigure } from "@/components/plot/bode-figure";
 import { linearLabels, linearTicks, logTicks, niceStep, siLabel } from "@/components/plot/static-axes";
+import { StaticFigure } from "@/components/plot/static-figure";
 import { dashArray, layoutScene, plainText } from "@/components/plot/static-scene";
 
 // A first-order low-pass, corner 1 kHz, 10 Hz … 100 kHz at 20 points per decade:
@@ -193,5 +196,33 @@ describe("static histogram", () => {
     expect(dashArray("dash", 2)).toBe("9,9");
     expect(dashArray("dashdot", 4)).toBe("12,4,4,4");
     expect(dashArray("solid", 2)).toBeUndefined();
+  });
+});
+
+describe("static figure markup", () => {
+  it("server-renders an img with the plot's label, unique clip ids, and every trace clipped to one of them", () => {
+    // A compare-like figure: a Δ overlay on its own axes shares its row's rectangle.
+    const diff = {
+      ...lowpass,
+      name: "Δ",
+      magnitudeDb: lowpass.magnitudeDb.map((v) => v / 100),
+      role: "difference" as const,
+    };
+    const figure = buildBodeFigure({ ...base, series: [lowpass], overlays: [diff], compact: false });
+    const html = renderToStaticMarkup(
+      createElement(StaticFigure, {
+        ...figure,
+        label: "Bode plot of H",
+        nominal: { width: 1000, height: 520 },
+      }),
+    );
+    expect(html).toMatch(/^<svg role="img" aria-label="Bode plot of H" data-static-plot=""/);
+    const ids = [...html.matchAll(/<clipPath id="([^"]+)"/g)].map((m) => m[1]);
+    expect(ids).toHaveLength(4);
+    expect(new Set(ids).size).toBe(ids.length);
+    const used = [...html.matchAll(/clip-path="url\(#([^)]+)\)"/g)].map((m) => m[1]);
+    expect(used).toHaveLength(4);
+    for (const id of used) expect(ids).toContain(id);
+    expect(html.match(/data-line=""/g)).toHaveLength(4);
   });
 });
