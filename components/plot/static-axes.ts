@@ -94,7 +94,11 @@ export function linearLabels(values: readonly number[], step: number): string[] 
   exp = Math.abs(exp) > 3 ? 3 * Math.round((exp - 1) / 3) : 0;
   exp = Math.max(-15, Math.min(12, exp));
   const prefix = SI.find(([s]) => s === exp)?.[1] ?? "";
-  const decimals = Math.max(0, -Math.floor(Math.log10(step / 10 ** exp) + 1e-9));
+  // As many decimals as the step needs (0.0025 → 4), so every label is exact.
+  const scaledStep = String(Number((step / 10 ** exp).toPrecision(6)));
+  const decimals = scaledStep.includes("e-")
+    ? Number(scaledStep.split("e-")[1])
+    : (scaledStep.split(".")[1]?.length ?? 0);
   return values.map((v) => `${plain(v / 10 ** exp, decimals)}${v === 0 ? "" : prefix}`);
 }
 

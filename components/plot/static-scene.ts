@@ -703,7 +703,7 @@ export function layoutScene(
         // A right-hand (overlaying Δ) axis' title sits close to the plot, as the library places it;
         // the left one clear of the widest tick label. Both kept inside the figure.
         const edge = right
-          ? Math.min(span[1]! + 6 + size, width - size * 0.85)
+          ? Math.min(span[1]! + 17 + size, width - 2)
           : Math.max(span[0]! - widest - 11, size);
         scene.texts.push({
           x: edge,
@@ -714,7 +714,7 @@ export function layoutScene(
           color,
           family: font.family,
           anchor: "middle",
-          rotate: right ? 90 : -90,
+          rotate: -90,
         });
       }
     }

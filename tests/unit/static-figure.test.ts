@@ -32,6 +32,8 @@ describe("static axes", () => {
     expect(linearLabels([0, 10000, 20000], 10000)).toEqual(["0", "10k", "20k"]);
     expect(linearLabels([0, 0.0001, 0.0002], 0.0001)).toEqual(["0", "100µ", "200µ"]);
     expect(linearLabels([1000, 1500, 2000], 500)).toEqual(["1000", "1500", "2000"]);
+    // A 2.5 step keeps its digits: "0.0025", not a rounded "0.003".
+    expect(linearLabels([-0.005, -0.0025, 0, 0.0025], 0.0025)).toEqual(["−0.005", "−0.0025", "0", "0.0025"]);
   });
 
   it("writes log values with SI prefixes like the library's ~s", () => {
