@@ -1,20 +1,23 @@
 "use client";
 
-import dynamic from "next/dynamic";
 import type { Data, Layout } from "plotly.js";
+import { DeferredPlot } from "@/components/plot/deferred-plot";
 import { PLOT_CONFIG } from "@/components/plot/palette";
 
-/** Plotly, loaded on the client only (the same bundle the Bode plot uses). */
-export const LazyPlot = dynamic(() => import("@/components/plot/plotly-chart"), {
-  ssr: false,
-  loading: () => (
-    <div className="rounded-panel bg-paper-100 text-caption text-ink-500 flex h-full w-full animate-pulse items-center justify-center">
-      Loading chart…
-    </div>
-  ),
-});
+/** Tailwind's `h-N` (N × 4 px) less the frame's `p-1` padding; a square frame at the nominal width. */
+function nominalSize(className: string, height: number | undefined): { width: number; height: number } {
+  const width = 600;
+  if (height) return { width, height: height - 8 };
+  const h = /(?:^|\s)h-(\d+)(?:\s|$)/.exec(className);
+  if (h) return { width, height: Number(h[1]) * 4 - 8 };
+  if (/aspect-square/.test(className)) return { width: 352, height: 352 };
+  return { width, height: 280 };
+}
 
-/** A chart in its frame: the figure (size and border from `className`, named by `label`) and the plot filling it. */
+/**
+ * A chart in its frame: the figure (size and border from `className`, named by `label`) and the plot
+ * filling it — our static SVG first, the interactive chart once the engineer reaches for it.
+ */
 export function ChartFigure({
   label,
   className,
@@ -31,12 +34,12 @@ export function ChartFigure({
 }) {
   return (
     <figure className={className} style={height ? { height } : undefined} aria-label={label}>
-      <LazyPlot
+      <DeferredPlot
+        label={label}
+        nominal={nominalSize(className, height)}
         data={data as Data[]}
         layout={layout}
         config={PLOT_CONFIG}
-        useResizeHandler
-        style={{ width: "100%", height: "100%" }}
       />
     </figure>
   );

@@ -1,31 +1,22 @@
 "use client";
 
-import dynamic from "next/dynamic";
 import type { PlotMouseEvent } from "plotly.js";
 import { useCallback, useEffect, useId, useMemo, useRef, useState } from "react";
 import { buildBodeFigure } from "./bode-figure";
 import { CursorReadout } from "./cursor-readout";
 import type { BodeCursor } from "./cursors";
+import { DeferredPlot } from "./deferred-plot";
 import { PLOT_CONFIG } from "./palette";
 import {
   downloadPlotPng,
   type PlotStamp,
   registerPlot,
+  registerPlotWaker,
   resetPlotView,
   unregisterPlot,
 } from "./plot-registry";
 import { type ClickMode, PlotToolbar } from "./plot-toolbar";
 import type { BodeMarker, BodeOverlay, BodePin, BodeSeries } from "./types";
-
-const loadChart = () => import("./plotly-chart");
-const PlotlyChart = dynamic(loadChart, {
-  ssr: false,
-  loading: () => <PlotSkeleton />,
-});
-// Every page that shows a Bode plot needs the plotting library (the largest script of the app): start
-// fetching and compiling it as soon as this module runs in the browser, not only once the plot
-// renders after hydration and the data (npm run bench, section 4: seconds sooner on a cold load).
-if (typeof window !== "undefined") void loadChart().catch(() => undefined);
 
 export interface BodePlotProps {
   /** The run's frequency grid (Hz). */
@@ -62,6 +53,9 @@ export interface BodePlotProps {
   cursors?: boolean;
 }
 
+/** Width the server lays the static plot out at (the page's main column on a laptop), in px. */
+const NOMINAL_WIDTH = 1000;
+
 // Stable empty defaults, so memoised figures are not rebuilt on every render.
 const NO_OVERLAYS: BodeOverlay[] = [];
 const NO_SERIES: BodeSeries[] = [];
@@ -90,7 +84,13 @@ export function BodePlot({
   const id = plotId ?? `bode-${generatedId}`;
   const compact = useCompact();
   const graphRef = useRef<HTMLElement | null>(null);
-  const [ready, setReady] = useState(false);
+  const [hydrated, setHydrated] = useState(false);
+  // The interactive chart is loaded on intent (pointer, focus, touch on the plot) or when a control asks.
+  const [wake, setWake] = useState(false);
+  useEffect(() => {
+    setHydrated(true);
+    return registerPlotWaker(id, () => setWake(true));
+  }, [id]);
   const [mode, setMode] = useState<ClickMode>(onPickFrequency ? "pin" : "A");
   const [cursors, setCursors] = useState<BodeCursor[]>([]);
   const [cursorTrace, setCursorTrace] = useState("");
@@ -118,7 +118,6 @@ export function BodePlot({
     (_: unknown, graphDiv: Readonly<HTMLElement>) => {
       graphRef.current = graphDiv as HTMLElement;
       registerPlot(id, graphDiv as HTMLElement, stamp);
-      setReady(true);
     },
     [id, stamp],
   );
@@ -146,24 +145,28 @@ export function BodePlot({
 
   const h = compact ? Math.round(height * 0.8) : height;
   return (
-    <figure className="w-full" aria-label={label}>
+    <figure className="w-full" aria-label={label} data-bode-plot="">
       {withCursors || pngButton ? (
         <PlotToolbar
           mode={withCursors ? mode : "pin"}
-          onMode={setMode}
+          onMode={(m) => {
+            setMode(m);
+            setWake(true);
+          }}
           canPin={Boolean(onPickFrequency)}
-          ready={ready}
+          ready={hydrated}
           onReset={() => void resetPlotView(id)}
           onPng={pngButton ? () => void downloadPlotPng(id, exportName) : undefined}
         />
       ) : null}
       <div style={{ height: h }}>
-        <PlotlyChart
+        <DeferredPlot
+          label={label}
+          nominal={{ width: NOMINAL_WIDTH, height: h }}
+          wake={wake}
           data={figure.data}
           layout={figure.layout}
           config={PLOT_CONFIG}
-          useResizeHandler
-          style={{ width: "100%", height: "100%" }}
           onInitialized={onInit}
           onUpdate={onInit}
           onClick={onClick}
@@ -184,14 +187,6 @@ export function BodePlot({
         />
       ) : null}
     </figure>
-  );
-}
-
-function PlotSkeleton() {
-  return (
-    <div className="rounded-panel bg-paper-100 text-caption text-ink-500 flex h-full w-full animate-pulse items-center justify-center">
-      Loading plot…
-    </div>
   );
 }
 

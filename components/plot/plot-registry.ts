@@ -2,7 +2,8 @@ import { plotColors, plotFonts } from "./palette";
 
 /**
  * Rendered plots by id, so a button elsewhere on the page (e.g. ExportButtons) can export one as PNG.
- * Plotly itself is imported only when an export or a reset is asked for.
+ * Plotly itself is imported only when an export or a reset is asked for. A plot still drawn as static
+ * SVG registers a waker: an export wakes it (loads the interactive chart) and waits for it.
  */
 
 /** What the exported PNG carries above the plot: a title, and the netlist hash when there is one. */
@@ -11,20 +12,55 @@ export interface PlotStamp {
   netlistHash?: string | null;
 }
 
-const plots = new Map<string, { graphDiv: HTMLElement; stamp: PlotStamp | null }>();
+type Entry = { graphDiv: HTMLElement; stamp: PlotStamp | null };
+const plots = new Map<string, Entry>();
+const wakers = new Map<string, () => void>();
+const waiting = new Map<string, (() => void)[]>();
+/** How long an export waits for a static plot to become interactive. */
+const WAKE_TIMEOUT_MS = 30_000;
 
 export function registerPlot(id: string, graphDiv: HTMLElement, stamp: PlotStamp | null = null): void {
   plots.set(id, { graphDiv, stamp });
+  const list = waiting.get(id) ?? [];
+  waiting.delete(id);
+  for (const done of list) done();
+}
+
+/** A static plot's way to load its interactive chart on demand; returns the unregister function. */
+export function registerPlotWaker(id: string, wake: () => void): () => void {
+  wakers.set(id, wake);
+  return () => {
+    if (wakers.get(id) === wake) wakers.delete(id);
+  };
+}
+
+/** The plot's entry, waking a static plot and waiting for its interactive chart when needed. */
+async function interactive(id: string): Promise<Entry | undefined> {
+  const entry = plots.get(id);
+  if (entry) return entry;
+  const wake = wakers.get(id);
+  if (!wake) return undefined;
+  return new Promise((resolve) => {
+    const timer = setTimeout(() => resolve(plots.get(id)), WAKE_TIMEOUT_MS);
+    waiting.set(id, [
+      ...(waiting.get(id) ?? []),
+      () => {
+        clearTimeout(timer);
+        resolve(plots.get(id));
+      },
+    ]);
+    wake();
+  });
 }
 
 export function unregisterPlot(id: string, graphDiv?: HTMLElement): void {
   if (!graphDiv || plots.get(id)?.graphDiv === graphDiv) plots.delete(id);
 }
 
-/** Back to the full sweep on every axis (what a double click does too). */
+/** Back to the full sweep on every axis (what a double click does too); a static plot already shows it. */
 export async function resetPlotView(id: string): Promise<boolean> {
   const entry = plots.get(id);
-  if (!entry) return false;
+  if (!entry) return wakers.has(id);
   const Plotly = (await import("plotly.js-dist-min")).default;
   const update: Record<string, boolean> = {
     "xaxis.autorange": true,
@@ -74,7 +110,7 @@ async function stampedPng(plotPng: string, stamp: PlotStamp): Promise<string> {
 
 /** Downloads the plot with this id as a PNG (with its stamp); false when no such plot is on the page. */
 export async function downloadPlotPng(id: string, filename: string): Promise<boolean> {
-  const entry = plots.get(id);
+  const entry = await interactive(id);
   if (!entry) return false;
   const Plotly = (await import("plotly.js-dist-min")).default;
   const plotPng = await Plotly.toImage(entry.graphDiv, {

@@ -50,3 +50,15 @@ export async function openProject(page: Page, name: string): Promise<string> {
   if (!id) throw new Error(`no project id in ${page.url()}`);
   return id;
 }
+
+/**
+ * Plots are drawn first as our static SVG; the interactive chart loads when the pointer reaches one.
+ * Hovers the `nth` plot on the page (once hydrated) and waits for its interactive chart: call it before
+ * reading or clicking anything of the charting library's (`.js-plotly-plot`, `.nsewdrag`, hover labels).
+ */
+export async function interactivePlot(page: Page, nth = 0): Promise<void> {
+  const plot = page.locator("[data-plot]").nth(nth);
+  await plot.and(page.locator("[data-hydrated]")).waitFor({ timeout: 60_000 });
+  await plot.hover();
+  await plot.locator(".js-plotly-plot .trace").first().waitFor({ timeout: 60_000 });
+}

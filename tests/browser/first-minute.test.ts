@@ -2,7 +2,7 @@
 // the running app and its seeded demo data.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launch, openProject, signedIn } from "./browser";
+import { interactivePlot, launch, openProject, signedIn } from "./browser";
 
 // Equal-part bridge network: R = 10 kΩ, C = 10 nF. CHECKS.md §2 (OAFE §15.7.1, Eqs. 15-7…15-9 —
 // confirmed): the output is in phase with the input at f0 = 1591.5494309 Hz, where it is 1/3 (−9.542425 dB).
@@ -45,8 +45,9 @@ describe("first minutes", () => {
     await page.keyboard.press("Delete");
     await page.evaluate((text) => navigator.clipboard.writeText(text), BRIDGE);
     await page.keyboard.press("ControlOrMeta+V");
-    // The live preview solves on the server and plots both rows (log frequency axis).
-    await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
+    // The live preview solves on the server and plots both rows (log frequency axis); the pointer on
+    // the plot brings in the interactive chart.
+    await interactivePlot(page);
     await expect
       .poll(() => page.locator(".js-plotly-plot .xaxislayer-above").count(), { timeout: 30_000 })
       .toBeGreaterThan(0);
@@ -83,7 +84,7 @@ describe("first minutes", () => {
     await expect.poll(() => f0Row.textContent()).toContain("1.5915 kHz"); // CHECKS.md §2: 1591.5494 Hz
     const attRow = measures.getByRole("row").filter({ hasText: "att" });
     await expect.poll(() => attRow.textContent()).toMatch(/−9\.542\d? dB/); // CHECKS.md §2: −9.542425 dB
-    await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
+    await interactivePlot(page);
     await expect
       .poll(() => page.locator(".js-plotly-plot .annotation-text").allTextContents(), { timeout: 30_000 })
       .toEqual(expect.arrayContaining([expect.stringContaining("f0")]));
@@ -110,7 +111,7 @@ describe("first minutes", () => {
     const u1 = diff.locator('[data-diff-row="changed"]').filter({ hasText: "U1: opamp" });
     expect(await u1.count()).toBe(1);
     expect(await u1.locator("ins").textContent()).toContain("gain=100k gbw=1MHz");
-    await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
+    await interactivePlot(page);
     await context.close();
   });
 
@@ -121,7 +122,7 @@ describe("first minutes", () => {
     await page.waitForURL(/\/runs\/[0-9a-f-]{36}$/);
     const body = `Notch depth looks fine ${stamp}`;
     // Click the magnitude row to pin the comment to a frequency on a trace.
-    await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
+    await interactivePlot(page);
     const drag = page.locator(".js-plotly-plot .nsewdrag").first();
     await drag.waitFor();
     const box = await drag.boundingBox();

@@ -2,7 +2,7 @@
 // bar, our hover labels), and the compare page shows the netlist diff by statement.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launch, openProject, signedIn } from "./browser";
+import { interactivePlot, launch, openProject, signedIn } from "./browser";
 
 // First-order RC low-pass, R = 1 kΩ, C = 100 nF: corner fc = 1/(2π·R·C) = 1591.549 Hz, where
 // |H| = 1/√2 (−3.0103 dB) and the phase is −45°; at 10·fc, |H| = 1/√101 (−20.043 dB) and the
@@ -52,6 +52,7 @@ describe("our own look", () => {
     projectId = await openProject(page, "Anti-alias filter board");
     first = await saveRun(page, `Corner check ${stamp}`, lowpass("1k"));
     await page.goto(`/runs/${first}`);
+    await interactivePlot(page);
     await page.locator(".js-plotly-plot .nsewdrag").first().waitFor({ timeout: 60_000 });
     expect(await page.locator(".modebar").count()).toBe(0);
     expect(await page.locator(".modebar-container .modebar-btn").count()).toBe(0);

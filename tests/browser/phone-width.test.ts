@@ -36,7 +36,7 @@ describe("phone width", () => {
     for (const path of pages) {
       await page.goto(path);
       await page
-        .locator(".js-plotly-plot")
+        .locator("[data-plot][data-hydrated]")
         .first()
         .waitFor({ timeout: 30_000 })
         .catch(() => undefined);

@@ -1,7 +1,7 @@
 // Screenshots of the runs area (project, run, compare, outbox, invitation) at laptop and phone size.
 // Usage: E2E_BASE_URL=http://127.0.0.1:3401 npx tsx tests/browser/shoot-runs.ts [outDir]
 import { mkdirSync } from "node:fs";
-import { launch, openProject, signedIn } from "./browser";
+import { interactivePlot, launch, openProject, signedIn } from "./browser";
 
 async function main(): Promise<void> {
   const out = process.argv[2] ?? "/tmp/runs-shots";
@@ -19,13 +19,13 @@ async function main(): Promise<void> {
     const revA = page.getByRole("link", { name: /rev A/ }).first();
     await revA.click();
     await page.waitForURL(/\/runs\//);
-    await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
+    await interactivePlot(page);
     await page.waitForTimeout(1200);
     await page.screenshot({ path: `${out}/run-${size}.png`, fullPage: true });
     await page.screenshot({ path: `${out}/run-top-${size}.png` });
     compareUrl ||= `/compare?a=${hrefA}&b=${hrefB}`.replaceAll("/runs/", "");
     await page.goto(compareUrl);
-    await page.locator(".js-plotly-plot").first().waitFor({ timeout: 60_000 });
+    await interactivePlot(page);
     await page.waitForTimeout(1200);
     await page.screenshot({ path: `${out}/compare-${size}.png`, fullPage: true });
     await page.goto("/dev/outbox");
