@@ -359,7 +359,7 @@ export async function benchPages(
     const server = median(preview.map((p) => p.serverMs));
     ok &&= total < PREVIEW_GOAL_MS;
     console.log(
-      `\nLive preview, demo oscillator (wien-bridge, Monte Carlo deferred): keystroke → plot redrawn, ` +
+      `\nLive preview, demo oscillator (wien-bridge, asked sweep first, its Monte Carlo in a second request): keystroke → plot redrawn, ` +
         `less the ${PREVIEW_DEBOUNCE_MS} ms debounce, ${PREVIEW_KEYSTROKES} keystrokes`,
     );
     print(

@@ -98,10 +98,30 @@ export const CodeEditor = forwardRef<CodeEditorHandle, CodeEditorProps>(function
     if (mounted && monaco && model) setNetlistMarkers(monaco, model, errors, warnings);
   }, [errors, warnings, mounted]);
 
+  if (engine === "loading") {
+    // The netlist itself (server-rendered, same font and lines as the editor) while the editor's script loads.
+    return (
+      <div className="relative h-full overflow-auto" data-testid="editor-placeholder">
+        <span role="status" className="sr-only">
+          Loading editor…
+        </span>
+        {/* Columns where the editor puts them: line numbers 39 px wide, the text 26 px further. */}
+        <div className="flex py-2 font-mono text-[13px] leading-5">
+          <pre aria-hidden="true" className="text-ink-500 m-0 w-[39px] shrink-0 text-right select-none">
+            {value
+              .split("\n")
+              .map((_, i) => i + 1)
+              .join("\n")}
+          </pre>
+          <pre className="text-ink-900 m-0 pl-[26px] whitespace-pre">{value}</pre>
+        </div>
+      </div>
+    );
+  }
   if (engine !== "ready") {
     return (
-      <div role={engine === "loading" ? "status" : "alert"} className="text-ink-500 p-4 text-sm">
-        {engine === "loading" ? "Loading editor…" : engine}
+      <div role="alert" className="text-ink-500 p-4 text-sm">
+        {engine}
       </div>
     );
   }

@@ -1,7 +1,7 @@
 "use client";
 
 import dynamic from "next/dynamic";
-import { useCallback, useEffect, useState } from "react";
+import { useCallback, useEffect, useRef, useState } from "react";
 import type { PlotlyChartProps } from "./plotly-chart";
 import { StaticFigure } from "./static-figure";
 
@@ -24,10 +24,12 @@ export interface DeferredPlotProps extends Omit<PlotlyChartProps, "style" | "cla
  * loading or interactive.
  */
 export function DeferredPlot({ label, nominal, wake = false, onInitialized, ...chart }: DeferredPlotProps) {
-  const [hydrated, setHydrated] = useState(false);
+  const wrapper = useRef<HTMLDivElement>(null);
   const [asked, setAsked] = useState(false);
   const [drawn, setDrawn] = useState(false);
-  useEffect(() => setHydrated(true), []);
+  // Marked in the effect itself, the moment React has attached the page's handlers: a state update would
+  // wait for another render, behind whatever script (the editor's) the same effects started.
+  useEffect(() => wrapper.current?.setAttribute("data-hydrated", ""), []);
   const live = asked || wake;
   const ask = useCallback(() => setAsked(true), []);
   const onInit = useCallback(
@@ -45,7 +47,7 @@ export function DeferredPlot({ label, nominal, wake = false, onInitialized, ...c
     // biome-ignore lint/a11y/noStaticElementInteractions: pointer and focus intent, not a click action
     <div
       className="relative h-full w-full"
-      data-hydrated={hydrated ? "" : undefined}
+      ref={wrapper}
       data-plot={drawn ? "interactive" : live ? "loading" : "static"}
       onPointerEnter={ask}
       onFocus={ask}
