@@ -29,7 +29,12 @@ export function DeferredPlot({ label, nominal, wake = false, onInitialized, ...c
   const [drawn, setDrawn] = useState(false);
   // Marked in the effect itself, the moment React has attached the page's handlers: a state update would
   // wait for another render, behind whatever script (the editor's) the same effects started.
-  useEffect(() => wrapper.current?.setAttribute("data-hydrated", ""), []);
+  // A pointer already over the plot before React attached (it entered while the page streamed in) gets no
+  // second pointerenter: ask at once, and on any move inside.
+  useEffect(() => {
+    wrapper.current?.setAttribute("data-hydrated", "");
+    if (wrapper.current?.matches(":hover")) setAsked(true);
+  }, []);
   const live = asked || wake;
   const ask = useCallback(() => setAsked(true), []);
   const onInit = useCallback(
@@ -50,6 +55,7 @@ export function DeferredPlot({ label, nominal, wake = false, onInitialized, ...c
       ref={wrapper}
       data-plot={drawn ? "interactive" : live ? "loading" : "static"}
       onPointerEnter={ask}
+      onPointerMove={live ? undefined : ask}
       onFocus={ask}
       onTouchStart={ask}
       tabIndex={drawn ? undefined : 0}
