@@ -124,10 +124,16 @@ export function BodePlot({
 
   const onClick = useCallback(
     (event: Readonly<PlotMouseEvent>) => {
-      const point = event.points[0];
-      if (!point) return;
-      const meta = (point.data as { meta?: unknown }).meta;
-      const trace = Array.isArray(meta) && typeof meta[0] === "string" ? meta[0] : (point.data.name ?? "");
+      // A click may land on several traces at once (a comment's diamond over its curve): prefer a run's own
+      // trace; a diamond alone pins to the trace it sits on (its customdata).
+      const named = event.points.map((p) => {
+        const meta = (p.data as { meta?: unknown }).meta;
+        const name = Array.isArray(meta) && typeof meta[0] === "string" ? meta[0] : (p.data.name ?? "");
+        return { p, name: typeof p.customdata === "string" ? p.customdata : name };
+      });
+      const hit = named.find((n) => series.some((s) => s.name === n.name)) ?? named[0];
+      if (!hit) return;
+      const { p: point, name: trace } = hit;
       const hz = Number(point.x);
       if (!(Number.isFinite(hz) && hz > 0)) return;
       if (mode === "pin") {

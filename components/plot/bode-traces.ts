@@ -110,6 +110,7 @@ export function pinTrace(series: readonly BodeSeries[], pins: readonly BodePin[]
   const pinX: number[] = [];
   const pinY: number[] = [];
   const pinText: string[] = [];
+  const pinOn: string[] = [];
   for (const pin of pins) {
     const s = series.find((t) => t.name === pin.trace) ?? series[0];
     const sample = s
@@ -119,6 +120,7 @@ export function pinTrace(series: readonly BodeSeries[], pins: readonly BodePin[]
     pinX.push(pin.frequencyHz);
     pinY.push(sample.db);
     pinText.push(`${formatHz(pin.frequencyHz)}<br>${plotText(pin.label ?? "comment")}`);
+    pinOn.push(s?.name ?? "");
   }
   if (pinX.length === 0) return null;
   return {
@@ -129,6 +131,8 @@ export function pinTrace(series: readonly BodeSeries[], pins: readonly BodePin[]
     x: pinX,
     y: pinY,
     text: pinText,
+    // The trace each diamond sits on: a click on a diamond pins to that trace, never to "comments".
+    customdata: pinOn,
     xaxis: "x",
     yaxis: "y",
     marker: { color: plotColors.pin, size: 11, symbol: "diamond", line: { color: "#ffffff", width: 1.5 } },

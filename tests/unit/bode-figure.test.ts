@@ -50,10 +50,12 @@ describe("buildBodeFigure", () => {
       series: [s],
       pins: [{ frequencyHz: 1000, trace: "h", label: "why?" }],
     });
-    const pins = data.at(-1) as { x: number[]; y: number[]; text: string[] };
+    const pins = data.at(-1) as { x: number[]; y: number[]; text: string[]; customdata: string[] };
     expect(pins.x).toEqual([1000]);
     expect(pins.y[0]).toBeCloseTo(-40, 9);
     expect(pins.text).toEqual(["1 kHz<br>why?"]); // the hover names the pinned frequency before the note
+    // A click on the diamond pins to the trace it sits on (a pin on "comments" was refused by the API).
+    expect(pins.customdata).toEqual(["h"]);
   });
 
   it("escapes user text in legends, hover names, pins and marker labels (issue 13: a measurement name became a link)", () => {
