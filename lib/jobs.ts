@@ -68,18 +68,8 @@ export function solveWork(circuit: Circuit): number {
   return sweeps + steadyWork(circuit.steady.harmonics) * (1 + variants + sampled);
 }
 
-/**
- * Solve options of a live preview. Within the inline budget: everything. Over it: when the steady
- * oscillation alone is what costs, it is left out with the reason; otherwise the preview solves the
- * nominal sweep only (no vary, Monte Carlo, sensitivity or steady) and says why — saving the run
- * ("Run full analysis") queues the whole analysis.
- */
-export function previewOptions(netlist: string, maxPoints: number): SolveOptions {
-  return previewPlan(netlist, maxPoints).options;
-}
-
 export interface PreviewPlan {
-  /** What `previewOptions` answers. */
+  /** Solve options of the preview. */
   options: SolveOptions;
   /**
    * The studies these options solve beyond the nominal sweep (none when there are none, or when the
@@ -88,7 +78,13 @@ export interface PreviewPlan {
   studies: PreviewStudy[];
 }
 
-/** `previewOptions` with the studies it solves beyond the nominal sweep (the sweep-first preview). */
+/**
+ * A live preview's solve options and the studies they solve beyond the nominal sweep (what a first,
+ * sweep-only answer leaves to follow; lib/live-preview.ts). Within the inline budget: everything. Over
+ * it: when the steady oscillation alone is what costs, it is left out with the reason; otherwise the
+ * preview solves the nominal sweep only (no vary, Monte Carlo, sensitivity or steady) and says why — saving the run
+ * ("Run full analysis") queues the whole analysis.
+ */
 export function previewPlan(netlist: string, maxPoints: number): PreviewPlan {
   const compiled = compile(netlist);
   if (!compiled.ok) return { options: { maxPoints }, studies: [] };

@@ -1,6 +1,6 @@
 /** When a run goes to the job queue (lib/jobs.ts) — pure, no database. */
 import { describe, expect, it } from "vitest";
-import { previewOptions, shouldQueue, solveWork, steadyWork } from "@/lib/jobs";
+import { previewPlan, shouldQueue, solveWork, steadyWork } from "@/lib/jobs";
 import { MAX_INLINE_WORK, MAX_MC_INLINE_SAMPLES, NOISE_BAND_WORK } from "@/lib/limits";
 import { compile, solveNetlist } from "@/solver";
 
@@ -76,8 +76,8 @@ ${extra}`);
   it("a preview leaves a steady solve over the budget out, with the reason, and solves a small one", () => {
     const text = (n: number) =>
       `R1: resistor out mid 10k\nC1: capacitor mid pos 10n\nR2: resistor pos gnd 10k\nC2: capacitor pos gnd 10n\nU1: opamp pos neg out swing=12V\nRf: resistor neg out 24k\nRg: resistor neg gnd 10k\nloop T cut out before R1\nsteady T harmonics=${n}\nmeasure a = amplitude(volts(out))`;
-    expect(previewOptions(text(15), 1000)).toEqual({ maxPoints: 1000 });
-    const big = previewOptions(text(255), 1000);
+    expect(previewPlan(text(15), 1000).options).toEqual({ maxPoints: 1000 });
+    const big = previewPlan(text(255), 1000).options;
     expect(big.deferSteady).toMatch(/too large for a preview/);
     const r = solveNetlist(text(255), big);
     if (!r.ok) throw new Error(r.errors[0]!.message);
