@@ -2,6 +2,7 @@
  * The static chart's scene (what static-figure.tsx draws) and the small helpers its layout steps share:
  * loose readers of the figure object, text and dash conversions, and an axis' value → pixel mapping.
  */
+import { plotFonts } from "./palette";
 import type { AxisSpec, AxisType, Tick } from "./static-axes";
 
 export type Obj = Record<string, unknown>;
@@ -115,7 +116,8 @@ export interface Scene {
 export type MeasureText = (text: string, size: number, family: string) => number;
 export const estimateText: MeasureText = (text, size) => text.length * size * 0.56;
 
-export const PLOT_DEFAULTS = { family: '"Open Sans", verdana, arial, sans-serif', size: 12, color: "#444" };
+/** A figure's text where its layout names none: our type, as the chart wrapper (plotly-chart.tsx) sets it. */
+export const PLOT_DEFAULTS = { family: plotFonts.sans, size: 12, color: "#444" };
 
 export const num = (v: unknown): number | null => (typeof v === "number" && Number.isFinite(v) ? v : null);
 export const obj = (v: unknown): Obj => (v && typeof v === "object" ? (v as Obj) : {});
