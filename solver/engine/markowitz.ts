@@ -51,7 +51,11 @@ export interface OrderingOptions {
  *
  * Cost: one pass of sparse elimination over array rows and columns (insertion-ordered, as the
  * search's tie-breaking needs); fine for the tens of thousands of unknowns of circuit matrices,
- * and run once per sweep.
+ * and run once per sweep — usually before the JIT has seen it, so the per-step work lives in
+ * small functions (the row search, the row update, the buckets) that the engine optimizes after
+ * a few hundred steps, rather than in one large loop it would compile on the side for longer
+ * than the analysis takes, and each entry's squared magnitude is kept beside it (and each row's
+ * largest) instead of being recomputed every time the search passes the row.
  */
 export function markowitzOrder(
   a: SparseComplexMatrix,
@@ -60,182 +64,57 @@ export function markowitzOrder(
   opt: OrderingOptions,
 ): OrderingResult {
   const n = a.n;
-  // Active matrix in plain arrays (no Map/Set, no per-entry objects: the analysis runs once per
-  // sweep, usually before the JIT has warmed up, where a Map of [re, im] pairs cost ~0.2 s for
-  // 1 000 unknowns). Every list keeps insertion order with order-preserving deletion, as a Map
-  // or Set would, so the search visits rows and entries in the same order as before.
-  //  rowCols[i], rowRe[i], rowIm[i]: the active entries of row i;  colRows[j]: rows with an entry in j.
-  const rowCols: number[][] = [];
-  const rowRe: number[][] = [];
-  const rowIm: number[][] = [];
-  const colRows: number[][] = [];
-  for (let j = 0; j < n; j++) colRows.push([]);
-  for (let i = 0; i < n; i++) {
-    const cs: number[] = [];
-    const rs: number[] = [];
-    const is: number[] = [];
-    for (let p = a.rowPtr[i]!; p < a.rowPtr[i + 1]!; p++) {
-      const j = a.colIdx[p]!;
-      cs.push(j);
-      rs.push(re[p]!);
-      is.push(im[p]!);
-      colRows[j]!.push(i);
-    }
-    rowCols.push(cs);
-    rowRe.push(rs);
-    rowIm.push(is);
-  }
-  // Buckets of active rows by count, so the sparsest rows are searched first: doubly linked lists
-  // appended at the tail (a row moved to a bucket goes last, as Set delete + add would put it).
-  const head = new Int32Array(n + 1).fill(-1);
-  const tail = new Int32Array(n + 1).fill(-1);
-  const next = new Int32Array(n).fill(-1);
-  const prev = new Int32Array(n).fill(-1);
-  const rowCount = new Int32Array(n);
-  const link = (i: number, cnt: number) => {
-    rowCount[i] = cnt;
-    prev[i] = tail[cnt]!;
-    next[i] = -1;
-    if (tail[cnt]! >= 0) next[tail[cnt]!] = i;
-    else head[cnt] = i;
-    tail[cnt] = i;
-  };
-  const unlink = (i: number) => {
-    const cnt = rowCount[i]!;
-    if (prev[i]! >= 0) next[prev[i]!] = next[i]!;
-    else head[cnt] = next[i]!;
-    if (next[i]! >= 0) prev[next[i]!] = prev[i]!;
-    else tail[cnt] = prev[i]!;
-  };
-  for (let i = 0; i < n; i++) link(i, rowCols[i]!.length);
-  let maxCount = 0;
-  for (let i = 0; i < n; i++) maxCount = Math.max(maxCount, rowCount[i]!);
-  const moveRow = (i: number, size: number) => {
-    if (size > maxCount) maxCount = size;
-    unlink(i);
-    link(i, size);
-  };
-  /** Remove the first `v` from `list`, keeping the order of the rest. */
-  const remove = (list: number[], v: number) => {
-    const at = list.indexOf(v);
-    if (at >= 0) list.splice(at, 1);
-  };
-
+  const act = new Active(a, re, im);
   const rowPerm = new Int32Array(n);
   const colPerm = new Int32Array(n);
-  const lSteps: number[][] = Array.from({ length: n }, () => []);
+  const lSteps: number[][] = [];
+  for (let i = 0; i < n; i++) lSteps.push([]);
   const uCols: number[][] = [];
   const rowDone = new Uint8Array(n);
   const colDone = new Uint8Array(n);
   // Position of column j in the row being updated (−1 elsewhere).
   const pos = new Int32Array(n).fill(-1);
+  // The tests squared (see `scanRow`).
+  const abs2 = opt.absTolerance * opt.absTolerance;
+  const tau2 = opt.pivotThreshold * opt.pivotThreshold;
+  const best: Best = { r: -1, c: -1, cost: 0, ratio: 0 };
 
   for (let step = 0; step < n; step++) {
-    let bestR = -1;
-    let bestC = -1;
-    let bestCost = Number.POSITIVE_INFINITY;
-    let bestRatio = 0;
-    let searched = 0;
-    for (let cnt = 1; cnt <= maxCount && searched < opt.searchRows && bestCost > 0; cnt++) {
-      for (let r = head[cnt]!; r >= 0; r = next[r]!) {
-        const cs = rowCols[r]!;
-        const rs = rowRe[r]!;
-        const is = rowIm[r]!;
-        let rowMax = 0;
-        for (let t = 0; t < cs.length; t++) rowMax = Math.max(rowMax, Math.hypot(rs[t]!, is[t]!));
-        if (rowMax <= opt.absTolerance) continue;
-        let found = false;
-        for (let t = 0; t < cs.length; t++) {
-          const c = cs[t]!;
-          const mag = Math.hypot(rs[t]!, is[t]!);
-          if (mag <= opt.absTolerance || mag < opt.pivotThreshold * rowMax) continue;
-          found = true;
-          const cost = (cnt - 1) * (colRows[c]!.length - 1);
-          const ratio = mag / rowMax;
-          if (cost < bestCost || (cost === bestCost && ratio > bestRatio)) {
-            bestCost = cost;
-            bestR = r;
-            bestC = c;
-            bestRatio = ratio;
-          }
-        }
-        if (found && ++searched >= opt.searchRows) break;
-        if (bestCost === 0) break;
-      }
-    }
-    if (bestR < 0) {
+    searchPivot(act, opt.searchRows, abs2, tau2, best);
+    if (best.r < 0) {
       const restRows: number[] = [];
       const restCols: number[] = [];
       for (let i = 0; i < n; i++) if (!rowDone[i]) restRows.push(i);
       for (let j = 0; j < n; j++) if (!colDone[j]) restCols.push(j);
       return { ok: false, step, rows: restRows, cols: restCols };
     }
-    const r = bestR;
-    const c = bestC;
+    const r = best.r;
+    const c = best.c;
     rowPerm[step] = r;
     colPerm[step] = c;
     rowDone[r] = 1;
     colDone[c] = 1;
     // The pivot row without the pivot: U's columns, in the row's order, and their values.
-    const pCols = rowCols[r]!;
-    const pRe = rowRe[r]!;
-    const pIm = rowIm[r]!;
+    const pCols = act.cols[r]!;
+    const pRe = act.re[r]!;
+    const pIm = act.im[r]!;
     const at = pCols.indexOf(c);
-    const pivRe = pRe[at]!;
-    const pivIm = pIm[at]!;
-    const den = pivRe * pivRe + pivIm * pivIm;
-    const u: number[] = [];
-    const uRe: number[] = [];
-    const uIm: number[] = [];
+    const pivot = new Pivot(c, pRe[at]!, pIm[at]!);
     for (let t = 0; t < pCols.length; t++) {
       if (t === at) continue;
-      u.push(pCols[t]!);
-      uRe.push(pRe[t]!);
-      uIm.push(pIm[t]!);
+      pivot.cols.push(pCols[t]!);
+      pivot.re.push(pRe[t]!);
+      pivot.im.push(pIm[t]!);
     }
-    uCols.push(u);
-    const col = colRows[c]!;
+    uCols.push(pivot.cols);
+    const col = act.colRows[c]!;
     for (let e = 0; e < col.length; e++) {
       const i = col[e]!;
       if (i === r) continue;
-      const cs = rowCols[i]!;
-      const rs = rowRe[i]!;
-      const is = rowIm[i]!;
-      const ic = cs.indexOf(c);
-      const aicRe = rs[ic]!;
-      const aicIm = is[ic]!;
-      // l = a_ic / a_rc
-      const lr = (aicRe * pivRe + aicIm * pivIm) / den;
-      const li = (aicIm * pivRe - aicRe * pivIm) / den;
       lSteps[i]!.push(step);
-      cs.splice(ic, 1);
-      rs.splice(ic, 1);
-      is.splice(ic, 1);
-      for (let t = 0; t < cs.length; t++) pos[cs[t]!] = t;
-      for (let t = 0; t < u.length; t++) {
-        const j = u[t]!;
-        const dr = lr * uRe[t]! - li * uIm[t]!;
-        const di = lr * uIm[t]! + li * uRe[t]!;
-        const q = pos[j]!;
-        if (q >= 0) {
-          rs[q] = rs[q]! - dr;
-          is[q] = is[q]! - di;
-        } else {
-          cs.push(j);
-          rs.push(-dr);
-          is.push(-di);
-          colRows[j]!.push(i);
-        }
-      }
-      for (let t = 0; t < cs.length; t++) pos[cs[t]!] = -1;
-      moveRow(i, cs.length);
+      updateRow(act, i, pivot, pos);
     }
-    for (const j of u) remove(colRows[j]!, r);
-    colRows[c] = [];
-    unlink(r);
-    rowCols[r] = [];
-    rowRe[r] = [];
-    rowIm[r] = [];
+    act.retire(r, c, pivot.cols);
   }
 
   const colPos = new Int32Array(n);
@@ -250,9 +129,249 @@ export function markowitzOrder(
   const uIdx = new Int32Array(uPtr[n]!);
   for (let k = 0; k < n; k++) {
     lIdx.set(lSteps[rowPerm[k]!]!, lPtr[k]!);
-    const us = uCols[k]!.map((j) => colPos[j]!).sort((x, y) => x - y);
-    uIdx.set(us, uPtr[k]!);
+    sortedSteps(uCols[k]!, colPos, uIdx, uPtr[k]!);
   }
   const symbolic: Symbolic = { n, rowPerm, colPerm, colPos, lPtr, lIdx, uPtr, uIdx };
   return { ok: true, symbolic };
+}
+
+/** The search's best pivot so far (one object for the whole ordering). */
+interface Best {
+  r: number;
+  c: number;
+  cost: number;
+  ratio: number;
+}
+
+/** A pivot a_rc and the rest of its row (U's row of this step). */
+class Pivot {
+  readonly cols: number[] = [];
+  readonly re: number[] = [];
+  readonly im: number[] = [];
+  /** |a_rc|². */
+  readonly den: number;
+  constructor(
+    readonly c: number,
+    readonly pivRe: number,
+    readonly pivIm: number,
+  ) {
+    this.den = pivRe * pivRe + pivIm * pivIm;
+  }
+}
+
+/**
+ * The active matrix in plain arrays (no Map/Set, no per-entry objects): the entries of row i are
+ * cols[i], re[i], im[i] and their squared magnitudes m2[i]; colRows[j] lists the rows with an entry
+ * in column j. Every list keeps insertion order with order-preserving deletion, as a Map or Set
+ * would, so the search visits rows and entries in a fixed order. Rows sit in buckets by count
+ * (doubly linked lists appended at the tail: a row moved to a bucket goes last), so the sparsest
+ * are searched first.
+ */
+class Active {
+  readonly cols: number[][] = [];
+  readonly re: number[][] = [];
+  readonly im: number[][] = [];
+  readonly m2: number[][] = [];
+  readonly colRows: number[][] = [];
+  /** Largest squared magnitude of each row, −1 when the row changed since it was computed. */
+  readonly rowMax2: Float64Array;
+  readonly head: Int32Array;
+  readonly tail: Int32Array;
+  readonly next: Int32Array;
+  readonly prev: Int32Array;
+  readonly count: Int32Array;
+  maxCount = 0;
+
+  constructor(a: SparseComplexMatrix, re: Float64Array, im: Float64Array) {
+    const n = a.n;
+    for (let j = 0; j < n; j++) this.colRows.push([]);
+    for (let i = 0; i < n; i++) {
+      const cs: number[] = [];
+      const rs: number[] = [];
+      const is: number[] = [];
+      const ms: number[] = [];
+      for (let p = a.rowPtr[i]!; p < a.rowPtr[i + 1]!; p++) {
+        const j = a.colIdx[p]!;
+        cs.push(j);
+        rs.push(re[p]!);
+        is.push(im[p]!);
+        ms.push(re[p]! * re[p]! + im[p]! * im[p]!);
+        this.colRows[j]!.push(i);
+      }
+      this.cols.push(cs);
+      this.re.push(rs);
+      this.im.push(is);
+      this.m2.push(ms);
+    }
+    this.rowMax2 = new Float64Array(n).fill(-1);
+    this.head = new Int32Array(n + 1).fill(-1);
+    this.tail = new Int32Array(n + 1).fill(-1);
+    this.next = new Int32Array(n).fill(-1);
+    this.prev = new Int32Array(n).fill(-1);
+    this.count = new Int32Array(n);
+    for (let i = 0; i < n; i++) {
+      const cnt = this.cols[i]!.length;
+      this.link(i, cnt);
+      if (cnt > this.maxCount) this.maxCount = cnt;
+    }
+  }
+
+  link(i: number, cnt: number): void {
+    const { tail, next, prev } = this;
+    this.count[i] = cnt;
+    prev[i] = tail[cnt]!;
+    next[i] = -1;
+    if (tail[cnt]! >= 0) next[tail[cnt]!] = i;
+    else this.head[cnt] = i;
+    tail[cnt] = i;
+  }
+
+  unlink(i: number): void {
+    const { next, prev } = this;
+    const cnt = this.count[i]!;
+    if (prev[i]! >= 0) next[prev[i]!] = next[i]!;
+    else this.head[cnt] = next[i]!;
+    if (next[i]! >= 0) prev[next[i]!] = prev[i]!;
+    else this.tail[cnt] = prev[i]!;
+  }
+
+  /** Row i changed: its largest magnitude is stale, and it goes last in the bucket of its count. */
+  changed(i: number): void {
+    const size = this.cols[i]!.length;
+    if (size > this.maxCount) this.maxCount = size;
+    this.rowMax2[i] = -1;
+    this.unlink(i);
+    this.link(i, size);
+  }
+
+  /** Row r was pivoted on column c: r leaves the buckets, and the columns of U's row forget r. */
+  retire(r: number, c: number, uCols: number[]): void {
+    for (let t = 0; t < uCols.length; t++) {
+      const list = this.colRows[uCols[t]!]!;
+      const at = list.indexOf(r);
+      if (at >= 0) list.splice(at, 1);
+    }
+    this.colRows[c] = [];
+    this.unlink(r);
+    this.cols[r] = [];
+    this.re[r] = [];
+    this.im[r] = [];
+    this.m2[r] = [];
+  }
+}
+
+/**
+ * The pivot of the next step into `best` (best.r = −1 when no entry passes): the sparsest rows
+ * first, `searchRows` rows that have a candidate, the least Markowitz cost, ties to the larger
+ * |a_rc| / max_j |a_rj|.
+ */
+function searchPivot(act: Active, searchRows: number, abs2: number, tau2: number, best: Best): void {
+  best.r = -1;
+  best.c = -1;
+  best.cost = Number.POSITIVE_INFINITY;
+  best.ratio = 0;
+  let searched = 0;
+  const { head, next } = act;
+  for (let cnt = 1; cnt <= act.maxCount && searched < searchRows && best.cost > 0; cnt++) {
+    for (let r = head[cnt]!; r >= 0; r = next[r]!) {
+      if (scanRow(act, r, cnt, abs2, tau2, best) && ++searched >= searchRows) break;
+      if (best.cost === 0) break;
+    }
+  }
+}
+
+/**
+ * Row r's candidates (count `cnt`) against `best`; true when the row has one. The tests compare
+ * squares: |a|² ≤ abs² (zero) and |a|² < τ²·max_j |a_rj|² (threshold), the same verdicts as on
+ * the magnitudes (the values are equilibrated, their largest near 1: no square overflows, and one
+ * that underflows is far below the zero bound either way).
+ */
+function scanRow(act: Active, r: number, cnt: number, abs2: number, tau2: number, best: Best): boolean {
+  const cs = act.cols[r]!;
+  const ms = act.m2[r]!;
+  let rowMax2 = act.rowMax2[r]!;
+  if (rowMax2 < 0) {
+    rowMax2 = 0;
+    for (let t = 0; t < ms.length; t++) if (ms[t]! > rowMax2) rowMax2 = ms[t]!;
+    act.rowMax2[r] = rowMax2;
+  }
+  if (rowMax2 <= abs2) return false;
+  const bound2 = tau2 * rowMax2;
+  let found = false;
+  for (let t = 0; t < cs.length; t++) {
+    const m2 = ms[t]!;
+    if (m2 <= abs2 || m2 < bound2) continue;
+    found = true;
+    const c = cs[t]!;
+    const cost = (cnt - 1) * (act.colRows[c]!.length - 1);
+    const ratio = m2 / rowMax2;
+    if (cost < best.cost || (cost === best.cost && ratio > best.ratio)) {
+      best.cost = cost;
+      best.r = r;
+      best.c = c;
+      best.ratio = ratio;
+    }
+  }
+  return found;
+}
+
+/**
+ * Eliminate column `pivot.c` from row i: l = a_ic / a_rc, then row i −= l·(pivot row), an entry
+ * created wherever the pivot row has one and row i has none (structural fill, even when it is
+ * numerically zero). `pos` is −1 everywhere before and after.
+ */
+function updateRow(act: Active, i: number, pivot: Pivot, pos: Int32Array): void {
+  const cs = act.cols[i]!;
+  const rs = act.re[i]!;
+  const is = act.im[i]!;
+  const ms = act.m2[i]!;
+  const ic = cs.indexOf(pivot.c);
+  const aicRe = rs[ic]!;
+  const aicIm = is[ic]!;
+  const { pivRe, pivIm, den } = pivot;
+  const lr = (aicRe * pivRe + aicIm * pivIm) / den;
+  const li = (aicIm * pivRe - aicRe * pivIm) / den;
+  cs.splice(ic, 1);
+  rs.splice(ic, 1);
+  is.splice(ic, 1);
+  ms.splice(ic, 1);
+  for (let t = 0; t < cs.length; t++) pos[cs[t]!] = t;
+  const u = pivot.cols;
+  const uRe = pivot.re;
+  const uIm = pivot.im;
+  for (let t = 0; t < u.length; t++) {
+    const j = u[t]!;
+    const dr = lr * uRe[t]! - li * uIm[t]!;
+    const di = lr * uIm[t]! + li * uRe[t]!;
+    const q = pos[j]!;
+    if (q >= 0) {
+      const xr = rs[q]! - dr;
+      const xi = is[q]! - di;
+      rs[q] = xr;
+      is[q] = xi;
+      ms[q] = xr * xr + xi * xi;
+    } else {
+      cs.push(j);
+      rs.push(-dr);
+      is.push(-di);
+      ms.push(dr * dr + di * di);
+      act.colRows[j]!.push(i);
+    }
+  }
+  for (let t = 0; t < cs.length; t++) pos[cs[t]!] = -1;
+  act.changed(i);
+}
+
+/** U's row of one step as pivot steps (colPos of its columns), ascending, into out from `at`. */
+function sortedSteps(cols: number[], colPos: Int32Array, out: Int32Array, at: number): void {
+  // Insertion sort: a row of U has a handful of entries.
+  for (let t = 0; t < cols.length; t++) {
+    const v = colPos[cols[t]!]!;
+    let k = at + t;
+    while (k > at && out[k - 1]! > v) {
+      out[k] = out[k - 1]!;
+      k--;
+    }
+    out[k] = v;
+  }
 }
