@@ -30,8 +30,17 @@ export function pencilMaxima(a: SparseComplexMatrix, g: Float64Array, c: Float64
   for (let p = 0; p < nnz; p++) byCol[at[colIdx[p]!]!++] = p;
   const byRow = new Int32Array(nnz);
   for (let p = 0; p < nnz; p++) byRow[p] = p;
-  const rows = keptTerms(rowPtr, byRow, g, c);
-  const cols = keptTerms(colPtr, byCol, g, c);
+  // |g| and |c| of every entry, once (the groups compare each entry with its neighbours); an
+  // entry with a NaN gets |g| = −1, which marks it as left out.
+  const ag = new Float64Array(nnz);
+  const ac = new Float64Array(nnz);
+  for (let p = 0; p < nnz; p++) {
+    const nan = Number.isNaN(g[p]!) || Number.isNaN(c[p]!);
+    ag[p] = nan ? -1 : Math.abs(g[p]!);
+    ac[p] = Math.abs(c[p]!);
+  }
+  const rows = keptTerms(rowPtr, byRow, ag, ac);
+  const cols = keptTerms(colPtr, byCol, ag, ac);
   return { rowPtr: rows.ptr, rowG: rows.g, rowC: rows.c, colPtr: cols.ptr, colG: cols.g, colC: cols.c };
 }
 
@@ -39,13 +48,14 @@ export function pencilMaxima(a: SparseComplexMatrix, g: Float64Array, c: Float64
  * The terms (|g|, |c|) of each group (entries list[ptr[i]…ptr[i+1]) ) that no other term of the
  * group dominates — larger-or-equal in both, larger in one, or equal and earlier — NaN terms left
  * out: the Pareto front, one term per distinct pair. A group's terms in any order (the tests take
- * their maximum). Allocates only the result (this runs before the JIT has warmed up).
+ * their maximum). `ag`, `ac`: |g| and |c| of every entry, ag < 0 for an entry with a NaN. Allocates
+ * only the result and calls no function per pair (this runs once, before the JIT has warmed up).
  */
 function keptTerms(
   ptr: Int32Array,
   list: Int32Array,
-  g: Float64Array,
-  c: Float64Array,
+  ag: Float64Array,
+  ac: Float64Array,
 ): { ptr: Int32Array; g: Float64Array; c: Float64Array } {
   const n = ptr.length - 1;
   const out = new Int32Array(n + 1);
@@ -58,8 +68,8 @@ function keptTerms(
     if (e1 - e0 > 32) {
       // A long group (a node with many parts): sorted by |g| descending, then |c| descending, a
       // term is kept when its |c| beats every kept one's — the same front in O(m log m).
-      const terms = Array.from(list.subarray(e0, e1), (p) => [Math.abs(g[p]!), Math.abs(c[p]!)] as const)
-        .filter(([x, y]) => !Number.isNaN(x) && !Number.isNaN(y))
+      const terms = Array.from(list.subarray(e0, e1), (p) => [ag[p]!, ac[p]!] as const)
+        .filter(([x]) => x >= 0)
         .sort((u, v) => v[0] - u[0] || v[1] - u[1]);
       let bestC = -1;
       for (const [x, y] of terms) {
@@ -73,15 +83,15 @@ function keptTerms(
       continue;
     }
     for (let e = e0; e < e1; e++) {
-      const x = Math.abs(g[list[e]!]!);
-      const y = Math.abs(c[list[e]!]!);
-      if (Number.isNaN(x) || Number.isNaN(y)) continue;
+      const x = ag[list[e]!]!;
+      const y = ac[list[e]!]!;
+      if (x < 0) continue;
       let dominated = false;
       for (let f = e0; f < e1 && !dominated; f++) {
         if (f === e) continue;
-        const xf = Math.abs(g[list[f]!]!);
-        const yf = Math.abs(c[list[f]!]!);
-        if (Number.isNaN(xf) || Number.isNaN(yf)) continue;
+        const xf = ag[list[f]!]!;
+        const yf = ac[list[f]!]!;
+        if (xf < 0) continue;
         dominated = xf >= x && yf >= y && (xf > x || yf > y || f < e);
       }
       if (dominated) continue;

@@ -25,7 +25,11 @@ export interface TripletPattern {
 
 /**
  * Build a CSR pattern from (row, col) triplets. Duplicates are merged.
- * Cost: O(t log t) for t triplets (one sort of the keys).
+ * Order: the triplets sorted by row, then column, stably (a counting sort by row, then an insertion
+ * sort of each row by column: rows of a circuit matrix hold a handful of entries). The pattern is
+ * built once per system, usually before the JIT has seen this code, where a general sort with a
+ * comparator called for every pair cost more than the rest of the system's assembly.
+ * Cost: O(t + n + Σ row²) for t triplets (O(t) for circuit matrices).
  */
 export function patternFromTriplets(
   n: number,
@@ -34,28 +38,50 @@ export function patternFromTriplets(
 ): TripletPattern {
   const t = rows.length;
   if (cols.length !== t) throw new RangeError("rows and cols differ in length");
-  const order = Array.from({ length: t }, (_, k) => k);
-  order.sort((a, b) => (rows[a] ?? 0) - (rows[b] ?? 0) || (cols[a] ?? 0) - (cols[b] ?? 0));
-  const rowPtr = new Int32Array(n + 1);
-  const colList: number[] = [];
-  const slot = new Int32Array(t);
-  let lastR = -1;
-  let lastC = -1;
-  for (const k of order) {
-    const r = rows[k] ?? 0;
-    const c = cols[k] ?? 0;
-    if (r < 0 || r >= n || c < 0 || c >= n)
+  // start[r] = first place of row r in `order`.
+  const start = new Int32Array(n + 1);
+  for (let k = 0; k < t; k++) {
+    const r = rows[k]!;
+    const c = cols[k]!;
+    if (!(r >= 0 && r < n && c >= 0 && c < n))
       throw new RangeError(`entry (${r}, ${c}) outside a ${n}×${n} matrix`);
-    if (r !== lastR || c !== lastC) {
-      colList.push(c);
-      rowPtr[r + 1] = (rowPtr[r + 1] ?? 0) + 1;
-      lastR = r;
-      lastC = c;
-    }
-    slot[k] = colList.length - 1;
+    start[r + 1]!++;
   }
-  for (let i = 0; i < n; i++) rowPtr[i + 1] = (rowPtr[i + 1] ?? 0) + (rowPtr[i] ?? 0);
-  return { n, rowPtr, colIdx: Int32Array.from(colList), slot };
+  for (let i = 0; i < n; i++) start[i + 1] = start[i + 1]! + start[i]!;
+  const order = new Int32Array(t);
+  const fill = start.slice(0, n);
+  for (let k = 0; k < t; k++) order[fill[rows[k]!]!++] = k;
+  const rowPtr = new Int32Array(n + 1);
+  const colIdx = new Int32Array(t);
+  const slot = new Int32Array(t);
+  let nnz = 0;
+  for (let i = 0; i < n; i++) {
+    const a = start[i]!;
+    const b = start[i + 1]!;
+    // Stable insertion sort of row i by column.
+    for (let p = a + 1; p < b; p++) {
+      const k = order[p]!;
+      const c = cols[k]!;
+      let q = p;
+      while (q > a && cols[order[q - 1]!]! > c) {
+        order[q] = order[q - 1]!;
+        q--;
+      }
+      order[q] = k;
+    }
+    let lastC = -1;
+    for (let p = a; p < b; p++) {
+      const k = order[p]!;
+      const c = cols[k]!;
+      if (c !== lastC) {
+        colIdx[nnz++] = c;
+        lastC = c;
+      }
+      slot[k] = nnz - 1;
+    }
+    rowPtr[i + 1] = nnz;
+  }
+  return { n, rowPtr, colIdx: colIdx.slice(0, nnz), slot };
 }
 
 /** A sparse complex matrix from dense re/im rows (tests and small cases). Zeros are not stored. */
