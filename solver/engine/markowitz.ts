@@ -51,11 +51,11 @@ export interface OrderingOptions {
  *
  * Cost: one pass of sparse elimination over array rows and columns (insertion-ordered, as the
  * search's tie-breaking needs); fine for the tens of thousands of unknowns of circuit matrices,
- * and run once per sweep — usually before the JIT has seen it, so the per-step work lives in
- * small functions (the row search, the row update, the buckets) that the engine optimizes after
- * a few hundred steps, rather than in one large loop it would compile on the side for longer
- * than the analysis takes, and each entry's squared magnitude is kept beside it (and each row's
- * largest) instead of being recomputed every time the search passes the row.
+ * and run once per sweep — usually before the JIT has seen it. So the active matrix lives in a
+ * few typed arrays allocated once (no array per row or column, nothing to collect), the per-step
+ * work is in small functions (the row search, the row update, the buckets) that the engine
+ * optimizes after a few hundred steps, and each entry's squared magnitude is kept beside it (and
+ * each row's largest) instead of being recomputed every time the search passes the row.
  */
 export function markowitzOrder(
   a: SparseComplexMatrix,
@@ -67,9 +67,11 @@ export function markowitzOrder(
   const act = new Active(a, re, im);
   const rowPerm = new Int32Array(n);
   const colPerm = new Int32Array(n);
-  const lSteps: number[][] = [];
-  for (let i = 0; i < n; i++) lSteps.push([]);
-  const uCols: number[][] = [];
+  // L's pattern as (row, step) pairs in the order of elimination, U's rows as columns per step.
+  const lRow: number[] = [];
+  const lStep: number[] = [];
+  const uStart = new Int32Array(n + 1);
+  let uCols = new Int32Array(Math.max(16, a.colIdx.length));
   const rowDone = new Uint8Array(n);
   const colDone = new Uint8Array(n);
   // Position of column j in the row being updated (−1 elsewhere).
@@ -94,42 +96,46 @@ export function markowitzOrder(
     colPerm[step] = c;
     rowDone[r] = 1;
     colDone[c] = 1;
-    // The pivot row without the pivot: U's columns, in the row's order, and their values.
-    const pCols = act.cols[r]!;
-    const pRe = act.re[r]!;
-    const pIm = act.im[r]!;
-    const at = pCols.indexOf(c);
-    const pivot = new Pivot(c, pRe[at]!, pIm[at]!);
-    for (let t = 0; t < pCols.length; t++) {
-      if (t === at) continue;
-      pivot.cols.push(pCols[t]!);
-      pivot.re.push(pRe[t]!);
-      pivot.im.push(pIm[t]!);
-    }
-    uCols.push(pivot.cols);
-    const col = act.colRows[c]!;
-    for (let e = 0; e < col.length; e++) {
-      const i = col[e]!;
+    // U's row of this step: the pivot row's other columns, in the row's order.
+    const p0 = act.rowStart[r]!;
+    const p1 = p0 + act.rowLen[r]!;
+    let at = p0;
+    while (act.col[at] !== c) at++;
+    const u0 = uStart[step]!;
+    if (u0 + (p1 - p0) > uCols.length) uCols = grow(uCols, u0 + (p1 - p0));
+    let u1 = u0;
+    for (let p = p0; p < p1; p++) if (p !== at) uCols[u1++] = act.col[p]!;
+    uStart[step + 1] = u1;
+    // Every other row with an entry in column c: l = a_ic / a_rc, row −= l·(pivot row).
+    const cs0 = act.colStart[c]!;
+    const cs1 = cs0 + act.colLen[c]!;
+    for (let e = cs0; e < cs1; e++) {
+      const i = act.colRow[e]!;
       if (i === r) continue;
-      lSteps[i]!.push(step);
-      updateRow(act, i, pivot, pos);
+      lRow.push(i);
+      lStep.push(step);
+      updateRow(act, i, r, at, pos);
     }
-    act.retire(r, c, pivot.cols);
+    act.retire(r, c, at);
   }
 
   const colPos = new Int32Array(n);
   for (let k = 0; k < n; k++) colPos[colPerm[k]!] = k;
+  const stepOf = new Int32Array(n);
+  for (let k = 0; k < n; k++) stepOf[rowPerm[k]!] = k;
+  // L's rows by a counting sort on the step each row was pivoted at: within a row the steps come
+  // in the order they happened, ascending.
   const lPtr = new Int32Array(n + 1);
+  for (let q = 0; q < lRow.length; q++) lPtr[stepOf[lRow[q]!]! + 1]!++;
+  for (let k = 0; k < n; k++) lPtr[k + 1] = lPtr[k + 1]! + lPtr[k]!;
+  const lIdx = new Int32Array(lRow.length);
+  const fill = lPtr.slice(0, n);
+  for (let q = 0; q < lRow.length; q++) lIdx[fill[stepOf[lRow[q]!]!]!++] = lStep[q]!;
   const uPtr = new Int32Array(n + 1);
+  const uIdx = new Int32Array(uStart[n]!);
   for (let k = 0; k < n; k++) {
-    lPtr[k + 1] = lPtr[k]! + lSteps[rowPerm[k]!]!.length;
-    uPtr[k + 1] = uPtr[k]! + uCols[k]!.length;
-  }
-  const lIdx = new Int32Array(lPtr[n]!);
-  const uIdx = new Int32Array(uPtr[n]!);
-  for (let k = 0; k < n; k++) {
-    lIdx.set(lSteps[rowPerm[k]!]!, lPtr[k]!);
-    sortedSteps(uCols[k]!, colPos, uIdx, uPtr[k]!);
+    uPtr[k + 1] = uStart[k + 1]!;
+    sortedSteps(uCols, uStart[k]!, uStart[k + 1]!, colPos, uIdx);
   }
   const symbolic: Symbolic = { n, rowPerm, colPerm, colPos, lPtr, lIdx, uPtr, uIdx };
   return { ok: true, symbolic };
@@ -143,36 +149,38 @@ interface Best {
   ratio: number;
 }
 
-/** A pivot a_rc and the rest of its row (U's row of this step). */
-class Pivot {
-  readonly cols: number[] = [];
-  readonly re: number[] = [];
-  readonly im: number[] = [];
-  /** |a_rc|². */
-  readonly den: number;
-  constructor(
-    readonly c: number,
-    readonly pivRe: number,
-    readonly pivIm: number,
-  ) {
-    this.den = pivRe * pivRe + pivIm * pivIm;
-  }
+/** A typed array with at least `size` places, the old contents first. */
+function grow<T extends Int32Array | Float64Array>(old: T, size: number): T {
+  const bigger = new (old.constructor as new (length: number) => T)(Math.max(size, 2 * old.length));
+  bigger.set(old);
+  return bigger;
 }
 
 /**
- * The active matrix in plain arrays (no Map/Set, no per-entry objects): the entries of row i are
- * cols[i], re[i], im[i] and their squared magnitudes m2[i]; colRows[j] lists the rows with an entry
- * in column j. Every list keeps insertion order with order-preserving deletion, as a Map or Set
- * would, so the search visits rows and entries in a fixed order. Rows sit in buckets by count
- * (doubly linked lists appended at the tail: a row moved to a bucket goes last), so the sparsest
- * are searched first.
+ * The active matrix, in typed arrays allocated once: row i's entries are the places
+ * rowStart[i] … rowStart[i] + rowLen[i] − 1 of col/re/im/m2 (column, value, squared magnitude),
+ * with room up to rowCap[i]; column j's rows are the places colStart[j] … + colLen[j] − 1 of
+ * colRow. A row or column that outgrows its room moves to the end of its pool with twice the room
+ * (the pools grow by doubling). Every list keeps insertion order with order-preserving deletion,
+ * so the search visits rows and entries in a fixed order. Rows sit in buckets by count (doubly
+ * linked lists appended at the tail: a row moved to a bucket goes last), so the sparsest are
+ * searched first.
  */
 class Active {
-  readonly cols: number[][] = [];
-  readonly re: number[][] = [];
-  readonly im: number[][] = [];
-  readonly m2: number[][] = [];
-  readonly colRows: number[][] = [];
+  col: Int32Array;
+  re: Float64Array;
+  im: Float64Array;
+  m2: Float64Array;
+  /** First unused place of the entry pool. */
+  top: number;
+  readonly rowStart: Int32Array;
+  readonly rowLen: Int32Array;
+  readonly rowCap: Int32Array;
+  colRow: Int32Array;
+  colTop: number;
+  readonly colStart: Int32Array;
+  readonly colLen: Int32Array;
+  readonly colCap: Int32Array;
   /** Largest squared magnitude of each row, −1 when the row changed since it was computed. */
   readonly rowMax2: Float64Array;
   readonly head: Int32Array;
@@ -184,24 +192,53 @@ class Active {
 
   constructor(a: SparseComplexMatrix, re: Float64Array, im: Float64Array) {
     const n = a.n;
-    for (let j = 0; j < n; j++) this.colRows.push([]);
+    const nnz = a.colIdx.length;
+    // Room for a few fill entries per row and column before one has to move.
+    const room = 4;
+    this.col = new Int32Array(2 * (nnz + room * n));
+    this.re = new Float64Array(this.col.length);
+    this.im = new Float64Array(this.col.length);
+    this.m2 = new Float64Array(this.col.length);
+    this.rowStart = new Int32Array(n);
+    this.rowLen = new Int32Array(n);
+    this.rowCap = new Int32Array(n);
+    let top = 0;
+    const perCol = new Int32Array(n);
     for (let i = 0; i < n; i++) {
-      const cs: number[] = [];
-      const rs: number[] = [];
-      const is: number[] = [];
-      const ms: number[] = [];
+      const p0 = a.rowPtr[i]!;
+      const p1 = a.rowPtr[i + 1]!;
+      this.rowStart[i] = top;
+      this.rowLen[i] = p1 - p0;
+      this.rowCap[i] = p1 - p0 + room;
+      for (let p = p0; p < p1; p++) {
+        const t = top + p - p0;
+        const x = re[p]!;
+        const y = im[p]!;
+        this.col[t] = a.colIdx[p]!;
+        this.re[t] = x;
+        this.im[t] = y;
+        this.m2[t] = x * x + y * y;
+        perCol[a.colIdx[p]!]!++;
+      }
+      top += p1 - p0 + room;
+    }
+    this.top = top;
+    this.colRow = new Int32Array(2 * (nnz + room * n));
+    this.colStart = new Int32Array(n);
+    this.colLen = new Int32Array(n);
+    this.colCap = new Int32Array(n);
+    let ct = 0;
+    for (let j = 0; j < n; j++) {
+      this.colStart[j] = ct;
+      this.colCap[j] = perCol[j]! + room;
+      ct += perCol[j]! + room;
+    }
+    this.colTop = ct;
+    for (let i = 0; i < n; i++) {
       for (let p = a.rowPtr[i]!; p < a.rowPtr[i + 1]!; p++) {
         const j = a.colIdx[p]!;
-        cs.push(j);
-        rs.push(re[p]!);
-        is.push(im[p]!);
-        ms.push(re[p]! * re[p]! + im[p]! * im[p]!);
-        this.colRows[j]!.push(i);
+        this.colRow[this.colStart[j]! + this.colLen[j]!++] = i;
       }
-      this.cols.push(cs);
-      this.re.push(rs);
-      this.im.push(is);
-      this.m2.push(ms);
     }
     this.rowMax2 = new Float64Array(n).fill(-1);
     this.head = new Int32Array(n + 1).fill(-1);
@@ -210,10 +247,68 @@ class Active {
     this.prev = new Int32Array(n).fill(-1);
     this.count = new Int32Array(n);
     for (let i = 0; i < n; i++) {
-      const cnt = this.cols[i]!.length;
+      const cnt = this.rowLen[i]!;
       this.link(i, cnt);
       if (cnt > this.maxCount) this.maxCount = cnt;
     }
+  }
+
+  /** Append an entry (column j, value x + iy) to row i, moving the row if it is full. */
+  pushEntry(i: number, j: number, x: number, y: number): void {
+    if (this.rowLen[i] === this.rowCap[i]) this.moveRow(i);
+    const t = this.rowStart[i]! + this.rowLen[i]!++;
+    this.col[t] = j;
+    this.re[t] = x;
+    this.im[t] = y;
+    this.m2[t] = x * x + y * y;
+  }
+
+  /** Row i to the end of the pool with twice its room. */
+  private moveRow(i: number): void {
+    const len = this.rowLen[i]!;
+    const cap = 2 * this.rowCap[i]! + 4;
+    if (this.top + cap > this.col.length) {
+      const size = this.top + cap;
+      this.col = grow(this.col, size);
+      this.re = grow(this.re, size);
+      this.im = grow(this.im, size);
+      this.m2 = grow(this.m2, size);
+    }
+    const from = this.rowStart[i]!;
+    this.col.copyWithin(this.top, from, from + len);
+    this.re.copyWithin(this.top, from, from + len);
+    this.im.copyWithin(this.top, from, from + len);
+    this.m2.copyWithin(this.top, from, from + len);
+    this.rowStart[i] = this.top;
+    this.rowCap[i] = cap;
+    this.top += cap;
+  }
+
+  /** Remove the entry at place t of row i, keeping the order of the rest. */
+  removeEntry(i: number, t: number): void {
+    const end = this.rowStart[i]! + this.rowLen[i]! - 1;
+    for (let p = t; p < end; p++) {
+      this.col[p] = this.col[p + 1]!;
+      this.re[p] = this.re[p + 1]!;
+      this.im[p] = this.im[p + 1]!;
+      this.m2[p] = this.m2[p + 1]!;
+    }
+    this.rowLen[i]!--;
+  }
+
+  /** Append row i to column j's list, moving the list if it is full. */
+  pushColRow(j: number, i: number): void {
+    if (this.colLen[j] === this.colCap[j]) {
+      const len = this.colLen[j]!;
+      const cap = 2 * this.colCap[j]! + 4;
+      if (this.colTop + cap > this.colRow.length) this.colRow = grow(this.colRow, this.colTop + cap);
+      const from = this.colStart[j]!;
+      this.colRow.copyWithin(this.colTop, from, from + len);
+      this.colStart[j] = this.colTop;
+      this.colCap[j] = cap;
+      this.colTop += cap;
+    }
+    this.colRow[this.colStart[j]! + this.colLen[j]!++] = i;
   }
 
   link(i: number, cnt: number): void {
@@ -237,26 +332,34 @@ class Active {
 
   /** Row i changed: its largest magnitude is stale, and it goes last in the bucket of its count. */
   changed(i: number): void {
-    const size = this.cols[i]!.length;
+    const size = this.rowLen[i]!;
     if (size > this.maxCount) this.maxCount = size;
     this.rowMax2[i] = -1;
     this.unlink(i);
     this.link(i, size);
   }
 
-  /** Row r was pivoted on column c: r leaves the buckets, and the columns of U's row forget r. */
-  retire(r: number, c: number, uCols: number[]): void {
-    for (let t = 0; t < uCols.length; t++) {
-      const list = this.colRows[uCols[t]!]!;
-      const at = list.indexOf(r);
-      if (at >= 0) list.splice(at, 1);
+  /**
+   * Row r was pivoted on column c (entry place `at`): r leaves the buckets, and the columns of
+   * U's row forget r.
+   */
+  retire(r: number, c: number, at: number): void {
+    const p0 = this.rowStart[r]!;
+    const p1 = p0 + this.rowLen[r]!;
+    for (let p = p0; p < p1; p++) {
+      if (p === at) continue;
+      const j = this.col[p]!;
+      const s0 = this.colStart[j]!;
+      const s1 = s0 + this.colLen[j]!;
+      let e = s0;
+      while (e < s1 && this.colRow[e] !== r) e++;
+      if (e === s1) continue;
+      for (; e < s1 - 1; e++) this.colRow[e] = this.colRow[e + 1]!;
+      this.colLen[j]!--;
     }
-    this.colRows[c] = [];
+    this.colLen[c] = 0;
     this.unlink(r);
-    this.cols[r] = [];
-    this.re[r] = [];
-    this.im[r] = [];
-    this.m2[r] = [];
+    this.rowLen[r] = 0;
   }
 }
 
@@ -287,23 +390,24 @@ function searchPivot(act: Active, searchRows: number, abs2: number, tau2: number
  * that underflows is far below the zero bound either way).
  */
 function scanRow(act: Active, r: number, cnt: number, abs2: number, tau2: number, best: Best): boolean {
-  const cs = act.cols[r]!;
-  const ms = act.m2[r]!;
+  const p0 = act.rowStart[r]!;
+  const p1 = p0 + act.rowLen[r]!;
+  const ms = act.m2;
   let rowMax2 = act.rowMax2[r]!;
   if (rowMax2 < 0) {
     rowMax2 = 0;
-    for (let t = 0; t < ms.length; t++) if (ms[t]! > rowMax2) rowMax2 = ms[t]!;
+    for (let p = p0; p < p1; p++) if (ms[p]! > rowMax2) rowMax2 = ms[p]!;
     act.rowMax2[r] = rowMax2;
   }
   if (rowMax2 <= abs2) return false;
   const bound2 = tau2 * rowMax2;
   let found = false;
-  for (let t = 0; t < cs.length; t++) {
-    const m2 = ms[t]!;
+  for (let p = p0; p < p1; p++) {
+    const m2 = ms[p]!;
     if (m2 <= abs2 || m2 < bound2) continue;
     found = true;
-    const c = cs[t]!;
-    const cost = (cnt - 1) * (act.colRows[c]!.length - 1);
+    const c = act.col[p]!;
+    const cost = (cnt - 1) * (act.colLen[c]! - 1);
     const ratio = m2 / rowMax2;
     if (cost < best.cost || (cost === best.cost && ratio > best.ratio)) {
       best.cost = cost;
@@ -316,59 +420,59 @@ function scanRow(act: Active, r: number, cnt: number, abs2: number, tau2: number
 }
 
 /**
- * Eliminate column `pivot.c` from row i: l = a_ic / a_rc, then row i −= l·(pivot row), an entry
- * created wherever the pivot row has one and row i has none (structural fill, even when it is
- * numerically zero). `pos` is −1 everywhere before and after.
+ * Eliminate the pivot's column from row i: l = a_ic / a_rc, then row i −= l·(pivot row r, its
+ * pivot at entry place `at`), an entry created wherever the pivot row has one and row i has none
+ * (structural fill, even when it is numerically zero). `pos` is −1 everywhere before and after.
  */
-function updateRow(act: Active, i: number, pivot: Pivot, pos: Int32Array): void {
-  const cs = act.cols[i]!;
-  const rs = act.re[i]!;
-  const is = act.im[i]!;
-  const ms = act.m2[i]!;
-  const ic = cs.indexOf(pivot.c);
-  const aicRe = rs[ic]!;
-  const aicIm = is[ic]!;
-  const { pivRe, pivIm, den } = pivot;
+function updateRow(act: Active, i: number, r: number, at: number, pos: Int32Array): void {
+  const c = act.col[at]!;
+  let ic = act.rowStart[i]!;
+  while (act.col[ic] !== c) ic++;
+  const aicRe = act.re[ic]!;
+  const aicIm = act.im[ic]!;
+  const pivRe = act.re[at]!;
+  const pivIm = act.im[at]!;
+  const den = pivRe * pivRe + pivIm * pivIm;
   const lr = (aicRe * pivRe + aicIm * pivIm) / den;
   const li = (aicIm * pivRe - aicRe * pivIm) / den;
-  cs.splice(ic, 1);
-  rs.splice(ic, 1);
-  is.splice(ic, 1);
-  ms.splice(ic, 1);
-  for (let t = 0; t < cs.length; t++) pos[cs[t]!] = t;
-  const u = pivot.cols;
-  const uRe = pivot.re;
-  const uIm = pivot.im;
-  for (let t = 0; t < u.length; t++) {
-    const j = u[t]!;
-    const dr = lr * uRe[t]! - li * uIm[t]!;
-    const di = lr * uIm[t]! + li * uRe[t]!;
+  act.removeEntry(i, ic);
+  const q0 = act.rowStart[i]!;
+  for (let q = 0; q < act.rowLen[i]!; q++) pos[act.col[q0 + q]!] = q;
+  // The pivot row's places stay put while row i changes (only row i may move in the pool).
+  const p0 = act.rowStart[r]!;
+  const p1 = p0 + act.rowLen[r]!;
+  for (let p = p0; p < p1; p++) {
+    if (p === at) continue;
+    const j = act.col[p]!;
+    const ur = act.re[p]!;
+    const ui = act.im[p]!;
+    const dr = lr * ur - li * ui;
+    const di = lr * ui + li * ur;
     const q = pos[j]!;
     if (q >= 0) {
-      const xr = rs[q]! - dr;
-      const xi = is[q]! - di;
-      rs[q] = xr;
-      is[q] = xi;
-      ms[q] = xr * xr + xi * xi;
+      const t = act.rowStart[i]! + q;
+      const xr = act.re[t]! - dr;
+      const xi = act.im[t]! - di;
+      act.re[t] = xr;
+      act.im[t] = xi;
+      act.m2[t] = xr * xr + xi * xi;
     } else {
-      cs.push(j);
-      rs.push(-dr);
-      is.push(-di);
-      ms.push(dr * dr + di * di);
-      act.colRows[j]!.push(i);
+      act.pushEntry(i, j, -dr, -di);
+      act.pushColRow(j, i);
     }
   }
-  for (let t = 0; t < cs.length; t++) pos[cs[t]!] = -1;
+  const t0 = act.rowStart[i]!;
+  for (let q = 0; q < act.rowLen[i]!; q++) pos[act.col[t0 + q]!] = -1;
   act.changed(i);
 }
 
-/** U's row of one step as pivot steps (colPos of its columns), ascending, into out from `at`. */
-function sortedSteps(cols: number[], colPos: Int32Array, out: Int32Array, at: number): void {
+/** U's row of one step (columns cols[from…to)) as pivot steps, ascending, into out[from…to). */
+function sortedSteps(cols: Int32Array, from: number, to: number, colPos: Int32Array, out: Int32Array): void {
   // Insertion sort: a row of U has a handful of entries.
-  for (let t = 0; t < cols.length; t++) {
+  for (let t = from; t < to; t++) {
     const v = colPos[cols[t]!]!;
-    let k = at + t;
-    while (k > at && out[k - 1]! > v) {
+    let k = t;
+    while (k > from && out[k - 1]! > v) {
       out[k] = out[k - 1]!;
       k--;
     }
