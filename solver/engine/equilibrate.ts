@@ -47,7 +47,11 @@ export class Equilibration {
         let m = 0;
         for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
           const j = colIdx[p]!;
-          const v = (Math.abs(re[p]!) + Math.abs(im[p]!)) * ri * col[j]!;
+          // |re| + |im| written out: this runs once per analysis, before the JIT has seen it,
+          // where a call per entry costs more than the rest of the loop.
+          const x = re[p]!;
+          const y = im[p]!;
+          const v = ((x < 0 ? -x : x) + (y < 0 ? -y : y)) * ri * col[j]!;
           if (v > m) m = v;
           if (v > cmax[j]!) cmax[j] = v;
         }

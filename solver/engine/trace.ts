@@ -1,4 +1,5 @@
 import type { TraceResult } from "../types";
+import { resolvable } from "./extrema";
 import type { Dual } from "./probes";
 import { deg } from "./refine";
 
@@ -34,12 +35,9 @@ export function makeTrace(
  * Null where X = 0 (the phase is undefined there) and where X is subnormal (below 2.2e−308 a double keeps
  * too few digits for a derivative ratio to mean anything).
  */
-/** The smallest normal double (2^−1022). */
-const MIN_NORMAL = 2.2250738585072014e-308;
-
 export function groupDelayOf(x: Dual): number | null {
+  if (!resolvable(x.re, x.im)) return null;
   const scale = Math.max(Math.abs(x.re), Math.abs(x.im));
-  if (!(scale >= MIN_NORMAL) || !Number.isFinite(scale)) return null;
   const re = x.re / scale;
   const im = x.im / scale;
   const t = -((x.dRe / scale) * re + (x.dIm / scale) * im) / (re * re + im * im);

@@ -4,6 +4,8 @@
  */
 import { describe, expect, it } from "vitest";
 import { solveNetlist } from "@/solver";
+import { hiddenExtrema, type Pt, type Quantity, resolvable } from "@/solver/engine/extrema";
+import type { Dual } from "@/solver/engine/probes";
 import type { SolveSuccess } from "@/solver/types";
 import { expectClose } from "./engine-tolerance";
 
@@ -190,5 +192,43 @@ measure f90 = crossing(H, -90deg)
     expect(measure(r, "u").reason).toMatch(/does not cross 1/);
     expect(measure(r, "pm").value).toBeNull();
     expectClose(measure(r, "f90").value, 1 / (2 * Math.PI * 1e-4), 1e-9);
+  });
+});
+
+describe("no search among samples below the smallest normal double", () => {
+  // A trace that zigzags: every interior sample is a local extremum. ln|X| as the quantity.
+  const magnitude: Quantity = {
+    value: (re, im) => Math.log(Math.hypot(re, im)),
+    slope: () => 0,
+  };
+  const zigzag = (scale: number): Pt[] =>
+    Array.from({ length: 9 }, (_, k) => ({ f: 100 * 2 ** k, re: scale * (k % 2 === 0 ? 1 : 3), im: 0 }));
+
+  it("subnormal samples (rounding noise deep in a stop band) cost no solve", () => {
+    let solves = 0;
+    const at = (): Dual => {
+      solves++;
+      return { re: 1e-310, im: 0, dRe: 0, dIm: 0 };
+    };
+    expect(hiddenExtrema(zigzag(1e-310), magnitude, at)).toEqual([]);
+    expect(solves).toBe(0);
+  });
+
+  it("the same zigzag at normal magnitudes is searched (a solve per candidate at least)", () => {
+    let solves = 0;
+    const at = (): Dual => {
+      solves++;
+      return { re: 1e-3, im: 0, dRe: 0, dIm: 0 };
+    };
+    hiddenExtrema(zigzag(1e-3), magnitude, at);
+    expect(solves).toBeGreaterThanOrEqual(7);
+  });
+
+  it("resolvable: the smallest normal double is the edge (2^−1022), by max(|Re|, |Im|)", () => {
+    expect(resolvable(2 ** -1022, 0)).toBe(true);
+    expect(resolvable(0, -(2 ** -1022))).toBe(true);
+    expect(resolvable(2 ** -1023, 2 ** -1023)).toBe(false);
+    expect(resolvable(0, 0)).toBe(false);
+    expect(resolvable(Number.POSITIVE_INFINITY, 0)).toBe(false);
   });
 });
