@@ -5,7 +5,9 @@
  *    (`tsx solver/cli.ts`): goal < 300 ms for the command;
  *  - the 1 000-section RC ladder × 1 000 points through the command in a fresh process, minus the
  *    same command on a 10-section ladder (start-up, a cold JIT), over the hand-specialized
- *    tridiagonal solve of the same ladder (scripts/bench.ts `tridiagonalMs`): goal within 6×.
+ *    tridiagonal solve of the same ladder (scripts/bench.ts `tridiagonalMs`): goal within 6×;
+ *  - the 10 000-section ladder through the command (no goal; a check that nothing grows faster
+ *    than the sweep).
  * Needs the built command (scripts/bench.sh builds it).
  */
 import { spawnSync } from "node:child_process";
@@ -19,17 +21,28 @@ import { ladderNetlist } from "./bench-ladder";
 const ROOT = path.resolve(__dirname, "..");
 const SMALL = path.join(ROOT, "solver/examples/lowpass-2nd-order.pwn");
 
-/** Median wall time (ms) of `runs` fresh processes; throws when one fails. */
-function wall(argv: string[], runs: number): number {
-  const times: number[] = [];
-  for (let i = 0; i < runs; i++) {
-    const t0 = performance.now();
-    const r = spawnSync(argv[0]!, argv.slice(1), { cwd: ROOT, encoding: "utf8" });
-    times.push(performance.now() - t0);
-    if (r.status !== 0) throw new Error(`${argv.join(" ")} exited ${r.status}: ${r.stderr}`);
+/** Wall time (ms) of one fresh process; throws when it fails. */
+function once(argv: string[]): number {
+  const t0 = performance.now();
+  const r = spawnSync(argv[0]!, argv.slice(1), { cwd: ROOT, encoding: "utf8" });
+  const ms = performance.now() - t0;
+  if (r.status !== 0) throw new Error(`${argv.join(" ")} exited ${r.status}: ${r.stderr}`);
+  return ms;
+}
+
+const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
+
+/**
+ * Median wall time (ms) of `runs` fresh processes of each command, the commands taking turns
+ * (one of each per round): a shared machine's load drifts within seconds, and taking turns lets
+ * the drift fall on every command alike rather than on whichever ran last.
+ */
+function walls(commands: string[][], runs: number): number[] {
+  const times = commands.map(() => [] as number[]);
+  for (let r = 0; r < runs; r++) {
+    for (const [i, argv] of commands.entries()) times[i]!.push(once(argv));
   }
-  times.sort((a, b) => a - b);
-  return times[Math.floor(times.length / 2)]!;
+  return times.map(median);
 }
 
 function main(): void {
@@ -42,23 +55,30 @@ function main(): void {
     writeFileSync(file, ladderNetlist(n));
     return file;
   };
-  const small = wall([node, bin, "solve", SMALL], 7);
-  const viaTsx = wall([tsx, "solver/cli.ts", SMALL], 3);
-  const l10 = wall([node, bin, "solve", ladder(10)], 5);
-  const l1000 = wall([node, bin, "solve", ladder(1000)], 5);
+  const [small] = walls([[node, bin, "solve", SMALL]], 7);
+  const [viaTsx] = walls([[tsx, "solver/cli.ts", SMALL]], 3);
+  const [l10, l1000] = walls(
+    [
+      [node, bin, "solve", ladder(10)],
+      [node, bin, "solve", ladder(1000)],
+    ],
+    9,
+  );
+  const [l10000] = walls([[node, bin, "solve", ladder(10_000)]], 3);
   const freqs = sweepFrequencies({ kind: "log", start: 10, stop: 10e3, perDecade: 333 });
   if (typeof freqs === "string" || freqs.length !== 1000)
     throw new Error("the ladder's sweep is not 1 000 points");
   const limit = tridiagonalMs(1000, freqs, 7).ms;
-  const sweep = l1000 - l10;
+  const sweep = l1000! - l10!;
   console.log("case | median ms | goal");
   console.log("--- | --- | ---");
-  console.log(`small netlist summary, \`phasewright solve\` (fresh process) | ${small.toFixed(0)} | < 300`);
+  console.log(`small netlist summary, \`phasewright solve\` (fresh process) | ${small!.toFixed(0)} | < 300`);
   console.log(
-    `the same through tsx (\`tsx solver/cli.ts\`, the old \`npm run solve\`) | ${viaTsx.toFixed(0)} | —`,
+    `the same through tsx (\`tsx solver/cli.ts\`, the old \`npm run solve\`) | ${viaTsx!.toFixed(0)} | —`,
   );
-  console.log(`RC ladder 10 sections × 1 000 points, \`phasewright solve\` | ${l10.toFixed(0)} | —`);
-  console.log(`RC ladder 1 000 sections × 1 000 points, \`phasewright solve\` | ${l1000.toFixed(0)} | —`);
+  console.log(`RC ladder 10 sections × 1 000 points, \`phasewright solve\` | ${l10!.toFixed(0)} | —`);
+  console.log(`RC ladder 1 000 sections × 1 000 points, \`phasewright solve\` | ${l1000!.toFixed(0)} | —`);
+  console.log(`RC ladder 10 000 sections × 1 000 points, \`phasewright solve\` | ${l10000!.toFixed(0)} | —`);
   console.log(
     `1 000 − 10 sections (the sweep without start-up) over the tridiagonal limit (${limit.toFixed(1)} ms) | ` +
       `${sweep.toFixed(0)} = ${(sweep / limit).toFixed(1)}× | ≤ 6×`,
