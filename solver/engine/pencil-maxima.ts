@@ -1,5 +1,8 @@
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
+/** +∞ as a module constant (read per entry in `pencilTests`, also before the JIT compiles it). */
+const INF = Number.POSITIVE_INFINITY;
+
 /**
  * Each row's and column's largest |re| + |im| of A = G + jωC as terms |g| + ω·|c| (ω ≥ 0), kept
  * only where no other entry of the same row (column) has both a larger-or-equal |g| and |c|:
@@ -160,9 +163,9 @@ export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: 
     // (a NaN or ∞ term gives 1 either way).
     for (let k = 0; k < n; k++) {
       const c = colG[k]! + w * colC[k]!;
-      cm[k] = c > 0 && c < Number.POSITIVE_INFINITY ? c : 1;
+      cm[k] = c > 0 && c < INF ? c : 1;
       const r = rowG[k]! + w * rowC[k]!;
-      rm[k] = r > 0 && r < Number.POSITIVE_INFINITY ? r : 1;
+      rm[k] = r > 0 && r < INF ? r : 1;
     }
     return;
   }
@@ -175,7 +178,7 @@ export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: 
       const v = colG[p]! + w * colC[p]!;
       if (v > m) m = v;
     }
-    cm[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+    cm[k] = m > 0 && m < INF ? m : 1;
     c0 = c1;
     const r1 = rowPtr[k + 1]!;
     m = 0;
@@ -183,7 +186,7 @@ export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: 
       const v = rowG[p]! + w * rowC[p]!;
       if (v > m) m = v;
     }
-    rm[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+    rm[k] = m > 0 && m < INF ? m : 1;
     r0 = r1;
   }
 }

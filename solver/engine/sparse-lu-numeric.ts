@@ -143,7 +143,11 @@ function eliminate(
     const hk = half * ck;
     let small = d <= tol2 * rm[k]! * ck;
     for (let t = u0; t < u1 && !small; t++) {
-      const m = Math.abs(fRe[t]!) + Math.abs(fIm[t]!);
+      // |re| + |im| written out: the sweep's first points run before the JIT has compiled this
+      // loop, where a call per entry is a good part of a row's cost.
+      const ur = fRe[t]!;
+      const ui = fIm[t]!;
+      const m = (ur < 0 ? -ur : ur) + (ui < 0 ? -ui : ui);
       if (d * cm[uIdx[t - offU]!]! < hk * m * m) small = true;
     }
     l0 = l1;
