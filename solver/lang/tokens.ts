@@ -28,50 +28,117 @@ export interface LogicalLine {
 /** Hyphenated keywords are single words; the lexer joins `head-tail` when head is one of these. */
 const HYPHEN_HEADS = new Set(["zero", "phase", "gain", "half", "monte", "group", "input"]);
 /** Operators: <= >= < > = : , ( ) + - * / ^ (read by `operatorLength`). */
-// Character classes by code point: the lexer runs once per keystroke in the editor.
 const isLetterCode = (k: number) => (k >= 65 && k <= 90) || (k >= 97 && k <= 122) || k === 95;
 const isDigitCode = (k: number) => k >= 48 && k <= 57;
-const isLetter = (c: string | undefined) => c !== undefined && isLetterCode(c.charCodeAt(0));
-const isDigit = (c: string | undefined) => c !== undefined && isDigitCode(c.charCodeAt(0));
-const isWordChar = (c: string | undefined) =>
-  c !== undefined && (isLetterCode(c.charCodeAt(0)) || isDigit(c));
-/** Characters that may follow a number: prefixes, units (micro, ohm and degree signs, %), IEC codes. */
-const SUFFIX_EXTRA = new Set(["\u00B5", "\u03BC", "\u03A9", "\u2126", "\u00B0", "%"]);
-const isSuffixChar = (c: string | undefined) => c !== undefined && (isWordChar(c) || SUFFIX_EXTRA.has(c));
+const isWordCode = (k: number) => isLetterCode(k) || isDigitCode(k);
 
 /** A `title` line: its text is read as written, not as tokens (NETLIST.md, "Statements"). */
 const TITLE_LINE = /^[ \t]*title(?=[ \t#\\]|$)/;
 /** `#` starts a comment unless written `\#` (only a title has a use for a literal `#`). */
 const TITLE_COMMENT = /(?<!\\)#/;
 
+/*
+ * The lexer runs once per netlist in a fresh process (the `phasewright` command), so mostly before
+ * the JIT has warmed up: there every call per character and every object made per line and thrown
+ * away costs many times what it costs warm, and what is kept is copied by each young-generation GC.
+ * Hence plain loops over char codes, a scan of the whole text instead of a split into lines, and
+ * arrays made at their final size.
+ */
+
 /** Split `text` into logical lines and tokens. Never throws; bad characters become errors. */
 export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[] } {
   const errors: NetlistError[] = [];
   const lines: LogicalLine[] = [];
-  const physical = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
+  const source = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  const length = source.length;
+  // Line breaks are LF, CRLF or CR. The next `\r` and `#` at or after `start` are looked up once and
+  // reused until passed (a search per line from its start would be quadratic on a text without any).
+  let nextCR = source.indexOf("\r");
+  let nextHash = source.indexOf("#");
+  // Tokens of the logical line being read are written to `scratch` from index 0 (`count` of them)
+  // and copied out at their number when the line ends; the scratch array keeps its size meanwhile.
+  const scratch = tokenScratch;
+  let count = 0;
   let current: LogicalLine | null = null;
-  for (let index = 0; index < physical.length; index++) {
-    const raw = physical[index]!;
-    const lineNo = index + 1;
+  let lineNo = 0;
+  let start = 0;
+  for (;;) {
+    lineNo++;
+    if (nextCR >= 0 && nextCR < start) nextCR = source.indexOf("\r", start);
+    let end = source.indexOf("\n", start);
+    if (end < 0) end = length;
+    if (nextCR >= 0 && nextCR < end) end = nextCR;
     const starting = current === null;
-    if (current === null) current = { line: lineNo, tokens: [], segments: [] };
-    if (starting && TITLE_LINE.test(raw)) current.verbatim = true;
-    const hash = current.verbatim ? raw.search(TITLE_COMMENT) : raw.indexOf("#");
-    let body = trimBlanksEnd(hash >= 0 ? raw.slice(0, hash) : raw);
-    const continues = body.endsWith("\\");
+    if (current === null) current = { line: lineNo, tokens: NO_TOKENS, segments: NO_SEGMENTS };
+    if (starting && isTitleLine(source, start, end)) current.verbatim = true;
+    let body: string;
+    if (current.verbatim) {
+      const raw = source.slice(start, end);
+      const hash = raw.search(TITLE_COMMENT);
+      body = trimBlanksEnd(hash >= 0 ? raw.slice(0, hash) : raw);
+    } else {
+      if (nextHash >= 0 && nextHash < start) nextHash = source.indexOf("#", start);
+      let stop = nextHash >= 0 && nextHash < end ? nextHash : end;
+      while (stop > start) {
+        const k = source.charCodeAt(stop - 1);
+        if (k !== 32 && k !== 9) break;
+        stop--;
+      }
+      body = source.slice(start, stop);
+    }
+    const continues = body.charCodeAt(body.length - 1) === 92; /* \ */
     if (continues) body = body.slice(0, -1);
-    current.segments.push({ line: lineNo, column: 1, text: body });
-    if (!current.verbatim) lexSegment(body, lineNo, current.tokens, errors);
+    const segment = { line: lineNo, column: 1, text: body };
+    if (current.segments === NO_SEGMENTS) current.segments = [segment];
+    else current.segments.push(segment);
+    if (!current.verbatim) count = lexSegment(body, lineNo, scratch, count, errors);
     else if (starting)
-      lexSegment(body.slice(0, (TITLE_LINE.exec(body)?.[0] ?? "").length), lineNo, current.tokens, errors);
+      count = lexSegment(
+        body.slice(0, (TITLE_LINE.exec(body)?.[0] ?? "").length),
+        lineNo,
+        scratch,
+        count,
+        errors,
+      );
     if (!continues) {
-      if (current.tokens.length > 0) lines.push(current);
+      if (count > 0) {
+        current.tokens = scratch.slice(0, count);
+        count = 0;
+        lines.push(current);
+      }
       current = null;
     }
+    if (end >= length) break;
+    start = end + (source.charCodeAt(end) === 13 && source.charCodeAt(end + 1) === 10 ? 2 : 1);
   }
   const last = current as LogicalLine | null;
-  if (last !== null && last.tokens.length > 0) lines.push(last);
+  if (last !== null && count > 0) {
+    last.tokens = scratch.slice(0, count);
+    lines.push(last);
+  }
+  scratch.length = 0; // let the tokens go with the lines
+
   return { lines, errors };
+}
+
+/** Placeholders until a line has its own arrays (never filled: a line's arrays are made at their size). */
+const NO_TOKENS: Token[] = [];
+const NO_SEGMENTS: LogicalLine["segments"] = [];
+/** Tokens of the logical line being read (see `lex`). */
+const tokenScratch: Token[] = [];
+
+/** `TITLE_LINE` tested on `source` from `start` to `end` (one physical line) without cutting it out. */
+function isTitleLine(source: string, start: number, end: number): boolean {
+  let i = start;
+  while (i < end) {
+    const k = source.charCodeAt(i);
+    if (k !== 32 && k !== 9) break;
+    i++;
+  }
+  if (source.charCodeAt(i) !== 116 /* t */ || end - i < 5 || !source.startsWith("title", i)) return false;
+  if (i + 5 === end) return true;
+  const k = source.charCodeAt(i + 5);
+  return k === 32 || k === 9 || k === 35 /* # */ || k === 92; /* \ */
 }
 
 /**
@@ -103,20 +170,25 @@ export function tooDeep(tokens: Token[]): { token: Token; parens: boolean } | nu
   let signs = 0;
   let powers = 0;
   let operators = 0;
-  for (const t of tokens) {
+  // An index loop: it runs once per line, mostly cold, where `for…of` allocates per step.
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i]!;
     if (t.kind !== "op") {
       signs = 0;
       continue;
     }
-    if ("+-*/^".includes(t.text) && ++operators > MAX_OPERATORS) return { token: t, parens: false };
-    if (t.text === "+" || t.text === "-") {
+    const op = t.text;
+    const sign = op === "+" || op === "-";
+    if ((sign || op === "*" || op === "/" || op === "^") && ++operators > MAX_OPERATORS)
+      return { token: t, parens: false };
+    if (sign) {
       if (depth + ++signs > MAX_NESTING) return { token: t, parens: false };
       continue;
     }
     signs = 0;
-    if (t.text === "(" && ++depth > MAX_NESTING) return { token: t, parens: true };
-    if (t.text === ")") depth = Math.max(0, depth - 1);
-    if (t.text === "^" && ++powers > MAX_NESTING) return { token: t, parens: false };
+    if (op === "(" && ++depth > MAX_NESTING) return { token: t, parens: true };
+    if (op === ")") depth = Math.max(0, depth - 1);
+    if (op === "^" && ++powers > MAX_NESTING) return { token: t, parens: false };
   }
   return null;
 }
@@ -131,9 +203,10 @@ export function titleText(logical: LogicalLine): string {
     .replace(/\\#/g, "#");
 }
 
-function lexSegment(body: string, line: number, out: Token[], errors: NetlistError[]): void {
-  // One pass by char code, tokens pushed inline: this runs for every line of a netlist, mostly
-  // before the JIT has warmed up, so it avoids a closure per line and a search per operator.
+/** Lex one line's text, writing its tokens to `out` from index `count`; returns the new count. */
+function lexSegment(body: string, line: number, out: Token[], count: number, errors: NetlistError[]): number {
+  // One pass by char code, the character classes written out in the loops (see the note above
+  // `lex`): letters are A-Z a-z _, digits 0-9.
   let i = 0;
   let spaceBefore = true;
   const n = body.length;
@@ -147,18 +220,26 @@ function lexSegment(body: string, line: number, out: Token[], errors: NetlistErr
     }
     const start = i;
     let kind: TokenKind;
-    if (isLetterCode(k)) {
-      i = scanWord(body, i);
+    if ((k >= 97 && k <= 122) || (k >= 65 && k <= 90) || k === 95) {
+      // A word: letters, digits and `_`, and `.` where a letter, digit or `_` follows it.
+      i++;
+      for (;;) {
+        const w = body.charCodeAt(i);
+        if ((w >= 97 && w <= 122) || (w >= 65 && w <= 90) || (w >= 48 && w <= 57) || w === 95) i++;
+        else if (w === 46 /* . */ && isWordCode(body.charCodeAt(i + 1))) i += 2;
+        else break;
+      }
+      // `half-power`, `zero-phase`…: a hyphenated keyword is one word.
       if (
         body.charCodeAt(i) === 45 /* - */ &&
-        isLetter(body[i + 1]) &&
+        isLetterCode(body.charCodeAt(i + 1)) &&
         HYPHEN_HEADS.has(body.slice(start, i))
       ) {
         i += 1;
-        while (isLetter(body[i])) i++;
+        while (isLetterCode(body.charCodeAt(i))) i++;
       }
       kind = "word";
-    } else if (isDigitCode(k) || (k === 46 /* . */ && isDigit(body[i + 1]))) {
+    } else if ((k >= 48 && k <= 57) || (k === 46 /* . */ && isDigitCode(body.charCodeAt(i + 1)))) {
       i = scanNumber(body, i);
       kind = "number";
     } else {
@@ -172,9 +253,17 @@ function lexSegment(body: string, line: number, out: Token[], errors: NetlistErr
       i += length;
       kind = "op";
     }
-    out.push({ kind, text: body.slice(start, i), line, column: start + 1, endColumn: i + 1, spaceBefore });
+    out[count++] = {
+      kind,
+      text: body.slice(start, i),
+      line,
+      column: start + 1,
+      endColumn: i + 1,
+      spaceBefore,
+    };
     spaceBefore = false;
   }
+  return count;
 }
 
 /** Length of the operator starting at `i`, whose char code is `k`; 0 when there is none. */
@@ -199,31 +288,44 @@ function operatorLength(body: string, i: number, k: number): number {
   }
 }
 
-const isWordCode = (k: number) => isLetterCode(k) || isDigitCode(k);
-
-function scanWord(body: string, start: number): number {
-  let i = start;
-  for (;;) {
-    const k = body.charCodeAt(i);
-    if (isWordCode(k) || (k === 46 /* . */ && isWordCode(body.charCodeAt(i + 1)))) i++;
-    else return i;
-  }
-}
-
+/**
+ * Where the number starting at `start` ends: digits, `.digits`, an exponent `e[+-]digits`, then any
+ * prefix and unit letters (word characters, the micro, ohm and degree signs, `%`).
+ */
 function scanNumber(body: string, start: number): number {
   let i = start;
-  while (isDigit(body[i])) i++;
-  if (body[i] === "." && isDigit(body[i + 1])) {
-    i++;
-    while (isDigit(body[i])) i++;
+  let k = body.charCodeAt(i);
+  while (k >= 48 && k <= 57) k = body.charCodeAt(++i);
+  if (k === 46 /* . */ && isDigitCode(body.charCodeAt(i + 1))) {
+    i += 2;
+    k = body.charCodeAt(i);
+    while (k >= 48 && k <= 57) k = body.charCodeAt(++i);
   }
-  const sign = body[i + 1] === "+" || body[i + 1] === "-";
-  if ((body[i] === "e" || body[i] === "E") && isDigit(body[i + (sign ? 2 : 1)])) {
-    i += sign ? 2 : 1;
-    while (isDigit(body[i])) i++;
+  if (k === 101 || k === 69 /* e E */) {
+    const s = body.charCodeAt(i + 1);
+    const digit = s === 43 || s === 45 /* + - */ ? i + 2 : i + 1;
+    if (isDigitCode(body.charCodeAt(digit))) {
+      i = digit + 1;
+      k = body.charCodeAt(i);
+      while (k >= 48 && k <= 57) k = body.charCodeAt(++i);
+    }
   }
-  while (isSuffixChar(body[i])) i++;
-  return i;
+  for (;;) {
+    if (
+      (k >= 97 && k <= 122) ||
+      (k >= 65 && k <= 90) ||
+      (k >= 48 && k <= 57) ||
+      k === 95 ||
+      k === 0xb5 || // micro sign
+      k === 0x3bc || // Greek small mu
+      k === 0x3a9 || // Greek capital omega
+      k === 0x2126 || // ohm sign
+      k === 0xb0 || // degree sign
+      k === 37 // %
+    )
+      k = body.charCodeAt(++i);
+    else return i;
+  }
 }
 
 /** Characters that arrive by copy and paste, and what to type instead. */
