@@ -27,14 +27,16 @@ export class Cursor {
     this.tokens = logical.tokens;
   }
 
+  // No read past the end of `tokens`: in optimized code one would bail out to the interpreter, and
+  // the parser runs mostly cold (see the note in tokens.ts above `lex`).
   peek(k = 0): Token | undefined {
-    return this.tokens[this.i + k];
+    const j = this.i + k;
+    return j < this.tokens.length ? this.tokens[j] : undefined;
   }
 
   next(): Token | undefined {
-    const t = this.tokens[this.i];
-    if (t !== undefined) this.i++;
-    return t;
+    if (this.i >= this.tokens.length) return undefined;
+    return this.tokens[this.i++];
   }
 
   atEnd(): boolean {
@@ -114,17 +116,25 @@ export class Cursor {
    * the fix `gnd`; reading goes on as if `gnd` were written, so the line's other errors show too.
    */
   expectNode(what: string | (() => string), hint?: string): Named | null {
+    return this.node() ?? this.expectName(what, true, hint);
+  }
+
+  /**
+   * The node name at the cursor as `expectNode` reads it, or null (with no error) when the token is
+   * not one; a caller with a message built from parts builds it only then.
+   */
+  node(): Named | null {
     const t = this.peek();
-    if (t?.kind === "number" && t.text === "0") {
-      this.i++;
-      this.errors.push(legacyGround(t));
-      return { name: "gnd", span: spanOf(t) };
-    }
-    if (t?.kind === "number" && /^[0-9]+$/.test(t.text)) {
-      this.i++;
-      return { name: t.text, span: spanOf(t) };
-    }
-    return this.expectName(what, true, hint);
+    if (t?.kind === "number") {
+      if (t.text === "0") {
+        this.i++;
+        this.errors.push(legacyGround(t));
+        return { name: "gnd", span: spanOf(t) };
+      }
+      if (!/^[0-9]+$/.test(t.text)) return null;
+    } else if (t?.kind !== "word") return null;
+    this.i++;
+    return { name: t.text, span: spanOf(t) };
   }
 
   expectEnd(hint?: string): boolean {
