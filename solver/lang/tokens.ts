@@ -47,85 +47,106 @@ const TITLE_COMMENT = /(?<!\\)#/;
 
 /** Split `text` into logical lines and tokens. Never throws; bad characters become errors. */
 export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[] } {
-  const errors: NetlistError[] = [];
+  const reader = new LineReader(text);
   const lines: LogicalLine[] = [];
-  const source = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  const length = source.length;
+  for (let line = reader.next(); line !== null; line = reader.next()) lines.push(line);
+  return { lines, errors: reader.errors };
+}
+
+/**
+ * Reads a text's logical lines one at a time, as `lex` returns them, so a caller can let each line
+ * go once it is done with it. Bad characters are added to `errors` as their lines are read.
+ */
+export class LineReader {
+  readonly errors: NetlistError[] = [];
+  private readonly source: string;
+  /** Where the next physical line starts, and its number less one. */
+  private start = 0;
+  private lineNo = 0;
+  private done = false;
   // Line breaks are LF, CRLF or CR. The next `\r` and `#` at or after `start` are looked up once and
   // reused until passed (a search per line from its start would be quadratic on a text without any).
-  let nextCR = source.indexOf("\r");
-  let nextHash = source.indexOf("#");
-  // Tokens of the logical line being read are written to `scratch` from index 0 (`count` of them)
-  // and copied out at their number when the line ends; the scratch array keeps its size meanwhile.
-  const scratch = tokenScratch;
-  let count = 0;
-  let current: LogicalLine | null = null;
-  let lineNo = 0;
-  let start = 0;
-  for (;;) {
-    lineNo++;
-    if (nextCR >= 0 && nextCR < start) nextCR = source.indexOf("\r", start);
-    let end = source.indexOf("\n", start);
-    if (end < 0) end = length;
-    if (nextCR >= 0 && nextCR < end) end = nextCR;
-    const starting = current === null;
-    if (current === null) current = { line: lineNo, tokens: NO_TOKENS, segments: NO_SEGMENTS };
-    if (starting && isTitleLine(source, start, end)) current.verbatim = true;
-    let body: string;
-    if (current.verbatim) {
-      const raw = source.slice(start, end);
-      const hash = raw.search(TITLE_COMMENT);
-      body = trimBlanksEnd(hash >= 0 ? raw.slice(0, hash) : raw);
-    } else {
-      if (nextHash >= 0 && nextHash < start) nextHash = source.indexOf("#", start);
-      let stop = nextHash >= 0 && nextHash < end ? nextHash : end;
-      while (stop > start) {
-        const k = source.charCodeAt(stop - 1);
-        if (k !== 32 && k !== 9) break;
-        stop--;
-      }
-      body = source.slice(start, stop);
-    }
-    const continues = body.charCodeAt(body.length - 1) === 92; /* \ */
-    if (continues) body = body.slice(0, -1);
-    const segment = { line: lineNo, column: 1, text: body };
-    if (current.segments === NO_SEGMENTS) current.segments = [segment];
-    else current.segments.push(segment);
-    if (!current.verbatim) count = lexSegment(body, lineNo, scratch, count, errors);
-    else if (starting)
-      count = lexSegment(
-        body.slice(0, (TITLE_LINE.exec(body)?.[0] ?? "").length),
-        lineNo,
-        scratch,
-        count,
-        errors,
-      );
-    if (!continues) {
-      if (count > 0) {
-        current.tokens = scratch.slice(0, count);
-        count = 0;
-        lines.push(current);
-      }
-      current = null;
-    }
-    if (end >= length) break;
-    start = end + (source.charCodeAt(end) === 13 && source.charCodeAt(end + 1) === 10 ? 2 : 1);
-  }
-  const last = current as LogicalLine | null;
-  if (last !== null && count > 0) {
-    last.tokens = scratch.slice(0, count);
-    lines.push(last);
-  }
-  scratch.length = 0; // let the tokens go with the lines
+  private nextCR: number;
+  private nextHash: number;
+  /**
+   * The tokens of the line being read, written from index 0 and copied out at their number when the
+   * line ends; this array keeps its size from line to line.
+   */
+  private readonly scratch: Token[] = [];
 
-  return { lines, errors };
+  constructor(text: string) {
+    this.source = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+    this.nextCR = this.source.indexOf("\r");
+    this.nextHash = this.source.indexOf("#");
+  }
+
+  /** The next logical line with at least one token, or null at the end of the text. */
+  next(): LogicalLine | null {
+    const source = this.source;
+    const length = source.length;
+    const scratch = this.scratch;
+    let count = 0;
+    let current: LogicalLine | null = null;
+    while (!this.done) {
+      const start = this.start;
+      const lineNo = ++this.lineNo;
+      if (this.nextCR >= 0 && this.nextCR < start) this.nextCR = source.indexOf("\r", start);
+      let end = source.indexOf("\n", start);
+      if (end < 0) end = length;
+      if (this.nextCR >= 0 && this.nextCR < end) end = this.nextCR;
+      if (end >= length) this.done = true;
+      else {
+        const crlf = source.charCodeAt(end) === 13 && end + 1 < length && source.charCodeAt(end + 1) === 10;
+        this.start = end + (crlf ? 2 : 1);
+      }
+      const starting = current === null;
+      if (current === null) current = { line: lineNo, tokens: NO_TOKENS, segments: NO_SEGMENTS };
+      if (starting && isTitleLine(source, start, end)) current.verbatim = true;
+      let body: string;
+      if (current.verbatim) {
+        const raw = source.slice(start, end);
+        const hash = raw.search(TITLE_COMMENT);
+        body = trimBlanksEnd(hash >= 0 ? raw.slice(0, hash) : raw);
+      } else {
+        if (this.nextHash >= 0 && this.nextHash < start) this.nextHash = source.indexOf("#", start);
+        let stop = this.nextHash >= 0 && this.nextHash < end ? this.nextHash : end;
+        while (stop > start) {
+          const k = source.charCodeAt(stop - 1);
+          if (k !== 32 && k !== 9) break;
+          stop--;
+        }
+        body = source.slice(start, stop);
+      }
+      const continues = body.length > 0 && body.charCodeAt(body.length - 1) === 92; /* \ */
+      if (continues) body = body.slice(0, -1);
+      const segment = { line: lineNo, column: 1, text: body };
+      if (current.segments === NO_SEGMENTS) current.segments = [segment];
+      else current.segments.push(segment);
+      if (!current.verbatim) count = lexSegment(body, lineNo, scratch, count, this.errors);
+      else if (starting) {
+        const keyword = body.slice(0, (TITLE_LINE.exec(body)?.[0] ?? "").length);
+        count = lexSegment(keyword, lineNo, scratch, count, this.errors);
+      }
+      if (!continues) {
+        if (count > 0) {
+          current.tokens = scratch.slice(0, count);
+          return current;
+        }
+        current = null;
+      }
+    }
+    // The text ended on a line joined to the next.
+    if (current !== null && count > 0) {
+      current.tokens = scratch.slice(0, count);
+      return current;
+    }
+    return null;
+  }
 }
 
 /** Placeholders until a line has its own arrays (never filled: a line's arrays are made at their size). */
 const NO_TOKENS: Token[] = [];
 const NO_SEGMENTS: LogicalLine["segments"] = [];
-/** Tokens of the logical line being read (see `lex`). */
-const tokenScratch: Token[] = [];
 
 /** `TITLE_LINE` tested on `source` from `start` to `end` (one physical line) without cutting it out. */
 function isTitleLine(source: string, start: number, end: number): boolean {
@@ -135,7 +156,7 @@ function isTitleLine(source: string, start: number, end: number): boolean {
     if (k !== 32 && k !== 9) break;
     i++;
   }
-  if (source.charCodeAt(i) !== 116 /* t */ || end - i < 5 || !source.startsWith("title", i)) return false;
+  if (end - i < 5 || source.charCodeAt(i) !== 116 /* t */ || !source.startsWith("title", i)) return false;
   if (i + 5 === end) return true;
   const k = source.charCodeAt(i + 5);
   return k === 32 || k === 9 || k === 35 /* # */ || k === 92; /* \ */
@@ -203,7 +224,10 @@ export function titleText(logical: LogicalLine): string {
     .replace(/\\#/g, "#");
 }
 
-/** Lex one line's text, writing its tokens to `out` from index `count`; returns the new count. */
+/**
+ * Lex one line's text, writing its tokens to `out` from index `count`; returns the new count. No
+ * read goes past the end of `body` (in optimized code one would bail out to the interpreter).
+ */
 function lexSegment(body: string, line: number, out: Token[], count: number, errors: NetlistError[]): number {
   // One pass by char code, the character classes written out in the loops (see the note above
   // `lex`): letters are A-Z a-z _, digits 0-9.
@@ -223,23 +247,27 @@ function lexSegment(body: string, line: number, out: Token[], count: number, err
     if ((k >= 97 && k <= 122) || (k >= 65 && k <= 90) || k === 95) {
       // A word: letters, digits and `_`, and `.` where a letter, digit or `_` follows it.
       i++;
-      for (;;) {
+      while (i < n) {
         const w = body.charCodeAt(i);
         if ((w >= 97 && w <= 122) || (w >= 65 && w <= 90) || (w >= 48 && w <= 57) || w === 95) i++;
-        else if (w === 46 /* . */ && isWordCode(body.charCodeAt(i + 1))) i += 2;
+        else if (w === 46 /* . */ && i + 1 < n && isWordCode(body.charCodeAt(i + 1))) i += 2;
         else break;
       }
       // `half-power`, `zero-phase`…: a hyphenated keyword is one word.
       if (
+        i + 1 < n &&
         body.charCodeAt(i) === 45 /* - */ &&
         isLetterCode(body.charCodeAt(i + 1)) &&
         HYPHEN_HEADS.has(body.slice(start, i))
       ) {
         i += 1;
-        while (isLetterCode(body.charCodeAt(i))) i++;
+        while (i < n && isLetterCode(body.charCodeAt(i))) i++;
       }
       kind = "word";
-    } else if ((k >= 48 && k <= 57) || (k === 46 /* . */ && isDigitCode(body.charCodeAt(i + 1)))) {
+    } else if (
+      (k >= 48 && k <= 57) ||
+      (k === 46 /* . */ && i + 1 < n && isDigitCode(body.charCodeAt(i + 1)))
+    ) {
       i = scanNumber(body, i);
       kind = "number";
     } else {
@@ -253,7 +281,7 @@ function lexSegment(body: string, line: number, out: Token[], count: number, err
       i += length;
       kind = "op";
     }
-    out[count++] = {
+    const token = {
       kind,
       text: body.slice(start, i),
       line,
@@ -261,6 +289,11 @@ function lexSegment(body: string, line: number, out: Token[], count: number, err
       endColumn: i + 1,
       spaceBefore,
     };
+    // A store past the array's end (it grows) has a site of its own: optimized code made for
+    // in-place stores would bail out at the first line longer than all before it.
+    if (count < out.length) out[count] = token;
+    else out.push(token);
+    count++;
     spaceBefore = false;
   }
   return count;
@@ -271,7 +304,7 @@ function operatorLength(body: string, i: number, k: number): number {
   switch (k) {
     case 60: // <
     case 62: // >
-      return body.charCodeAt(i + 1) === 61 /* = */ ? 2 : 1;
+      return i + 1 < body.length && body.charCodeAt(i + 1) === 61 /* = */ ? 2 : 1;
     case 61: // =
     case 58: // :
     case 44: // ,
@@ -290,24 +323,26 @@ function operatorLength(body: string, i: number, k: number): number {
 
 /**
  * Where the number starting at `start` ends: digits, `.digits`, an exponent `e[+-]digits`, then any
- * prefix and unit letters (word characters, the micro, ohm and degree signs, `%`).
+ * prefix and unit letters (word characters, the micro, ohm and degree signs, `%`). `k` is the code
+ * at `i`, or -1 at the end of `body`.
  */
 function scanNumber(body: string, start: number): number {
+  const n = body.length;
   let i = start;
   let k = body.charCodeAt(i);
-  while (k >= 48 && k <= 57) k = body.charCodeAt(++i);
-  if (k === 46 /* . */ && isDigitCode(body.charCodeAt(i + 1))) {
+  while (k >= 48 && k <= 57) k = ++i < n ? body.charCodeAt(i) : -1;
+  if (k === 46 /* . */ && i + 1 < n && isDigitCode(body.charCodeAt(i + 1))) {
     i += 2;
-    k = body.charCodeAt(i);
-    while (k >= 48 && k <= 57) k = body.charCodeAt(++i);
+    k = i < n ? body.charCodeAt(i) : -1;
+    while (k >= 48 && k <= 57) k = ++i < n ? body.charCodeAt(i) : -1;
   }
   if (k === 101 || k === 69 /* e E */) {
-    const s = body.charCodeAt(i + 1);
+    const s = i + 1 < n ? body.charCodeAt(i + 1) : -1;
     const digit = s === 43 || s === 45 /* + - */ ? i + 2 : i + 1;
-    if (isDigitCode(body.charCodeAt(digit))) {
+    if (digit < n && isDigitCode(body.charCodeAt(digit))) {
       i = digit + 1;
-      k = body.charCodeAt(i);
-      while (k >= 48 && k <= 57) k = body.charCodeAt(++i);
+      k = i < n ? body.charCodeAt(i) : -1;
+      while (k >= 48 && k <= 57) k = ++i < n ? body.charCodeAt(i) : -1;
     }
   }
   for (;;) {
@@ -323,7 +358,7 @@ function scanNumber(body: string, start: number): number {
       k === 0xb0 || // degree sign
       k === 37 // %
     )
-      k = body.charCodeAt(++i);
+      k = ++i < n ? body.charCodeAt(i) : -1;
     else return i;
   }
 }
