@@ -4,8 +4,12 @@
  */
 import type { NetlistError, Part, Warning } from "../types";
 
-/** The pairs of nodes a part ties together by conduction (current sources and sensing inputs don't). */
-function conductingPairs(p: Part): [string, string][] {
+/**
+ * Call `join` for each pair of nodes a part ties together by conduction (current sources and sensing
+ * inputs don't). A callback, not a list of pairs: this runs once per part, mostly cold, where every
+ * array made and dropped per part costs (see the note in tokens.ts above `lex`).
+ */
+function joinConducting(p: Part, join: (a: string, b: string) => void): void {
   switch (p.kind) {
     case "resistor":
     case "capacitor":
@@ -14,11 +18,11 @@ function conductingPairs(p: Part): [string, string][] {
     case "vcvs":
     case "ccvs":
     case "diode":
-      return [[p.nodes[0]!, p.nodes[1]!]];
+      join(p.nodes[0]!, p.nodes[1]!);
+      return;
     case "opamp":
-      return [[p.nodes[2]!, "gnd"]];
-    default:
-      return [];
+      join(p.nodes[2]!, "gnd");
+      return;
   }
 }
 
@@ -46,27 +50,42 @@ export function checkTopology(parts: Part[], errors: NetlistError[], warnings: W
 }
 
 function openEnds(parts: Part[], warnings: Warning[]): void {
-  // Per node: how many parts touch it (part names are unique after flattening) and the first one.
-  // Counts, not a set of names per node: gnd alone is touched by most parts.
-  const touching = new Map<string, { count: number; first: Part }>();
-  for (const p of parts) {
+  // Per node (in first-seen order): how many parts touch it (part names are unique after flattening)
+  // and the first one. Counts, not a set of names per node: gnd alone is touched by most parts.
+  // Index loops and parallel arrays: this runs once per part, mostly cold (see `joinConducting`).
+  const index = new Map<string, number>();
+  const names: string[] = [];
+  const counts: number[] = [];
+  const firsts: Part[] = [];
+  for (let k = 0; k < parts.length; k++) {
+    const p = parts[k]!;
     const nodes = p.nodes;
-    if (nodes.length > 0 && nodes.every((n) => n === nodes[0]) && p.kind !== "vsource") {
-      warnings.push({
-        line: p.span.line,
-        message: `every terminal of ${p.name} is on node ${nodes[0]}, so it does nothing`,
-      });
+    if (nodes.length > 0 && p.kind !== "vsource") {
+      let same = true;
+      for (let i = 1; i < nodes.length && same; i++) same = nodes[i] === nodes[0];
+      if (same) {
+        warnings.push({
+          line: p.span.line,
+          message: `every terminal of ${p.name} is on node ${nodes[0]}, so it does nothing`,
+        });
+      }
     }
     for (let i = 0; i < nodes.length; i++) {
       const n = nodes[i]!;
       if (nodes.indexOf(n) < i) continue; // counted already for this part
-      const seen = touching.get(n);
-      if (seen === undefined) touching.set(n, { count: 1, first: p });
-      else seen.count++;
+      const at = index.get(n);
+      if (at === undefined) {
+        index.set(n, names.length);
+        names.push(n);
+        counts.push(1);
+        firsts.push(p);
+      } else counts[at]!++;
     }
   }
-  for (const [n, { count, first: p }] of touching) {
-    if (n === "gnd" || count !== 1) continue;
+  for (let at = 0; at < names.length; at++) {
+    const n = names[at]!;
+    if (n === "gnd" || counts[at] !== 1) continue;
+    const p = firsts[at]!;
     warnings.push({
       line: p.span.line,
       message: `node ${n} connects only to ${p.name}: that terminal is left open`,
@@ -80,10 +99,12 @@ function voltageLoops(parts: Part[], errors: NetlistError[]): void {
     if (!adjacency.has(a)) adjacency.set(a, []);
     adjacency.get(a)!.push({ to: b, part });
   };
-  for (const p of parts) {
+  for (let k = 0; k < parts.length; k++) {
+    const p = parts[k]!;
     const pair = voltagePair(p);
     if (pair === null) continue;
-    const [a, b] = pair;
+    const a = pair[0];
+    const b = pair[1];
     const path = a === b ? [] : findPath(adjacency, a, b);
     if (path !== null) {
       const names = [...path.map((x) => x.name), p.name];
@@ -135,10 +156,15 @@ function groundPaths(parts: Part[], errors: NetlistError[]): void {
   const add = (x: string) => {
     if (!parent.has(x)) parent.set(x, x);
   };
+  const join = (a: string, b: string) => {
+    parent.set(find(a), find(b));
+  };
   add("gnd");
-  for (const p of parts) {
-    for (const n of p.nodes) add(n);
-    for (const [a, b] of conductingPairs(p)) parent.set(find(a), find(b));
+  for (let k = 0; k < parts.length; k++) {
+    const p = parts[k]!;
+    const nodes = p.nodes;
+    for (let i = 0; i < nodes.length; i++) add(nodes[i]!);
+    joinConducting(p, join);
   }
   if (!parts.some((p) => p.nodes.includes("gnd"))) {
     const looksLikeGround = [...parent.keys()].find((n) => /^(gnd|ground)$/i.test(n) && n !== "gnd");
@@ -153,12 +179,13 @@ function groundPaths(parts: Part[], errors: NetlistError[]): void {
   }
   const ground = find("gnd");
   const floating = new Map<string, string[]>();
-  for (const n of parent.keys()) {
+  // forEach, not for…of over the keys: no object per step in cold code.
+  parent.forEach((_, n) => {
     const root = find(n);
-    if (root === ground) continue;
+    if (root === ground) return;
     if (!floating.has(root)) floating.set(root, []);
     floating.get(root)!.push(n);
-  }
+  });
   for (const nodes of floating.values()) {
     const first = parts.find((p) => p.nodes.some((n) => nodes.includes(n)))!;
     const list = nodes.map((n) => `\`${n}\``).join(", ");
