@@ -43,14 +43,16 @@ export class Cursor {
     return this.i >= this.tokens.length;
   }
 
+  // `t !== undefined && t.kind …`, not `t?.kind …`: compared with a string, `undefined` past the end
+  // of the line made optimized code bail out.
   isOp(text: string, k = 0): boolean {
     const t = this.peek(k);
-    return t?.kind === "op" && t.text === text;
+    return t !== undefined && t.kind === "op" && t.text === text;
   }
 
   isWord(text?: string, k = 0): boolean {
     const t = this.peek(k);
-    return t?.kind === "word" && (text === undefined || t.text === text);
+    return t !== undefined && t.kind === "word" && (text === undefined || t.text === text);
   }
 
   /** Span of the whole statement on its first line. */
@@ -102,7 +104,7 @@ export class Cursor {
    */
   expectName(what: string | (() => string), dotted = false, hint?: string): Named | null {
     const t = this.peek();
-    if (t?.kind === "word" && (dotted || !t.text.includes("."))) {
+    if (t !== undefined && t.kind === "word" && (dotted || !t.text.includes("."))) {
       this.i++;
       return { name: t.text, span: spanOf(t) };
     }
@@ -125,14 +127,15 @@ export class Cursor {
    */
   node(): Named | null {
     const t = this.peek();
-    if (t?.kind === "number") {
+    if (t === undefined) return null;
+    if (t.kind === "number") {
       if (t.text === "0") {
         this.i++;
         this.errors.push(legacyGround(t));
         return { name: "gnd", span: spanOf(t) };
       }
       if (!/^[0-9]+$/.test(t.text)) return null;
-    } else if (t?.kind !== "word") return null;
+    } else if (t.kind !== "word") return null;
     this.i++;
     return { name: t.text, span: spanOf(t) };
   }
