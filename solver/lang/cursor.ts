@@ -43,16 +43,21 @@ export class Cursor {
     return this.i >= this.tokens.length;
   }
 
-  // `t !== undefined && t.kind …`, not `t?.kind …`: compared with a string, `undefined` past the end
-  // of the line made optimized code bail out.
+  // The token is read here, not through `peek`: these two run for nearly every token, mostly cold,
+  // where a call costs. A token past the end is tested for before its kind is compared (`undefined`
+  // compared with a string made optimized code bail out).
   isOp(text: string, k = 0): boolean {
-    const t = this.peek(k);
-    return t !== undefined && t.kind === "op" && t.text === text;
+    const j = this.i + k;
+    if (j >= this.tokens.length) return false;
+    const t = this.tokens[j]!;
+    return t.kind === "op" && t.text === text;
   }
 
   isWord(text?: string, k = 0): boolean {
-    const t = this.peek(k);
-    return t !== undefined && t.kind === "word" && (text === undefined || t.text === text);
+    const j = this.i + k;
+    if (j >= this.tokens.length) return false;
+    const t = this.tokens[j]!;
+    return t.kind === "word" && (text === undefined || t.text === text);
   }
 
   /** Span of the whole statement on its first line. */

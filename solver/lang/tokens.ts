@@ -187,6 +187,8 @@ export const MAX_OPERATORS = 2000;
  * the length of a chain of operators (MAX_OPERATORS).
  */
 export function tooDeep(tokens: Token[]): { token: Token; parens: boolean } | null {
+  // Each limit takes more than MAX_NESTING tokens to pass (MAX_OPERATORS is larger).
+  if (tokens.length <= MAX_NESTING) return null;
   let depth = 0;
   let signs = 0;
   let powers = 0;
