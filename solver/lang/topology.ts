@@ -44,19 +44,44 @@ export function checkTopology(parts: Part[], errors: NetlistError[], warnings: W
     });
     return;
   }
-  openEnds(parts, warnings);
+  const nodes = numberNodes(parts);
+  openEnds(parts, nodes, warnings);
   voltageLoops(parts, errors);
-  groundPaths(parts, errors);
+  groundPaths(parts, nodes, errors);
 }
 
-function openEnds(parts: Part[], warnings: Warning[]): void {
-  // Per node (in first-seen order): how many parts touch it (part names are unique after flattening)
-  // and the first one. Counts, not a set of names per node: gnd alone is touched by most parts.
-  // Index loops and parallel arrays: this runs once per part, mostly cold (see `joinConducting`).
+/**
+ * The nodes numbered in first-seen order, gnd first (0). The checks below count and join by number
+ * in typed arrays rather than in maps by name: they run once per part, mostly cold (see
+ * `joinConducting`).
+ */
+interface NodeNumbers {
+  names: string[];
+  index: Map<string, number>;
+}
+
+function numberNodes(parts: Part[]): NodeNumbers {
+  const names = ["gnd"];
   const index = new Map<string, number>();
-  const names: string[] = [];
-  const counts: number[] = [];
-  const firsts: Part[] = [];
+  index.set("gnd", 0);
+  for (let k = 0; k < parts.length; k++) {
+    const nodes = parts[k]!.nodes;
+    for (let i = 0; i < nodes.length; i++) {
+      const n = nodes[i]!;
+      if (!index.has(n)) {
+        index.set(n, names.length);
+        names.push(n);
+      }
+    }
+  }
+  return { names, index };
+}
+
+function openEnds(parts: Part[], { names, index }: NodeNumbers, warnings: Warning[]): void {
+  // Per node: how many parts touch it (part names are unique after flattening) and the first one.
+  // Counts, not a set of names per node: gnd alone is touched by most parts.
+  const counts = new Int32Array(names.length);
+  const firsts: Part[] = new Array(names.length);
   for (let k = 0; k < parts.length; k++) {
     const p = parts[k]!;
     const nodes = p.nodes;
@@ -73,22 +98,18 @@ function openEnds(parts: Part[], warnings: Warning[]): void {
     for (let i = 0; i < nodes.length; i++) {
       const n = nodes[i]!;
       if (nodes.indexOf(n) < i) continue; // counted already for this part
-      const at = index.get(n);
-      if (at === undefined) {
-        index.set(n, names.length);
-        names.push(n);
-        counts.push(1);
-        firsts.push(p);
-      } else counts[at]!++;
+      const at = index.get(n)!;
+      const count = counts[at]!;
+      if (count === 0) firsts[at] = p;
+      counts[at] = count + 1;
     }
   }
-  for (let at = 0; at < names.length; at++) {
-    const n = names[at]!;
-    if (n === "gnd" || counts[at] !== 1) continue;
+  for (let at = 1; at < names.length; at++) {
+    if (counts[at] !== 1) continue;
     const p = firsts[at]!;
     warnings.push({
       line: p.span.line,
-      message: `node ${n} connects only to ${p.name}: that terminal is left open`,
+      message: `node ${names[at]} connects only to ${p.name}: that terminal is left open`,
     });
   }
 }
@@ -140,34 +161,26 @@ function findPath(adjacency: Map<string, { to: string; part: Part }[]>, a: strin
   return null;
 }
 
-function groundPaths(parts: Part[], errors: NetlistError[]): void {
-  // Union-find with full path compression: near-linear in parts + nodes.
-  const parent = new Map<string, string>();
-  const find = (x: string): string => {
+function groundPaths(parts: Part[], { names, index }: NodeNumbers, errors: NetlistError[]): void {
+  // Union-find over node numbers with full path compression: near-linear in parts + nodes.
+  const parent = new Int32Array(names.length);
+  for (let i = 0; i < parent.length; i++) parent[i] = i;
+  const find = (x: number): number => {
     let r = x;
-    while (parent.get(r) !== r) r = parent.get(r) ?? r;
+    while (parent[r] !== r) r = parent[r]!;
     for (let y = x; y !== r; ) {
-      const next = parent.get(y)!;
-      parent.set(y, r);
+      const next = parent[y]!;
+      parent[y] = r;
       y = next;
     }
     return r;
   };
-  const add = (x: string) => {
-    if (!parent.has(x)) parent.set(x, x);
-  };
   const join = (a: string, b: string) => {
-    parent.set(find(a), find(b));
+    parent[find(index.get(a)!)] = find(index.get(b)!);
   };
-  add("gnd");
-  for (let k = 0; k < parts.length; k++) {
-    const p = parts[k]!;
-    const nodes = p.nodes;
-    for (let i = 0; i < nodes.length; i++) add(nodes[i]!);
-    joinConducting(p, join);
-  }
+  for (let k = 0; k < parts.length; k++) joinConducting(parts[k]!, join);
   if (!parts.some((p) => p.nodes.includes("gnd"))) {
-    const looksLikeGround = [...parent.keys()].find((n) => /^(gnd|ground)$/i.test(n) && n !== "gnd");
+    const looksLikeGround = names.find((n) => /^(gnd|ground)$/i.test(n) && n !== "gnd");
     errors.push({
       ...parts[0]!.span,
       message: "nothing connects to gnd, so no voltage has a reference",
@@ -177,15 +190,14 @@ function groundPaths(parts: Part[], errors: NetlistError[]): void {
     });
     return;
   }
-  const ground = find("gnd");
-  const floating = new Map<string, string[]>();
-  // forEach, not for…of over the keys: no object per step in cold code.
-  parent.forEach((_, n) => {
+  const ground = find(0);
+  const floating = new Map<number, string[]>();
+  for (let n = 0; n < names.length; n++) {
     const root = find(n);
-    if (root === ground) return;
+    if (root === ground) continue;
     if (!floating.has(root)) floating.set(root, []);
-    floating.get(root)!.push(n);
-  });
+    floating.get(root)!.push(names[n]!);
+  }
   for (const nodes of floating.values()) {
     const first = parts.find((p) => p.nodes.some((n) => nodes.includes(n)))!;
     const list = nodes.map((n) => `\`${n}\``).join(", ");
