@@ -325,8 +325,8 @@ function operatorLength(body: string, i: number, k: number): number {
 
 /**
  * Where the number starting at `start` ends: digits, `.digits`, an exponent `e[+-]digits`, then any
- * prefix and unit letters (word characters, the micro, ohm and degree signs, `%`). `k` is the code
- * at `i`, or -1 at the end of `body`.
+ * prefix and unit letters (word characters, the micro, ohm and degree signs, `%`). Inside, `k` is the
+ * char code at `i`, or -1 at the end of `body` (nothing is read past it).
  */
 function scanNumber(body: string, start: number): number {
   const n = body.length;
