@@ -30,7 +30,19 @@ const HYPHEN_HEADS = new Set(["zero", "phase", "gain", "half", "monte", "group",
 /** Operators: <= >= < > = : , ( ) + - * / ^ (read by `operatorLength`). */
 const isLetterCode = (k: number) => (k >= 65 && k <= 90) || (k >= 97 && k <= 122) || k === 95;
 const isDigitCode = (k: number) => k >= 48 && k <= 57;
-const isWordCode = (k: number) => isLetterCode(k) || isDigitCode(k);
+
+/*
+ * The rest of a word and a whole number are read by sticky regexes (matched from `lastIndex`, which
+ * they move to the end of the match; they always match, maybe empty): the regex engine runs them as
+ * machine code from the first lines on, where a loop per character would still be interpreted.
+ */
+/** After a word's first letter: letters, digits, `_`, and `.` where one of those follows it. */
+const WORD_REST = /(?:[A-Za-z0-9_]|\.(?=[A-Za-z0-9_]))*/y;
+/**
+ * A number from its first digit or `.`: digits, `.digits`, an exponent `e[+-]digits`, then any prefix
+ * and unit letters (word characters, the micro, ohm and degree signs, `%`).
+ */
+const NUMBER = /[0-9]*(?:\.[0-9]+)?(?:[eE][+-]?[0-9]+)?[A-Za-z0-9_\u00B5\u03BC\u03A9\u2126\u00B0%]*/y;
 
 /** A `title` line: its text is read as written, not as tokens (NETLIST.md, "Statements"). */
 const TITLE_LINE = /^[ \t]*title(?=[ \t#\\]|$)/;
@@ -247,14 +259,9 @@ function lexSegment(body: string, line: number, out: Token[], count: number, err
     const start = i;
     let kind: TokenKind;
     if ((k >= 97 && k <= 122) || (k >= 65 && k <= 90) || k === 95) {
-      // A word: letters, digits and `_`, and `.` where a letter, digit or `_` follows it.
-      i++;
-      while (i < n) {
-        const w = body.charCodeAt(i);
-        if ((w >= 97 && w <= 122) || (w >= 65 && w <= 90) || (w >= 48 && w <= 57) || w === 95) i++;
-        else if (w === 46 /* . */ && i + 1 < n && isWordCode(body.charCodeAt(i + 1))) i += 2;
-        else break;
-      }
+      WORD_REST.lastIndex = i + 1;
+      WORD_REST.test(body);
+      i = WORD_REST.lastIndex;
       // `half-power`, `zero-phase`…: a hyphenated keyword is one word.
       if (
         i + 1 < n &&
@@ -270,7 +277,9 @@ function lexSegment(body: string, line: number, out: Token[], count: number, err
       (k >= 48 && k <= 57) ||
       (k === 46 /* . */ && i + 1 < n && isDigitCode(body.charCodeAt(i + 1)))
     ) {
-      i = scanNumber(body, i);
+      NUMBER.lastIndex = i;
+      NUMBER.test(body);
+      i = NUMBER.lastIndex;
       kind = "number";
     } else {
       const length = operatorLength(body, i, k);
@@ -320,48 +329,6 @@ function operatorLength(body: string, i: number, k: number): number {
       return 1;
     default:
       return 0;
-  }
-}
-
-/**
- * Where the number starting at `start` ends: digits, `.digits`, an exponent `e[+-]digits`, then any
- * prefix and unit letters (word characters, the micro, ohm and degree signs, `%`). Inside, `k` is the
- * char code at `i`, or -1 at the end of `body` (nothing is read past it).
- */
-function scanNumber(body: string, start: number): number {
-  const n = body.length;
-  let i = start;
-  let k = body.charCodeAt(i);
-  while (k >= 48 && k <= 57) k = ++i < n ? body.charCodeAt(i) : -1;
-  if (k === 46 /* . */ && i + 1 < n && isDigitCode(body.charCodeAt(i + 1))) {
-    i += 2;
-    k = i < n ? body.charCodeAt(i) : -1;
-    while (k >= 48 && k <= 57) k = ++i < n ? body.charCodeAt(i) : -1;
-  }
-  if (k === 101 || k === 69 /* e E */) {
-    const s = i + 1 < n ? body.charCodeAt(i + 1) : -1;
-    const digit = s === 43 || s === 45 /* + - */ ? i + 2 : i + 1;
-    if (digit < n && isDigitCode(body.charCodeAt(digit))) {
-      i = digit + 1;
-      k = i < n ? body.charCodeAt(i) : -1;
-      while (k >= 48 && k <= 57) k = ++i < n ? body.charCodeAt(i) : -1;
-    }
-  }
-  for (;;) {
-    if (
-      (k >= 97 && k <= 122) ||
-      (k >= 65 && k <= 90) ||
-      (k >= 48 && k <= 57) ||
-      k === 95 ||
-      k === 0xb5 || // micro sign
-      k === 0x3bc || // Greek small mu
-      k === 0x3a9 || // Greek capital omega
-      k === 0x2126 || // ohm sign
-      k === 0xb0 || // degree sign
-      k === 37 // %
-    )
-      k = ++i < n ? body.charCodeAt(i) : -1;
-    else return i;
   }
 }
 
