@@ -53,8 +53,8 @@ const TITLE_COMMENT = /(?<!\\)#/;
  * The lexer runs once per netlist in a fresh process (the `phasewright` command), so mostly before
  * the JIT has warmed up: there every call per character and every object made per line and thrown
  * away costs many times what it costs warm, and what is kept is copied by each young-generation GC.
- * Hence plain loops over char codes, a scan of the whole text instead of a split into lines, and
- * arrays made at their final size.
+ * Hence a scan of the whole text instead of a split into lines, words and numbers read by sticky
+ * regexes, the rest by char code in plain loops, and arrays made at their final size.
  */
 
 /** Split `text` into logical lines and tokens. Never throws; bad characters become errors. */
