@@ -27,28 +27,37 @@ export class Cursor {
     this.tokens = logical.tokens;
   }
 
+  // No read past the end of `tokens`: in optimized code one would bail out to the interpreter, and
+  // the parser runs mostly cold (see the note in tokens.ts above `lex`).
   peek(k = 0): Token | undefined {
-    return this.tokens[this.i + k];
+    const j = this.i + k;
+    return j < this.tokens.length ? this.tokens[j] : undefined;
   }
 
   next(): Token | undefined {
-    const t = this.tokens[this.i];
-    if (t !== undefined) this.i++;
-    return t;
+    if (this.i >= this.tokens.length) return undefined;
+    return this.tokens[this.i++];
   }
 
   atEnd(): boolean {
     return this.i >= this.tokens.length;
   }
 
+  // The token is read here, not through `peek`: these two run for nearly every token, mostly cold,
+  // where a call costs. A token past the end is tested for before its kind is compared (`undefined`
+  // compared with a string made optimized code bail out).
   isOp(text: string, k = 0): boolean {
-    const t = this.peek(k);
-    return t?.kind === "op" && t.text === text;
+    const j = this.i + k;
+    if (j >= this.tokens.length) return false;
+    const t = this.tokens[j]!;
+    return t.kind === "op" && t.text === text;
   }
 
   isWord(text?: string, k = 0): boolean {
-    const t = this.peek(k);
-    return t?.kind === "word" && (text === undefined || t.text === text);
+    const j = this.i + k;
+    if (j >= this.tokens.length) return false;
+    const t = this.tokens[j]!;
+    return t.kind === "word" && (text === undefined || t.text === text);
   }
 
   /** Span of the whole statement on its first line. */
@@ -100,7 +109,7 @@ export class Cursor {
    */
   expectName(what: string | (() => string), dotted = false, hint?: string): Named | null {
     const t = this.peek();
-    if (t?.kind === "word" && (dotted || !t.text.includes("."))) {
+    if (t !== undefined && t.kind === "word" && (dotted || !t.text.includes("."))) {
       this.i++;
       return { name: t.text, span: spanOf(t) };
     }
@@ -114,17 +123,26 @@ export class Cursor {
    * the fix `gnd`; reading goes on as if `gnd` were written, so the line's other errors show too.
    */
   expectNode(what: string | (() => string), hint?: string): Named | null {
+    return this.node() ?? this.expectName(what, true, hint);
+  }
+
+  /**
+   * The node name at the cursor as `expectNode` reads it, or null (with no error) when the token is
+   * not one; a caller with a message built from parts builds it only then.
+   */
+  node(): Named | null {
     const t = this.peek();
-    if (t?.kind === "number" && t.text === "0") {
-      this.i++;
-      this.errors.push(legacyGround(t));
-      return { name: "gnd", span: spanOf(t) };
-    }
-    if (t?.kind === "number" && /^[0-9]+$/.test(t.text)) {
-      this.i++;
-      return { name: t.text, span: spanOf(t) };
-    }
-    return this.expectName(what, true, hint);
+    if (t === undefined) return null;
+    if (t.kind === "number") {
+      if (t.text === "0") {
+        this.i++;
+        this.errors.push(legacyGround(t));
+        return { name: "gnd", span: spanOf(t) };
+      }
+      if (!/^[0-9]+$/.test(t.text)) return null;
+    } else if (t.kind !== "word") return null;
+    this.i++;
+    return { name: t.text, span: spanOf(t) };
   }
 
   expectEnd(hint?: string): boolean {

@@ -70,7 +70,7 @@ export function parseBlockHeader(c: Cursor): BlockStatement | null {
         `block ${name.name}(in, out) gain=2`,
       );
     }
-    const p = parseOption(c, () => "any", []);
+    const p = parseOption(c, null);
     if (p === null) return null;
     params.push(p);
   }
@@ -104,7 +104,7 @@ export function parsePreset(c: Cursor): Statement | null {
         "a preset holds options only, written key=value",
         `e.g. \`preset ${name.name} = ${kind.name} ${Object.keys(info.options)[0] ?? ""}=…\``,
       );
-    const o = parseOption(c, (key) => info.options[key], Object.keys(info.options));
+    const o = parseOption(c, info.options);
     if (o === null) return null;
     options.push(o);
   }

@@ -53,23 +53,22 @@ export function parsePart(c: Cursor, kinds: KindTable): PartStatement | null {
   }
   const info = base ? KINDS[base] : null;
   const count = block ?? info!.terminals.length;
-  const terminals: Named[] = [];
+  // Made at its size and filled by index; a line with fewer terminals fails below. No closures in
+  // this function: it runs once per part line, mostly cold (see the note in tokens.ts above `lex`).
+  const terminals: Named[] = new Array(count);
+  let found = 0;
   let value: PartStatement["value"] = null;
   const options: OptionNode[] = [];
   while (!c.atEnd()) {
     const t = c.peek()!;
     if (t.kind === "word" && c.isOp("=", 1)) {
-      const option = parseOption(
-        c,
-        (key) => (info ? info.options[key] : "any"),
-        info ? Object.keys(info.options) : [],
-      );
+      const option = parseOption(c, info ? info.options : null);
       if (option === null) return null;
       options.push(option);
-    } else if (terminals.length < count) {
-      const node = c.expectNode(() => `a node name (${kind.name} connects ${count} nodes)`);
+    } else if (found < count) {
+      const node = c.node() ?? c.expectNode(`a node name (${kind.name} connects ${count} nodes)`);
       if (node === null) return null;
-      terminals.push(node);
+      terminals[found++] = node;
     } else if (value === null && info !== null && info.value !== "none") {
       value = c.value(base!, "a value");
       if (value === null) return null;
@@ -92,11 +91,11 @@ export function parsePart(c: Cursor, kinds: KindTable): PartStatement | null {
       );
     }
   }
-  if (terminals.length < count) {
+  if (found < count) {
     const names = info ? ` (${info.terminals.join(" ")})` : "";
     return c.fail(
       undefined,
-      `${kind.name} connects ${count} nodes${names}, found ${terminals.length}`,
+      `${kind.name} connects ${count} nodes${names}, found ${found}`,
       info ? `e.g. \`${info.usage}\`` : undefined,
     );
   }
@@ -128,12 +127,11 @@ function unparenthesized(c: Cursor, value: ValueNode, op: Token): null {
   });
 }
 
-/** `key=value`, with no blanks around `=`. */
-export function parseOption(
-  c: Cursor,
-  placeOf: (key: string) => Place | undefined,
-  allowed: string[],
-): OptionNode | null {
+/**
+ * `key=value`, with no blanks around `=`. `places` gives each allowed key's place; null allows any
+ * key, its value in place "any".
+ */
+export function parseOption(c: Cursor, places: Partial<Record<string, Place>> | null): OptionNode | null {
   const keyTok = c.next()!;
   const eq = c.next()!;
   const after = c.peek();
@@ -144,8 +142,9 @@ export function parseOption(
       `write \`${keyTok.text}=…\``,
     );
   }
-  const place = placeOf(keyTok.text);
+  const place = places === null ? "any" : places[keyTok.text];
   if (place === undefined) {
+    const allowed = places === null ? [] : Object.keys(places);
     const hint =
       allowed.length === 0
         ? "this kind takes no options"

@@ -31,8 +31,27 @@ export interface CompileOverrides {
 
 type Of<T extends Statement["type"]> = Extract<Statement, { type: T }>;
 
-function byType<T extends Statement["type"]>(statements: Statement[], type: T): Of<T>[] {
-  return statements.filter((s): s is Of<T> => s.type === type);
+/**
+ * The statements of each type, in order, gathered in one pass (the netlist's statements are read
+ * once here, not once per type: this runs mostly cold, see the note in tokens.ts above `lex`).
+ */
+class ByType {
+  private readonly groups = new Map<Statement["type"], Statement[]>();
+
+  constructor(statements: Statement[]) {
+    for (let i = 0; i < statements.length; i++) {
+      const s = statements[i]!;
+      const group = this.groups.get(s.type);
+      if (group === undefined) this.groups.set(s.type, [s]);
+      else group.push(s);
+    }
+  }
+
+  /** The statements of `type`, a new array each time. */
+  of<T extends Statement["type"]>(type: T): Of<T>[] {
+    const group = this.groups.get(type);
+    return group === undefined ? [] : (group.slice() as Of<T>[]);
+  }
 }
 
 /** Register names once; a repeat is an error pointing at the earlier line. */
@@ -81,8 +100,8 @@ export function elaborate(
   errors: NetlistError[],
   warnings: Warning[],
 ): Circuit {
-  const st = tree.statements;
-  const title = once(byType(st, "title"), "title", errors);
+  const st = new ByType(tree.statements);
+  const title = once(st.of("title"), "title", errors);
   const network = elaborateNetwork(st, overrides, errors, warnings);
   const { parts, nodes, temperature } = network.circuit;
   const { steady, ...directives } = resolveDirectives(st, network.ctx);
@@ -91,14 +110,14 @@ export function elaborate(
 
 /** The circuit's parts and nodes, and the context its directives are read in. */
 function elaborateNetwork(
-  st: Statement[],
+  st: ByType,
   overrides: CompileOverrides,
   errors: NetlistError[],
   warnings: Warning[],
 ): { circuit: Pick<Circuit, "parts" | "nodes" | "temperature">; ctx: DirectiveContext } {
-  const lets = unique<LetStatement>(byType(st, "let"), "let", errors);
-  const blocks = unique<BlockStatement>(byType(st, "block"), "block", errors);
-  const presets = unique<PresetStatement>(byType(st, "preset"), "preset", errors);
+  const lets = unique<LetStatement>(st.of("let"), "let", errors);
+  const blocks = unique<BlockStatement>(st.of("block"), "block", errors);
+  const presets = unique<PresetStatement>(st.of("preset"), "preset", errors);
   for (const [name, p] of presets) {
     if (blocks.has(name))
       errors.push({ ...p.name.span, message: `\`${name}\` names both a preset and a block` });
@@ -112,9 +131,9 @@ function elaborateNetwork(
   const global = new LetScope([...lets.values()], fixed, null, errors);
   global.evaluateAll();
   const aliases = new Map<string, string>();
-  const temperature = once(byType(st, "temperature"), "temperature", errors);
+  const temperature = once(st.of("temperature"), "temperature", errors);
   const kelvin = temperature?.kelvin ?? DEFAULT_KELVIN;
-  const parts = flatten(byType(st, "part") as PartStatement[], {
+  const parts = flatten(st.of("part") as PartStatement[], {
     blocks,
     presets,
     global,
@@ -129,7 +148,10 @@ function elaborateNetwork(
       errors.push({ line: 1, column: 1, endColumn: 2, message: `no part named \`${name}\` to replace` });
   }
   const nodeSet = new Set<string>();
-  for (const p of parts) for (const n of p.nodes) if (n !== "gnd") nodeSet.add(n);
+  for (let k = 0; k < parts.length; k++) {
+    const nodes = parts[k]!.nodes;
+    for (let i = 0; i < nodes.length; i++) if (nodes[i] !== "gnd") nodeSet.add(nodes[i]!);
+  }
   const nodes = [...nodeSet]; // first-seen order
   // Structure checks only make sense on a complete, error-free part list.
   if (errors.length === 0) checkTopology(parts, errors, warnings);
@@ -146,24 +168,24 @@ function elaborateNetwork(
 }
 
 /** The directives (sweep, shows, loops, measures, checks, studies) read against the network. */
-function resolveDirectives(st: Statement[], ctx: DirectiveContext) {
+function resolveDirectives(st: ByType, ctx: DirectiveContext) {
   const errors = ctx.errors;
-  const sweepStatement = once(byType(st, "sweep"), "sweep", errors);
+  const sweepStatement = once(st.of("sweep"), "sweep", errors);
   const { sweep, defaultSweep } = resolveSweep(sweepStatement, ctx);
   const traces = new Map<string, { line: number; column: number; endColumn: number }>();
-  const shows = resolveShows(byType(st, "show"), ctx, traces);
-  const loops = resolveLoops(byType(st, "loop"), ctx, traces);
-  const measureStatements = byType(st, "measure");
-  const noise = resolveNoise(byType(st, "noise"), ctx, traces);
-  const zeros = resolveZeros(byType(st, "zeros"), ctx);
-  const steady = resolveSteady(once(byType(st, "steady"), "steady", errors), ctx, loops);
+  const shows = resolveShows(st.of("show"), ctx, traces);
+  const loops = resolveLoops(st.of("loop"), ctx, traces);
+  const measureStatements = st.of("measure");
+  const noise = resolveNoise(st.of("noise"), ctx, traces);
+  const zeros = resolveZeros(st.of("zeros"), ctx);
+  const steady = resolveSteady(once(st.of("steady"), "steady", errors), ctx, loops);
   const measures = resolveMeasures(measureStatements, ctx, traces, steady, new Set(noise.map((n) => n.name)));
-  const checks = resolveChecks(byType(st, "check"), ctx, measureStatements);
-  const varyStatement = once(byType(st, "vary"), "vary", errors);
+  const checks = resolveChecks(st.of("check"), ctx, measureStatements);
+  const varyStatement = once(st.of("vary"), "vary", errors);
   const vary = varyStatement ? resolveVary(varyStatement, ctx) : null;
-  const mcStatement = once(byType(st, "monte-carlo"), "monte-carlo", errors);
+  const mcStatement = once(st.of("monte-carlo"), "monte-carlo", errors);
   const monteCarlo = mcStatement ? resolveMonteCarlo(mcStatement, ctx) : null;
-  const sensitivity = byType(st, "sensitivity").flatMap((s) => {
+  const sensitivity = st.of("sensitivity").flatMap((s) => {
     if (measureStatements.some((m) => m.name.name === s.measure.name))
       return [{ measure: s.measure.name, span: s.span }];
     errors.push({
@@ -183,7 +205,7 @@ function resolveDirectives(st: Statement[], ctx: DirectiveContext) {
     checks,
     vary,
     monteCarlo,
-    poles: byType(st, "poles").length > 0,
+    poles: st.of("poles").length > 0,
     sensitivity,
     ...(noise.length > 0 ? { noise } : {}),
     ...(zeros.length > 0 ? { zeros } : {}),

@@ -14,9 +14,11 @@ const MEG = /^`([^`]+)`: "meg" is not a prefix here$/;
 const ONE_WORD = /^[A-Za-z_µ0-9][\w.-]*$/;
 
 export function addFixes(text: string, errors: NetlistError[]): void {
-  const lines = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
+  // The text is split into lines only when an error may need a fix.
+  let lines: string[] | null = null;
   for (const e of errors) {
     if (e.fix !== undefined) continue;
+    lines ??= text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
     const written = lines[e.line - 1]?.slice(e.column - 1, e.endColumn - 1) ?? "";
     if (!ONE_WORD.test(written)) continue;
     const suggestion = e.hint === undefined ? undefined : DID_YOU_MEAN.exec(e.hint)?.[1];

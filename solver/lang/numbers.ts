@@ -138,13 +138,40 @@ export function parseNumberText(text: string): NumberResult {
       if (rest === "%" || rest === "dB" || rest === "deg") {
         return { ok: false, message: `no prefix may stand before ${UNIT_NAMES[rest]}` };
       }
-      return { ok: true, value: Number((base * prefix).toPrecision(15)), unit: rest };
+      return { ok: true, value: withPrefix(base, prefix), unit: rest };
     }
   }
   return badSuffix(text, suffix);
 }
 
 const isDigitCode = (k: number) => k >= 48 && k <= 57;
+
+/**
+ * `base` times a prefix's `scale`, rounded to 15 significant digits (`4.7k` is 4700, not
+ * 4700.000000000001). A whole `base` below 10^15 skips the rounding, which is the slow part of
+ * reading a number in a fresh process (a string made and read back): its exact product has at most
+ * 15 significant digits, the product as computed is within a few units in the last place of it, so
+ * the rounding gives that exact product back, read as the double nearest to it — which the product
+ * is for a scale of 10^3…10^12 (exact in binary), and the quotient by the exact 10^3…10^15 is for
+ * the smaller scales (IEEE 754 rounds each operation correctly).
+ */
+function withPrefix(base: number, scale: number): number {
+  if (Number.isInteger(base) && base < 1e15) {
+    if (scale >= 1) return base * scale;
+    const divisor = DIVISORS.get(scale);
+    if (divisor !== undefined) return base / divisor;
+  }
+  return Number((base * scale).toPrecision(15));
+}
+
+/** The powers of ten the prefixes below 1 divide by. */
+const DIVISORS = new Map([
+  [1e-3, 1e3],
+  [1e-6, 1e6],
+  [1e-9, 1e9],
+  [1e-12, 1e12],
+  [1e-15, 1e15],
+]);
 
 /**
  * Where the mantissa of `text` ends, as the pattern `[0-9]*\.?[0-9]*(?:[eE][+-]?[0-9]+)?` at its

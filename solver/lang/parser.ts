@@ -11,17 +11,37 @@ import { type KindTable, parsePart } from "./definitions";
 import { didYouMean } from "./hints";
 import { isPartKind, KEYWORDS, KINDS } from "./kinds";
 import { parseAnalysis } from "./statements";
-import { type LogicalLine, lex, MAX_NESTING, MAX_OPERATORS, type Token, titleText, tooDeep } from "./tokens";
+import {
+  LineReader,
+  type LogicalLine,
+  MAX_NESTING,
+  MAX_OPERATORS,
+  type Token,
+  titleText,
+  tooDeep,
+} from "./tokens";
 
 /** Lex and parse `text`. Never throws. */
 export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistError[] } {
-  const { lines, errors } = lex(text);
-  const kinds = prescan(lines);
+  const reader = new LineReader(text);
+  // The kinds that presets and blocks add are read from all lines before the first part, so the
+  // lines are read in full first when the text may hold such a line. When it can't, each line is
+  // parsed as it is read and let go: in a fresh process (the command) every young-generation GC
+  // copies what is still held, and all of a long netlist's tokens would be.
+  const whole = text.includes("block") || text.includes("preset");
+  const lines: LogicalLine[] = [];
+  if (whole) for (let line = reader.next(); line !== null; line = reader.next()) lines.push(line);
+  const kinds = whole ? prescan(lines) : { presets: new Map(), blocks: new Map() };
+  // The parse errors; the lexer's come before them (as when the text was lexed first).
+  const errors: NetlistError[] = [];
   const statements: Statement[] = [];
   let open: BlockStatement | null = null;
   const topNames = new Map<string, number>();
   let blockNames = new Map<string, number>();
-  for (const logical of lines) {
+  // Index loops here: they run once per line, mostly cold (see the note in tokens.ts above `lex`).
+  for (let li = 0; ; li++) {
+    const logical = whole ? lines[li] : reader.next();
+    if (logical === undefined || logical === null) break;
     const deep = tooDeep(logical.tokens);
     if (deep !== null) {
       errors.push({
@@ -85,7 +105,7 @@ export function parseNetlist(text: string): { tree: ParseTree; errors: NetlistEr
     });
     statements.push(open);
   }
-  return { tree: { statements }, errors };
+  return { tree: { statements }, errors: reader.errors.length === 0 ? errors : reader.errors.concat(errors) };
 }
 
 /**
@@ -108,8 +128,9 @@ function duplicateName(head: Token, seen: Map<string, number>, errors: NetlistEr
 function prescan(lines: LogicalLine[]): KindTable {
   const presets = new Map<string, PartKind | null>();
   const blocks = new Map<string, number>();
-  for (const { tokens } of lines) {
+  for (let li = 0; li < lines.length; li++) {
     // Indexing, not destructuring: this runs once per line, mostly before the JIT has warmed up.
+    const tokens = lines[li]!.tokens;
     const a = tokens[0];
     const b = tokens[1];
     const c = tokens[2];

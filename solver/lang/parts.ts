@@ -53,7 +53,9 @@ export function flatten(statements: PartStatement[], ctx: FlattenContext): Part[
   const used = new Set<string>();
   const top: Instance = { prefix: "", nodeMap: new Map(), scope: ctx.global, stack: [] };
   const visit = (list: PartStatement[], inst: Instance) => {
-    for (const st of list) {
+    // Index loops in this file: they run once per part, mostly cold (see the note in tokens.ts above `lex`).
+    for (let k = 0; k < list.length; k++) {
+      const st = list[k]!;
       const fullName = inst.prefix + st.name.name;
       // A repeated name was reported by the parser (parser.ts, duplicateName); keep the first.
       if (seen.has(fullName)) continue;
@@ -93,6 +95,15 @@ export function flatten(statements: PartStatement[], ctx: FlattenContext): Part[
 function resolveNode(name: string, inst: Instance): string {
   if (name === "gnd") return "gnd";
   return inst.nodeMap.get(name) ?? inst.prefix + name;
+}
+
+/** The global names of the first `count` terminals (an array literal for two: made at its size). */
+function resolveNodes(terminals: PartStatement["terminals"], count: number, inst: Instance): string[] {
+  const n = Math.min(count, terminals.length);
+  if (n === 2) return [resolveNode(terminals[0]!.name, inst), resolveNode(terminals[1]!.name, inst)];
+  const nodes: string[] = [];
+  for (let i = 0; i < n; i++) nodes.push(resolveNode(terminals[i]!.name, inst));
+  return nodes;
 }
 
 function enterBlock(
@@ -155,15 +166,16 @@ function enterBlock(
 }
 
 function primitive(st: PartStatement, fullName: string, inst: Instance, ctx: FlattenContext): Part | null {
-  const preset = isPartKind(st.kind.name) ? undefined : ctx.presets.get(st.kind.name);
-  const kind: PartKind | null = isPartKind(st.kind.name) ? st.kind.name : (preset?.kind.base ?? null);
+  const builtIn = isPartKind(st.kind.name);
+  const preset = builtIn ? undefined : ctx.presets.get(st.kind.name);
+  const kind: PartKind | null = builtIn ? (st.kind.name as PartKind) : (preset?.kind.base ?? null);
   if (kind === null) {
     ctx.errors.push({ ...st.kind.span, message: `unknown part kind \`${st.kind.name}\`` });
     return null;
   }
   const info = KINDS[kind];
   const nodeCount = SENSED.has(kind) ? 2 : info.terminals.length;
-  const nodes = st.terminals.slice(0, nodeCount).map((t) => resolveNode(t.name, inst));
+  const nodes = resolveNodes(st.terminals, nodeCount, inst);
   const written = st.value === null ? info.defaultValue : evaluate(st.value, inst.scope, ctx.errors);
   const value = ctx.partOverrides[fullName] ?? written ?? Number.NaN;
   if (POSITIVE.has(kind) && written !== null && !(value > 0)) {
@@ -175,8 +187,10 @@ function primitive(st: PartStatement, fullName: string, inst: Instance, ctx: Fla
   const part: Part = { name: fullName, kind, nodes, value, span: st.span };
   if (kind === "diode") part.diode = { is: DIODE_IS, n: DIODE_N, kelvin: ctx.kelvin };
   // Preset options first, the line's own options override them.
-  if (preset !== undefined) for (const o of preset.options) optionOf(part, o, ctx.global, ctx.errors);
-  for (const o of st.options) optionOf(part, o, inst.scope, ctx.errors);
+  if (preset !== undefined)
+    for (let i = 0; i < preset.options.length; i++)
+      optionOf(part, preset.options[i]!, ctx.global, ctx.errors);
+  for (let i = 0; i < st.options.length; i++) optionOf(part, st.options[i]!, inst.scope, ctx.errors);
   // A part whose value or options failed still takes part in the structure checks; its errors fail the compile.
   return part;
 }

@@ -28,50 +28,150 @@ export interface LogicalLine {
 /** Hyphenated keywords are single words; the lexer joins `head-tail` when head is one of these. */
 const HYPHEN_HEADS = new Set(["zero", "phase", "gain", "half", "monte", "group", "input"]);
 /** Operators: <= >= < > = : , ( ) + - * / ^ (read by `operatorLength`). */
-// Character classes by code point: the lexer runs once per keystroke in the editor.
 const isLetterCode = (k: number) => (k >= 65 && k <= 90) || (k >= 97 && k <= 122) || k === 95;
 const isDigitCode = (k: number) => k >= 48 && k <= 57;
-const isLetter = (c: string | undefined) => c !== undefined && isLetterCode(c.charCodeAt(0));
-const isDigit = (c: string | undefined) => c !== undefined && isDigitCode(c.charCodeAt(0));
-const isWordChar = (c: string | undefined) =>
-  c !== undefined && (isLetterCode(c.charCodeAt(0)) || isDigit(c));
-/** Characters that may follow a number: prefixes, units (micro, ohm and degree signs, %), IEC codes. */
-const SUFFIX_EXTRA = new Set(["\u00B5", "\u03BC", "\u03A9", "\u2126", "\u00B0", "%"]);
-const isSuffixChar = (c: string | undefined) => c !== undefined && (isWordChar(c) || SUFFIX_EXTRA.has(c));
+
+/*
+ * The rest of a word and a whole number are read by sticky regexes (matched from `lastIndex`, which
+ * they move to the end of the match; they always match, maybe empty): the regex engine runs them as
+ * machine code from the first lines on, where a loop per character would still be interpreted.
+ */
+/** After a word's first letter: letters, digits, `_`, and `.` where one of those follows it. */
+const WORD_REST = /(?:[A-Za-z0-9_]|\.(?=[A-Za-z0-9_]))*/y;
+/**
+ * A number from its first digit or `.`: digits, `.digits`, an exponent `e[+-]digits`, then any prefix
+ * and unit letters (word characters, the micro, ohm and degree signs, `%`).
+ */
+const NUMBER = /[0-9]*(?:\.[0-9]+)?(?:[eE][+-]?[0-9]+)?[A-Za-z0-9_\u00B5\u03BC\u03A9\u2126\u00B0%]*/y;
 
 /** A `title` line: its text is read as written, not as tokens (NETLIST.md, "Statements"). */
 const TITLE_LINE = /^[ \t]*title(?=[ \t#\\]|$)/;
 /** `#` starts a comment unless written `\#` (only a title has a use for a literal `#`). */
 const TITLE_COMMENT = /(?<!\\)#/;
 
+/*
+ * The lexer runs once per netlist in a fresh process (the `phasewright` command), so mostly before
+ * the JIT has warmed up: there every call per character and every object made per line and thrown
+ * away costs many times what it costs warm, and what is kept is copied by each young-generation GC.
+ * Hence a scan of the whole text instead of a split into lines, words and numbers read by sticky
+ * regexes, the rest by char code in plain loops, and arrays made at their final size.
+ */
+
 /** Split `text` into logical lines and tokens. Never throws; bad characters become errors. */
 export function lex(text: string): { lines: LogicalLine[]; errors: NetlistError[] } {
-  const errors: NetlistError[] = [];
+  const reader = new LineReader(text);
   const lines: LogicalLine[] = [];
-  const physical = text.replace(/^\uFEFF/, "").split(/\r\n|\n|\r/);
-  let current: LogicalLine | null = null;
-  for (let index = 0; index < physical.length; index++) {
-    const raw = physical[index]!;
-    const lineNo = index + 1;
-    const starting = current === null;
-    if (current === null) current = { line: lineNo, tokens: [], segments: [] };
-    if (starting && TITLE_LINE.test(raw)) current.verbatim = true;
-    const hash = current.verbatim ? raw.search(TITLE_COMMENT) : raw.indexOf("#");
-    let body = trimBlanksEnd(hash >= 0 ? raw.slice(0, hash) : raw);
-    const continues = body.endsWith("\\");
-    if (continues) body = body.slice(0, -1);
-    current.segments.push({ line: lineNo, column: 1, text: body });
-    if (!current.verbatim) lexSegment(body, lineNo, current.tokens, errors);
-    else if (starting)
-      lexSegment(body.slice(0, (TITLE_LINE.exec(body)?.[0] ?? "").length), lineNo, current.tokens, errors);
-    if (!continues) {
-      if (current.tokens.length > 0) lines.push(current);
-      current = null;
-    }
+  for (let line = reader.next(); line !== null; line = reader.next()) lines.push(line);
+  return { lines, errors: reader.errors };
+}
+
+/**
+ * Reads a text's logical lines one at a time, as `lex` returns them, so a caller can let each line
+ * go once it is done with it. Bad characters are added to `errors` as their lines are read.
+ */
+export class LineReader {
+  readonly errors: NetlistError[] = [];
+  private readonly source: string;
+  /** Where the next physical line starts, and its number less one. */
+  private start = 0;
+  private lineNo = 0;
+  private done = false;
+  // Line breaks are LF, CRLF or CR. The next `\r` and `#` at or after `start` are looked up once and
+  // reused until passed (a search per line from its start would be quadratic on a text without any).
+  private nextCR: number;
+  private nextHash: number;
+  /**
+   * The tokens of the line being read, written from index 0 and copied out at their number when the
+   * line ends; this array keeps its size from line to line.
+   */
+  private readonly scratch: Token[] = [];
+
+  constructor(text: string) {
+    this.source = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+    this.nextCR = this.source.indexOf("\r");
+    this.nextHash = this.source.indexOf("#");
   }
-  const last = current as LogicalLine | null;
-  if (last !== null && last.tokens.length > 0) lines.push(last);
-  return { lines, errors };
+
+  /** The next logical line with at least one token, or null at the end of the text. */
+  next(): LogicalLine | null {
+    const source = this.source;
+    const length = source.length;
+    const scratch = this.scratch;
+    let count = 0;
+    let current: LogicalLine | null = null;
+    while (!this.done) {
+      const start = this.start;
+      const lineNo = ++this.lineNo;
+      if (this.nextCR >= 0 && this.nextCR < start) this.nextCR = source.indexOf("\r", start);
+      let end = source.indexOf("\n", start);
+      if (end < 0) end = length;
+      if (this.nextCR >= 0 && this.nextCR < end) end = this.nextCR;
+      if (end >= length) this.done = true;
+      else {
+        const crlf = source.charCodeAt(end) === 13 && end + 1 < length && source.charCodeAt(end + 1) === 10;
+        this.start = end + (crlf ? 2 : 1);
+      }
+      const starting = current === null;
+      if (current === null) current = { line: lineNo, tokens: NO_TOKENS, segments: NO_SEGMENTS };
+      if (starting && isTitleLine(source, start, end)) current.verbatim = true;
+      let body: string;
+      if (current.verbatim) {
+        const raw = source.slice(start, end);
+        const hash = raw.search(TITLE_COMMENT);
+        body = trimBlanksEnd(hash >= 0 ? raw.slice(0, hash) : raw);
+      } else {
+        if (this.nextHash >= 0 && this.nextHash < start) this.nextHash = source.indexOf("#", start);
+        let stop = this.nextHash >= 0 && this.nextHash < end ? this.nextHash : end;
+        while (stop > start) {
+          const k = source.charCodeAt(stop - 1);
+          if (k !== 32 && k !== 9) break;
+          stop--;
+        }
+        body = source.slice(start, stop);
+      }
+      const continues = body.length > 0 && body.charCodeAt(body.length - 1) === 92; /* \ */
+      if (continues) body = body.slice(0, -1);
+      const segment = { line: lineNo, column: 1, text: body };
+      if (current.segments === NO_SEGMENTS) current.segments = [segment];
+      else current.segments.push(segment);
+      if (!current.verbatim) count = lexSegment(body, lineNo, scratch, count, this.errors);
+      else if (starting) {
+        const keyword = body.slice(0, (TITLE_LINE.exec(body)?.[0] ?? "").length);
+        count = lexSegment(keyword, lineNo, scratch, count, this.errors);
+      }
+      if (!continues) {
+        if (count > 0) {
+          current.tokens = scratch.slice(0, count);
+          return current;
+        }
+        current = null;
+      }
+    }
+    // The text ended on a line joined to the next.
+    if (current !== null && count > 0) {
+      current.tokens = scratch.slice(0, count);
+      return current;
+    }
+    return null;
+  }
+}
+
+/** Placeholders until a line has its own arrays (never filled: a line's arrays are made at their size). */
+const NO_TOKENS: Token[] = [];
+const NO_SEGMENTS: LogicalLine["segments"] = [];
+
+/** `TITLE_LINE` tested on `source` from `start` to `end` (one physical line) without cutting it out. */
+function isTitleLine(source: string, start: number, end: number): boolean {
+  let i = start;
+  while (i < end) {
+    const k = source.charCodeAt(i);
+    if (k !== 32 && k !== 9) break;
+    i++;
+  }
+  if (end - i < 5 || source.charCodeAt(i) !== 116 /* t */ || !source.startsWith("title", i)) return false;
+  if (i + 5 === end) return true;
+  const k = source.charCodeAt(i + 5);
+  return k === 32 || k === 9 || k === 35 /* # */ || k === 92; /* \ */
 }
 
 /**
@@ -99,24 +199,31 @@ export const MAX_OPERATORS = 2000;
  * the length of a chain of operators (MAX_OPERATORS).
  */
 export function tooDeep(tokens: Token[]): { token: Token; parens: boolean } | null {
+  // Each limit takes more than MAX_NESTING tokens to pass (MAX_OPERATORS is larger).
+  if (tokens.length <= MAX_NESTING) return null;
   let depth = 0;
   let signs = 0;
   let powers = 0;
   let operators = 0;
-  for (const t of tokens) {
+  // An index loop: it runs once per line, mostly cold, where `for…of` allocates per step.
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i]!;
     if (t.kind !== "op") {
       signs = 0;
       continue;
     }
-    if ("+-*/^".includes(t.text) && ++operators > MAX_OPERATORS) return { token: t, parens: false };
-    if (t.text === "+" || t.text === "-") {
+    const op = t.text;
+    const sign = op === "+" || op === "-";
+    if ((sign || op === "*" || op === "/" || op === "^") && ++operators > MAX_OPERATORS)
+      return { token: t, parens: false };
+    if (sign) {
       if (depth + ++signs > MAX_NESTING) return { token: t, parens: false };
       continue;
     }
     signs = 0;
-    if (t.text === "(" && ++depth > MAX_NESTING) return { token: t, parens: true };
-    if (t.text === ")") depth = Math.max(0, depth - 1);
-    if (t.text === "^" && ++powers > MAX_NESTING) return { token: t, parens: false };
+    if (op === "(" && ++depth > MAX_NESTING) return { token: t, parens: true };
+    if (op === ")") depth = Math.max(0, depth - 1);
+    if (op === "^" && ++powers > MAX_NESTING) return { token: t, parens: false };
   }
   return null;
 }
@@ -131,9 +238,13 @@ export function titleText(logical: LogicalLine): string {
     .replace(/\\#/g, "#");
 }
 
-function lexSegment(body: string, line: number, out: Token[], errors: NetlistError[]): void {
-  // One pass by char code, tokens pushed inline: this runs for every line of a netlist, mostly
-  // before the JIT has warmed up, so it avoids a closure per line and a search per operator.
+/**
+ * Lex one line's text, writing its tokens to `out` from index `count`; returns the new count. No
+ * read goes past the end of `body` (in optimized code one would bail out to the interpreter).
+ */
+function lexSegment(body: string, line: number, out: Token[], count: number, errors: NetlistError[]): number {
+  // One pass by char code, the character classes written out in the loops (see the note above
+  // `lex`): letters are A-Z a-z _, digits 0-9.
   let i = 0;
   let spaceBefore = true;
   const n = body.length;
@@ -147,19 +258,28 @@ function lexSegment(body: string, line: number, out: Token[], errors: NetlistErr
     }
     const start = i;
     let kind: TokenKind;
-    if (isLetterCode(k)) {
-      i = scanWord(body, i);
+    if ((k >= 97 && k <= 122) || (k >= 65 && k <= 90) || k === 95) {
+      WORD_REST.lastIndex = i + 1;
+      WORD_REST.test(body);
+      i = WORD_REST.lastIndex;
+      // `half-power`, `zero-phase`…: a hyphenated keyword is one word.
       if (
+        i + 1 < n &&
         body.charCodeAt(i) === 45 /* - */ &&
-        isLetter(body[i + 1]) &&
+        isLetterCode(body.charCodeAt(i + 1)) &&
         HYPHEN_HEADS.has(body.slice(start, i))
       ) {
         i += 1;
-        while (isLetter(body[i])) i++;
+        while (i < n && isLetterCode(body.charCodeAt(i))) i++;
       }
       kind = "word";
-    } else if (isDigitCode(k) || (k === 46 /* . */ && isDigit(body[i + 1]))) {
-      i = scanNumber(body, i);
+    } else if (
+      (k >= 48 && k <= 57) ||
+      (k === 46 /* . */ && i + 1 < n && isDigitCode(body.charCodeAt(i + 1)))
+    ) {
+      NUMBER.lastIndex = i;
+      NUMBER.test(body);
+      i = NUMBER.lastIndex;
       kind = "number";
     } else {
       const length = operatorLength(body, i, k);
@@ -172,9 +292,22 @@ function lexSegment(body: string, line: number, out: Token[], errors: NetlistErr
       i += length;
       kind = "op";
     }
-    out.push({ kind, text: body.slice(start, i), line, column: start + 1, endColumn: i + 1, spaceBefore });
+    const token = {
+      kind,
+      text: body.slice(start, i),
+      line,
+      column: start + 1,
+      endColumn: i + 1,
+      spaceBefore,
+    };
+    // A store past the array's end (it grows) has a site of its own: optimized code made for
+    // in-place stores would bail out at the first line longer than all before it.
+    if (count < out.length) out[count] = token;
+    else out.push(token);
+    count++;
     spaceBefore = false;
   }
+  return count;
 }
 
 /** Length of the operator starting at `i`, whose char code is `k`; 0 when there is none. */
@@ -182,7 +315,7 @@ function operatorLength(body: string, i: number, k: number): number {
   switch (k) {
     case 60: // <
     case 62: // >
-      return body.charCodeAt(i + 1) === 61 /* = */ ? 2 : 1;
+      return i + 1 < body.length && body.charCodeAt(i + 1) === 61 /* = */ ? 2 : 1;
     case 61: // =
     case 58: // :
     case 44: // ,
@@ -197,33 +330,6 @@ function operatorLength(body: string, i: number, k: number): number {
     default:
       return 0;
   }
-}
-
-const isWordCode = (k: number) => isLetterCode(k) || isDigitCode(k);
-
-function scanWord(body: string, start: number): number {
-  let i = start;
-  for (;;) {
-    const k = body.charCodeAt(i);
-    if (isWordCode(k) || (k === 46 /* . */ && isWordCode(body.charCodeAt(i + 1)))) i++;
-    else return i;
-  }
-}
-
-function scanNumber(body: string, start: number): number {
-  let i = start;
-  while (isDigit(body[i])) i++;
-  if (body[i] === "." && isDigit(body[i + 1])) {
-    i++;
-    while (isDigit(body[i])) i++;
-  }
-  const sign = body[i + 1] === "+" || body[i + 1] === "-";
-  if ((body[i] === "e" || body[i] === "E") && isDigit(body[i + (sign ? 2 : 1)])) {
-    i += sign ? 2 : 1;
-    while (isDigit(body[i])) i++;
-  }
-  while (isSuffixChar(body[i])) i++;
-  return i;
 }
 
 /** Characters that arrive by copy and paste, and what to type instead. */

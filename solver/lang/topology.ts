@@ -4,8 +4,12 @@
  */
 import type { NetlistError, Part, Warning } from "../types";
 
-/** The pairs of nodes a part ties together by conduction (current sources and sensing inputs don't). */
-function conductingPairs(p: Part): [string, string][] {
+/**
+ * Call `join` for each pair of nodes a part ties together by conduction (current sources and sensing
+ * inputs don't). A callback, not a list of pairs: this runs once per part, mostly cold, where every
+ * array made and dropped per part costs (see the note in tokens.ts above `lex`).
+ */
+function joinConducting(p: Part, join: (a: string, b: string) => void): void {
   switch (p.kind) {
     case "resistor":
     case "capacitor":
@@ -14,11 +18,11 @@ function conductingPairs(p: Part): [string, string][] {
     case "vcvs":
     case "ccvs":
     case "diode":
-      return [[p.nodes[0]!, p.nodes[1]!]];
+      join(p.nodes[0]!, p.nodes[1]!);
+      return;
     case "opamp":
-      return [[p.nodes[2]!, "gnd"]];
-    default:
-      return [];
+      join(p.nodes[2]!, "gnd");
+      return;
   }
 }
 
@@ -40,36 +44,72 @@ export function checkTopology(parts: Part[], errors: NetlistError[], warnings: W
     });
     return;
   }
-  openEnds(parts, warnings);
+  const nodes = numberNodes(parts);
+  openEnds(parts, nodes, warnings);
   voltageLoops(parts, errors);
-  groundPaths(parts, errors);
+  groundPaths(parts, nodes, errors);
 }
 
-function openEnds(parts: Part[], warnings: Warning[]): void {
+/**
+ * The nodes numbered in first-seen order, gnd first (0). The checks below count and join by number
+ * in typed arrays rather than in maps by name: they run once per part, mostly cold (see
+ * `joinConducting`).
+ */
+interface NodeNumbers {
+  names: string[];
+  index: Map<string, number>;
+}
+
+function numberNodes(parts: Part[]): NodeNumbers {
+  const names = ["gnd"];
+  const index = new Map<string, number>();
+  index.set("gnd", 0);
+  for (let k = 0; k < parts.length; k++) {
+    const nodes = parts[k]!.nodes;
+    for (let i = 0; i < nodes.length; i++) {
+      const n = nodes[i]!;
+      if (!index.has(n)) {
+        index.set(n, names.length);
+        names.push(n);
+      }
+    }
+  }
+  return { names, index };
+}
+
+function openEnds(parts: Part[], { names, index }: NodeNumbers, warnings: Warning[]): void {
   // Per node: how many parts touch it (part names are unique after flattening) and the first one.
   // Counts, not a set of names per node: gnd alone is touched by most parts.
-  const touching = new Map<string, { count: number; first: Part }>();
-  for (const p of parts) {
+  const counts = new Int32Array(names.length);
+  const firsts: Part[] = new Array(names.length);
+  for (let k = 0; k < parts.length; k++) {
+    const p = parts[k]!;
     const nodes = p.nodes;
-    if (nodes.length > 0 && nodes.every((n) => n === nodes[0]) && p.kind !== "vsource") {
-      warnings.push({
-        line: p.span.line,
-        message: `every terminal of ${p.name} is on node ${nodes[0]}, so it does nothing`,
-      });
+    if (nodes.length > 0 && p.kind !== "vsource") {
+      let same = true;
+      for (let i = 1; i < nodes.length && same; i++) same = nodes[i] === nodes[0];
+      if (same) {
+        warnings.push({
+          line: p.span.line,
+          message: `every terminal of ${p.name} is on node ${nodes[0]}, so it does nothing`,
+        });
+      }
     }
     for (let i = 0; i < nodes.length; i++) {
       const n = nodes[i]!;
       if (nodes.indexOf(n) < i) continue; // counted already for this part
-      const seen = touching.get(n);
-      if (seen === undefined) touching.set(n, { count: 1, first: p });
-      else seen.count++;
+      const at = index.get(n)!;
+      const count = counts[at]!;
+      if (count === 0) firsts[at] = p;
+      counts[at] = count + 1;
     }
   }
-  for (const [n, { count, first: p }] of touching) {
-    if (n === "gnd" || count !== 1) continue;
+  for (let at = 1; at < names.length; at++) {
+    if (counts[at] !== 1) continue;
+    const p = firsts[at]!;
     warnings.push({
       line: p.span.line,
-      message: `node ${n} connects only to ${p.name}: that terminal is left open`,
+      message: `node ${names[at]} connects only to ${p.name}: that terminal is left open`,
     });
   }
 }
@@ -80,10 +120,12 @@ function voltageLoops(parts: Part[], errors: NetlistError[]): void {
     if (!adjacency.has(a)) adjacency.set(a, []);
     adjacency.get(a)!.push({ to: b, part });
   };
-  for (const p of parts) {
+  for (let k = 0; k < parts.length; k++) {
+    const p = parts[k]!;
     const pair = voltagePair(p);
     if (pair === null) continue;
-    const [a, b] = pair;
+    const a = pair[0];
+    const b = pair[1];
     const path = a === b ? [] : findPath(adjacency, a, b);
     if (path !== null) {
       const names = [...path.map((x) => x.name), p.name];
@@ -119,29 +161,26 @@ function findPath(adjacency: Map<string, { to: string; part: Part }[]>, a: strin
   return null;
 }
 
-function groundPaths(parts: Part[], errors: NetlistError[]): void {
-  // Union-find with full path compression: near-linear in parts + nodes.
-  const parent = new Map<string, string>();
-  const find = (x: string): string => {
+function groundPaths(parts: Part[], { names, index }: NodeNumbers, errors: NetlistError[]): void {
+  // Union-find over node numbers with full path compression: near-linear in parts + nodes.
+  const parent = new Int32Array(names.length);
+  for (let i = 0; i < parent.length; i++) parent[i] = i;
+  const find = (x: number): number => {
     let r = x;
-    while (parent.get(r) !== r) r = parent.get(r) ?? r;
+    while (parent[r] !== r) r = parent[r]!;
     for (let y = x; y !== r; ) {
-      const next = parent.get(y)!;
-      parent.set(y, r);
+      const next = parent[y]!;
+      parent[y] = r;
       y = next;
     }
     return r;
   };
-  const add = (x: string) => {
-    if (!parent.has(x)) parent.set(x, x);
+  const join = (a: string, b: string) => {
+    parent[find(index.get(a)!)] = find(index.get(b)!);
   };
-  add("gnd");
-  for (const p of parts) {
-    for (const n of p.nodes) add(n);
-    for (const [a, b] of conductingPairs(p)) parent.set(find(a), find(b));
-  }
+  for (let k = 0; k < parts.length; k++) joinConducting(parts[k]!, join);
   if (!parts.some((p) => p.nodes.includes("gnd"))) {
-    const looksLikeGround = [...parent.keys()].find((n) => /^(gnd|ground)$/i.test(n) && n !== "gnd");
+    const looksLikeGround = names.find((n) => /^(gnd|ground)$/i.test(n) && n !== "gnd");
     errors.push({
       ...parts[0]!.span,
       message: "nothing connects to gnd, so no voltage has a reference",
@@ -151,13 +190,13 @@ function groundPaths(parts: Part[], errors: NetlistError[]): void {
     });
     return;
   }
-  const ground = find("gnd");
-  const floating = new Map<string, string[]>();
-  for (const n of parent.keys()) {
+  const ground = find(0);
+  const floating = new Map<number, string[]>();
+  for (let n = 0; n < names.length; n++) {
     const root = find(n);
     if (root === ground) continue;
     if (!floating.has(root)) floating.set(root, []);
-    floating.get(root)!.push(n);
+    floating.get(root)!.push(names[n]!);
   }
   for (const nodes of floating.values()) {
     const first = parts.find((p) => p.nodes.some((n) => nodes.includes(n)))!;

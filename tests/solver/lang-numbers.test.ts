@@ -68,6 +68,50 @@ describe("number literals", () => {
     expect(parseNumberText("4k7%").ok).toBe(false);
   });
 
+  it("a whole number with a prefix is the product rounded to 15 significant digits, the same double as by the rounding pass", () => {
+    // The reader skips the rounding pass (toPrecision and back) for whole numbers below 10^15; it must
+    // give exactly the double the pass gives. Reference: Number((n * scale).toPrecision(15)).
+    const scales: [string, number][] = [
+      ["f", 1e-15],
+      ["p", 1e-12],
+      ["n", 1e-9],
+      ["u", 1e-6],
+      ["\u00B5", 1e-6],
+      ["m", 1e-3],
+      ["k", 1e3],
+      ["M", 1e6],
+      ["G", 1e9],
+      ["T", 1e12],
+    ];
+    const wholes: number[] = [];
+    for (let n = 0; n <= 3000; n++) wholes.push(n);
+    let seed = 12345;
+    for (let i = 0; i < 3000; i++) {
+      seed = (seed * 1103515245 + 12345) % 2147483648;
+      const digits = 4 + (i % 12); // 4 to 15 digits
+      wholes.push(Math.floor((seed / 2147483648) * 10 ** digits));
+    }
+    wholes.push(999_999_999_999_999, 123_456_789_012_345, 100_000_000_000_000);
+    let mismatches = 0;
+    for (const [letter, scale] of scales) {
+      for (const n of wholes) {
+        const r = parseNumberText(`${n}${letter}`);
+        if (!r.ok || !Object.is(r.value, Number((n * scale).toPrecision(15)))) mismatches++;
+      }
+    }
+    expect(mismatches).toBe(0);
+    expect(parseNumberText("10n")).toEqual({ ok: true, value: 1e-8, unit: null });
+    expect(parseNumberText("3300p")).toEqual({ ok: true, value: 3.3e-9, unit: null });
+    expect(parseNumberText("47k")).toEqual({ ok: true, value: 47_000, unit: null });
+    // A fraction or a number of 16 digits still takes the rounding pass.
+    expect(parseNumberText("4.7k")).toEqual({ ok: true, value: 4700, unit: null });
+    expect(parseNumberText("1234567890123456k")).toEqual({
+      ok: true,
+      value: 1.23456789012346e18,
+      unit: null,
+    });
+  });
+
   it("suggests the nearest spelling for an unknown unit", () => {
     const r = parseNumberText("10kHzz");
     expect(r.ok).toBe(false);
