@@ -13,6 +13,7 @@ import { spanOf } from "./cursor";
 import { isSeriesName, snap } from "./eseries";
 import { didYouMean } from "./hints";
 import { parseNumberText } from "./numbers";
+import { table } from "./table";
 import type { Token } from "./tokens";
 
 /** Resolves names during evaluation. `lookup` returns "error" when the name's own definition failed. */
@@ -24,7 +25,7 @@ export interface Scope {
 type Fn = { arity: [number, number]; apply: (args: number[]) => number };
 const one = (f: (x: number) => number): Fn => ({ arity: [1, 1], apply: (a) => f(a[0]!) });
 
-const FUNCTIONS: Record<string, Fn> = {
+const FUNCTIONS = table<Fn>({
   sqrt: one(Math.sqrt),
   exp: one(Math.exp),
   log: {
@@ -47,8 +48,8 @@ const FUNCTIONS: Record<string, Fn> = {
   pow: { arity: [2, 2], apply: (a) => a[0]! ** a[1]! },
   min: { arity: [1, 64], apply: (a) => Math.min(...a) },
   max: { arity: [1, 64], apply: (a) => Math.max(...a) },
-};
-const CONSTANTS: Record<string, number> = { pi: Math.PI, e: Math.E };
+});
+const CONSTANTS = table<number>({ pi: Math.PI, e: Math.E });
 
 /** The names an expression may use besides lets and parameters (for completion and hints). */
 export const BUILTIN_NAMES = [...Object.keys(FUNCTIONS), "snap", ...Object.keys(CONSTANTS)];

@@ -4,6 +4,7 @@
  * remembered, so `rewriteLegacyNetlist` (rewrite.ts) can apply exactly their fixes and no others.
  */
 import type { NetlistError, SourceSpan } from "../types";
+import { table } from "./table";
 
 const LEGACY = new WeakSet<NetlistError>();
 
@@ -29,7 +30,7 @@ export function legacyGround(at: SourceSpan): NetlistError {
 }
 
 /** The new name of an old probe word. */
-export const PROBE_RENAMES: Readonly<Record<string, "volts" | "amps">> = { v: "volts", i: "amps" };
+export const PROBE_RENAMES = table<"volts" | "amps">({ v: "volts", i: "amps" });
 
 /**
  * `v(…)` or `i(…)`: `word` is the old word's token, `args` the names as written inside the

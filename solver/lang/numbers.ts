@@ -3,6 +3,7 @@
  * (`4k7`, `2R2`, `1n5`, `R47`), and the places where each unit fits.
  */
 import { nearest } from "./hints";
+import { table } from "./table";
 
 export type Unit = "ohm" | "F" | "H" | "V" | "A" | "S" | "Hz" | "%" | "dB" | "deg";
 
@@ -17,7 +18,7 @@ type NumberResult =
   | ({ ok: true } & NumberValue)
   | { ok: false; message: string; hint?: string; replacement?: string };
 
-const PREFIXES: Record<string, number> = {
+const PREFIXES = table<number>({
   f: 1e-15,
   p: 1e-12,
   n: 1e-9,
@@ -29,9 +30,9 @@ const PREFIXES: Record<string, number> = {
   M: 1e6,
   G: 1e9,
   T: 1e12,
-};
+});
 
-const UNITS: Record<string, Unit> = {
+const UNITS = table<Unit>({
   "\u03A9": "ohm", // Greek capital omega
   "\u2126": "ohm", // ohm sign
   ohm: "ohm",
@@ -47,10 +48,10 @@ const UNITS: Record<string, Unit> = {
   dB: "dB",
   deg: "deg",
   "°": "deg",
-};
+});
 
 /** Written units that are not accepted, with what to write instead. */
-const MISSPELLED: Record<string, string> = {
+const MISSPELLED = table<string>({
   hz: "write Hz",
   HZ: "write Hz",
   db: "write dB",
@@ -62,7 +63,7 @@ const MISSPELLED: Record<string, string> = {
   P: "write p for pico",
   sec: "time values have no place in a netlist: give frequencies in Hz",
   s: "time values have no place in a netlist: give frequencies in Hz",
-};
+});
 
 /** Human names of units, for messages. */
 export const UNIT_NAMES: Record<Unit, string> = {

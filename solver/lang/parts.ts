@@ -9,6 +9,7 @@ import { didYouMean } from "./hints";
 import { isPartKind, KINDS, MAX_BLOCK_DEPTH } from "./kinds";
 import { applyOption } from "./part-options";
 import { LetScope } from "./scope";
+import { own } from "./table";
 
 interface FlattenContext {
   blocks: Map<string, BlockStatement>;
@@ -177,7 +178,7 @@ function primitive(st: PartStatement, fullName: string, inst: Instance, ctx: Fla
   const nodeCount = SENSED.has(kind) ? 2 : info.terminals.length;
   const nodes = resolveNodes(st.terminals, nodeCount, inst);
   const written = st.value === null ? info.defaultValue : evaluate(st.value, inst.scope, ctx.errors);
-  const value = ctx.partOverrides[fullName] ?? written ?? Number.NaN;
+  const value = own(ctx.partOverrides, fullName) ?? written ?? Number.NaN;
   if (POSITIVE.has(kind) && written !== null && !(value > 0)) {
     ctx.errors.push({
       ...(st.value?.span ?? st.span),

@@ -4,6 +4,7 @@
  * (1-based, endColumn exclusive), so errors point into continued lines correctly.
  */
 import type { NetlistError, SourceSpan } from "../types";
+import { table } from "./table";
 
 type TokenKind = "word" | "number" | "op";
 
@@ -333,7 +334,7 @@ function operatorLength(body: string, i: number, k: number): number {
 }
 
 /** Characters that arrive by copy and paste, and what to type instead. */
-const LOOKALIKES: Record<string, string> = {
+const LOOKALIKES = table<string>({
   "\u2212": "write the minus sign as -",
   "\u2013": "write the minus sign as -",
   "\u00D7": "write multiplication as *",
@@ -345,7 +346,7 @@ const LOOKALIKES: Record<string, string> = {
   "\u201D": "quotes are not used in a netlist",
   '"': "quotes are not used in a netlist",
   ";": "one statement per line; start a comment with #",
-};
+});
 
 function strayCharacter(body: string, i: number, line: number): NetlistError {
   const c = body[i] ?? "";

@@ -440,3 +440,31 @@ describe("all errors at once", () => {
     }
   });
 });
+
+describe("words that name built-ins of every JavaScript object are plain words", () => {
+  const base = "Vin: vsource a gnd 1\nsweep 10Hz to 10kHz log 10 per decade\nshow H = volts(b)\n";
+
+  it("parts named constructor, toString and valueOf take their written values", () => {
+    const r = compile(
+      `${base}constructor: resistor a b 1k\ntoString: capacitor b gnd 10n\nvalueOf: resistor b gnd 1M\n`,
+    );
+    expect(r.ok).toBe(true);
+    if (!r.ok) return;
+    const value = (name: string) => r.circuit.parts.find((p) => p.name === name)?.value;
+    expect(value("constructor")).toBe(1000);
+    expect(value("toString")).toBeCloseTo(10e-9, 20);
+    expect(value("valueOf")).toBe(1e6);
+  });
+
+  it("as a unit, a function or a name they are unknown, with the usual messages", () => {
+    const units = errorsOf(`${base}R1: resistor a b 1constructor\nC1: capacitor b gnd 10n\n`);
+    expect(units[0]).toMatchObject({
+      line: 4,
+      message: expect.stringContaining("unknown prefix or unit `constructor`"),
+    });
+    const fn = errorsOf(`let x = constructor(2)\n${base}R1: resistor a b 1k\nC1: capacitor b gnd 10n\n`);
+    expect(fn[0]).toMatchObject({ line: 1, message: "unknown function `constructor`" });
+    const name = errorsOf(`let y = toString\n${base}R1: resistor a b 1k\nC1: capacitor b gnd 10n\n`);
+    expect(name[0]).toMatchObject({ line: 1, message: "unknown name `toString`" });
+  });
+});
