@@ -4,12 +4,18 @@
 import { existsSync } from "node:fs";
 import { setFlagsFromString } from "node:v8";
 
-// A command lives for one solve or one batch: keep the young generation at the size it starts
-// with instead of doubling it as allocation goes on. Each doubling maps fresh memory, and in a
-// short process those first touches (page faults) cost more than the extra minor collections
-// they save: a 1 000-section netlist solved ~30 ms sooner, a 1 000-sample Monte Carlo no slower
-// (scripts/bench-cli.ts). Set before the bundle is loaded; the flag is read at each collection.
+// Two V8 settings for a short process, set before the bundle is loaded (both are read as the
+// process goes; scripts/bench-cli.ts measures the command with them):
+// - keep the young generation at the size it starts with instead of doubling it as allocation goes
+//   on: each doubling maps fresh memory, and in a short process those first touches (page faults)
+//   cost more than the extra minor collections they save (a 1 000-section netlist ~30 ms sooner);
+// - no on-stack replacement: the command's heavy loops sit in functions called once per point or
+//   per sample, which the optimizing compiler takes up on their next call anyway; compiling a second,
+//   on-stack version of each first held up those compiles while the first points ran interpreted
+//   (the 1 000-section netlist ~13 ms sooner, a 1 000-sample Monte Carlo and the 10 000-section
+//   ladder no slower).
 setFlagsFromString("--semi-space-growth-factor=1");
+setFlagsFromString("--no-use-osr");
 
 const built = new URL("../dist-cli/phasewright.mjs", import.meta.url);
 if (existsSync(built)) {
