@@ -61,8 +61,24 @@ export function solveFactorsOfProduct(
   if (vRe.length !== n || vIm.length !== n || xRe.length !== n || xIm.length !== n) {
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
-  const { rowPerm, lPtr, lIdx } = f.sym;
-  const { lRe, lIm, wRe, wIm } = f;
+  forwardOfProduct(f, m, vRe, vIm);
+  return backward(f, xRe, xIm);
+}
+
+/**
+ * The forward half of `solveFactorsOfProduct`: L·y = −P·M·v into f.w. Its own function, not
+ * written into the caller with `backward`: a first sweep runs interpreted until the optimizing
+ * compiler has taken up each kernel, and one function holding both passes took it about twice as
+ * long as this pass alone (`backward` is shared with `solveFactors`, compiled once).
+ */
+function forwardOfProduct(
+  f: LUFactors,
+  m: { ptr: Int32Array; idx: Int32Array; val: Float64Array },
+  vRe: Float64Array,
+  vIm: Float64Array,
+): void {
+  const { rowPerm, lPtr, lIdx } = f.sym!;
+  const { lRe, lIm, wRe, wIm, n } = f;
   const { ptr, idx, val } = m;
   f.forwardRe = null;
   f.forwardIm = null;
@@ -88,7 +104,6 @@ export function solveFactorsOfProduct(
     wRe[k] = yr;
     wIm[k] = yi;
   }
-  return backward(f, xRe, xIm);
 }
 
 /** U·z = y (y in f.w), x = Q·z; false when x has a NaN or ±∞. */
