@@ -158,18 +158,14 @@ export function addAxisItems(
       const size = num(titleFont.size) ?? Math.round(font.size * 1.2);
       const color = str(titleFont.color, font.color);
       const { text, bold } = plainText(titleText);
+      const item = { text, bold, size, color, family: font.family, anchor: "middle" as const };
       if (ax.letter === "x") {
         const labelled = s.showticklabels !== false && ax.ticks.length > 0;
         scene.texts.push({
+          ...item,
           x: ax.start + ax.length / 2,
           // The library sets the title's top two tick-label heights and 10 px below the plot.
           y: span[1]! + (labelled ? 2 * tickSize : 4) + 10 + size * 0.8,
-          text,
-          bold,
-          size,
-          color,
-          family: font.family,
-          anchor: "middle",
         });
       } else {
         // A right-hand (overlaying Δ) axis' title sits close to the plot, as the library places it;
@@ -177,17 +173,7 @@ export function addAxisItems(
         const edge = right
           ? Math.min(span[1]! + 17 + size, width - 2)
           : Math.max(span[0]! - widest - 11, size);
-        scene.texts.push({
-          x: edge,
-          y: ax.start - ax.length / 2,
-          text,
-          bold,
-          size,
-          color,
-          family: font.family,
-          anchor: "middle",
-          rotate: -90,
-        });
+        scene.texts.push({ ...item, x: edge, y: ax.start - ax.length / 2, rotate: -90 });
       }
     }
   }

@@ -51,6 +51,25 @@ export class LUFactors {
     this.wIm = new Float64Array(a.n);
   }
 
+  /** No failure recorded: the start of every numeric factorization. */
+  clearFailure(): void {
+    this.singular = false;
+    this.failedStep = -1;
+    if (this.failedCols.length > 0) this.failedCols = [];
+  }
+
+  /**
+   * The numeric factorization in the current order failed at `step` — `singular` when the pivot was
+   * below the zero bound, not just the threshold: the columns from that step on are left unpivoted.
+   * Returns false, the factorization's answer.
+   */
+  pivotFailed(step: number, singular: boolean): false {
+    this.singular = singular;
+    this.failedStep = step;
+    this.failedCols = Array.from(this.sym!.colPerm.subarray(step));
+    return false;
+  }
+
   /** Make s the current order (its plan and factor storage); the values are the caller's. */
   use(s: Symbolic): void {
     if (this.sym === s && this.plan) return;

@@ -93,9 +93,7 @@ function eliminate(
   const offD = offU + uIdx.length;
   const tol2 = tests.absTol * tests.absTol;
   const half = 0.5 * tau * tau;
-  f.singular = false;
-  f.failedStep = -1;
-  if (f.failedCols.length > 0) f.failedCols = [];
+  f.clearFailure();
   let l0 = 0;
   let u0 = offU;
   for (let k = 0; k < n; k++) {
@@ -152,12 +150,7 @@ function eliminate(
     }
     l0 = l1;
     u0 = u1;
-    if (small) {
-      f.singular = d <= tol2 * rm[k]! * ck;
-      f.failedStep = k;
-      f.failedCols = Array.from(s.colPerm.subarray(k));
-      return false;
-    }
+    if (small) return f.pivotFailed(k, d <= tol2 * rm[k]! * ck);
     const inv = 1 / d;
     invRe[k] = pr * inv;
     invIm[k] = -pi * inv;

@@ -22,9 +22,7 @@ export function factorScatter(
   const { cm, rm } = tests;
   const tol2 = tests.absTol * tests.absTol;
   const half = 0.5 * tau * tau;
-  f.singular = false;
-  f.failedStep = -1;
-  if (f.failedCols.length > 0) f.failedCols = [];
+  f.clearFailure();
   // The scatter vector starts at zero (`solve` uses it as scratch too); each row leaves it zero,
   // so no row has to clear its pattern first.
   wRe.fill(0);
@@ -88,12 +86,7 @@ export function factorScatter(
     }
     l0 = l1;
     u0 = u1;
-    if (small) {
-      f.singular = d <= tol2 * rm[k]! * ck;
-      f.failedStep = k;
-      f.failedCols = Array.from(s.colPerm.subarray(k));
-      return false;
-    }
+    if (small) return f.pivotFailed(k, d <= tol2 * rm[k]! * ck);
     const inv = 1 / d;
     invRe[k] = pr * inv;
     invIm[k] = -pi * inv;
