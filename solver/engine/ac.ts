@@ -118,16 +118,40 @@ export class AcSolver {
     this.lu!.solveTransposed(dRe, dIm, zRe, zIm);
   }
 
-  /** dx/ds at the last solved frequency (requires a successful solveAt). Cost: one solve. */
+  /**
+   * dx/ds at the last solved frequency (requires a successful solveAt). Cost: one solve, less
+   * its backward pass outside what `deriveOnly` asked for.
+   */
   derivative(): void {
-    this.derive(this.xRe, this.xIm, this.dxRe, this.dxIm);
-    if (this.sys.second) this.derive(this.x2Re, this.x2Im, this.dx2Re, this.dx2Im);
+    this.derive(this.xRe, this.xIm, this.dxRe, this.dxIm, this.wantDx);
+    if (this.sys.second) this.derive(this.x2Re, this.x2Im, this.dx2Re, this.dx2Im, this.wantDx2);
+  }
+
+  /** The unknowns whose dx/ds (and dx2/ds) `derivative` computes; null: every unknown. */
+  private wantDx: Int32Array | null = null;
+  private wantDx2: Int32Array | null = null;
+
+  /**
+   * Let `derivative` compute dx/ds only at the unknowns `dx` and dx2/ds only at `dx2` (what the
+   * traces read from this system, `derivativesRead`): the backward pass then covers only the
+   * steps those depend on. dxRe/dxIm (dx2Re/dx2Im) hold stale numbers at every other unknown.
+   */
+  deriveOnly(dx: Int32Array, dx2: Int32Array): void {
+    this.wantDx = dx;
+    this.wantDx2 = dx2;
   }
 
   /** d = −A⁻¹·C·x (the right-hand sides do not depend on s), −C·x formed inside the solve. */
-  private derive(xRe: Float64Array, xIm: Float64Array, dRe: Float64Array, dIm: Float64Array): void {
+  private derive(
+    xRe: Float64Array,
+    xIm: Float64Array,
+    dRe: Float64Array,
+    dIm: Float64Array,
+    want: Int32Array | null,
+  ): void {
+    if (want !== null && want.length === 0) return;
     if (this.cRows === null || this.cOf !== this.sys) this.compactC();
-    this.lu!.solveProduct(this.cMatrix!, xRe, xIm, dRe, dIm);
+    this.lu!.solveProduct(this.cMatrix!, xRe, xIm, dRe, dIm, want);
   }
 
   private cOf: MnaSystem | null = null;

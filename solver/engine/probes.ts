@@ -191,3 +191,30 @@ function sum(a: Dual, b: Dual): Dual {
 export function readTrace(r: Reading, ac: AcSolver): Dual {
   return r.op === "double-injection" ? evalDoubleInjection(r, ac) : evalProbe(r, ac);
 }
+
+/**
+ * The unknowns whose derivatives `readTrace` reads for these readings on `ac`'s system: dx/ds
+ * (`dx`) and, for a second right-hand side, dx2/ds (`dx2`), ascending. Found by reading each one
+ * once from a view of `ac` whose derivative arrays record the indices asked for, so the answer is
+ * the evaluation's own (which unknowns a reading touches never depends on their values).
+ */
+export function derivativesRead(readings: Reading[], ac: AcSolver): { dx: Int32Array; dx2: Int32Array } {
+  const dx = new Set<number>();
+  const dx2 = new Set<number>();
+  const recording = (into: Set<number>) =>
+    new Proxy(new Float64Array(ac.sys.n), {
+      get(target, key) {
+        if (typeof key === "string" && /^\d+$/.test(key)) into.add(Number(key));
+        return Reflect.get(target, key);
+      },
+    });
+  const view = Object.create(ac, {
+    dxRe: { value: recording(dx) },
+    dxIm: { value: recording(dx) },
+    dx2Re: { value: recording(dx2) },
+    dx2Im: { value: recording(dx2) },
+  }) as AcSolver;
+  for (const r of readings) readTrace(r, view);
+  const sorted = (s: Set<number>) => Int32Array.from([...s].sort((a, b) => a - b));
+  return { dx: sorted(dx), dx2: sorted(dx2) };
+}

@@ -1,3 +1,4 @@
+import type { Symbolic } from "./markowitz";
 import type { LUFactors } from "./sparse-lu-factors";
 
 /**
@@ -47,6 +48,8 @@ export function solveFactors(
  * A(s) = G + s·C gives dx/ds = −A⁻¹·C·x): each entry of −M·v is formed as the forward pass
  * reaches its row, the same arithmetic as forming −M·v first and calling `solveFactors`.
  * v must not alias x. Cost O(nnz(M)+nnz(L)+nnz(U)+n). Returns false when x is not finite.
+ * With `steps` (from `backwardReach`), the backward pass runs over those steps only: x is then
+ * right (the same numbers) at the unknowns the steps were reached from and stale elsewhere.
  */
 export function solveFactorsOfProduct(
   f: LUFactors,
@@ -55,6 +58,7 @@ export function solveFactorsOfProduct(
   vIm: Float64Array,
   xRe: Float64Array,
   xIm: Float64Array,
+  steps: Int32Array | null = null,
 ): boolean {
   if (f.singular || !f.sym) throw new Error("matrix is singular: cannot solve");
   const n = f.n;
@@ -62,7 +66,7 @@ export function solveFactorsOfProduct(
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
   forwardOfProduct(f, m, vRe, vIm);
-  return backward(f, xRe, xIm);
+  return steps === null ? backward(f, xRe, xIm) : backwardOver(f, xRe, xIm, steps);
 }
 
 /**
@@ -131,6 +135,69 @@ function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array): boolean {
     xRe[colPerm[k]!] = zr;
     xIm[colPerm[k]!] = zi;
     // x·0 is 0 for every finite x and NaN for ±∞ or NaN.
+    finite += zr * 0 + zi * 0;
+  }
+  return finite === 0;
+}
+
+/**
+ * The steps of the backward pass that x at the original unknowns `want` depends on, in the order
+ * the pass takes them (descending): the steps of those unknowns and every step U's rows reach from
+ * them. x_j at step k needs z at each column of U's row k, so the pass over these steps alone gives
+ * the wanted unknowns exactly the numbers of the full pass. Cost O(n + the reached part of U).
+ */
+export function backwardReach(sym: Symbolic, want: Int32Array): Int32Array {
+  const { colPos, uPtr, uIdx, n } = sym;
+  const mark = new Uint8Array(n);
+  const stack = new Int32Array(n);
+  let top = 0;
+  let count = 0;
+  for (let w = 0; w < want.length; w++) {
+    const k = colPos[want[w]!]!;
+    if (mark[k] === 1) continue;
+    mark[k] = 1;
+    stack[top++] = k;
+    count++;
+  }
+  while (top > 0) {
+    const k = stack[--top]!;
+    for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) {
+      const j = uIdx[t]!;
+      if (mark[j] === 1) continue;
+      mark[j] = 1;
+      stack[top++] = j;
+      count++;
+    }
+  }
+  const steps = new Int32Array(count);
+  let c = 0;
+  for (let k = n - 1; k >= 0; k--) if (mark[k] === 1) steps[c++] = k;
+  return steps;
+}
+
+/** `backward` over the given steps only (descending, closed under U's rows: `backwardReach`). */
+function backwardOver(f: LUFactors, xRe: Float64Array, xIm: Float64Array, steps: Int32Array): boolean {
+  const { colPerm, uPtr, uIdx } = f.sym!;
+  const { uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  let finite = 0;
+  for (let i = 0; i < steps.length; i++) {
+    const k = steps[i]!;
+    let yr = wRe[k]!;
+    let yi = wIm[k]!;
+    const t1 = uPtr[k + 1]!;
+    for (let t = uPtr[k]!; t < t1; t++) {
+      const j = uIdx[t]!;
+      yr -= uRe[t]! * wRe[j]! - uIm[t]! * wIm[j]!;
+      yi -= uRe[t]! * wIm[j]! + uIm[t]! * wRe[j]!;
+    }
+    const ir = invRe[k]!;
+    const ii = invIm[k]!;
+    const zr = yr * ir - yi * ii;
+    const zi = yr * ii + yi * ir;
+    wRe[k] = zr;
+    wIm[k] = zi;
+    xRe[colPerm[k]!] = zr;
+    xIm[colPerm[k]!] = zi;
     finite += zr * 0 + zi * 0;
   }
   return finite === 0;

@@ -5,7 +5,12 @@ import { LUFactors } from "./sparse-lu-factors";
 import { factorNumeric, factorPencil } from "./sparse-lu-numeric";
 import { planPencil } from "./sparse-lu-plan";
 import { PivotTests } from "./sparse-lu-scaling";
-import { solveFactors, solveFactorsOfProduct, solveFactorsTransposed } from "./sparse-lu-solve";
+import {
+  backwardReach,
+  solveFactors,
+  solveFactorsOfProduct,
+  solveFactorsTransposed,
+} from "./sparse-lu-solve";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 export interface SparseLUOptions {
@@ -253,7 +258,8 @@ export class SparseComplexLU {
   /**
    * Solve A·x = −M·v (M sparse real in CSR, in A's row numbering; v must not alias x) without
    * forming −M·v first (`solveFactorsOfProduct`): dx/ds = −A⁻¹·C·x in one pass. Same numbers as
-   * `solve` of −M·v.
+   * `solve` of −M·v. With `want` (original unknowns), x is computed at those only — the same
+   * numbers there, stale numbers elsewhere — by a backward pass over the steps they depend on.
    */
   solveProduct(
     m: { ptr: Int32Array; idx: Int32Array; val: Float64Array },
@@ -261,9 +267,33 @@ export class SparseComplexLU {
     vIm: Float64Array,
     xRe: Float64Array,
     xIm: Float64Array,
+    want: Int32Array | null = null,
   ): boolean {
-    return solveFactorsOfProduct(this.f, m, vRe, vIm, xRe, xIm);
+    return solveFactorsOfProduct(this.f, m, vRe, vIm, xRe, xIm, want && this.stepsFor(want));
   }
+
+  /**
+   * The backward steps x at the unknowns `want` needs in the current order (`backwardReach`),
+   * kept per order and `want` array; null (the whole pass) when they are most of the steps anyway.
+   */
+  private stepsFor(want: Int32Array): Int32Array | null {
+    const s = this.f.sym!;
+    let byWant = this.reaches.get(s);
+    if (!byWant) {
+      byWant = new Map();
+      this.reaches.set(s, byWant);
+    }
+    let steps = byWant.get(want);
+    if (steps === undefined) {
+      const reach = backwardReach(s, want);
+      steps = reach.length > 0.75 * this.n ? null : reach;
+      byWant.set(want, steps);
+    }
+    return steps;
+  }
+
+  /** `stepsFor`'s answers, per order (an order dropped from use drops its entry with it). */
+  private readonly reaches = new WeakMap<Symbolic, Map<Int32Array, Int32Array | null>>();
 
   /**
    * Solve Aᵀ·z = d (the plain transpose, no conjugate: the adjoint system of noise analysis) with

@@ -7,7 +7,7 @@ import { AcSolver } from "./ac";
 import { spanError } from "./errors";
 import { buildLoop, cutNodeName } from "./loops";
 import { buildMna, type MnaSystem } from "./mna";
-import { probeProblem, type Reading } from "./probes";
+import { derivativesRead, probeProblem, type Reading } from "./probes";
 
 /** One solved system (the circuit, or one loop's circuit) and the traces read from it. */
 export interface SystemRun {
@@ -100,6 +100,14 @@ export function planSystems(
   }
   placeShows(circuit, runs, warnings, errors);
   if (errors.length > 0) return { ok: false, errors };
+  // dx/ds is read only through the traces: each system derives it at the unknowns they read.
+  for (const run of runs) {
+    const { dx, dx2 } = derivativesRead(
+      run.traces.map((t) => t.reading),
+      run.solver,
+    );
+    run.solver.deriveOnly(dx, dx2);
+  }
   return { ok: true, plan: { runs, main: main.system } };
 }
 
