@@ -27,6 +27,8 @@ export class LUFactors {
   readonly invRe: Float64Array;
   readonly invIm: Float64Array;
   /** Scratch of the scatter factorization and the solves (zero between uses by the former). */
+  /** The steps n−1 … 0: the whole backward pass (see `backward` in sparse-lu-solve.ts). */
+  readonly descending: Int32Array;
   readonly wRe: Float64Array;
   readonly wIm: Float64Array;
   /**
@@ -47,6 +49,8 @@ export class LUFactors {
     this.a = a;
     this.invRe = new Float64Array(a.n);
     this.invIm = new Float64Array(a.n);
+    this.descending = new Int32Array(a.n);
+    for (let k = 0; k < a.n; k++) this.descending[k] = a.n - 1 - k;
     this.wRe = new Float64Array(a.n);
     this.wIm = new Float64Array(a.n);
   }

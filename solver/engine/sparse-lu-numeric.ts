@@ -42,7 +42,7 @@ export function factorNumeric(
 
 /**
  * `factorNumeric` of A = G + jωC from the pencil's values laid out in the plan's slots
- * (`Plan.slotG`, `Plan.slotC`, see `planPencil`): the load is a copy and a scaled copy, the same
+ * (`Plan.slotG`, `Plan.cSlots`, see `planPencil`): the load is a copy and a scaled copy, the same
  * numbers bit for bit as gathering g[p] and ω·c[p] (and 0 at fill, for ω ≥ 0).
  * Needs the plan's update slots and ω finite and ≥ 0 (the caller checks).
  * With a right-hand side b it also runs the forward substitution L·y = P·b along the elimination
@@ -60,11 +60,13 @@ export function factorPencil(
   const plan = f.plan!;
   f.forwardRe = null;
   f.forwardIm = null;
-  const gs = plan.slotG!;
-  const cs = plan.slotC!;
+  const cSlots = plan.cSlots!;
+  const cValues = plan.cValues!;
   const { fRe, fIm } = f;
-  fRe.set(gs);
-  for (let t = 0; t < cs.length; t++) fIm[t] = omega * cs[t]!;
+  fRe.set(plan.slotG!);
+  // ω·c where C has an entry, 0 (= ω·0 for ω ≥ 0) in every other slot.
+  fIm.fill(0);
+  for (let i = 0; i < cSlots.length; i++) fIm[cSlots[i]!] = omega * cValues[i]!;
   return eliminate(f, tests, tau, bRe, bIm);
 }
 

@@ -22,9 +22,11 @@ export interface Plan {
   pencilOf: PencilMaxima | null;
   updStart: Int32Array;
   upd: Int32Array | null;
-  /** G's and C's entries in the slots (0 at fill) of the pencil `pencilOf` (plans with `upd` only). */
+  /** G's entries in the slots (0 at fill) of the pencil `pencilOf` (plans with `upd` only). */
   slotG: Float64Array | null;
-  slotC: Float64Array | null;
+  /** The slots where that pencil's C is not zero, and C there (most slots have none: fill, G only). */
+  cSlots: Int32Array | null;
+  cValues: Float64Array | null;
 }
 
 export function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
@@ -62,7 +64,17 @@ export function makePlan(a: SparseComplexMatrix, s: Symbolic): Plan {
     for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) slot[uIdx[t]!] = -1;
     slot[k] = -1;
   }
-  return { aPos, src, updStart, upd, pencil: null, pencilOf: null, slotG: null, slotC: null };
+  return {
+    aPos,
+    src,
+    updStart,
+    upd,
+    pencil: null,
+    pencilOf: null,
+    slotG: null,
+    cSlots: null,
+    cValues: null,
+  };
 }
 
 /**
@@ -77,18 +89,29 @@ export function planPencil(
   plan.pencil = inOrder;
   plan.pencilOf = pen;
   plan.slotG = null;
-  plan.slotC = null;
+  plan.cSlots = null;
+  plan.cValues = null;
   if (!plan.upd) return;
   const { g, c } = pen;
   const { src } = plan;
   const sg = new Float64Array(src.length);
-  const sc = new Float64Array(src.length);
+  let count = 0;
   for (let t = 0; t < src.length; t++) {
     const p = src[t]!;
     if (p < 0) continue;
     sg[t] = g[p]!;
-    sc[t] = c[p]!;
+    if (c[p] !== 0) count++;
   }
   plan.slotG = sg;
-  plan.slotC = sc;
+  const cSlots = new Int32Array(count);
+  const cValues = new Float64Array(count);
+  count = 0;
+  for (let t = 0; t < src.length; t++) {
+    const p = src[t]!;
+    if (p < 0 || c[p] === 0) continue;
+    cSlots[count] = t;
+    cValues[count++] = c[p]!;
+  }
+  plan.cSlots = cSlots;
+  plan.cValues = cValues;
 }

@@ -40,7 +40,7 @@ export function solveFactors(
     wRe[k] = yr;
     wIm[k] = yi;
   }
-  return backward(f, xRe, xIm);
+  return backward(f, xRe, xIm, f.descending);
 }
 
 /**
@@ -66,7 +66,7 @@ export function solveFactorsOfProduct(
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
   forwardOfProduct(f, m, vRe, vIm);
-  return steps === null ? backward(f, xRe, xIm) : backwardOver(f, xRe, xIm, steps);
+  return backward(f, xRe, xIm, steps ?? f.descending);
 }
 
 /**
@@ -110,36 +110,6 @@ function forwardOfProduct(
   }
 }
 
-/** U·z = y (y in f.w), x = Q·z; false when x has a NaN or ±∞. */
-function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array): boolean {
-  const { colPerm, uPtr, uIdx } = f.sym!;
-  const { uRe, uIm, invRe, invIm, wRe, wIm, n } = f;
-  let t1 = uPtr[n]!;
-  let finite = 0;
-  for (let k = n - 1; k >= 0; k--) {
-    let yr = wRe[k]!;
-    let yi = wIm[k]!;
-    const t0 = uPtr[k]!;
-    for (let t = t0; t < t1; t++) {
-      const j = uIdx[t]!;
-      yr -= uRe[t]! * wRe[j]! - uIm[t]! * wIm[j]!;
-      yi -= uRe[t]! * wIm[j]! + uIm[t]! * wRe[j]!;
-    }
-    t1 = t0;
-    const ir = invRe[k]!;
-    const ii = invIm[k]!;
-    const zr = yr * ir - yi * ii;
-    const zi = yr * ii + yi * ir;
-    wRe[k] = zr;
-    wIm[k] = zi;
-    xRe[colPerm[k]!] = zr;
-    xIm[colPerm[k]!] = zi;
-    // x·0 is 0 for every finite x and NaN for ±∞ or NaN.
-    finite += zr * 0 + zi * 0;
-  }
-  return finite === 0;
-}
-
 /**
  * The steps of the backward pass that x at the original unknowns `want` depends on, in the order
  * the pass takes them (descending): the steps of those unknowns and every step U's rows reach from
@@ -175,8 +145,13 @@ export function backwardReach(sym: Symbolic, want: Int32Array): Int32Array {
   return steps;
 }
 
-/** `backward` over the given steps only (descending, closed under U's rows: `backwardReach`). */
-function backwardOver(f: LUFactors, xRe: Float64Array, xIm: Float64Array, steps: Int32Array): boolean {
+/**
+ * U·z = y (y in f.w) over the given steps, descending — every step (`f.descending`), or those x at
+ * some unknowns needs (`backwardReach`) — and x = Q·z there; false when x has a NaN or ±∞. One
+ * function for both: the optimizing compiler takes up one kernel, not two, while a first sweep
+ * runs interpreted.
+ */
+function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array, steps: Int32Array): boolean {
   const { colPerm, uPtr, uIdx } = f.sym!;
   const { uRe, uIm, invRe, invIm, wRe, wIm } = f;
   let finite = 0;
