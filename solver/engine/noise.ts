@@ -229,11 +229,18 @@ export class NoiseSweep {
         inputDensity[k] = g2 > 0 ? root(this.total[k]! / g2) : null;
       }
     }
-    const contributions = sources.map((src, s) => {
-      const d = new Array<number | null>(pts);
-      for (let k = 0, at = s; k < pts; k++, at += S) d[k] = root(this.parts[at]!);
-      return { part: src.part, source: src.source, density: d };
-    });
+    const columns = sources.map(() => new Array<number | null>(pts));
+    // Point by point through `parts` (stored point-major), each point's sources spread over the
+    // columns: a read in storage order, not a stride of S per value.
+    const parts = this.parts;
+    for (let k = 0, at = 0; k < pts; k++) {
+      for (let s = 0; s < S; s++, at++) columns[s]![k] = root(parts[at]!);
+    }
+    const contributions = sources.map((src, s) => ({
+      part: src.part,
+      source: src.source,
+      density: columns[s]!,
+    }));
     return {
       name: def.name,
       probe: def.text,

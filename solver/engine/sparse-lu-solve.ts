@@ -182,7 +182,8 @@ function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array, steps: Int
  * Solve Aᵀ·z = d (the plain transpose, no conjugate) with the factors f: the adjoint
  * system of noise analysis. With P·A·Q = L·U, Aᵀ = Q·Uᵀ·Lᵀ·P, so w = Qᵀ·d, Uᵀ·y = w (forward,
  * scattering U's rows), Lᵀ·v = y (backward, scattering L's rows), z = Pᵀ·v. z may alias d.
- * Cost O(nnz(L)+nnz(U)+n), as `solve`.
+ * Cost O(nnz(L)+nnz(U)+n), as `solve`, less the rows a sparse d leaves at zero (skipped: such an
+ * entry of z may come out −0 where the full arithmetic gives +0 or the reverse — the same value).
  */
 export function solveFactorsTransposed(
   f: LUFactors,
@@ -205,10 +206,17 @@ export function solveFactorsTransposed(
     wIm[k] = dIm[colPerm[k]!]!;
   }
   // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
+  // A zero w_k is left as it is and scatters nothing (a noise adjoint's d has one or two entries,
+  // and often half the steps get none): the factors are finite, so that changes at most the sign
+  // of a zero in z (see the comment of this function).
   let t0 = 0;
   for (let k = 0; k < n; k++) {
     const br = wRe[k]!;
     const bi = wIm[k]!;
+    if (br === 0 && bi === 0) {
+      t0 = uPtr[k + 1]!;
+      continue;
+    }
     const ir = invRe[k]!;
     const ii = invIm[k]!;
     const yr = br * ir - bi * ii;
@@ -231,6 +239,12 @@ export function solveFactorsTransposed(
     const vr = wRe[k]!;
     const vi = wIm[k]!;
     const q0 = lPtr[k]!;
+    if (vr === 0 && vi === 0) {
+      q1 = q0;
+      zRe[rowPerm[k]!] = vr;
+      zIm[rowPerm[k]!] = vi;
+      continue;
+    }
     for (let q = q0; q < q1; q++) {
       const j = lIdx[q]!;
       const lr = lRe[q]!;

@@ -1,7 +1,9 @@
-// dx/ds only where the traces read it: the backward pass of the derivative's solve runs over the
-// steps the read unknowns depend on (U's reach), which must give those unknowns the same numbers,
-// bit for bit, as the whole pass (common practice for such a restriction: compare it against the
-// straightforward form on seeded random inputs and on real circuits).
+// Solves that skip what cannot change the wanted numbers. dx/ds only where the traces read it:
+// the backward pass of the derivative's solve runs over the steps the read unknowns depend on (U's
+// reach), which must give those unknowns the same numbers, bit for bit, as the whole pass. The
+// transposed solve of a noise adjoint skips the steps its sparse right-hand side leaves at zero.
+// Common practice for such restrictions: compare against the straightforward form on seeded
+// random inputs and on real circuits.
 import { readdirSync, readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
@@ -97,6 +99,36 @@ function ladder(n: number): string {
   lines.push("sweep 10Hz to 10kHz log 10 per decade", `show H = volts(n${n}) / volts(n0)`);
   return lines.join("\n");
 }
+
+describe("solveTransposed with a sparse right-hand side (a noise adjoint)", () => {
+  it("solves Aᵀ·z = d with one entry of d; the steps d leaves at zero are skipped and z is 0 there", () => {
+    for (let seed = 51; seed <= 54; seed++) {
+      const n = 40;
+      const { a } = twoChains(n, seed);
+      const lu = new SparseComplexLU(a);
+      const dRe = new Float64Array(n);
+      const dIm = new Float64Array(n);
+      dRe[7] = 1;
+      const zRe = new Float64Array(n);
+      const zIm = new Float64Array(n);
+      lu.solveTransposed(dRe, dIm, zRe, zIm);
+      // Residual of Aᵀ·z = d, column by column of A.
+      const rRe = Array.from(dRe, (v) => -v);
+      const rIm = Array.from(dIm, (v) => -v);
+      for (let i = 0; i < n; i++) {
+        for (let p = a.rowPtr[i]!; p < a.rowPtr[i + 1]!; p++) {
+          const j = a.colIdx[p]!;
+          rRe[j] = rRe[j]! + a.re[p]! * zRe[i]! - a.im[p]! * zIm[i]!;
+          rIm[j] = rIm[j]! + a.re[p]! * zIm[i]! + a.im[p]! * zRe[i]!;
+        }
+      }
+      for (let j = 0; j < n; j++) expect(Math.abs(rRe[j]!) + Math.abs(rIm[j]!)).toBeLessThan(1e-12);
+      // The other chain does not couple to unknown 7: its part of z is exactly zero.
+      for (let i = n / 2; i < n; i++) expect(zRe[i] === 0 && zIm[i] === 0).toBe(true);
+      expect(zRe.slice(0, n / 2).some((v) => v !== 0)).toBe(true);
+    }
+  });
+});
 
 function circuitOf(text: string): Circuit {
   const r = compile(text);
