@@ -13,9 +13,8 @@ import { SparseComplexLU } from "@/solver/engine/sparse-lu";
 import { backwardReach } from "@/solver/engine/sparse-lu-solve";
 import { sparseFromDense } from "@/solver/engine/sparse-matrix";
 import { planSystems } from "@/solver/engine/systems";
-import { compile } from "@/solver/lang";
-import type { Circuit } from "@/solver/types";
 import { mulberry32 } from "./engine-circuits";
+import { circuitOf } from "./lang-helpers";
 
 /** Two chains of n/2 unknowns (a ladder each) with a few random couplings inside each chain. */
 function twoChains(n: number, seed: number) {
@@ -129,12 +128,6 @@ describe("solveTransposed with a sparse right-hand side (a noise adjoint)", () =
     }
   });
 });
-
-function circuitOf(text: string): Circuit {
-  const r = compile(text);
-  if (!r.ok) throw new Error(JSON.stringify(r.errors));
-  return r.circuit;
-}
 
 describe("derivativesRead", () => {
   it("lists the unknowns a reading takes dx/ds from: nodes of a ratio, a resistor's ends, a source's branch", () => {
