@@ -173,6 +173,7 @@ function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array, steps: Int
     wIm[k] = zi;
     xRe[colPerm[k]!] = zr;
     xIm[colPerm[k]!] = zi;
+    // x·0 is 0 for every finite x and NaN for ±∞ or NaN.
     finite += zr * 0 + zi * 0;
   }
   return finite === 0;
