@@ -8,9 +8,25 @@ export interface Dual {
   im: number;
   dRe: number;
   dIm: number;
+  /**
+   * The size of the derivative's terms before they were added up: the sum of |term| over every
+   * term that went into dRe and dIm (|re| + |im| for complex ones). Rounding leaves an error of a
+   * few ε times this, so a derivative far below it is cancellation noise (`groupDelayOf`).
+   * Absent: not tracked.
+   */
+  dAbs?: number;
 }
 
-const dual = (re: number, im: number, dRe = 0, dIm = 0): Dual => ({ re, im, dRe, dIm });
+const dual = (re: number, im: number, dRe = 0, dIm = 0, dAbs = Math.abs(dRe) + Math.abs(dIm)): Dual => ({
+  re,
+  im,
+  dRe,
+  dIm,
+  dAbs,
+});
+
+/** |re| + |im|: a bound on a complex value's modulus, within √2 of it. */
+const l1 = (re: number, im: number) => Math.abs(re) + Math.abs(im);
 
 /** Why a probe cannot be evaluated on this system (unknown node or part), or null. */
 export function probeProblem(p: Probe, sys: MnaSystem): string | null {
@@ -42,12 +58,15 @@ function voltage(ac: AcSolver, name: string | undefined): Dual {
   return dual(ac.xRe[i]!, ac.xIm[i]!, ac.dxRe[i]!, ac.dxIm[i]!);
 }
 
+// Each operation also carries `dAbs`, the size of its derivative's terms (see `Dual`).
+const size = (a: Dual) => a.dAbs ?? l1(a.dRe, a.dIm);
+
 function diff(a: Dual, b: Dual): Dual {
-  return dual(a.re - b.re, a.im - b.im, a.dRe - b.dRe, a.dIm - b.dIm);
+  return dual(a.re - b.re, a.im - b.im, a.dRe - b.dRe, a.dIm - b.dIm, size(a) + size(b));
 }
 
 function scale(a: Dual, k: number): Dual {
-  return dual(a.re * k, a.im * k, a.dRe * k, a.dIm * k);
+  return dual(a.re * k, a.im * k, a.dRe * k, a.dIm * k, size(a) * Math.abs(k));
 }
 
 function mul(a: Dual, b: Dual): Dual {
@@ -56,6 +75,7 @@ function mul(a: Dual, b: Dual): Dual {
     a.re * b.im + a.im * b.re,
     a.dRe * b.re - a.dIm * b.im + a.re * b.dRe - a.im * b.dIm,
     a.dRe * b.im + a.dIm * b.re + a.re * b.dIm + a.im * b.dRe,
+    size(a) * l1(b.re, b.im) + l1(a.re, a.im) * size(b),
   );
 }
 
@@ -66,7 +86,8 @@ function div(a: Dual, b: Dual): Dual {
   // (a/b)' = (a' − q·b')/b
   const nr = a.dRe - (qr * b.dRe - qi * b.dIm);
   const ni = a.dIm - (qr * b.dIm + qi * b.dRe);
-  return dual(qr, qi, (nr * b.re + ni * b.im) / den, (ni * b.re - nr * b.im) / den);
+  const terms = (size(a) + l1(qr, qi) * size(b)) / Math.sqrt(den);
+  return dual(qr, qi, (nr * b.re + ni * b.im) / den, (ni * b.re - nr * b.im) / den, terms);
 }
 
 /** Current through a part, entering its first terminal (passive sign convention). */
@@ -114,11 +135,8 @@ export function evalProbe(p: Probe, ac: AcSolver): Dual {
       return current(ac, p.part);
     case "neg":
       return scale(evalProbe(p.arg, ac), -1);
-    case "+": {
-      const a = evalProbe(p.left, ac);
-      const b = evalProbe(p.right, ac);
-      return dual(a.re + b.re, a.im + b.im, a.dRe + b.dRe, a.dIm + b.dIm);
-    }
+    case "+":
+      return sum(evalProbe(p.left, ac), evalProbe(p.right, ac));
     case "-":
       return diff(evalProbe(p.left, ac), evalProbe(p.right, ac));
     case "*":
@@ -184,7 +202,7 @@ export function evalDoubleInjection(d: DoubleInjection, ac: AcSolver): Dual {
 }
 
 function sum(a: Dual, b: Dual): Dual {
-  return dual(a.re + b.re, a.im + b.im, a.dRe + b.dRe, a.dIm + b.dIm);
+  return dual(a.re + b.re, a.im + b.im, a.dRe + b.dRe, a.dIm + b.dIm, size(a) + size(b));
 }
 
 /** Evaluate a trace's reading on the last solution of `ac` (derivatives as for evalProbe). */

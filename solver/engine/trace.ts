@@ -34,12 +34,18 @@ export function makeTrace(
  * max(|Re X|, |Im X|), so |X|² cannot underflow deep in a stop band (a ladder's far end reaches 1e−160).
  * Null where X = 0 (the phase is undefined there) and where X is subnormal (below 2.2e−308 a double keeps
  * too few digits for a derivative ratio to mean anything).
+ * 0 where |τ| is within the rounding of X′'s own arithmetic: X′ is a sum of terms of total size
+ * `x.dAbs`, rounded to a few ε of it, so |τ| ≤ 32·ε·dAbs/|X| cannot be told from 0 — a divider
+ * behind a buffer, flat by design, read ±2e−21 s of cancellation noise before.
  */
 export function groupDelayOf(x: Dual): number | null {
   if (!resolvable(x.re, x.im)) return null;
   const scale = Math.max(Math.abs(x.re), Math.abs(x.im));
   const re = x.re / scale;
   const im = x.im / scale;
-  const t = -((x.dRe / scale) * re + (x.dIm / scale) * im) / (re * re + im * im);
-  return Number.isFinite(t) ? t : null;
+  const m2 = re * re + im * im;
+  const t = -((x.dRe / scale) * re + (x.dIm / scale) * im) / m2;
+  if (!Number.isFinite(t)) return null;
+  const floor = (32 * Number.EPSILON * ((x.dAbs ?? 0) / scale)) / Math.sqrt(m2);
+  return Math.abs(t) <= floor ? 0 : t;
 }

@@ -116,4 +116,27 @@ measure d = group-delay(V) at 1kHz
     expect(r.measures[0]!.value).toBeNull();
     expect(r.measures[0]!.reason).toContain("its phase has no slope");
   });
+  it("is 0, not cancellation noise, on a flat trace behind a buffer; a small real delay is kept", () => {
+    // A divider driven by an ideal follower whose input has an RC: v(b)/v(out) is exactly ½ at
+    // every frequency, but dX/ds comes from two derivatives of ~RC size that cancel (±2e−21 s of
+    // rounding before). With 1 pF across the lower resistor the delay is real: R∥R·C = 0.5 ns at
+    // low frequency (a first-order pole at 1/(R/2·C); common practice).
+    const text = (extra: string) => `Vin: vsource in gnd 1
+R1: resistor in a 1k
+C1: capacitor a gnd 10n
+U1: opamp a out out
+R2: resistor out b 1k
+R3: resistor b gnd 1k
+${extra}
+sweep 10Hz to 100kHz log 10 per decade
+show B = volts(b) / volts(out)
+measure d = group-delay(B) at 1kHz
+`;
+    const flat = solve(text(""));
+    const b = flat.traces.find((t) => t.name === "B")!;
+    expect(b.groupDelay!.every((x) => x === 0)).toBe(true);
+    expect(value(flat, "d")).toBe(0);
+    const real = solve(text("Cp: capacitor b gnd 1p"));
+    expectClose(value(real, "d"), 0.5e-9 / (1 + (2 * Math.PI * 1e3 * 0.5e-9) ** 2), 1e-9);
+  });
 });
