@@ -38,6 +38,24 @@ function refPx(
   return ax ? toPx(ax, v) : null;
 }
 
+/**
+ * `refPx` for an annotation: on an axis only a number places it, and on a log axis that number is
+ * already log10 of the value.
+ */
+function annotationPx(
+  axes: ReadonlyMap<string, AxisModel>,
+  plot: PlotBox,
+  ref: string,
+  v: unknown,
+  letter: "x" | "y",
+): number | null {
+  if (ref === "paper") return refPx(axes, plot, ref, v, letter);
+  const ax = axes.get(ref);
+  const n = num(v);
+  if (!ax || n === null) return null;
+  return ax.type === "log" ? scalePx(ax, n) : toPx(ax, v);
+}
+
 /** Shapes as lines and rectangles, split by layer (below or above the traces). */
 export function shapeItems(
   shapes: readonly Obj[],
@@ -95,33 +113,9 @@ export function annotationItems(
   measure: MeasureText,
 ): TextItem[] {
   const texts: TextItem[] = [];
-  const px = (ref: string, v: unknown, letter: "x" | "y") => refPx(axes, plot, ref, v, letter);
   for (const a of annotations) {
-    const xr = str(a.xref, "x");
-    const yr = str(a.yref, "y");
-    const axX = axes.get(xr);
-    const axY = axes.get(yr);
-    // On a log axis an annotation's x is already log10 of the value.
-    const x =
-      xr === "paper"
-        ? px("paper", a.x, "x")
-        : axX
-          ? num(a.x) === null
-            ? null
-            : axX.type === "log"
-              ? scalePx(axX, a.x as number)
-              : toPx(axX, a.x)
-          : null;
-    const y =
-      yr === "paper"
-        ? px("paper", a.y, "y")
-        : axY
-          ? num(a.y) === null
-            ? null
-            : axY.type === "log"
-              ? scalePx(axY, a.y as number)
-              : toPx(axY, a.y)
-          : null;
+    const x = annotationPx(axes, plot, str(a.xref, "x"), a.x, "x");
+    const y = annotationPx(axes, plot, str(a.yref, "y"), a.y, "y");
     if (x === null || y === null) continue;
     const f = obj(a.font);
     const size = num(f.size) ?? font.size;
