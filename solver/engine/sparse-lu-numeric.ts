@@ -31,11 +31,11 @@ export function factorNumeric(
   // Every slot starts as its entry of A (zero at fill), in one flat pass before the elimination:
   // a row's elimination writes only its own slots, so no slot is read before it is loaded.
   const { src } = plan;
-  const { fRe, fIm } = f;
+  const { fac } = f;
   for (let t = 0; t < src.length; t++) {
     const p = src[t]!;
-    fRe[t] = p >= 0 ? re[p]! : 0;
-    fIm[t] = p >= 0 ? imScale * im[p]! : 0;
+    fac[2 * t] = p >= 0 ? re[p]! : 0;
+    fac[2 * t + 1] = p >= 0 ? imScale * im[p]! : 0;
   }
   return eliminate(f, tests, tau, null, null);
 }
@@ -62,18 +62,17 @@ export function factorPencil(
   f.forwardIm = null;
   const cSlots = plan.cSlots!;
   const cValues = plan.cValues!;
-  const { fRe, fIm } = f;
-  fRe.set(plan.slotG!);
-  // ω·c where C has an entry, 0 (= ω·0 for ω ≥ 0) in every other slot.
-  fIm.fill(0);
-  for (let i = 0; i < cSlots.length; i++) fIm[cSlots[i]!] = omega * cValues[i]!;
+  const { fac } = f;
+  // G, and 0 (= ω·0 for ω ≥ 0) as every imaginary part; then ω·c where C has an entry.
+  fac.set(plan.slotG!);
+  for (let i = 0; i < cSlots.length; i++) fac[2 * cSlots[i]! + 1] = omega * cValues[i]!;
   return eliminate(f, tests, tau, bRe, bIm);
 }
 
 /**
  * The elimination over the plan's slots, after every slot holds its entry of A: row by row
  * (up-looking), each product landing on the slot the plan recorded for it, then the pivot tests;
- * with b, the forward substitution into f.wRe/wIm as it goes (see `factorPencil`).
+ * with b, the forward substitution into f.w as it goes (see `factorPencil`).
  */
 function eliminate(
   f: LUFactors,
@@ -85,11 +84,10 @@ function eliminate(
   const s = f.sym!;
   const plan = f.plan!;
   const { lPtr, lIdx, uPtr, uIdx, rowPerm } = s;
-  const { wRe, wIm } = f;
   const fwd = bRe !== null && bIm !== null;
   const { updStart } = plan;
   const upd = plan.upd!;
-  const { fRe, fIm, invRe, invIm, n } = f;
+  const { fac, inv, w, n } = f;
   const { cm, rm } = tests;
   const offU = lIdx.length;
   const offD = offU + uIdx.length;
@@ -101,7 +99,7 @@ function eliminate(
   for (let k = 0; k < n; k++) {
     const l1 = lPtr[k + 1]!;
     const u1 = offU + uPtr[k + 1]!;
-    const dk = offD + k;
+    const dk = 2 * (offD + k);
     let yr = 0;
     let yi = 0;
     if (fwd) {
@@ -112,32 +110,34 @@ function eliminate(
     // row k −= l·(row j of U), each product landing on the slot the plan recorded for it.
     for (let q = l0; q < l1; q++) {
       const j = lIdx[q]!;
-      const xr = fRe[q]!;
-      const xi = fIm[q]!;
-      const ir = invRe[j]!;
-      const ii = invIm[j]!;
+      const xr = fac[2 * q]!;
+      const xi = fac[2 * q + 1]!;
+      const ir = inv[2 * j]!;
+      const ii = inv[2 * j + 1]!;
       const lr = xr * ir - xi * ii;
       const li = xr * ii + xi * ir;
-      fRe[q] = lr;
-      fIm[q] = li;
+      fac[2 * q] = lr;
+      fac[2 * q + 1] = li;
       if (fwd) {
-        yr -= lr * wRe[j]! - li * wIm[j]!;
-        yi -= lr * wIm[j]! + li * wRe[j]!;
+        const wr = w[2 * j]!;
+        const wi = w[2 * j + 1]!;
+        yr -= lr * wr - li * wi;
+        yi -= lr * wi + li * wr;
       }
       if (lr === 0 && li === 0) continue;
       const t0 = offU + uPtr[j]!;
       const m0 = updStart[q]!;
       const m1 = updStart[q + 1]!;
       for (let m = m0, t = t0; m < m1; m++, t++) {
-        const c = upd[m]!;
-        const ur = fRe[t]!;
-        const ui = fIm[t]!;
-        fRe[c] = fRe[c]! - (lr * ur - li * ui);
-        fIm[c] = fIm[c]! - (lr * ui + li * ur);
+        const c = 2 * upd[m]!;
+        const ur = fac[2 * t]!;
+        const ui = fac[2 * t + 1]!;
+        fac[c] = fac[c]! - (lr * ur - li * ui);
+        fac[c + 1] = fac[c + 1]! - (lr * ui + li * ur);
       }
     }
-    const pr = fRe[dk]!;
-    const pi = fIm[dk]!;
+    const pr = fac[dk]!;
+    const pi = fac[dk + 1]!;
     const d = pr * pr + pi * pi;
     const ck = cm[k]!;
     const hk = half * ck;
@@ -145,19 +145,19 @@ function eliminate(
     for (let t = u0; t < u1 && !small; t++) {
       // |re| + |im| written out: the sweep's first points run before the JIT has compiled this
       // loop, where a call per entry is a good part of a row's cost.
-      const ur = fRe[t]!;
-      const ui = fIm[t]!;
+      const ur = fac[2 * t]!;
+      const ui = fac[2 * t + 1]!;
       const m = (ur < 0 ? -ur : ur) + (ui < 0 ? -ui : ui);
       if (d * cm[uIdx[t - offU]!]! < hk * m * m) small = true;
     }
     l0 = l1;
     u0 = u1;
     if (small) return f.pivotFailed(k, d <= tol2 * rm[k]! * ck);
-    const inv = 1 / d;
-    invRe[k] = pr * inv;
-    invIm[k] = -pi * inv;
-    wRe[k] = yr;
-    wIm[k] = yi;
+    const id = 1 / d;
+    inv[2 * k] = pr * id;
+    inv[2 * k + 1] = -pi * id;
+    w[2 * k] = yr;
+    w[2 * k + 1] = yi;
   }
   if (fwd) {
     f.forwardRe = bRe;

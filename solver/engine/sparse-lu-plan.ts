@@ -22,7 +22,10 @@ export interface Plan {
   pencilOf: PencilMaxima | null;
   updStart: Int32Array;
   upd: Int32Array | null;
-  /** G's entries in the slots (0 at fill) of the pencil `pencilOf` (plans with `upd` only). */
+  /**
+   * G's entries in the slots (0 at fill) of the pencil `pencilOf` (plans with `upd` only), laid out
+   * as the factors (`LUFactors.fac`: real parts at 2t, the imaginary parts 0), so a copy loads them.
+   */
   slotG: Float64Array | null;
   /** The slots where that pencil's C is not zero, and C there (most slots have none: fill, G only). */
   cSlots: Int32Array | null;
@@ -94,12 +97,12 @@ export function planPencil(
   if (!plan.upd) return;
   const { g, c } = pen;
   const { src } = plan;
-  const sg = new Float64Array(src.length);
+  const sg = new Float64Array(2 * src.length);
   let count = 0;
   for (let t = 0; t < src.length; t++) {
     const p = src[t]!;
     if (p < 0) continue;
-    sg[t] = g[p]!;
+    sg[2 * t] = g[p]!;
     if (c[p] !== 0) count++;
   }
   plan.slotG = sg;

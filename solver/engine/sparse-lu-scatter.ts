@@ -18,15 +18,15 @@ export function factorScatter(
   const { rowPtr } = f.a;
   const { rowPerm, lPtr, lIdx, uPtr, uIdx } = s;
   const aPos = f.plan!.aPos;
-  const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm, n } = f;
+  const { fac, inv, w, n } = f;
+  const offU = lIdx.length;
   const { cm, rm } = tests;
   const tol2 = tests.absTol * tests.absTol;
   const half = 0.5 * tau * tau;
   f.clearFailure();
   // The scatter vector starts at zero (`solve` uses it as scratch too); each row leaves it zero,
   // so no row has to clear its pattern first.
-  wRe.fill(0);
-  wIm.fill(0);
+  w.fill(0);
   let l0 = 0;
   let u0 = 0;
   for (let k = 0; k < n; k++) {
@@ -37,37 +37,37 @@ export function factorScatter(
     const r = rowPerm[k]!;
     const p1 = rowPtr[r + 1]!;
     for (let p = rowPtr[r]!; p < p1; p++) {
-      const j = aPos[p]!;
-      wRe[j] = wRe[j]! + re[p]!;
-      wIm[j] = wIm[j]! + imScale * im[p]!;
+      const j = 2 * aPos[p]!;
+      w[j] = w[j]! + re[p]!;
+      w[j + 1] = w[j + 1]! + imScale * im[p]!;
     }
     // Eliminate with earlier rows, in ascending order of the L pattern.
     for (let q = l0; q < l1; q++) {
       const j = lIdx[q]!;
-      const xr = wRe[j]!;
-      const xi = wIm[j]!;
-      wRe[j] = 0;
-      wIm[j] = 0;
-      const ir = invRe[j]!;
-      const ii = invIm[j]!;
+      const xr = w[2 * j]!;
+      const xi = w[2 * j + 1]!;
+      w[2 * j] = 0;
+      w[2 * j + 1] = 0;
+      const ir = inv[2 * j]!;
+      const ii = inv[2 * j + 1]!;
       const lr = xr * ir - xi * ii;
       const li = xr * ii + xi * ir;
-      lRe[q] = lr;
-      lIm[q] = li;
+      fac[2 * q] = lr;
+      fac[2 * q + 1] = li;
       if (lr === 0 && li === 0) continue;
       const t1 = uPtr[j + 1]!;
       for (let t = uPtr[j]!; t < t1; t++) {
-        const c = uIdx[t]!;
-        const ur = uRe[t]!;
-        const ui = uIm[t]!;
-        wRe[c] = wRe[c]! - (lr * ur - li * ui);
-        wIm[c] = wIm[c]! - (lr * ui + li * ur);
+        const c = 2 * uIdx[t]!;
+        const ur = fac[2 * (offU + t)]!;
+        const ui = fac[2 * (offU + t) + 1]!;
+        w[c] = w[c]! - (lr * ur - li * ui);
+        w[c + 1] = w[c + 1]! - (lr * ui + li * ur);
       }
     }
-    const pr = wRe[k]!;
-    const pi = wIm[k]!;
-    wRe[k] = 0;
-    wIm[k] = 0;
+    const pr = w[2 * k]!;
+    const pi = w[2 * k + 1]!;
+    w[2 * k] = 0;
+    w[2 * k + 1] = 0;
     const d = pr * pr + pi * pi;
     const ck = cm[k]!;
     const hk = half * ck;
@@ -75,21 +75,21 @@ export function factorScatter(
     // Gather U's row (leaving w zero) and test each entry against the pivot.
     for (let t = u0; t < u1; t++) {
       const c = uIdx[t]!;
-      const vr = wRe[c]!;
-      const vi = wIm[c]!;
-      uRe[t] = vr;
-      uIm[t] = vi;
-      wRe[c] = 0;
-      wIm[c] = 0;
+      const vr = w[2 * c]!;
+      const vi = w[2 * c + 1]!;
+      fac[2 * (offU + t)] = vr;
+      fac[2 * (offU + t) + 1] = vi;
+      w[2 * c] = 0;
+      w[2 * c + 1] = 0;
       const m = Math.abs(vr) + Math.abs(vi);
       if (d * cm[c]! < hk * m * m) small = true;
     }
     l0 = l1;
     u0 = u1;
     if (small) return f.pivotFailed(k, d <= tol2 * rm[k]! * ck);
-    const inv = 1 / d;
-    invRe[k] = pr * inv;
-    invIm[k] = -pi * inv;
+    const id = 1 / d;
+    inv[2 * k] = pr * id;
+    inv[2 * k + 1] = -pi * id;
   }
   return true;
 }

@@ -20,7 +20,7 @@ export function solveFactors(
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
   const { rowPerm, lPtr, lIdx } = f.sym;
-  const { lRe, lIm, wRe, wIm } = f;
+  const { fac, w } = f;
   // The factorization ran the forward pass of this b already (`factorPencil`): y is in w.
   const forwarded = f.forwardRe === bRe && f.forwardIm === bIm;
   f.forwardRe = null;
@@ -32,13 +32,15 @@ export function solveFactors(
     let yi = bIm[r]!;
     const q1 = lPtr[k + 1]!;
     for (let q = q0; q < q1; q++) {
-      const j = lIdx[q]!;
-      yr -= lRe[q]! * wRe[j]! - lIm[q]! * wIm[j]!;
-      yi -= lRe[q]! * wIm[j]! + lIm[q]! * wRe[j]!;
+      const j = 2 * lIdx[q]!;
+      const lr = fac[2 * q]!;
+      const li = fac[2 * q + 1]!;
+      yr -= lr * w[j]! - li * w[j + 1]!;
+      yi -= lr * w[j + 1]! + li * w[j]!;
     }
     q0 = q1;
-    wRe[k] = yr;
-    wIm[k] = yi;
+    w[2 * k] = yr;
+    w[2 * k + 1] = yi;
   }
   return backward(f, xRe, xIm, f.descending);
 }
@@ -82,7 +84,7 @@ function forwardOfProduct(
   vIm: Float64Array,
 ): void {
   const { rowPerm, lPtr, lIdx } = f.sym!;
-  const { lRe, lIm, wRe, wIm, n } = f;
+  const { fac, w, n } = f;
   const { ptr, idx, val } = m;
   f.forwardRe = null;
   f.forwardIm = null;
@@ -100,13 +102,15 @@ function forwardOfProduct(
     }
     const q1 = lPtr[k + 1]!;
     for (let q = q0; q < q1; q++) {
-      const j = lIdx[q]!;
-      yr -= lRe[q]! * wRe[j]! - lIm[q]! * wIm[j]!;
-      yi -= lRe[q]! * wIm[j]! + lIm[q]! * wRe[j]!;
+      const j = 2 * lIdx[q]!;
+      const lr = fac[2 * q]!;
+      const li = fac[2 * q + 1]!;
+      yr -= lr * w[j]! - li * w[j + 1]!;
+      yi -= lr * w[j + 1]! + li * w[j]!;
     }
     q0 = q1;
-    wRe[k] = yr;
-    wIm[k] = yi;
+    w[2 * k] = yr;
+    w[2 * k + 1] = yi;
   }
 }
 
@@ -152,25 +156,29 @@ export function backwardReach(sym: Symbolic, want: Int32Array): Int32Array {
  * runs interpreted.
  */
 function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array, steps: Int32Array): boolean {
-  const { colPerm, uPtr, uIdx } = f.sym!;
-  const { uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  const { colPerm, lIdx, uPtr, uIdx } = f.sym!;
+  const { fac, inv, w } = f;
+  // U's slots follow L's in `fac`.
+  const offU = 2 * lIdx.length;
   let finite = 0;
   for (let i = 0; i < steps.length; i++) {
     const k = steps[i]!;
-    let yr = wRe[k]!;
-    let yi = wIm[k]!;
+    let yr = w[2 * k]!;
+    let yi = w[2 * k + 1]!;
     const t1 = uPtr[k + 1]!;
     for (let t = uPtr[k]!; t < t1; t++) {
-      const j = uIdx[t]!;
-      yr -= uRe[t]! * wRe[j]! - uIm[t]! * wIm[j]!;
-      yi -= uRe[t]! * wIm[j]! + uIm[t]! * wRe[j]!;
+      const j = 2 * uIdx[t]!;
+      const ur = fac[offU + 2 * t]!;
+      const ui = fac[offU + 2 * t + 1]!;
+      yr -= ur * w[j]! - ui * w[j + 1]!;
+      yi -= ur * w[j + 1]! + ui * w[j]!;
     }
-    const ir = invRe[k]!;
-    const ii = invIm[k]!;
+    const ir = inv[2 * k]!;
+    const ii = inv[2 * k + 1]!;
     const zr = yr * ir - yi * ii;
     const zi = yr * ii + yi * ir;
-    wRe[k] = zr;
-    wIm[k] = zi;
+    w[2 * k] = zr;
+    w[2 * k + 1] = zi;
     xRe[colPerm[k]!] = zr;
     xIm[colPerm[k]!] = zi;
     // x·0 is 0 for every finite x and NaN for ±∞ or NaN.
@@ -199,12 +207,13 @@ export function solveFactorsTransposed(
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
   const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
-  const { lRe, lIm, uRe, uIm, invRe, invIm, wRe, wIm } = f;
+  const { fac, inv, w } = f;
+  const offU = 2 * lIdx.length;
   f.forwardRe = null;
   f.forwardIm = null;
   for (let k = 0; k < n; k++) {
-    wRe[k] = dRe[colPerm[k]!]!;
-    wIm[k] = dIm[colPerm[k]!]!;
+    w[2 * k] = dRe[colPerm[k]!]!;
+    w[2 * k + 1] = dIm[colPerm[k]!]!;
   }
   // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
   // A zero w_k is left as it is and scatters nothing (a noise adjoint's d has one or two entries,
@@ -212,33 +221,33 @@ export function solveFactorsTransposed(
   // of a zero in z (see the comment of this function).
   let t0 = 0;
   for (let k = 0; k < n; k++) {
-    const br = wRe[k]!;
-    const bi = wIm[k]!;
+    const br = w[2 * k]!;
+    const bi = w[2 * k + 1]!;
     if (br === 0 && bi === 0) {
       t0 = uPtr[k + 1]!;
       continue;
     }
-    const ir = invRe[k]!;
-    const ii = invIm[k]!;
+    const ir = inv[2 * k]!;
+    const ii = inv[2 * k + 1]!;
     const yr = br * ir - bi * ii;
     const yi = br * ii + bi * ir;
-    wRe[k] = yr;
-    wIm[k] = yi;
+    w[2 * k] = yr;
+    w[2 * k + 1] = yi;
     const t1 = uPtr[k + 1]!;
     for (let t = t0; t < t1; t++) {
-      const j = uIdx[t]!;
-      const ur = uRe[t]!;
-      const ui = uIm[t]!;
-      wRe[j] = wRe[j]! - (ur * yr - ui * yi);
-      wIm[j] = wIm[j]! - (ur * yi + ui * yr);
+      const j = 2 * uIdx[t]!;
+      const ur = fac[offU + 2 * t]!;
+      const ui = fac[offU + 2 * t + 1]!;
+      w[j] = w[j]! - (ur * yr - ui * yi);
+      w[j + 1] = w[j + 1]! - (ur * yi + ui * yr);
     }
     t0 = t1;
   }
   // Lᵀ·v = y, backward: row k of L scatters −l_kj·v_k into w_j (j < k); z = Pᵀ·v as it goes.
   let q1 = lPtr[n]!;
   for (let k = n - 1; k >= 0; k--) {
-    const vr = wRe[k]!;
-    const vi = wIm[k]!;
+    const vr = w[2 * k]!;
+    const vi = w[2 * k + 1]!;
     const q0 = lPtr[k]!;
     if (vr === 0 && vi === 0) {
       q1 = q0;
@@ -247,11 +256,11 @@ export function solveFactorsTransposed(
       continue;
     }
     for (let q = q0; q < q1; q++) {
-      const j = lIdx[q]!;
-      const lr = lRe[q]!;
-      const li = lIm[q]!;
-      wRe[j] = wRe[j]! - (lr * vr - li * vi);
-      wIm[j] = wIm[j]! - (lr * vi + li * vr);
+      const j = 2 * lIdx[q]!;
+      const lr = fac[2 * q]!;
+      const li = fac[2 * q + 1]!;
+      w[j] = w[j]! - (lr * vr - li * vi);
+      w[j + 1] = w[j + 1]! - (lr * vi + li * vr);
     }
     q1 = q0;
     zRe[rowPerm[k]!] = vr;

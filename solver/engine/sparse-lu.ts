@@ -116,7 +116,7 @@ export class SparseComplexLU {
 
   /** Nonzeros of L plus U (without the unit diagonal of L, with U's diagonal). */
   get factorNonzeros(): number {
-    return this.f.lRe.length + this.f.uRe.length + this.n;
+    return this.f.fac.length / 2;
   }
 
   /** Row order P (rowPerm[k] = original row at step k) of the current factors. */

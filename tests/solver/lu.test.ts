@@ -1,6 +1,11 @@
 import { complex, lusolve, matrix } from "mathjs";
 import { describe, expect, it } from "vitest";
+import { markowitzOrder } from "@/solver/engine/markowitz";
 import { SparseComplexLU } from "@/solver/engine/sparse-lu";
+import { LUFactors } from "@/solver/engine/sparse-lu-factors";
+import { factorNumeric } from "@/solver/engine/sparse-lu-numeric";
+import { PivotTests } from "@/solver/engine/sparse-lu-scaling";
+import { solveFactors } from "@/solver/engine/sparse-lu-solve";
 import { sparseFromDense } from "@/solver/engine/sparse-matrix";
 import { mulberry32 } from "./engine-circuits";
 import { relClose } from "./engine-tolerance";
@@ -159,6 +164,65 @@ describe("SparseComplexLU", () => {
     // The next refactor goes back to the sweep's order.
     expect(lu.refactor(re2, im2)).toBe(true);
     expect(Array.from(lu.rowPermutation)).toEqual(order);
+  });
+});
+
+describe("factorNumeric's two ways", () => {
+  // An order whose elimination would record more updates than a plan may hold is factored with a
+  // dense scatter vector instead (sparse-lu-scatter.ts): the same arithmetic in the same order, so
+  // the same factors. Seeded random matrices, both ways from one ordering, compared number by number.
+  it("the scatter factorization gives the plan's L, U, pivots and solution", () => {
+    for (let seed = 1; seed <= 8; seed++) {
+      const n = 12 + seed * 3;
+      const d = randomSystem(n, 0.15, 100 + seed, seed % 2 === 0);
+      const a = sparseFromDense(d.re, d.im);
+      const tests = new PivotTests(n, 1e-14);
+      tests.full(a, a.re, a.im);
+      const scaled = tests.scaled(a, a.re, a.im);
+      const order = markowitzOrder(a, scaled.re, scaled.im, {
+        pivotThreshold: 0.1,
+        absTolerance: tests.absTol,
+        searchRows: 4,
+      });
+      if (!order.ok) throw new Error(`seed ${seed}: no order`);
+      tests.prepare(order.symbolic);
+      const factor = (scatter: boolean) => {
+        const f = new LUFactors(a);
+        f.use(order.symbolic);
+        if (scatter) f.plan = { ...f.plan!, upd: null };
+        expect(factorNumeric(f, tests, a.re, a.im, 1, 0.1)).toBe(true);
+        return f;
+      };
+      const byPlan = factor(false);
+      const byScatter = factor(true);
+      // L's and U's slots (the plan also keeps each pivot in its slot; both keep 1/pivot in inv).
+      const lu = 2 * (order.symbolic.lIdx.length + order.symbolic.uIdx.length);
+      expect(byScatter.fac.length).toBe(byPlan.fac.length);
+      for (let t = 0; t < lu; t++) expect(byScatter.fac[t]).toBe(byPlan.fac[t]);
+      expect(Array.from(byScatter.inv)).toEqual(Array.from(byPlan.inv));
+      const rnd = mulberry32(seed);
+      const bRe = Float64Array.from({ length: n }, () => rnd() - 0.5);
+      const bIm = Float64Array.from({ length: n }, () => rnd() - 0.5);
+      const solve = (f: LUFactors) => {
+        const x = { re: new Float64Array(n), im: new Float64Array(n) };
+        expect(solveFactors(f, bRe, bIm, x.re, x.im)).toBe(true);
+        return x;
+      };
+      const x1 = solve(byPlan);
+      const x2 = solve(byScatter);
+      expect(Array.from(x2.re)).toEqual(Array.from(x1.re));
+      expect(Array.from(x2.im)).toEqual(Array.from(x1.im));
+      // And the solution is one: A·x = b to rounding.
+      for (let i = 0; i < n; i++) {
+        let sr = 0;
+        let si = 0;
+        for (let j = 0; j < n; j++) {
+          sr += d.re[i]![j]! * x1.re[j]! - d.im[i]![j]! * x1.im[j]!;
+          si += d.re[i]![j]! * x1.im[j]! + d.im[i]![j]! * x1.re[j]!;
+        }
+        expect(Math.hypot(sr - bRe[i]!, si - bIm[i]!)).toBeLessThan(1e-10);
+      }
+    }
   });
 });
 
