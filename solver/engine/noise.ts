@@ -141,7 +141,7 @@ export class NoiseProbe {
 
   /**
    * The densities at frequency f; `solver` must have just solved at f. Cost: one transposed solve
-   * and O(sources). `parts` receives each source's density² from index `at` on (a new array when
+   * and O(sources). `parts` receives source s's density² at index at + s·stride (a new array when
    * not given).
    */
   evaluate(
@@ -149,6 +149,7 @@ export class NoiseProbe {
     f: number,
     parts: Float64Array = new Float64Array(this.sources.length),
     at = 0,
+    stride = 1,
   ): NoisePoint {
     const { zRe, zIm, termStart, termA, termB, white, fc } = this;
     solver.adjoint(this.dRe, this.dIm, this.zRe0, this.zIm0);
@@ -162,7 +163,7 @@ export class NoiseProbe {
         const r = zRe[a]! - zRe[b]!;
         const i = zIm[a]! - zIm[b]!;
         const v = (r * r + i * i) * white[s]!;
-        parts[at + s] = v;
+        parts[at + s * stride] = v;
         total += v;
       }
     }
@@ -177,7 +178,7 @@ export class NoiseProbe {
       }
       const fcs = fc[s]!;
       const v = g2 * white[s]! * (fcs === 0 ? 1 : 1 + fcs / f);
-      parts[at + s] = v;
+      parts[at + s * stride] = v;
       total += v;
     }
     let gain2: number | null = null;
@@ -195,8 +196,13 @@ export class NoiseSweep {
   readonly probe: NoiseProbe;
   private readonly total: Float64Array;
   private readonly gain2: Float64Array;
-  /** Point-major density² of every source: parts[k·S + s]. */
+  /**
+   * Source-major density² of every source: parts[s·points + k]. Each point writes one value per
+   * source (S cache lines, each reused for the next points), and `result` reads each source's
+   * column in order into its own array.
+   */
   private readonly parts: Float64Array;
+  private readonly points: number;
   private k = 0;
 
   constructor(probe: NoiseProbe, points: number) {
@@ -204,11 +210,11 @@ export class NoiseSweep {
     this.total = new Float64Array(points);
     this.gain2 = new Float64Array(points);
     this.parts = new Float64Array(points * probe.sources.length);
+    this.points = points;
   }
 
   record(solver: AcSolver, f: number): void {
-    const S = this.probe.sources.length;
-    const p = this.probe.evaluate(solver, f, this.parts, this.k * S);
+    const p = this.probe.evaluate(solver, f, this.parts, this.k, this.points);
     this.total[this.k] = p.total;
     this.gain2[this.k] = p.gain2 ?? 0;
     this.k++;
@@ -229,12 +235,13 @@ export class NoiseSweep {
         inputDensity[k] = g2 > 0 ? root(this.total[k]! / g2) : null;
       }
     }
-    const columns = sources.map(() => new Array<number | null>(pts));
-    // Point by point through `parts` (stored point-major), each point's sources spread over the
-    // columns: a read in storage order, not a stride of S per value.
+    // Each source's column from its run of `parts` (stored source-major), in order.
+    const columns: (number | null)[][] = new Array(S);
     const parts = this.parts;
-    for (let k = 0, at = 0; k < pts; k++) {
-      for (let s = 0; s < S; s++, at++) columns[s]![k] = root(parts[at]!);
+    for (let s = 0; s < S; s++) {
+      const col = new Array<number | null>(pts);
+      for (let k = 0, at = s * this.points; k < pts; k++, at++) col[k] = root(parts[at]!);
+      columns[s] = col;
     }
     const contributions = sources.map((src, s) => ({
       part: src.part,
