@@ -61,6 +61,9 @@ export class Stamps {
   }
 }
 
+/** The kinds with a branch current among the unknowns. */
+export const BRANCH_KINDS = new Set(["vsource", "inductor", "vcvs", "ccvs", "opamp"]);
+
 const TERMINALS: Record<string, number> = {
   resistor: 2,
   capacitor: 2,
@@ -88,8 +91,13 @@ export function stampPart(p: Part, u: Unknowns, to: StampTarget): void {
     errors.push(partError(p, `${p.name}: the value is not a finite number`));
     return;
   }
-  const [a, b, c, d] = p.nodes.map(u.ix) as [number, number, number, number];
-  const k = u.branchIndex.get(p.name) ?? -1;
+  // Indexed, no array per part: this runs once per part, mostly before the JIT has warmed up.
+  const nodes = p.nodes;
+  const a = u.ix(nodes[0]);
+  const b = u.ix(nodes[1]);
+  const c = nodes.length > 2 ? u.ix(nodes[2]) : -1;
+  const d = nodes.length > 3 ? u.ix(nodes[3]) : -1;
+  const k = BRANCH_KINDS.has(p.kind) ? (u.branchIndex.get(p.name) ?? -1) : -1;
   switch (p.kind) {
     case "resistor":
       if (p.value === 0) {

@@ -1,7 +1,7 @@
 import { GROUND, type NetlistError, type Part } from "../types";
-import { injectCurrent, partError, Stamps, stampPart, type Unknowns } from "./mna-stamps";
+import { BRANCH_KINDS, injectCurrent, partError, Stamps, stampPart, type Unknowns } from "./mna-stamps";
 import { pole2Key } from "./opamp";
-import { patternFromTriplets, type SparseComplexMatrix } from "./sparse-matrix";
+import { csrFromTriplets, type SparseComplexMatrix } from "./sparse-matrix";
 
 export { diodeConductance } from "./mna-stamps";
 
@@ -41,8 +41,6 @@ export interface MnaSystem {
 }
 
 export type MnaBuild = { ok: true; system: MnaSystem } | { ok: false; errors: NetlistError[] };
-
-const BRANCH_KINDS = new Set(["vsource", "inductor", "vcvs", "ccvs", "opamp"]);
 
 /**
  * Build the MNA system of a flat part list. `second`: current sources that excite a second
@@ -143,24 +141,16 @@ function sumTriplets(
   n: number,
   s: Stamps,
 ): { matrix: SparseComplexMatrix; g: Float64Array; c: Float64Array } {
-  const { rows, cols, gv, cv } = s;
-  const pat = patternFromTriplets(n, rows, cols);
-  const nnz = pat.colIdx.length;
-  const g = new Float64Array(nnz);
-  const c = new Float64Array(nnz);
-  for (let t = 0; t < rows.length; t++) {
-    const k = pat.slot[t]!;
-    g[k] = g[k]! + gv[t]!;
-    c[k] = c[k]! + cv[t]!;
-  }
+  const m = csrFromTriplets(n, s.rows, s.cols, s.gv, s.cv);
+  const nnz = m.colIdx.length;
   const matrix: SparseComplexMatrix = {
     n,
-    rowPtr: pat.rowPtr,
-    colIdx: pat.colIdx,
+    rowPtr: m.rowPtr,
+    colIdx: m.colIdx,
     re: new Float64Array(nnz),
     im: new Float64Array(nnz),
   };
-  return { matrix, g, c };
+  return { matrix, g: m.a, c: m.b };
 }
 
 /** Fill matrix.re/im with A(j·2πf) = G + j·2πf·C. Cost O(nnz). */

@@ -14,30 +14,37 @@ export interface SparseComplexMatrix {
   im: Float64Array;
 }
 
-/** A CSR pattern built from triplets, with the position each triplet landed on. */
-export interface TripletPattern {
+/** A CSR matrix built from triplets: its pattern and two value arrays (see `csrFromTriplets`). */
+export interface TripletCsr {
   n: number;
   rowPtr: Int32Array;
   colIdx: Int32Array;
-  /** slot[t] is the CSR position of triplet t (duplicates share a slot and are summed by the caller). */
-  slot: Int32Array;
+  /** The triplets' first and second values summed per entry, in triplet order. */
+  a: Float64Array;
+  b: Float64Array;
 }
 
 /**
- * Build a CSR pattern from (row, col) triplets. Duplicates are merged.
+ * A CSR matrix from (row, col) triplets with two values each (G and C, or re and im): entries at
+ * one place are merged, their values summed in the order the triplets come (so the same sums as
+ * adding them up triplet by triplet).
  * Order: the triplets sorted by row, then column, stably (a counting sort by row, then an insertion
- * sort of each row by column: rows of a circuit matrix hold a handful of entries). The pattern is
- * built once per system, usually before the JIT has seen this code, where a general sort with a
- * comparator called for every pair cost more than the rest of the system's assembly.
+ * sort of each row by column: rows of a circuit matrix hold a handful of entries); the sums are
+ * made in the same pass. The matrix is built once per system, usually before the JIT has seen this
+ * code, where a general sort with a comparator called for every pair, or a second pass over the
+ * triplets to sum them, cost as much as the rest of the system's assembly.
  * Cost: O(t + n + Σ row²) for t triplets (O(t) for circuit matrices).
  */
-export function patternFromTriplets(
+export function csrFromTriplets(
   n: number,
   rows: ArrayLike<number>,
   cols: ArrayLike<number>,
-): TripletPattern {
+  va: ArrayLike<number>,
+  vb: ArrayLike<number>,
+): TripletCsr {
   const t = rows.length;
-  if (cols.length !== t) throw new RangeError("rows and cols differ in length");
+  if (cols.length !== t || va.length !== t || vb.length !== t)
+    throw new RangeError("triplet arrays differ in length");
   // start[r] = first place of row r in `order`.
   const start = new Int32Array(n + 1);
   for (let k = 0; k < t; k++) {
@@ -53,7 +60,8 @@ export function patternFromTriplets(
   for (let k = 0; k < t; k++) order[fill[rows[k]!]!++] = k;
   const rowPtr = new Int32Array(n + 1);
   const colIdx = new Int32Array(t);
-  const slot = new Int32Array(t);
+  const sa = new Float64Array(t);
+  const sb = new Float64Array(t);
   let nnz = 0;
   for (let i = 0; i < n; i++) {
     const a = start[i]!;
@@ -77,11 +85,13 @@ export function patternFromTriplets(
         colIdx[nnz++] = c;
         lastC = c;
       }
-      slot[k] = nnz - 1;
+      // Stable: an entry's triplets come in triplet order (0 + x as the first sum, as adding up).
+      sa[nnz - 1] = sa[nnz - 1]! + va[k]!;
+      sb[nnz - 1] = sb[nnz - 1]! + vb[k]!;
     }
     rowPtr[i + 1] = nnz;
   }
-  return { n, rowPtr, colIdx: colIdx.slice(0, nnz), slot };
+  return { n, rowPtr, colIdx: colIdx.slice(0, nnz), a: sa.slice(0, nnz), b: sb.slice(0, nnz) };
 }
 
 /** A sparse complex matrix from dense re/im rows (tests and small cases). Zeros are not stored. */
@@ -105,14 +115,6 @@ export function sparseFromDense(re: number[][], im?: number[][]): SparseComplexM
       }
     }
   }
-  const p = patternFromTriplets(n, rows, cols);
-  const nnz = p.colIdx.length;
-  const outRe = new Float64Array(nnz);
-  const outIm = new Float64Array(nnz);
-  for (let t = 0; t < rows.length; t++) {
-    const s = p.slot[t] ?? 0;
-    outRe[s] = (outRe[s] ?? 0) + (vr[t] ?? 0);
-    outIm[s] = (outIm[s] ?? 0) + (vi[t] ?? 0);
-  }
-  return { n, rowPtr: p.rowPtr, colIdx: p.colIdx, re: outRe, im: outIm };
+  const m = csrFromTriplets(n, rows, cols, vr, vi);
+  return { n, rowPtr: m.rowPtr, colIdx: m.colIdx, re: m.a, im: m.b };
 }

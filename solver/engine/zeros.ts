@@ -21,7 +21,7 @@ import type { Part, Probe, ZeroResult } from "../types";
 import type { MnaSystem } from "./mna";
 import { computePoles } from "./poles";
 import { SparseComplexLU } from "./sparse-lu";
-import { patternFromTriplets } from "./sparse-matrix";
+import { csrFromTriplets } from "./sparse-matrix";
 
 /** The read-out row cᵀ of a probe as (index, weight) pairs, and zeros at s = 0 it adds; null if unsupported. */
 function readout(sys: MnaSystem, p: Probe): { c: [number, number][]; atOrigin: number } | null {
@@ -106,14 +106,8 @@ export function computeZeros(
   };
   for (const [i, w] of excitation(sys, src)) add(i, n, w * big);
   for (const [j, w] of ro.c) add(n, j, (w / cmax) * big);
-  const pat = patternFromTriplets(n + 1, rows, cols);
-  const g = new Float64Array(pat.colIdx.length);
-  const c = new Float64Array(pat.colIdx.length);
-  for (let t = 0; t < rows.length; t++) {
-    const s = pat.slot[t]!;
-    g[s] = g[s]! + gv[t]!;
-    c[s] = c[s]! + cv[t]!;
-  }
+  const pat = csrFromTriplets(n + 1, rows, cols, gv, cv);
+  const { a: g, b: c } = pat;
   const bordered: MnaSystem = {
     ...sys,
     n: n + 1,

@@ -6,7 +6,7 @@ import { LUFactors } from "@/solver/engine/sparse-lu-factors";
 import { factorNumeric } from "@/solver/engine/sparse-lu-numeric";
 import { PivotTests } from "@/solver/engine/sparse-lu-scaling";
 import { solveFactors } from "@/solver/engine/sparse-lu-solve";
-import { sparseFromDense } from "@/solver/engine/sparse-matrix";
+import { csrFromTriplets, sparseFromDense } from "@/solver/engine/sparse-matrix";
 import { mulberry32 } from "./engine-circuits";
 import { relClose } from "./engine-tolerance";
 
@@ -164,6 +164,20 @@ describe("SparseComplexLU", () => {
     // The next refactor goes back to the sweep's order.
     expect(lu.refactor(re2, im2)).toBe(true);
     expect(Array.from(lu.rowPermutation)).toEqual(order);
+  });
+});
+
+describe("csrFromTriplets", () => {
+  it("merges triplets at one place, rows sorted by column, values summed in triplet order", () => {
+    // Row 1 gets (1,2) twice and (1,0); row 0 gets (0,1). The three values at (1,2) are summed
+    // left to right: (1e16 + 1) − 1e16 = 0 in doubles (1 would mean another order).
+    const m = csrFromTriplets(3, [1, 0, 1, 1, 1], [2, 1, 0, 2, 2], [1e16, 5, 7, 1, -1e16], [1, 2, 3, 4, 5]);
+    expect(Array.from(m.rowPtr)).toEqual([0, 1, 3, 3]);
+    expect(Array.from(m.colIdx)).toEqual([1, 0, 2]);
+    expect(Array.from(m.a)).toEqual([5, 7, 0]);
+    expect(Array.from(m.b)).toEqual([2, 3, 10]);
+    expect(() => csrFromTriplets(2, [0, 2], [0, 0], [1, 1], [0, 0])).toThrow(/outside a 2×2 matrix/);
+    expect(() => csrFromTriplets(2, [0], [0], [1, 1], [0])).toThrow(/differ in length/);
   });
 });
 
