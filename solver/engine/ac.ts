@@ -112,10 +112,12 @@ export class AcSolver {
 
   /**
    * z with A(s)ᵀ·z = d at the last solved frequency (requires a successful solveAt): the adjoint
-   * solve of noise analysis (noise.ts), reusing the factors. z may alias d. Cost: one solve.
+   * solve of noise analysis (noise.ts), reusing the factors. z is left in the pivot order: z_i at
+   * 2·rowPos[i] (real) and 2·rowPos[i] + 1 (imaginary) of `w`, until the next solve
+   * (`SparseComplexLU.solveTransposedInSteps`). Cost: one solve.
    */
-  adjoint(dRe: Float64Array, dIm: Float64Array, zRe: Float64Array, zIm: Float64Array): void {
-    this.lu!.solveTransposed(dRe, dIm, zRe, zIm);
+  adjoint(dRe: Float64Array, dIm: Float64Array): { w: Float64Array; rowPos: Int32Array } {
+    return this.lu!.solveTransposedInSteps(dRe, dIm);
   }
 
   /**

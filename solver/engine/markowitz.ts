@@ -15,6 +15,8 @@ export interface Symbolic {
   colPerm: Int32Array;
   /** colPos[j] = step at which original column j is pivoted (inverse of colPerm). */
   colPos: Int32Array;
+  /** rowPos[i] = step at which original row i is pivoted (inverse of rowPerm). */
+  rowPos: Int32Array;
   lPtr: Int32Array;
   lIdx: Int32Array;
   uPtr: Int32Array;
@@ -126,23 +128,23 @@ export function markowitzOrder(
 
   const colPos = new Int32Array(n);
   for (let k = 0; k < n; k++) colPos[colPerm[k]!] = k;
-  const stepOf = new Int32Array(n);
-  for (let k = 0; k < n; k++) stepOf[rowPerm[k]!] = k;
+  const rowPos = new Int32Array(n);
+  for (let k = 0; k < n; k++) rowPos[rowPerm[k]!] = k;
   // L's rows by a counting sort on the step each row was pivoted at: within a row the steps come
   // in the order they happened, ascending.
   const lPtr = new Int32Array(n + 1);
-  for (let q = 0; q < lRow.length; q++) lPtr[stepOf[lRow[q]!]! + 1]!++;
+  for (let q = 0; q < lRow.length; q++) lPtr[rowPos[lRow[q]!]! + 1]!++;
   for (let k = 0; k < n; k++) lPtr[k + 1] = lPtr[k + 1]! + lPtr[k]!;
   const lIdx = new Int32Array(lRow.length);
   const fill = lPtr.slice(0, n);
-  for (let q = 0; q < lRow.length; q++) lIdx[fill[stepOf[lRow[q]!]!]!++] = lStep[q]!;
+  for (let q = 0; q < lRow.length; q++) lIdx[fill[rowPos[lRow[q]!]!]!++] = lStep[q]!;
   const uPtr = new Int32Array(n + 1);
   const uIdx = new Int32Array(uStart[n]!);
   for (let k = 0; k < n; k++) {
     uPtr[k + 1] = uStart[k + 1]!;
     sortedSteps(uCols, uStart[k]!, uStart[k + 1]!, colPos, uIdx);
   }
-  const symbolic: Symbolic = { n, rowPerm, colPerm, colPos, lPtr, lIdx, uPtr, uIdx };
+  const symbolic: Symbolic = { n, rowPerm, colPerm, colPos, rowPos, lPtr, lIdx, uPtr, uIdx };
   return { ok: true, symbolic };
 }
 

@@ -87,15 +87,24 @@ export class NoiseProbe {
   readonly sources: Source[];
   private readonly dRe: Float64Array;
   private readonly dIm: Float64Array;
-  /** z with one more slot (index n, always 0) standing for gnd; zRe0/zIm0 are its first n slots. */
-  private readonly zRe: Float64Array;
-  private readonly zIm: Float64Array;
-  private readonly zRe0: Float64Array;
-  private readonly zIm0: Float64Array;
-  /** Sources flattened for the per-point loop: terms of source s are termStart[s]…termStart[s+1]−1. */
+  /** Unknowns: n stands for gnd. */
+  private readonly n: number;
+  /**
+   * Sources flattened for the per-point loop: terms of source s are termStart[s]…termStart[s+1]−1,
+   * between unknowns termA and termB (n for gnd).
+   */
   private readonly termStart: Int32Array;
   private readonly termA: Int32Array;
   private readonly termB: Int32Array;
+  /**
+   * termA/termB (and the input's unknowns) as places of z in the adjoint's pivot order (see
+   * `AcSolver.adjoint`; gnd at 2n, where z stays 0), mapped for the order `mappedFor` and again
+   * when it changes.
+   */
+  private mappedFor: Int32Array | null = null;
+  private placeA = new Int32Array(0);
+  private placeB = new Int32Array(0);
+  private placeIn: [number, number] = [0, 0];
   private readonly white: Float64Array;
   private readonly fc: Float64Array;
   /** Every source has one term and no flicker corner (`evaluate`'s short loop). */
@@ -106,12 +115,9 @@ export class NoiseProbe {
     this.def = def;
     this.sources = sourcesOf(sys, kelvin);
     const n = sys.n;
+    this.n = n;
     this.dRe = new Float64Array(n);
     this.dIm = new Float64Array(n);
-    this.zRe = new Float64Array(n + 1);
-    this.zIm = new Float64Array(n + 1);
-    this.zRe0 = this.zRe.subarray(0, n);
-    this.zIm0 = this.zIm.subarray(0, n);
     const g = (i: number) => (i < 0 ? n : i);
     const flat = this.sources.flatMap((x) => x.terms);
     this.termA = Int32Array.from(flat, ([a]) => g(a));
@@ -139,6 +145,21 @@ export class NoiseProbe {
       };
   }
 
+  /** The places of the terms' unknowns in a pivot order (`rowPos`); gnd (index n) at 2n. */
+  private mapTo(rowPos: Int32Array): void {
+    const gnd = 2 * this.n;
+    const place = (i: number) => (i === this.n ? gnd : 2 * rowPos[i]!);
+    this.placeA = this.termA.map(place);
+    this.placeB = this.termB.map(place);
+    const inp = this.input;
+    this.placeIn = !inp
+      ? [gnd, gnd]
+      : "row" in inp
+        ? [place(inp.row), gnd]
+        : [place(inp.to), place(inp.from)];
+    this.mappedFor = rowPos;
+  }
+
   /**
    * The densities at frequency f; `solver` must have just solved at f. Cost: one transposed solve
    * and O(sources). `parts` receives source s's density² at index at + s·stride (a new array when
@@ -151,17 +172,20 @@ export class NoiseProbe {
     at = 0,
     stride = 1,
   ): NoisePoint {
-    const { zRe, zIm, termStart, termA, termB, white, fc } = this;
-    solver.adjoint(this.dRe, this.dIm, this.zRe0, this.zIm0);
+    // z in the pivot order, read at the places of the terms' unknowns (mapped once per order): no
+    // pass to put z back in the unknowns' order. z at gnd's place is 0.
+    const { w: z, rowPos } = solver.adjoint(this.dRe, this.dIm);
+    if (rowPos !== this.mappedFor) this.mapTo(rowPos);
+    const { termStart, placeA, placeB, white, fc } = this;
     let total = 0;
     if (this.simple) {
       // One term per source, no flicker corner (thermal noise of resistors, the usual case): the
       // same sums without the inner loop or the corner's factor (× 1 and 0 + x change no bit).
       for (let s = 0; s < white.length; s++) {
-        const a = termA[s]!;
-        const b = termB[s]!;
-        const r = zRe[a]! - zRe[b]!;
-        const i = zIm[a]! - zIm[b]!;
+        const a = placeA[s]!;
+        const b = placeB[s]!;
+        const r = z[a]! - z[b]!;
+        const i = z[a + 1]! - z[b + 1]!;
         const v = (r * r + i * i) * white[s]!;
         parts[at + s * stride] = v;
         total += v;
@@ -170,10 +194,10 @@ export class NoiseProbe {
     for (let s = this.simple ? white.length : 0; s < white.length; s++) {
       let g2 = 0;
       for (let q = termStart[s]!; q < termStart[s + 1]!; q++) {
-        const a = termA[q]!;
-        const b = termB[q]!;
-        const r = zRe[a]! - zRe[b]!;
-        const i = zIm[a]! - zIm[b]!;
+        const a = placeA[q]!;
+        const b = placeB[q]!;
+        const r = z[a]! - z[b]!;
+        const i = z[a + 1]! - z[b + 1]!;
         g2 += r * r + i * i;
       }
       const fcs = fc[s]!;
@@ -182,9 +206,12 @@ export class NoiseProbe {
       total += v;
     }
     let gain2: number | null = null;
-    const inp = this.input;
-    if (inp && "row" in inp) gain2 = zRe[inp.row]! ** 2 + zIm[inp.row]! ** 2;
-    else if (inp) gain2 = (zRe[inp.to]! - zRe[inp.from]!) ** 2 + (zIm[inp.to]! - zIm[inp.from]!) ** 2;
+    const [p, m] = this.placeIn;
+    if (this.input) {
+      const r = z[p]! - z[m]!;
+      const i = z[p + 1]! - z[m + 1]!;
+      gain2 = r ** 2 + i ** 2;
+    }
     return { total, parts, gain2 };
   }
 }

@@ -30,7 +30,8 @@ export class LUFactors {
   readonly descending: Int32Array;
   /**
    * Scratch of the scatter factorization and the solves, interleaved as `fac` (zero between uses
-   * by the former).
+   * by the former), with one more pair at 2n that nothing writes and so stays 0: where a reader of
+   * z in the pivot order (`solveFactorsTransposedInSteps`) finds gnd.
    */
   readonly w: Float64Array;
   /**
@@ -52,7 +53,7 @@ export class LUFactors {
     this.inv = new Float64Array(2 * a.n);
     this.descending = new Int32Array(a.n);
     for (let k = 0; k < a.n; k++) this.descending[k] = a.n - 1 - k;
-    this.w = new Float64Array(2 * a.n);
+    this.w = new Float64Array(2 * a.n + 2);
   }
 
   /** No failure recorded: the start of every numeric factorization. */

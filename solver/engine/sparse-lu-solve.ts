@@ -201,12 +201,31 @@ export function solveFactorsTransposed(
   zRe: Float64Array,
   zIm: Float64Array,
 ): void {
-  if (f.singular || !f.sym) throw new Error("matrix is singular: cannot solve");
   const n = f.n;
-  if (dRe.length !== n || dIm.length !== n || zRe.length !== n || zIm.length !== n) {
+  if (zRe.length !== n || zIm.length !== n) {
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
-  const { rowPerm, colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
+  solveFactorsTransposedInSteps(f, dRe, dIm);
+  const { rowPerm } = f.sym!;
+  const { w } = f;
+  for (let k = 0; k < n; k++) {
+    zRe[rowPerm[k]!] = w[2 * k]!;
+    zIm[rowPerm[k]!] = w[2 * k + 1]!;
+  }
+}
+
+/**
+ * `solveFactorsTransposed` without the last permutation: v with z = Pᵀ·v is left in f.w (v_k at
+ * 2k, 2k + 1), so z_i is v at step `sym.rowPos[i]`. A caller that reads a few sums of z per solve
+ * (the noise sources) reads them there, with indices mapped once per pivot order.
+ */
+export function solveFactorsTransposedInSteps(f: LUFactors, dRe: Float64Array, dIm: Float64Array): void {
+  if (f.singular || !f.sym) throw new Error("matrix is singular: cannot solve");
+  const n = f.n;
+  if (dRe.length !== n || dIm.length !== n) {
+    throw new RangeError("dimension mismatch: right-hand side length ≠ n");
+  }
+  const { colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
   const { fac, inv, w } = f;
   const offU = 2 * lIdx.length;
   f.forwardRe = null;
@@ -218,7 +237,7 @@ export function solveFactorsTransposed(
   // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
   // A zero w_k is left as it is and scatters nothing (a noise adjoint's d has one or two entries,
   // and often half the steps get none): the factors are finite, so that changes at most the sign
-  // of a zero in z (see the comment of this function).
+  // of a zero in z (see the comment of `solveFactorsTransposed`).
   let t0 = 0;
   for (let k = 0; k < n; k++) {
     const br = w[2 * k]!;
@@ -243,7 +262,7 @@ export function solveFactorsTransposed(
     }
     t0 = t1;
   }
-  // Lᵀ·v = y, backward: row k of L scatters −l_kj·v_k into w_j (j < k); z = Pᵀ·v as it goes.
+  // Lᵀ·v = y, backward: row k of L scatters −l_kj·v_k into w_j (j < k).
   let q1 = lPtr[n]!;
   for (let k = n - 1; k >= 0; k--) {
     const vr = w[2 * k]!;
@@ -251,8 +270,6 @@ export function solveFactorsTransposed(
     const q0 = lPtr[k]!;
     if (vr === 0 && vi === 0) {
       q1 = q0;
-      zRe[rowPerm[k]!] = vr;
-      zIm[rowPerm[k]!] = vi;
       continue;
     }
     for (let q = q0; q < q1; q++) {
@@ -263,7 +280,5 @@ export function solveFactorsTransposed(
       w[j + 1] = w[j + 1]! - (lr * vi + li * vr);
     }
     q1 = q0;
-    zRe[rowPerm[k]!] = vr;
-    zIm[rowPerm[k]!] = vi;
   }
 }

@@ -10,6 +10,7 @@ import {
   solveFactors,
   solveFactorsOfProduct,
   solveFactorsTransposed,
+  solveFactorsTransposedInSteps,
 } from "./sparse-lu-solve";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
@@ -306,5 +307,15 @@ export class SparseComplexLU {
     zIm: Float64Array = dIm,
   ): void {
     solveFactorsTransposed(this.f, dRe, dIm, zRe, zIm);
+  }
+
+  /**
+   * `solveTransposed` that leaves z in the pivot order (`solveFactorsTransposedInSteps`): z_i is at
+   * 2·rowPos[i] and 2·rowPos[i] + 1 of `w` (real, imaginary), valid until the next solve or refactor.
+   * `rowPos` is the same array as long as the pivot order is, so a caller can map its indices once.
+   */
+  solveTransposedInSteps(dRe: Float64Array, dIm: Float64Array): { w: Float64Array; rowPos: Int32Array } {
+    solveFactorsTransposedInSteps(this.f, dRe, dIm);
+    return { w: this.f.w, rowPos: this.f.sym!.rowPos };
   }
 }
