@@ -1,6 +1,6 @@
 /**
  * Noise against the plain sweep (issue 10): a 100-section RC ladder × 1 000 points, the same
- * netlist with and without a `noise` statement, best of 5 each in this thread. Goal: noise within
+ * netlist with and without a `noise` statement, best of 40 each, alternating, in this thread. Goal: noise within
  * 1.5× the plain sweep (one transposed solve per point on the sweep's factors).
  */
 import { analyze } from "../solver/engine";
@@ -38,13 +38,14 @@ export function noiseCase(sections: number): BenchCase {
   return {
     name: `Noise, RC ladder ${sections} sections (× plain sweep)`,
     run() {
-      // Warm both paths first (JIT), then time them alternately, best of 16 each, so changes in the
-      // machine's load hit both (the shared development machine varies by 2× within seconds).
+      // Warm both paths first (JIT), then time them alternately, best of 40 each, so changes in the
+      // machine's load hit both (the shared development machine varies by 2× within seconds; with 16
+      // rounds, ~0.3 s, one busy spell could cover every round of the noisy sweep and read 1.7×).
       best(ladderText(sections, false), 2);
       best(ladderText(sections, true), 2);
       let plain = best(ladderText(sections, false), 1);
       let noisy = best(ladderText(sections, true), 1);
-      for (let r = 0; r < 15; r++) {
+      for (let r = 0; r < 39; r++) {
         const p = best(ladderText(sections, false), 1);
         const n = best(ladderText(sections, true), 1);
         if (p.ms < plain.ms) plain = p;
