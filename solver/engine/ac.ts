@@ -1,6 +1,7 @@
 import { floatingNodes, voltageLoop } from "./floating";
 import { assemble, type MnaSystem } from "./mna";
 import { SparseComplexLU } from "./sparse-lu";
+import type { SparseRhs } from "./sparse-lu-solve";
 
 /** "1.59155 kHz": a frequency with an SI prefix, 6 significant digits. */
 export function formatHz(f: number): string {
@@ -111,13 +112,13 @@ export class AcSolver {
   }
 
   /**
-   * z with A(s)ᵀ·z = d at the last solved frequency (requires a successful solveAt): the adjoint
+   * z with A(s)ᵀ·z = d (d by its nonzero entries) at the last solved frequency (requires a successful solveAt): the adjoint
    * solve of noise analysis (noise.ts), reusing the factors. z is left in the pivot order: z_i at
    * 2·rowPos[i] (real) and 2·rowPos[i] + 1 (imaginary) of `w`, until the next solve
    * (`SparseComplexLU.solveTransposedInSteps`). Cost: one solve.
    */
-  adjoint(dRe: Float64Array, dIm: Float64Array): { w: Float64Array; rowPos: Int32Array } {
-    return this.lu!.solveTransposedInSteps(dRe, dIm);
+  adjoint(d: SparseRhs): { w: Float64Array; rowPos: Int32Array } {
+    return this.lu!.solveTransposedInSteps(d);
   }
 
   /**

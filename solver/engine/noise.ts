@@ -18,6 +18,7 @@ import type { Circuit, NoiseDef, NoiseResult, Part } from "../types";
 import type { AcSolver } from "./ac";
 import type { MnaSystem } from "./mna";
 import { controlRow } from "./opamp";
+import { type SparseRhs, sparseRhs } from "./sparse-lu-solve";
 
 /** The circuit's temperature in kelvin (the `temperature` statement; the language defaults it to 27 °C). */
 export function kelvinOf(circuit: Circuit): number {
@@ -85,8 +86,8 @@ export interface NoisePoint {
 export class NoiseProbe {
   readonly def: NoiseDef;
   readonly sources: Source[];
-  private readonly dRe: Float64Array;
-  private readonly dIm: Float64Array;
+  /** The adjoint's right-hand side: the probe's weights (+1 at its node, −1 at its reference). */
+  private readonly d: SparseRhs;
   /** Unknowns: n stands for gnd. */
   private readonly n: number;
   /**
@@ -116,8 +117,6 @@ export class NoiseProbe {
     this.sources = sourcesOf(sys, kelvin);
     const n = sys.n;
     this.n = n;
-    this.dRe = new Float64Array(n);
-    this.dIm = new Float64Array(n);
     const g = (i: number) => (i < 0 ? n : i);
     const flat = this.sources.flatMap((x) => x.terms);
     this.termA = Int32Array.from(flat, ([a]) => g(a));
@@ -129,12 +128,14 @@ export class NoiseProbe {
     this.white = Float64Array.from(this.sources, (x) => x.white);
     this.fc = Float64Array.from(this.sources, (x) => x.fc);
     this.simple = this.sources.every((x) => x.terms.length === 1 && x.fc === 0);
+    const dRe = new Float64Array(n);
     if (def.probe.op === "v") {
       const a = sys.nodeIndex.get(def.probe.node);
       const b = def.probe.ref === undefined ? undefined : sys.nodeIndex.get(def.probe.ref);
-      if (a !== undefined) this.dRe[a] = 1;
-      if (b !== undefined) this.dRe[b] = this.dRe[b]! - 1;
+      if (a !== undefined) dRe[a] = 1;
+      if (b !== undefined) dRe[b] = dRe[b]! - 1;
     }
+    this.d = sparseRhs(dRe, new Float64Array(n));
     const src = def.input === undefined ? undefined : sys.partByName.get(def.input);
     if (!src) this.input = null;
     else if (src.kind === "vsource") this.input = { row: sys.branchIndex.get(src.name)! };
@@ -174,7 +175,7 @@ export class NoiseProbe {
   ): NoisePoint {
     // z in the pivot order, read at the places of the terms' unknowns (mapped once per order): no
     // pass to put z back in the unknowns' order. z at gnd's place is 0.
-    const { w: z, rowPos } = solver.adjoint(this.dRe, this.dIm);
+    const { w: z, rowPos } = solver.adjoint(this.d);
     if (rowPos !== this.mappedFor) this.mapTo(rowPos);
     const { termStart, placeA, placeB, white, fc } = this;
     let total = 0;

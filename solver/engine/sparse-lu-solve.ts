@@ -205,7 +205,10 @@ export function solveFactorsTransposed(
   if (zRe.length !== n || zIm.length !== n) {
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
-  solveFactorsTransposedInSteps(f, dRe, dIm);
+  if (dRe.length !== n || dIm.length !== n) {
+    throw new RangeError("dimension mismatch: right-hand side length ≠ n");
+  }
+  solveFactorsTransposedInSteps(f, sparseRhs(dRe, dIm));
   const { rowPerm } = f.sym!;
   const { w } = f;
   for (let k = 0; k < n; k++) {
@@ -214,32 +217,55 @@ export function solveFactorsTransposed(
   }
 }
 
+/** A right-hand side by its nonzero entries: d = Σ (re[t] + j·im[t])·e(index[t]), indices distinct. */
+export interface SparseRhs {
+  index: Int32Array;
+  re: Float64Array;
+  im: Float64Array;
+}
+
+/** The nonzero entries of d = dRe + j·dIm. */
+export function sparseRhs(dRe: Float64Array, dIm: Float64Array): SparseRhs {
+  const index: number[] = [];
+  for (let i = 0; i < dRe.length; i++) if (dRe[i] !== 0 || dIm[i] !== 0) index.push(i);
+  return {
+    index: Int32Array.from(index),
+    re: Float64Array.from(index, (i) => dRe[i]!),
+    im: Float64Array.from(index, (i) => dIm[i]!),
+  };
+}
+
 /**
- * `solveFactorsTransposed` without the last permutation: v with z = Pᵀ·v is left in f.w (v_k at
- * 2k, 2k + 1), so z_i is v at step `sym.rowPos[i]`. A caller that reads a few sums of z per solve
- * (the noise sources) reads them there, with indices mapped once per pivot order.
+ * `solveFactorsTransposed` of a sparse d, without the last permutation: v with z = Pᵀ·v is left in
+ * f.w (v_k at 2k, 2k + 1), so z_i is v at step `sym.rowPos[i]`. A caller that reads a few sums of z
+ * per solve (the noise sources) reads them there, with indices mapped once per pivot order; and
+ * the forward pass starts at d's first step (nothing before it is nonzero).
  */
-export function solveFactorsTransposedInSteps(f: LUFactors, dRe: Float64Array, dIm: Float64Array): void {
+export function solveFactorsTransposedInSteps(f: LUFactors, d: SparseRhs): void {
   if (f.singular || !f.sym) throw new Error("matrix is singular: cannot solve");
   const n = f.n;
-  if (dRe.length !== n || dIm.length !== n) {
-    throw new RangeError("dimension mismatch: right-hand side length ≠ n");
-  }
-  const { colPerm, lPtr, lIdx, uPtr, uIdx } = f.sym;
+  const { colPos, lPtr, lIdx, uPtr, uIdx } = f.sym;
   const { fac, inv, w } = f;
   const offU = 2 * lIdx.length;
   f.forwardRe = null;
   f.forwardIm = null;
-  for (let k = 0; k < n; k++) {
-    w[2 * k] = dRe[colPerm[k]!]!;
-    w[2 * k + 1] = dIm[colPerm[k]!]!;
+  // w = Qᵀ·d: zero, then d's entries at their steps.
+  w.fill(0, 0, 2 * n);
+  let first = n;
+  for (let t = 0; t < d.index.length; t++) {
+    const i = d.index[t]!;
+    if (!(i >= 0 && i < n)) throw new RangeError(`right-hand side entry ${i} outside 0…${n - 1}`);
+    const k = colPos[i]!;
+    w[2 * k] = d.re[t]!;
+    w[2 * k + 1] = d.im[t]!;
+    if (k < first) first = k;
   }
   // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
   // A zero w_k is left as it is and scatters nothing (a noise adjoint's d has one or two entries,
   // and often half the steps get none): the factors are finite, so that changes at most the sign
   // of a zero in z (see the comment of `solveFactorsTransposed`).
-  let t0 = 0;
-  for (let k = 0; k < n; k++) {
+  let t0 = first < n ? uPtr[first]! : 0;
+  for (let k = first; k < n; k++) {
     const br = w[2 * k]!;
     const bi = w[2 * k + 1]!;
     if (br === 0 && bi === 0) {

@@ -7,6 +7,7 @@ import { planPencil } from "./sparse-lu-plan";
 import { PivotTests } from "./sparse-lu-scaling";
 import {
   backwardReach,
+  type SparseRhs,
   solveFactors,
   solveFactorsOfProduct,
   solveFactorsTransposed,
@@ -310,12 +311,12 @@ export class SparseComplexLU {
   }
 
   /**
-   * `solveTransposed` that leaves z in the pivot order (`solveFactorsTransposedInSteps`): z_i is at
+   * `solveTransposed` of a sparse d (`sparseRhs`) that leaves z in the pivot order (`solveFactorsTransposedInSteps`): z_i is at
    * 2·rowPos[i] and 2·rowPos[i] + 1 of `w` (real, imaginary), valid until the next solve or refactor.
    * `rowPos` is the same array as long as the pivot order is, so a caller can map its indices once.
    */
-  solveTransposedInSteps(dRe: Float64Array, dIm: Float64Array): { w: Float64Array; rowPos: Int32Array } {
-    solveFactorsTransposedInSteps(this.f, dRe, dIm);
+  solveTransposedInSteps(d: SparseRhs): { w: Float64Array; rowPos: Int32Array } {
+    solveFactorsTransposedInSteps(this.f, d);
     return { w: this.f.w, rowPos: this.f.sym!.rowPos };
   }
 }

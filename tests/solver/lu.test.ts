@@ -5,7 +5,7 @@ import { SparseComplexLU } from "@/solver/engine/sparse-lu";
 import { LUFactors } from "@/solver/engine/sparse-lu-factors";
 import { factorNumeric } from "@/solver/engine/sparse-lu-numeric";
 import { PivotTests } from "@/solver/engine/sparse-lu-scaling";
-import { solveFactors } from "@/solver/engine/sparse-lu-solve";
+import { solveFactors, sparseRhs } from "@/solver/engine/sparse-lu-solve";
 import { csrFromTriplets, sparseFromDense } from "@/solver/engine/sparse-matrix";
 import { mulberry32 } from "./engine-circuits";
 import { relClose } from "./engine-tolerance";
@@ -178,6 +178,15 @@ describe("csrFromTriplets", () => {
     expect(Array.from(m.b)).toEqual([2, 3, 10]);
     expect(() => csrFromTriplets(2, [0, 2], [0, 0], [1, 1], [0, 0])).toThrow(/outside a 2×2 matrix/);
     expect(() => csrFromTriplets(2, [0], [0], [1, 1], [0])).toThrow(/differ in length/);
+  });
+});
+
+describe("sparseRhs", () => {
+  it("keeps every entry with a real or an imaginary part, in index order, and drops zeros", () => {
+    const d = sparseRhs(Float64Array.from([0, 2, 0, -1, 0]), Float64Array.from([0, 0, 3, 0.5, 0]));
+    expect(Array.from(d.index)).toEqual([1, 2, 3]);
+    expect(Array.from(d.re)).toEqual([2, 0, -1]);
+    expect(Array.from(d.im)).toEqual([0, 3, 0.5]);
   });
 });
 
