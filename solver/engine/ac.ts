@@ -112,10 +112,10 @@ export class AcSolver {
   }
 
   /**
-   * z with A(s)ᵀ·z = d (d by its nonzero entries) at the last solved frequency (requires a successful solveAt): the adjoint
-   * solve of noise analysis (noise.ts), reusing the factors. z is left in the pivot order: z_i at
-   * 2·rowPos[i] (real) and 2·rowPos[i] + 1 (imaginary) of `w`, until the next solve
-   * (`SparseComplexLU.solveTransposedInSteps`). Cost: one solve.
+   * z with A(s)ᵀ·z = d (d by its nonzero entries) at the last solved frequency (requires a
+   * successful solveAt): the adjoint solve of noise analysis (noise.ts), reusing the factors. z is
+   * left in the pivot order: z_i at 2·rowPos[i] (real) and 2·rowPos[i] + 1 (imaginary) of `w`,
+   * until the next solve (`SparseComplexLU.solveTransposedInSteps`). Cost: one solve.
    */
   adjoint(d: SparseRhs): { w: Float64Array; rowPos: Int32Array } {
     return this.lu!.solveTransposedInSteps(d);

@@ -202,10 +202,7 @@ export function solveFactorsTransposed(
   zIm: Float64Array,
 ): void {
   const n = f.n;
-  if (zRe.length !== n || zIm.length !== n) {
-    throw new RangeError("dimension mismatch: right-hand side length ≠ n");
-  }
-  if (dRe.length !== n || dIm.length !== n) {
+  if (dRe.length !== n || dIm.length !== n || zRe.length !== n || zIm.length !== n) {
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
   solveFactorsTransposedInSteps(f, sparseRhs(dRe, dIm));

@@ -116,11 +116,6 @@ export class SparseComplexLU {
     return this.f.failedStep;
   }
 
-  /** Nonzeros of L plus U (without the unit diagonal of L, with U's diagonal). */
-  get factorNonzeros(): number {
-    return this.f.fac.length / 2;
-  }
-
   /** Row order P (rowPerm[k] = original row at step k) of the current factors. */
   get rowPermutation(): Int32Array {
     return this.f.sym?.rowPerm ?? new Int32Array(0);
@@ -311,9 +306,10 @@ export class SparseComplexLU {
   }
 
   /**
-   * `solveTransposed` of a sparse d (`sparseRhs`) that leaves z in the pivot order (`solveFactorsTransposedInSteps`): z_i is at
-   * 2·rowPos[i] and 2·rowPos[i] + 1 of `w` (real, imaginary), valid until the next solve or refactor.
-   * `rowPos` is the same array as long as the pivot order is, so a caller can map its indices once.
+   * `solveTransposed` of a sparse d (`sparseRhs`) that leaves z in the pivot order
+   * (`solveFactorsTransposedInSteps`): z_i is at 2·rowPos[i] and 2·rowPos[i] + 1 of `w` (real,
+   * imaginary), valid until the next solve or refactor. `rowPos` is the same array as long as the
+   * pivot order is, so a caller can map its indices once.
    */
   solveTransposedInSteps(d: SparseRhs): { w: Float64Array; rowPos: Int32Array } {
     solveFactorsTransposedInSteps(this.f, d);
