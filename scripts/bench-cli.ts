@@ -33,9 +33,10 @@ function once(argv: string[]): number {
 
 /**
  * Rounds of the two ladders (taking turns). This machine's load moves a fresh process's wall time by
- * ±30 % within seconds; 15 rounds keep one busy spell from setting either ladder's median or best.
+ * ±30 % within seconds: with 15 rounds the difference of the two medians still moved by ±15 % from
+ * one run of the bench to the next (3.4–6.5× within an hour); 40 rounds (~20 s) halve that spread.
  */
-const ROUNDS = 15;
+const ROUNDS = 40;
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)]!;
 
