@@ -91,7 +91,7 @@ function main(): void {
   const [l10000] = walls([[node, bin, "solve", ladder(10_000)]], 3);
   const sweep = l1000 - l10;
   const bestSweep = t1000!.best - t10!.best;
-  console.log("case | median ms | goal");
+  console.log("case | ms (medians unless the row says otherwise) | goal");
   console.log("--- | --- | ---");
   console.log(`small netlist summary, \`phasewright solve\` (fresh process) | ${small!.toFixed(0)} | < 300`);
   console.log(
