@@ -1,3 +1,4 @@
+import { KernelSpace } from "./lu-wasm";
 import type { Symbolic } from "./markowitz";
 import { makePlan, type Plan } from "./sparse-lu-plan";
 import type { SparseComplexMatrix } from "./sparse-matrix";
@@ -18,22 +19,27 @@ export class LUFactors {
   /** The plan of every order in use (the sweep's and its alternates). */
   private readonly plans = new Map<Symbolic, Plan>();
   /**
+   * The WebAssembly memory and kernels of each order in use (lu-wasm.ts): while an order is in
+   * use, `fac`, `inv` and `w` are views of its memory.
+   */
+  private readonly spaces = new Map<Symbolic, KernelSpace>();
+  /** The current order's space. */
+  space: KernelSpace | null = null;
+  /**
    * L, U and the pivots in one array, each complex number's real and imaginary parts side by side
    * (slot t at 2t and 2t + 1; L's slots at 0, U's at nnz(L), the pivots at nnz(L) + nnz(U)). Side
    * by side, not in a re and an im array: a kernel's row reads both parts of an entry, and half as
    * many arrays leave the optimized loops registers for the rest (the solves ~15–20 % faster).
    */
-  fac = new Float64Array(0);
+  fac: Float64Array = new Float64Array(0);
   /** The pivots' reciprocals 1/u_kk, interleaved as `fac` (k at 2k, 2k + 1). */
-  readonly inv: Float64Array;
-  /** The steps n−1 … 0: the whole backward pass (see `backward` in sparse-lu-solve.ts). */
-  readonly descending: Int32Array;
+  inv: Float64Array = new Float64Array(0);
   /**
    * Scratch of the scatter factorization and the solves, interleaved as `fac` (zero between uses
    * by the former), with one more pair at 2n that nothing writes and so stays 0: where a reader of
    * z in the pivot order (`solveFactorsTransposedInSteps`) finds gnd.
    */
-  readonly w: Float64Array;
+  w: Float64Array = new Float64Array(0);
   /**
    * The right-hand side whose forward substitution (y with L·y = P·b) the last factorization left
    * in w (`factorPencil` with b), or null; any solve or factorization clears it.
@@ -50,10 +56,6 @@ export class LUFactors {
   constructor(a: SparseComplexMatrix) {
     this.n = a.n;
     this.a = a;
-    this.inv = new Float64Array(2 * a.n);
-    this.descending = new Int32Array(a.n);
-    for (let k = 0; k < a.n; k++) this.descending[k] = a.n - 1 - k;
-    this.w = new Float64Array(2 * a.n + 2);
   }
 
   /** No failure recorded: the start of every numeric factorization. */
@@ -75,7 +77,10 @@ export class LUFactors {
     return false;
   }
 
-  /** Make s the current order (its plan and factor storage); the values are the caller's. */
+  /**
+   * Make s the current order (its plan and factor storage); the values are the caller's. Each
+   * order has its own WebAssembly memory (`KernelSpace`), kept with its plan.
+   */
   use(s: Symbolic): void {
     if (this.sym === s && this.plan) return;
     this.sym = s;
@@ -85,13 +90,21 @@ export class LUFactors {
       this.plans.set(s, plan);
     }
     this.plan = plan;
-    const slots = s.lIdx.length + s.uIdx.length + this.n;
-    if (this.fac.length !== 2 * slots) this.fac = new Float64Array(2 * slots);
+    let space = this.spaces.get(s);
+    if (!space) {
+      space = new KernelSpace(this.n, this.a.colIdx.length, s, plan.updStart, plan.upd);
+      this.spaces.set(s, space);
+    }
+    this.space = space;
+    this.fac = space.fac;
+    this.inv = space.inv;
+    this.w = space.w;
   }
 
   /** Drop the plan of an order no longer in use. */
   forget(s: Symbolic): void {
     this.plans.delete(s);
+    this.spaces.delete(s);
   }
 
   /** The factors as dense re/im arrays (tests only; O(n²) memory): L unit lower, U upper. */

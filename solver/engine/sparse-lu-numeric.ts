@@ -72,7 +72,13 @@ export function factorPencil(
 /**
  * The elimination over the plan's slots, after every slot holds its entry of A: row by row
  * (up-looking), each product landing on the slot the plan recorded for it, then the pivot tests;
- * with b, the forward substitution into f.w as it goes (see `factorPencil`).
+ * with b, the forward substitution into f.w as it goes (see `factorPencil`). The loop itself is
+ * WebAssembly (`eliminate` in lu-kernels.wat, through the order's `KernelSpace`): for each row k,
+ *  - for each entry q of L's row k (column j = lIdx[q], ascending): l = a_kj · (1/u_jj), stored in
+ *    q's slot; with b, y_k −= l·y_j; unless l = 0, every entry of U's row j is multiplied by l and
+ *    subtracted from the slot `upd` recorded for it;
+ *  - the pivot d = |u_kk|² and the tests above; on a failure it stops at k;
+ *  - inv_k = conj(u_kk)/d, and y_k into w.
  */
 function eliminate(
   f: LUFactors,
@@ -81,83 +87,17 @@ function eliminate(
   bRe: Float64Array | null,
   bIm: Float64Array | null,
 ): boolean {
-  const s = f.sym!;
-  const plan = f.plan!;
-  const { lPtr, lIdx, uPtr, uIdx, rowPerm } = s;
-  const fwd = bRe !== null && bIm !== null;
-  const { updStart } = plan;
-  const upd = plan.upd!;
-  const { fac, inv, w, n } = f;
   const { cm, rm } = tests;
-  const offU = lIdx.length;
-  const offD = offU + uIdx.length;
   const tol2 = tests.absTol * tests.absTol;
-  const half = 0.5 * tau * tau;
   f.clearFailure();
-  let l0 = 0;
-  let u0 = offU;
-  for (let k = 0; k < n; k++) {
-    const l1 = lPtr[k + 1]!;
-    const u1 = offU + uPtr[k + 1]!;
-    const dk = 2 * (offD + k);
-    let yr = 0;
-    let yi = 0;
-    if (fwd) {
-      yr = bRe[rowPerm[k]!]!;
-      yi = bIm[rowPerm[k]!]!;
-    }
-    // Eliminate with earlier rows, in ascending order of the L pattern: l = a_kj / u_jj, then
-    // row k −= l·(row j of U), each product landing on the slot the plan recorded for it.
-    for (let q = l0; q < l1; q++) {
-      const j = lIdx[q]!;
-      const xr = fac[2 * q]!;
-      const xi = fac[2 * q + 1]!;
-      const ir = inv[2 * j]!;
-      const ii = inv[2 * j + 1]!;
-      const lr = xr * ir - xi * ii;
-      const li = xr * ii + xi * ir;
-      fac[2 * q] = lr;
-      fac[2 * q + 1] = li;
-      if (fwd) {
-        const wr = w[2 * j]!;
-        const wi = w[2 * j + 1]!;
-        yr -= lr * wr - li * wi;
-        yi -= lr * wi + li * wr;
-      }
-      if (lr === 0 && li === 0) continue;
-      const t0 = offU + uPtr[j]!;
-      const m0 = updStart[q]!;
-      const m1 = updStart[q + 1]!;
-      for (let m = m0, t = t0; m < m1; m++, t++) {
-        const c = 2 * upd[m]!;
-        const ur = fac[2 * t]!;
-        const ui = fac[2 * t + 1]!;
-        fac[c] = fac[c]! - (lr * ur - li * ui);
-        fac[c + 1] = fac[c + 1]! - (lr * ui + li * ur);
-      }
-    }
-    const pr = fac[dk]!;
-    const pi = fac[dk + 1]!;
+  const fwd = bRe !== null && bIm !== null;
+  const k = f.space!.eliminate(cm, rm, tol2, 0.5 * tau * tau, bRe, bIm);
+  if (k >= 0) {
+    const dk = 2 * (f.sym!.lIdx.length + f.sym!.uIdx.length + k);
+    const pr = f.fac[dk]!;
+    const pi = f.fac[dk + 1]!;
     const d = pr * pr + pi * pi;
-    const ck = cm[k]!;
-    const hk = half * ck;
-    let small = d <= tol2 * rm[k]! * ck;
-    for (let t = u0; t < u1 && !small; t++) {
-      // |re| + |im| written out: the sweep's first points run before the JIT has compiled this
-      // loop, where a call per entry is a good part of a row's cost.
-      const ur = fac[2 * t]!;
-      const ui = fac[2 * t + 1]!;
-      const m = (ur < 0 ? -ur : ur) + (ui < 0 ? -ui : ui);
-      if (d * cm[uIdx[t - offU]!]! < hk * m * m) small = true;
-    }
-    l0 = l1;
-    u0 = u1;
-    if (small) return f.pivotFailed(k, d <= tol2 * rm[k]! * ck);
-    const id = 1 / d;
-    inv[2 * k] = pr * id;
-    inv[2 * k + 1] = -pi * id;
-    w[2 * k] = yr;
-    w[2 * k + 1] = yi;
+    return f.pivotFailed(k, d <= tol2 * rm[k]! * cm[k]!);
   }
   if (fwd) {
     f.forwardRe = bRe;

@@ -42,7 +42,7 @@ export function solveFactors(
     w[2 * k] = yr;
     w[2 * k + 1] = yi;
   }
-  return backward(f, xRe, xIm, f.descending);
+  return backward(f, xRe, xIm, null);
 }
 
 /**
@@ -68,14 +68,12 @@ export function solveFactorsOfProduct(
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
   forwardOfProduct(f, m, vRe, vIm);
-  return backward(f, xRe, xIm, steps ?? f.descending);
+  return backward(f, xRe, xIm, steps);
 }
 
 /**
- * The forward half of `solveFactorsOfProduct`: L·y = −P·M·v into f.w. Its own function, not
- * written into the caller with `backward`: a first sweep runs interpreted until the optimizing
- * compiler has taken up each kernel, and one function holding both passes took it about twice as
- * long as this pass alone (`backward` is shared with `solveFactors`, compiled once).
+ * The forward half of `solveFactorsOfProduct`: L·y = −P·M·v into f.w, for each step k (row r = P's
+ * k-th): y_k = −Σ M[r, j]·v_j − Σ L[k, j]·y_j. WebAssembly (`forwardOfProduct` in lu-kernels.wat).
  */
 function forwardOfProduct(
   f: LUFactors,
@@ -83,35 +81,9 @@ function forwardOfProduct(
   vRe: Float64Array,
   vIm: Float64Array,
 ): void {
-  const { rowPerm, lPtr, lIdx } = f.sym!;
-  const { fac, w, n } = f;
-  const { ptr, idx, val } = m;
   f.forwardRe = null;
   f.forwardIm = null;
-  let q0 = 0;
-  for (let k = 0; k < n; k++) {
-    const r = rowPerm[k]!;
-    let yr = 0;
-    let yi = 0;
-    const p1 = ptr[r + 1]!;
-    for (let p = ptr[r]!; p < p1; p++) {
-      const mv = val[p]!;
-      const j = idx[p]!;
-      yr -= mv * vRe[j]!;
-      yi -= mv * vIm[j]!;
-    }
-    const q1 = lPtr[k + 1]!;
-    for (let q = q0; q < q1; q++) {
-      const j = 2 * lIdx[q]!;
-      const lr = fac[2 * q]!;
-      const li = fac[2 * q + 1]!;
-      yr -= lr * w[j]! - li * w[j + 1]!;
-      yi -= lr * w[j + 1]! + li * w[j]!;
-    }
-    q0 = q1;
-    w[2 * k] = yr;
-    w[2 * k + 1] = yi;
-  }
+  f.space!.forwardOfProduct(m, vRe, vIm);
 }
 
 /**
@@ -150,41 +122,13 @@ export function backwardReach(sym: Symbolic, want: Int32Array): Int32Array {
 }
 
 /**
- * U·z = y (y in f.w) over the given steps, descending — every step (`f.descending`), or those x at
- * some unknowns needs (`backwardReach`) — and x = Q·z there; false when x has a NaN or ±∞. One
- * function for both: the optimizing compiler takes up one kernel, not two, while a first sweep
- * runs interpreted.
+ * U·z = y (y in f.w) over the given steps, descending — every step (null), or those x at some
+ * unknowns needs (`backwardReach`) — and x = Q·z there; false when x has a NaN or ±∞. For each
+ * step k: z_k = (y_k − Σ U[k, j]·z_j) · (1/u_kk), written to w and to x at Q's k-th unknown.
+ * WebAssembly (`backward` in lu-kernels.wat).
  */
-function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array, steps: Int32Array): boolean {
-  const { colPerm, lIdx, uPtr, uIdx } = f.sym!;
-  const { fac, inv, w } = f;
-  // U's slots follow L's in `fac`.
-  const offU = 2 * lIdx.length;
-  let finite = 0;
-  for (let i = 0; i < steps.length; i++) {
-    const k = steps[i]!;
-    let yr = w[2 * k]!;
-    let yi = w[2 * k + 1]!;
-    const t1 = uPtr[k + 1]!;
-    for (let t = uPtr[k]!; t < t1; t++) {
-      const j = 2 * uIdx[t]!;
-      const ur = fac[offU + 2 * t]!;
-      const ui = fac[offU + 2 * t + 1]!;
-      yr -= ur * w[j]! - ui * w[j + 1]!;
-      yi -= ur * w[j + 1]! + ui * w[j]!;
-    }
-    const ir = inv[2 * k]!;
-    const ii = inv[2 * k + 1]!;
-    const zr = yr * ir - yi * ii;
-    const zi = yr * ii + yi * ir;
-    w[2 * k] = zr;
-    w[2 * k + 1] = zi;
-    xRe[colPerm[k]!] = zr;
-    xIm[colPerm[k]!] = zi;
-    // x·0 is 0 for every finite x and NaN for ±∞ or NaN.
-    finite += zr * 0 + zi * 0;
-  }
-  return finite === 0;
+function backward(f: LUFactors, xRe: Float64Array, xIm: Float64Array, steps: Int32Array | null): boolean {
+  return f.space!.backward(steps, xRe, xIm);
 }
 
 /**

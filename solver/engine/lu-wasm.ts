@@ -1,0 +1,341 @@
+/**
+ * The sparse LU's elimination as WebAssembly (lu-kernels.wat), and the memory it works in.
+ *
+ * Why: the command solves a netlist in a fresh process, where JavaScript runs interpreted until
+ * the optimizing compiler has taken up each kernel — a first sweep's first ~35 points ran 10–25×
+ * slower than the rest. WebAssembly is compiled before its first call (a baseline compile in well
+ * under a millisecond, the optimized one in the background), so the elimination runs at speed from
+ * the first point. The arithmetic is the TypeScript's, in the same order: the same numbers bit for
+ * bit (IEEE doubles; WebAssembly has no fused multiply-add).
+ *
+ * Each pivot order with an update plan gets a `KernelSpace`: one WebAssembly memory holding the
+ * order's pattern and plan (copied once) and the factors, reciprocals and scratch that `LUFactors`
+ * then uses as its own arrays (views of that memory), so the TypeScript solves read the factors in
+ * place. A memory is sized for its order once and never grows (growing would detach the views).
+ */
+import { LU_KERNELS_WASM } from "./lu-kernels-wasm";
+import type { Symbolic } from "./markowitz";
+
+type Eliminate = (
+  n: number,
+  lPtr: number,
+  lIdx: number,
+  uPtr: number,
+  uIdx: number,
+  rowPerm: number,
+  updStart: number,
+  upd: number,
+  fac: number,
+  inv: number,
+  w: number,
+  cm: number,
+  rm: number,
+  bRe: number,
+  bIm: number,
+  offU: number,
+  offD: number,
+  tol2: number,
+  half: number,
+  fwd: number,
+) => number;
+
+type Backward = (
+  nsteps: number,
+  steps: number,
+  colPerm: number,
+  uPtr: number,
+  uIdx: number,
+  facU: number,
+  inv: number,
+  w: number,
+  xRe: number,
+  xIm: number,
+) => number;
+
+type ForwardOfProduct = (
+  n: number,
+  rowPerm: number,
+  lPtr: number,
+  lIdx: number,
+  fac: number,
+  w: number,
+  ptr: number,
+  idx: number,
+  val: number,
+  vRe: number,
+  vIm: number,
+) => void;
+
+/** A sparse real matrix in CSR (the C of the pencil, for dx/ds). */
+export interface RealCsr {
+  ptr: Int32Array;
+  idx: Int32Array;
+  val: Float64Array;
+}
+
+let compiled: WebAssembly.Module | null = null;
+
+/** The kernels' module, compiled once per process (synchronously: it is a few hundred bytes). */
+function kernelModule(): WebAssembly.Module {
+  if (!compiled) {
+    const text = atob(LU_KERNELS_WASM);
+    const bytes = new Uint8Array(text.length);
+    for (let i = 0; i < text.length; i++) bytes[i] = text.charCodeAt(i);
+    compiled = new WebAssembly.Module(bytes);
+  }
+  return compiled;
+}
+
+/** Byte offsets of an order's arrays in its memory. */
+interface Offsets {
+  fac: number;
+  inv: number;
+  w: number;
+  cm: number;
+  rm: number;
+  bRe: number;
+  bIm: number;
+  xRe: number;
+  xIm: number;
+  vRe: number;
+  vIm: number;
+  mVal: number;
+  lPtr: number;
+  lIdx: number;
+  uPtr: number;
+  uIdx: number;
+  rowPerm: number;
+  updStart: number;
+  upd: number;
+  colPerm: number;
+  descending: number;
+  steps: number;
+  mPtr: number;
+  mIdx: number;
+}
+
+const PAGE = 65536;
+
+/** One pivot order's memory and kernels (see the module comment). */
+export class KernelSpace {
+  /** The factors (as `LUFactors.fac`), the pivots' reciprocals and the scratch: views of the memory. */
+  readonly fac: Float64Array;
+  readonly inv: Float64Array;
+  readonly w: Float64Array;
+  private readonly cm: Float64Array;
+  private readonly rm: Float64Array;
+  private readonly bRe: Float64Array;
+  private readonly bIm: Float64Array;
+  private readonly xRe: Float64Array;
+  private readonly xIm: Float64Array;
+  private readonly vRe: Float64Array;
+  private readonly vIm: Float64Array;
+  /** Q: the unknown of each step. */
+  private readonly colPerm: Int32Array;
+  private readonly memory: WebAssembly.Memory;
+  private readonly at: Offsets;
+  private readonly n: number;
+  private readonly offU: number;
+  private readonly offD: number;
+  private readonly runEliminate: Eliminate;
+  private readonly runBackward: Backward;
+  private readonly runForward: ForwardOfProduct;
+  /** The step list staged at `at.steps` (besides the whole pass at `at.descending`), and the M at `at.mPtr`. */
+  private stepsOf: Int32Array | null = null;
+  private mOf: RealCsr | null = null;
+
+  /**
+   * The space of order s for a matrix with `nnz` entries; `upd` is the plan's update slots (null
+   * when the order factors by scatter: the space then serves the solves only).
+   */
+  constructor(n: number, nnz: number, s: Symbolic, updStart: Int32Array, upd: Int32Array | null) {
+    this.n = n;
+    this.offU = s.lIdx.length;
+    this.offD = this.offU + s.uIdx.length;
+    const slots = this.offD + n;
+    // Float64 arrays first (8-byte aligned from 0), then the Int32 arrays.
+    let top = 0;
+    const f64 = (count: number) => {
+      const at = top;
+      top += 8 * count;
+      return at;
+    };
+    const i32 = (count: number) => {
+      const at = top;
+      top += 4 * count;
+      return at;
+    };
+    const at: Offsets = {
+      fac: f64(2 * slots),
+      inv: f64(2 * n),
+      w: f64(2 * n + 2),
+      cm: f64(n),
+      rm: f64(n),
+      bRe: f64(n),
+      bIm: f64(n),
+      xRe: f64(n),
+      xIm: f64(n),
+      vRe: f64(n),
+      vIm: f64(n),
+      mVal: f64(nnz),
+      lPtr: i32(n + 1),
+      lIdx: i32(s.lIdx.length),
+      uPtr: i32(n + 1),
+      uIdx: i32(s.uIdx.length),
+      rowPerm: i32(n),
+      updStart: i32(updStart.length),
+      upd: i32(upd?.length ?? 0),
+      colPerm: i32(n),
+      descending: i32(n),
+      steps: i32(n),
+      mPtr: i32(n + 1),
+      mIdx: i32(nnz),
+    };
+    this.at = at;
+    const memory = new WebAssembly.Memory({ initial: Math.max(1, Math.ceil(top / PAGE)) });
+    this.memory = memory;
+    const instance = new WebAssembly.Instance(kernelModule(), { env: { memory } });
+    this.runEliminate = instance.exports.eliminate as Eliminate;
+    this.runBackward = instance.exports.backward as Backward;
+    this.runForward = instance.exports.forwardOfProduct as ForwardOfProduct;
+    const buf = memory.buffer;
+    this.fac = new Float64Array(buf, at.fac, 2 * slots);
+    this.inv = new Float64Array(buf, at.inv, 2 * n);
+    this.w = new Float64Array(buf, at.w, 2 * n + 2);
+    this.cm = new Float64Array(buf, at.cm, n);
+    this.rm = new Float64Array(buf, at.rm, n);
+    this.bRe = new Float64Array(buf, at.bRe, n);
+    this.bIm = new Float64Array(buf, at.bIm, n);
+    this.xRe = new Float64Array(buf, at.xRe, n);
+    this.xIm = new Float64Array(buf, at.xIm, n);
+    this.vRe = new Float64Array(buf, at.vRe, n);
+    this.vIm = new Float64Array(buf, at.vIm, n);
+    new Int32Array(buf, at.lPtr, n + 1).set(s.lPtr);
+    new Int32Array(buf, at.lIdx, s.lIdx.length).set(s.lIdx);
+    new Int32Array(buf, at.uPtr, n + 1).set(s.uPtr);
+    new Int32Array(buf, at.uIdx, s.uIdx.length).set(s.uIdx);
+    new Int32Array(buf, at.rowPerm, n).set(s.rowPerm);
+    new Int32Array(buf, at.updStart, updStart.length).set(updStart);
+    if (upd) new Int32Array(buf, at.upd, upd.length).set(upd);
+    this.colPerm = s.colPerm;
+    new Int32Array(buf, at.colPerm, n).set(s.colPerm);
+    const descending = new Int32Array(buf, at.descending, n);
+    for (let k = 0; k < n; k++) descending[k] = n - 1 - k;
+  }
+
+  /**
+   * The elimination over every slot of `fac` (loaded with A's entries), with the pivot tests cm/rm
+   * (`PivotTests`, in pivot order), tol2 = absTol², half = τ²/2, and with b the forward
+   * substitution into w (see `eliminate` in sparse-lu-numeric.ts). The step whose pivot failed, or −1.
+   */
+  eliminate(
+    cm: Float64Array,
+    rm: Float64Array,
+    tol2: number,
+    half: number,
+    bRe: Float64Array | null,
+    bIm: Float64Array | null,
+  ): number {
+    const at = this.at;
+    this.cm.set(cm);
+    this.rm.set(rm);
+    const fwd = bRe !== null && bIm !== null;
+    if (fwd) {
+      this.bRe.set(bRe);
+      this.bIm.set(bIm);
+    }
+    return this.runEliminate(
+      this.n,
+      at.lPtr,
+      at.lIdx,
+      at.uPtr,
+      at.uIdx,
+      at.rowPerm,
+      at.updStart,
+      at.upd,
+      at.fac,
+      at.inv,
+      at.w,
+      at.cm,
+      at.rm,
+      at.bRe,
+      at.bIm,
+      this.offU,
+      this.offD,
+      tol2,
+      half,
+      fwd ? 1 : 0,
+    );
+  }
+
+  /**
+   * U·z = y (y in w) over `steps` (descending; null: every step), x = Q·z there; x's other
+   * entries are left as they were (see `backward` in sparse-lu-solve.ts).
+   * False when some z is not finite.
+   */
+  backward(steps: Int32Array | null, xRe: Float64Array, xIm: Float64Array): boolean {
+    const at = this.at;
+    let stepsAt = at.descending;
+    let count = this.n;
+    if (steps !== null) {
+      if (steps !== this.stepsOf) {
+        new Int32Array(this.memory.buffer, at.steps, steps.length).set(steps);
+        this.stepsOf = steps;
+      }
+      stepsAt = at.steps;
+      count = steps.length;
+    }
+    const finite = this.runBackward(
+      count,
+      stepsAt,
+      at.colPerm,
+      at.uPtr,
+      at.uIdx,
+      at.fac + 16 * this.offU,
+      at.inv,
+      at.w,
+      at.xRe,
+      at.xIm,
+    );
+    if (steps === null) {
+      xRe.set(this.xRe);
+      xIm.set(this.xIm);
+    } else {
+      // Only the steps' unknowns: the others keep what they held.
+      const { colPerm } = this;
+      for (let i = 0; i < steps.length; i++) {
+        const c = colPerm[steps[i]!]!;
+        xRe[c] = this.xRe[c]!;
+        xIm[c] = this.xIm[c]!;
+      }
+    }
+    return finite === 1;
+  }
+
+  /** L·y = −P·M·v into w, M real in CSR with A's pattern or less (see `forwardOfProduct`). */
+  forwardOfProduct(m: RealCsr, vRe: Float64Array, vIm: Float64Array): void {
+    const at = this.at;
+    if (m !== this.mOf) {
+      const buf = this.memory.buffer;
+      new Int32Array(buf, at.mPtr, m.ptr.length).set(m.ptr);
+      new Int32Array(buf, at.mIdx, m.idx.length).set(m.idx);
+      new Float64Array(buf, at.mVal, m.val.length).set(m.val);
+      this.mOf = m;
+    }
+    this.vRe.set(vRe);
+    this.vIm.set(vIm);
+    this.runForward(
+      this.n,
+      at.rowPerm,
+      at.lPtr,
+      at.lIdx,
+      at.fac,
+      at.w,
+      at.mPtr,
+      at.mIdx,
+      at.mVal,
+      at.vRe,
+      at.vIm,
+    );
+  }
+}
