@@ -1,3 +1,4 @@
+import { kernelsIn } from "./lu-wasm";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 /**
@@ -16,90 +17,133 @@ import type { SparseComplexMatrix } from "./sparse-matrix";
  */
 export const MAX_SWEEPS = 12;
 
+type Equilibrate = (
+  n: number,
+  rowPtr: number,
+  colIdx: number,
+  re: number,
+  im: number,
+  row: number,
+  col: number,
+  rmax: number,
+  cmax: number,
+  maxSweeps: number,
+  out: number,
+) => number;
+
+/** The sweeps' memory (lu-wasm.ts): the pattern, the values and the factors of one matrix size. */
+interface Space {
+  run: Equilibrate;
+  memory: WebAssembly.Memory;
+  nnz: number;
+  at: {
+    rowPtr: number;
+    colIdx: number;
+    re: number;
+    im: number;
+    row: number;
+    col: number;
+    rmax: number;
+    cmax: number;
+    out: number;
+  };
+  re: Float64Array;
+  im: Float64Array;
+  /** The pattern copied in (by reference). */
+  rowPtrOf: Int32Array | null;
+  colIdxOf: Int32Array | null;
+}
+
+/**
+ * The factors of Ruiz's sweeps for one matrix size. The sweeps are WebAssembly (`equilibrate` in
+ * lu-kernels.wat): an analysis runs them once, in a fresh process before the JIT has seen them,
+ * where the same loops in TypeScript cost ~0.4 ms a sweep of a 1 000-node circuit. Same numbers,
+ * bit for bit (tests/solver/lu-wasm.test.ts). Per row i and column j, each sweep computes
+ * m = max (|re| + |im|)·row_i·col_j over the row and over the column, then multiplies each factor
+ * whose m is outside [1/2, 2) by 2^−⌈floor(log2 m)/2⌉ (rows and columns from the same sweep).
+ */
 export class Equilibration {
-  readonly row: Float64Array;
-  readonly col: Float64Array;
-  private readonly rmax: Float64Array;
-  private readonly cmax: Float64Array;
+  /** D_r and D_c (views of the sweeps' memory once `compute` has run). */
+  row: Float64Array;
+  col: Float64Array;
   /** Sweeps the last `compute` needed (diagnostics). */
   sweeps = 0;
+  private space: Space | null = null;
 
-  constructor(n: number) {
+  constructor(private readonly n: number) {
     this.row = new Float64Array(n).fill(1);
     this.col = new Float64Array(n).fill(1);
-    this.rmax = new Float64Array(n);
-    this.cmax = new Float64Array(n);
   }
 
   /** Compute the factors for values re/im in a's pattern. Returns max |entry| of the scaled matrix. */
   compute(a: SparseComplexMatrix, re: Float64Array, im: Float64Array): number {
-    const { row, col, rmax, cmax } = this;
-    const { rowPtr, colIdx, n } = a;
-    row.fill(1);
-    col.fill(1);
-    let biggest = 0;
-    for (let sweep = 0; sweep <= MAX_SWEEPS; sweep++) {
-      rmax.fill(0);
-      cmax.fill(0);
-      biggest = 0;
-      for (let i = 0; i < n; i++) {
-        const ri = row[i]!;
-        let m = 0;
-        for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
-          const j = colIdx[p]!;
-          // |re| + |im| written out: this runs once per analysis, before the JIT has seen it,
-          // where a call per entry costs more than the rest of the loop.
-          const x = re[p]!;
-          const y = im[p]!;
-          const v = ((x < 0 ? -x : x) + (y < 0 ? -y : y)) * ri * col[j]!;
-          if (v > m) m = v;
-          if (v > cmax[j]!) cmax[j] = v;
-        }
-        rmax[i] = m;
-        if (m > biggest) biggest = m;
-      }
-      this.sweeps = sweep;
-      if (sweep === MAX_SWEEPS) break;
-      // Rows and columns are updated together from the same scaled matrix (Ruiz's simultaneous form).
-      const moved = rescale(row, rmax) + rescale(col, cmax);
-      if (moved === 0) break;
+    const { n } = this;
+    const nnz = a.colIdx.length;
+    let space = this.space;
+    if (!space || space.nnz < nnz) space = this.allocate(nnz);
+    const { at } = space;
+    if (space.rowPtrOf !== a.rowPtr || space.colIdxOf !== a.colIdx) {
+      new Int32Array(space.memory.buffer, at.rowPtr, n + 1).set(a.rowPtr);
+      new Int32Array(space.memory.buffer, at.colIdx, nnz).set(a.colIdx);
+      space.rowPtrOf = a.rowPtr;
+      space.colIdxOf = a.colIdx;
     }
+    space.re.set(re);
+    space.im.set(im);
+    this.row.fill(1);
+    this.col.fill(1);
+    const biggest = space.run(
+      n,
+      at.rowPtr,
+      at.colIdx,
+      at.re,
+      at.im,
+      at.row,
+      at.col,
+      at.rmax,
+      at.cmax,
+      MAX_SWEEPS,
+      at.out,
+    );
+    this.sweeps = new Int32Array(space.memory.buffer, at.out, 1)[0]!;
     return biggest;
   }
-}
 
-// Exponent arithmetic on the bits of a double (IEEE 754 binary64, little-endian as on every
-// platform Node runs on): floor(log2 m) and 2^k without Math.log2 / Math.pow in the sweep loop.
-const BUF = new Float64Array(1);
-const BITS = new Int32Array(BUF.buffer);
-/** floor(log2 m) for a positive normal m. */
-function exponentOf(m: number): number {
-  BUF[0] = m;
-  return ((BITS[1]! >>> 20) & 0x7ff) - 1023;
-}
-/** 2^k for −1022 ≤ k ≤ 1023, exactly. */
-function pow2(k: number): number {
-  BITS[0] = 0;
-  BITS[1] = (k + 1023) << 20;
-  return BUF[0]!;
-}
-
-/**
- * Multiply each factor by 2^k, k = −⌈floor(log2 max)/2⌉ ≈ −round(log2(max)/2) (Ruiz's 1/√max in
- * powers of two), where max is outside [1/2, 2); returns how many factors moved.
- */
-function rescale(factor: Float64Array, max: Float64Array): number {
-  let moved = 0;
-  for (let i = 0; i < factor.length; i++) {
-    const m = max[i]!;
-    if (m === 0 || (m >= 0.5 && m < 2) || !(m < Number.POSITIVE_INFINITY) || m < 2.3e-308) continue;
-    const k = -((exponentOf(m) + 1) >> 1);
-    const f = factor[i]! * pow2(k);
-    if (f === 0 || !Number.isFinite(f)) continue;
-    factor[i] = f;
-    moved++;
+  private allocate(nnz: number): Space {
+    const n = this.n;
+    let top = 0;
+    const take = (bytes: number) => {
+      const at = top;
+      top += bytes;
+      return at;
+    };
+    const at = {
+      re: take(8 * nnz),
+      im: take(8 * nnz),
+      row: take(8 * n),
+      col: take(8 * n),
+      rmax: take(8 * n),
+      cmax: take(8 * n),
+      rowPtr: take(4 * (n + 1)),
+      colIdx: take(4 * nnz),
+      out: take(4),
+    };
+    const { memory, exports } = kernelsIn(top);
+    const buf = memory.buffer;
+    this.row = new Float64Array(buf, at.row, n);
+    this.col = new Float64Array(buf, at.col, n);
+    this.space = {
+      run: exports.equilibrate as Equilibrate,
+      memory,
+      nnz,
+      at,
+      re: new Float64Array(buf, at.re, nnz),
+      im: new Float64Array(buf, at.im, nnz),
+      rowPtrOf: null,
+      colIdxOf: null,
+    };
+    return this.space;
   }
-  return moved;
 }
 
 /**

@@ -10,6 +10,8 @@
 ;; sparse-lu-numeric.ts. Returns the step whose pivot failed a test, or −1.
 ;; backward: U·z = y (y in w) over the given steps, x = Q·z there; 1 when every z is finite.
 ;; forwardOfProduct: L·y = −P·M·v into w (M real, in CSR). Both as in sparse-lu-solve.ts.
+;; equilibrate: Ruiz's max-norm sweeps in powers of two (equilibrate.ts); returns the largest
+;; |re| + |im| of the scaled matrix and leaves the sweep count at `out`.
 (module
   (import "env" "memory" (memory 1))
   (func (export "eliminate")
@@ -196,4 +198,83 @@
         (f64.store (local.get $a) (local.get $yr))
         (f64.store offset=8 (local.get $a) (local.get $yi))
         (local.set $k (i32.add (local.get $k) (i32.const 1)))
-        (br $rows)))))
+        (br $rows))))
+  ;; 2^k for −1022 ≤ k ≤ 1023: the high word (k + 1023) << 20, the low word 0.
+  (func $pow2 (param $k i32) (result f64)
+    (f64.reinterpret_i64 (i64.shl (i64.extend_i32_u (i32.shl (i32.add (local.get $k) (i32.const 1023)) (i32.const 20))) (i64.const 32))))
+
+  ;; Each factor times 2^k, k = −((floor(log2 max) + 1) >> 1), where max is outside [1/2, 2), not 0,
+  ;; finite and normal; a factor that would become 0 or not finite stays. Returns how many moved.
+  (func $rescale (param $factor i32) (param $max i32) (param $n i32) (result i32)
+    (local $i i32) (local $moved i32) (local $m f64) (local $f f64) (local $e i32) (local $a i32)
+    (block $done
+      (loop $each
+        (br_if $done (i32.ge_s (local.get $i) (local.get $n)))
+        (local.set $m (f64.load (i32.add (local.get $max) (i32.shl (local.get $i) (i32.const 3)))))
+        (block $skip
+          (br_if $skip (f64.eq (local.get $m) (f64.const 0)))
+          (br_if $skip (i32.and (f64.ge (local.get $m) (f64.const 0.5)) (f64.lt (local.get $m) (f64.const 2))))
+          (br_if $skip (i32.eqz (f64.lt (local.get $m) (f64.const inf))))
+          (br_if $skip (f64.lt (local.get $m) (f64.const 2.3e-308)))
+          (local.set $e (i32.sub (i32.and (i32.shr_u (i32.wrap_i64 (i64.shr_u (i64.reinterpret_f64 (local.get $m)) (i64.const 32))) (i32.const 20)) (i32.const 0x7ff)) (i32.const 1023)))
+          (local.set $a (i32.add (local.get $factor) (i32.shl (local.get $i) (i32.const 3))))
+          (local.set $f (f64.mul (f64.load (local.get $a)) (call $pow2 (i32.sub (i32.const 0) (i32.shr_s (i32.add (local.get $e) (i32.const 1)) (i32.const 1))))))
+          (br_if $skip (f64.eq (local.get $f) (f64.const 0)))
+          (br_if $skip (i32.eqz (f64.lt (f64.abs (local.get $f)) (f64.const inf))))
+          (f64.store (local.get $a) (local.get $f))
+          (local.set $moved (i32.add (local.get $moved) (i32.const 1))))
+        (local.set $i (i32.add (local.get $i) (i32.const 1)))
+        (br $each)))
+    (local.get $moved))
+
+  (func (export "equilibrate")
+    (param $n i32) (param $rowPtr i32) (param $colIdx i32) (param $re i32) (param $im i32)
+    (param $row i32) (param $col i32) (param $rmax i32) (param $cmax i32) (param $maxSweeps i32) (param $out i32)
+    (result f64)
+    (local $sweep i32) (local $i i32) (local $p i32) (local $p1 i32) (local $j i32) (local $a i32)
+    (local $biggest f64) (local $ri f64) (local $m f64) (local $x f64) (local $y f64) (local $v f64)
+    (block $sweeps
+      (loop $sweepLoop
+        (memory.fill (local.get $rmax) (i32.const 0) (i32.shl (local.get $n) (i32.const 3)))
+        (memory.fill (local.get $cmax) (i32.const 0) (i32.shl (local.get $n) (i32.const 3)))
+        (local.set $biggest (f64.const 0))
+        (local.set $i (i32.const 0))
+        (block $rowsDone
+          (loop $rows
+            (br_if $rowsDone (i32.ge_s (local.get $i) (local.get $n)))
+            (local.set $ri (f64.load (i32.add (local.get $row) (i32.shl (local.get $i) (i32.const 3)))))
+            (local.set $m (f64.const 0))
+            (local.set $a (i32.add (local.get $rowPtr) (i32.shl (local.get $i) (i32.const 2))))
+            (local.set $p (i32.load (local.get $a)))
+            (local.set $p1 (i32.load offset=4 (local.get $a)))
+            (block $entriesDone
+              (loop $entries
+                (br_if $entriesDone (i32.ge_s (local.get $p) (local.get $p1)))
+                (local.set $j (i32.load (i32.add (local.get $colIdx) (i32.shl (local.get $p) (i32.const 2)))))
+                (local.set $x (f64.load (i32.add (local.get $re) (i32.shl (local.get $p) (i32.const 3)))))
+                (local.set $y (f64.load (i32.add (local.get $im) (i32.shl (local.get $p) (i32.const 3)))))
+                (local.set $v (f64.mul (f64.mul
+                    (f64.add
+                      (select (f64.neg (local.get $x)) (local.get $x) (f64.lt (local.get $x) (f64.const 0)))
+                      (select (f64.neg (local.get $y)) (local.get $y) (f64.lt (local.get $y) (f64.const 0))))
+                    (local.get $ri))
+                  (f64.load (i32.add (local.get $col) (i32.shl (local.get $j) (i32.const 3))))))
+                (if (f64.gt (local.get $v) (local.get $m)) (then (local.set $m (local.get $v))))
+                (local.set $a (i32.add (local.get $cmax) (i32.shl (local.get $j) (i32.const 3))))
+                (if (f64.gt (local.get $v) (f64.load (local.get $a))) (then (f64.store (local.get $a) (local.get $v))))
+                (local.set $p (i32.add (local.get $p) (i32.const 1)))
+                (br $entries)))
+            (f64.store (i32.add (local.get $rmax) (i32.shl (local.get $i) (i32.const 3))) (local.get $m))
+            (if (f64.gt (local.get $m) (local.get $biggest)) (then (local.set $biggest (local.get $m))))
+            (local.set $i (i32.add (local.get $i) (i32.const 1)))
+            (br $rows)))
+        (i32.store (local.get $out) (local.get $sweep))
+        (br_if $sweeps (i32.ge_s (local.get $sweep) (local.get $maxSweeps)))
+        ;; Rows and columns from the same scaled matrix (both rescaled, then the test).
+        (br_if $sweeps (i32.eqz (i32.add
+          (call $rescale (local.get $row) (local.get $rmax) (local.get $n))
+          (call $rescale (local.get $col) (local.get $cmax) (local.get $n)))))
+        (local.set $sweep (i32.add (local.get $sweep) (i32.const 1)))
+        (br $sweepLoop)))
+    (local.get $biggest))
+)

@@ -75,7 +75,7 @@ export interface RealCsr {
 
 let compiled: WebAssembly.Module | null = null;
 
-/** The kernels' module, compiled once per process (synchronously: it is a few hundred bytes). */
+/** The kernels' module, compiled once per process (synchronously: it is a few kilobytes). */
 function kernelModule(): WebAssembly.Module {
   if (!compiled) {
     const text = atob(LU_KERNELS_WASM);
@@ -84,6 +84,13 @@ function kernelModule(): WebAssembly.Module {
     compiled = new WebAssembly.Module(bytes);
   }
   return compiled;
+}
+
+/** The kernels bound to a memory of `bytes` bytes or more (never grown). */
+export function kernelsIn(bytes: number): { memory: WebAssembly.Memory; exports: WebAssembly.Exports } {
+  const memory = new WebAssembly.Memory({ initial: Math.max(1, Math.ceil(bytes / PAGE)) });
+  const instance = new WebAssembly.Instance(kernelModule(), { env: { memory } });
+  return { memory, exports: instance.exports };
 }
 
 /** Byte offsets of an order's arrays in its memory. */
@@ -192,12 +199,11 @@ export class KernelSpace {
       mIdx: i32(nnz),
     };
     this.at = at;
-    const memory = new WebAssembly.Memory({ initial: Math.max(1, Math.ceil(top / PAGE)) });
+    const { memory, exports } = kernelsIn(top);
     this.memory = memory;
-    const instance = new WebAssembly.Instance(kernelModule(), { env: { memory } });
-    this.runEliminate = instance.exports.eliminate as Eliminate;
-    this.runBackward = instance.exports.backward as Backward;
-    this.runForward = instance.exports.forwardOfProduct as ForwardOfProduct;
+    this.runEliminate = exports.eliminate as Eliminate;
+    this.runBackward = exports.backward as Backward;
+    this.runForward = exports.forwardOfProduct as ForwardOfProduct;
     const buf = memory.buffer;
     this.fac = new Float64Array(buf, at.fac, 2 * slots);
     this.inv = new Float64Array(buf, at.inv, 2 * n);

@@ -6,6 +6,7 @@
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { describe, expect, it } from "vitest";
+import { Equilibration, MAX_SWEEPS } from "@/solver/engine/equilibrate";
 import type { Symbolic } from "@/solver/engine/markowitz";
 import { SparseComplexLU } from "@/solver/engine/sparse-lu";
 import type { LUFactors } from "@/solver/engine/sparse-lu-factors";
@@ -176,6 +177,56 @@ function forwardOfProductReference(
   }
 }
 
+/** The TypeScript Ruiz sweeps the WebAssembly ones replaced: factors, largest entry, sweeps. */
+function equilibrateReference(a: SparseComplexMatrix, re: Float64Array, im: Float64Array) {
+  const { rowPtr, colIdx, n } = a;
+  const row = new Float64Array(n).fill(1);
+  const col = new Float64Array(n).fill(1);
+  const rmax = new Float64Array(n);
+  const cmax = new Float64Array(n);
+  const buf = new Float64Array(1);
+  const bits = new Int32Array(buf.buffer);
+  const rescale = (factor: Float64Array, max: Float64Array) => {
+    let moved = 0;
+    for (let i = 0; i < factor.length; i++) {
+      const m = max[i]!;
+      if (m === 0 || (m >= 0.5 && m < 2) || !(m < Number.POSITIVE_INFINITY) || m < 2.3e-308) continue;
+      buf[0] = m;
+      const k = -((((bits[1]! >>> 20) & 0x7ff) - 1023 + 1) >> 1);
+      bits[0] = 0;
+      bits[1] = (k + 1023) << 20;
+      const f = factor[i]! * buf[0]!;
+      if (f === 0 || !Number.isFinite(f)) continue;
+      factor[i] = f;
+      moved++;
+    }
+    return moved;
+  };
+  let biggest = 0;
+  let sweeps = 0;
+  for (let sweep = 0; sweep <= MAX_SWEEPS; sweep++) {
+    rmax.fill(0);
+    cmax.fill(0);
+    biggest = 0;
+    for (let i = 0; i < n; i++) {
+      let m = 0;
+      for (let p = rowPtr[i]!; p < rowPtr[i + 1]!; p++) {
+        const x = re[p]!;
+        const y = im[p]!;
+        const v = ((x < 0 ? -x : x) + (y < 0 ? -y : y)) * row[i]! * col[colIdx[p]!]!;
+        if (v > m) m = v;
+        if (v > cmax[colIdx[p]!]!) cmax[colIdx[p]!] = v;
+      }
+      rmax[i] = m;
+      if (m > biggest) biggest = m;
+    }
+    sweeps = sweep;
+    if (sweep === MAX_SWEEPS) break;
+    if (rescale(row, rmax) + rescale(col, cmax) === 0) break;
+  }
+  return { row, col, biggest, sweeps };
+}
+
 const same = (a: ArrayLike<number>, b: ArrayLike<number>) => {
   expect(a.length).toBe(b.length);
   for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) expect([i, a[i]]).toEqual([i, b[i]]);
@@ -187,6 +238,33 @@ describe("the LU's WebAssembly kernels", () => {
   it("are the binary of lu-kernels.wat (run `npm run build:wasm` after editing it)", async () => {
     const file = path.join(__dirname, "../../solver/engine/lu-kernels-wasm.ts");
     expect(readFileSync(file, "utf8")).toBe(await generated());
+  });
+
+  it("equilibrate with the TypeScript sweeps' factors, bit for bit (12 matrices over 600 decades)", () => {
+    for (let seed = 1; seed <= 12; seed++) {
+      const { a, g, c } = randomPencil(30, seed);
+      // Spread the rows and columns over many decades, with a zero row and a NaN-free tiny one.
+      const rnd = mulberry32(500 + seed);
+      const rs = Array.from({ length: 30 }, () => 10 ** Math.floor(rnd() * 600 - 300));
+      const re = Float64Array.from(g, (x, p) => x * rs[a.colIdx[p]!]! * (seed % 3 === 0 ? 1e-300 : 1));
+      const im = Float64Array.from(c, (x, p) => x * rs[a.colIdx[p]!]!);
+      for (let p = a.rowPtr[3]!; p < a.rowPtr[4]!; p++) re[p] = im[p] = 0;
+      const eq = new Equilibration(30);
+      const big = eq.compute(a, re, im);
+      const ref = equilibrateReference(a, re, im);
+      same(eq.row, ref.row);
+      same(eq.col, ref.col);
+      expect(Object.is(big, ref.biggest)).toBe(true);
+      expect(eq.sweeps).toBe(ref.sweeps);
+      // Spread over 600 decades, each matrix needs many sweeps (10–11 here): the rescaling is exercised.
+      expect(ref.sweeps).toBeGreaterThanOrEqual(5);
+      // A second matrix in the same space (the pattern kept, the values copied in again).
+      const big2 = eq.compute(a, g, c);
+      const ref2 = equilibrateReference(a, g, c);
+      same(eq.row, ref2.row);
+      same(eq.col, ref2.col);
+      expect(Object.is(big2, ref2.biggest)).toBe(true);
+    }
   });
 
   it("eliminate, substitute and solve with the TypeScript kernels' numbers, bit for bit (8 seeds × 5 ω)", () => {
