@@ -10,6 +10,8 @@
 ;; sparse-lu-numeric.ts. Returns the step whose pivot failed a test, or −1.
 ;; backward: U·z = y (y in w) over the given steps, x = Q·z there; 1 when every z is finite.
 ;; forwardOfProduct: L·y = −P·M·v into w (M real, in CSR). Both as in sparse-lu-solve.ts.
+;; load: the factors' slots from G's slot image and ω·C (sparse-lu-numeric.ts `factorPencil`).
+;; pencilTests: the pivot tests' maxima at ω from a pencil's kept terms (pencil-maxima.ts).
 ;; equilibrate: Ruiz's max-norm sweeps in powers of two (equilibrate.ts); returns the largest
 ;; |re| + |im| of the scaled matrix and leaves the sweep count at `out`.
 (module
@@ -277,4 +279,62 @@
         (local.set $sweep (i32.add (local.get $sweep) (i32.const 1)))
         (br $sweepLoop)))
     (local.get $biggest))
+
+  (func (export "load")
+    (param $fac i32) (param $slotG i32) (param $bytes i32) (param $cSlots i32) (param $cValues i32) (param $count i32)
+    (param $omega f64)
+    (local $i i32)
+    (memory.copy (local.get $fac) (local.get $slotG) (local.get $bytes))
+    (block $done
+      (loop $each
+        (br_if $done (i32.ge_s (local.get $i) (local.get $count)))
+        (f64.store offset=8
+          (i32.add (local.get $fac) (i32.shl (i32.load (i32.add (local.get $cSlots) (i32.shl (local.get $i) (i32.const 2)))) (i32.const 4)))
+          (f64.mul (local.get $omega) (f64.load (i32.add (local.get $cValues) (i32.shl (local.get $i) (i32.const 3))))))
+        (local.set $i (i32.add (local.get $i) (i32.const 1)))
+        (br $each))))
+
+  ;; m if 0 < m < ∞, else 1.
+  (func $testValue (param $m f64) (result f64)
+    (select (local.get $m) (f64.const 1)
+      (i32.and (f64.gt (local.get $m) (f64.const 0)) (f64.lt (local.get $m) (f64.const inf)))))
+
+  ;; The largest g + w·c over terms [p, p1) (0 when none exceeds 0).
+  (func $maxTerm (param $g i32) (param $c i32) (param $p i32) (param $p1 i32) (param $w f64) (result f64)
+    (local $m f64) (local $v f64)
+    (block $done
+      (loop $each
+        (br_if $done (i32.ge_s (local.get $p) (local.get $p1)))
+        (local.set $v (f64.add
+          (f64.load (i32.add (local.get $g) (i32.shl (local.get $p) (i32.const 3))))
+          (f64.mul (local.get $w) (f64.load (i32.add (local.get $c) (i32.shl (local.get $p) (i32.const 3)))))))
+        (if (f64.gt (local.get $v) (local.get $m)) (then (local.set $m (local.get $v))))
+        (local.set $p (i32.add (local.get $p) (i32.const 1)))
+        (br $each)))
+    (local.get $m))
+
+  (func (export "pencilTests")
+    (param $n i32) (param $single i32) (param $rowPtr i32) (param $rowG i32) (param $rowC i32)
+    (param $colPtr i32) (param $colG i32) (param $colC i32) (param $w f64) (param $cm i32) (param $rm i32)
+    (local $k i32) (local $a i32) (local $b i32)
+    (block $done
+      (loop $each
+        (br_if $done (i32.ge_s (local.get $k) (local.get $n)))
+        (local.set $a (i32.shl (local.get $k) (i32.const 3)))
+        (if (local.get $single)
+          (then
+            ;; One term per row and column: term k of each.
+            (f64.store (i32.add (local.get $cm) (local.get $a)) (call $testValue
+              (f64.add (f64.load (i32.add (local.get $colG) (local.get $a))) (f64.mul (local.get $w) (f64.load (i32.add (local.get $colC) (local.get $a)))))))
+            (f64.store (i32.add (local.get $rm) (local.get $a)) (call $testValue
+              (f64.add (f64.load (i32.add (local.get $rowG) (local.get $a))) (f64.mul (local.get $w) (f64.load (i32.add (local.get $rowC) (local.get $a))))))))
+          (else
+            (local.set $b (i32.add (local.get $colPtr) (i32.shl (local.get $k) (i32.const 2))))
+            (f64.store (i32.add (local.get $cm) (local.get $a)) (call $testValue
+              (call $maxTerm (local.get $colG) (local.get $colC) (i32.load (local.get $b)) (i32.load offset=4 (local.get $b)) (local.get $w))))
+            (local.set $b (i32.add (local.get $rowPtr) (i32.shl (local.get $k) (i32.const 2))))
+            (f64.store (i32.add (local.get $rm) (local.get $a)) (call $testValue
+              (call $maxTerm (local.get $rowG) (local.get $rowC) (i32.load (local.get $b)) (i32.load offset=4 (local.get $b)) (local.get $w))))))
+        (local.set $k (i32.add (local.get $k) (i32.const 1)))
+        (br $each))))
 )

@@ -15,6 +15,8 @@
  */
 import { LU_KERNELS_WASM } from "./lu-kernels-wasm";
 import type { Symbolic } from "./markowitz";
+import type { PencilMaxima } from "./pencil-maxima";
+import type { Plan } from "./sparse-lu-plan";
 
 type Eliminate = (
   n: number,
@@ -66,6 +68,30 @@ type ForwardOfProduct = (
   vIm: number,
 ) => void;
 
+type Load = (
+  fac: number,
+  slotG: number,
+  bytes: number,
+  cSlots: number,
+  cValues: number,
+  count: number,
+  omega: number,
+) => void;
+
+type PencilTests = (
+  n: number,
+  single: number,
+  rowPtr: number,
+  rowG: number,
+  rowC: number,
+  colPtr: number,
+  colG: number,
+  colC: number,
+  w: number,
+  cm: number,
+  rm: number,
+) => void;
+
 /** A sparse real matrix in CSR (the C of the pencil, for dx/ds). */
 export interface RealCsr {
   ptr: Int32Array;
@@ -107,6 +133,12 @@ interface Offsets {
   vRe: number;
   vIm: number;
   mVal: number;
+  slotG: number;
+  cValues: number;
+  rowG: number;
+  rowC: number;
+  colG: number;
+  colC: number;
   lPtr: number;
   lIdx: number;
   uPtr: number;
@@ -119,6 +151,9 @@ interface Offsets {
   steps: number;
   mPtr: number;
   mIdx: number;
+  cSlots: number;
+  rowPtr: number;
+  colPtr: number;
 }
 
 const PAGE = 65536;
@@ -147,6 +182,12 @@ export class KernelSpace {
   private readonly runEliminate: Eliminate;
   private readonly runBackward: Backward;
   private readonly runForward: ForwardOfProduct;
+  private readonly runLoad: Load;
+  private readonly runTests: PencilTests;
+  /** The plan pencil staged (`Plan.pencilOf`), how many C slots it has, and whether it is `single`. */
+  private pencilOf: PencilMaxima | null = null;
+  private cCount = 0;
+  private single = 0;
   /** The step list staged at `at.steps` (besides the whole pass at `at.descending`), and the M at `at.mPtr`. */
   private stepsOf: Int32Array | null = null;
   private mOf: RealCsr | null = null;
@@ -185,6 +226,12 @@ export class KernelSpace {
       vRe: f64(n),
       vIm: f64(n),
       mVal: f64(nnz),
+      slotG: f64(2 * slots),
+      cValues: f64(slots),
+      rowG: f64(nnz),
+      rowC: f64(nnz),
+      colG: f64(nnz),
+      colC: f64(nnz),
       lPtr: i32(n + 1),
       lIdx: i32(s.lIdx.length),
       uPtr: i32(n + 1),
@@ -197,6 +244,9 @@ export class KernelSpace {
       steps: i32(n),
       mPtr: i32(n + 1),
       mIdx: i32(nnz),
+      cSlots: i32(slots),
+      rowPtr: i32(n + 1),
+      colPtr: i32(n + 1),
     };
     this.at = at;
     const { memory, exports } = kernelsIn(top);
@@ -204,6 +254,8 @@ export class KernelSpace {
     this.runEliminate = exports.eliminate as Eliminate;
     this.runBackward = exports.backward as Backward;
     this.runForward = exports.forwardOfProduct as ForwardOfProduct;
+    this.runLoad = exports.load as Load;
+    this.runTests = exports.pencilTests as PencilTests;
     const buf = memory.buffer;
     this.fac = new Float64Array(buf, at.fac, 2 * slots);
     this.inv = new Float64Array(buf, at.inv, 2 * n);
@@ -272,6 +324,85 @@ export class KernelSpace {
       half,
       fwd ? 1 : 0,
     );
+  }
+
+  /**
+   * Copy a plan's pencil into the memory (its slot image of G, where C is, and the kept terms of
+   * `pencilTests`), unless it is the one there already. The plan must have `slotG` (`planPencil`).
+   */
+  stagePencil(plan: Plan): void {
+    const pen = plan.pencil!;
+    if (this.pencilOf === plan.pencilOf) return;
+    const at = this.at;
+    const buf = this.memory.buffer;
+    new Float64Array(buf, at.slotG, plan.slotG!.length).set(plan.slotG!);
+    new Int32Array(buf, at.cSlots, plan.cSlots!.length).set(plan.cSlots!);
+    new Float64Array(buf, at.cValues, plan.cValues!.length).set(plan.cValues!);
+    this.cCount = plan.cSlots!.length;
+    stageTerms(buf, at, pen);
+    this.single = pen.single ? 1 : 0;
+    this.pencilOf = plan.pencilOf;
+  }
+
+  /**
+   * A refactor at ω ≥ 0 of the staged pencil: the slots loaded with G and ω·C, the tests' maxima
+   * of one Ruiz step at ω, then `eliminate` (tol2 = absTol², half = τ²/2, and b as there).
+   * The step whose pivot failed, or −1; the tests used are `cm`/`rm` (views, for the verdict).
+   */
+  factorPencil(
+    omega: number,
+    tol2: number,
+    half: number,
+    bRe: Float64Array | null,
+    bIm: Float64Array | null,
+  ): number {
+    const at = this.at;
+    this.runLoad(at.fac, at.slotG, 16 * (this.offD + this.n), at.cSlots, at.cValues, this.cCount, omega);
+    this.runTests(
+      this.n,
+      this.single,
+      at.rowPtr,
+      at.rowG,
+      at.rowC,
+      at.colPtr,
+      at.colG,
+      at.colC,
+      omega,
+      at.cm,
+      at.rm,
+    );
+    const fwd = bRe !== null && bIm !== null;
+    if (fwd) {
+      this.bRe.set(bRe);
+      this.bIm.set(bIm);
+    }
+    return this.runEliminate(
+      this.n,
+      at.lPtr,
+      at.lIdx,
+      at.uPtr,
+      at.uIdx,
+      at.rowPerm,
+      at.updStart,
+      at.upd,
+      at.fac,
+      at.inv,
+      at.w,
+      at.cm,
+      at.rm,
+      at.bRe,
+      at.bIm,
+      this.offU,
+      this.offD,
+      tol2,
+      half,
+      fwd ? 1 : 0,
+    );
+  }
+
+  /** The pivot tests `factorPencil` used last (cm, rm in pivot order). */
+  get tests(): { cm: Float64Array; rm: Float64Array } {
+    return { cm: this.cm, rm: this.rm };
   }
 
   /**
@@ -344,4 +475,72 @@ export class KernelSpace {
       at.vIm,
     );
   }
+}
+
+/** Where a pencil's kept terms go in a memory. */
+interface TermOffsets {
+  rowPtr: number;
+  rowG: number;
+  rowC: number;
+  colPtr: number;
+  colG: number;
+  colC: number;
+}
+
+function stageTerms(buf: ArrayBufferLike, at: TermOffsets, pen: PencilMaxima): void {
+  new Int32Array(buf, at.rowPtr, pen.rowPtr.length).set(pen.rowPtr);
+  new Float64Array(buf, at.rowG, pen.rowG.length).set(pen.rowG);
+  new Float64Array(buf, at.rowC, pen.rowC.length).set(pen.rowC);
+  new Int32Array(buf, at.colPtr, pen.colPtr.length).set(pen.colPtr);
+  new Float64Array(buf, at.colG, pen.colG.length).set(pen.colG);
+  new Float64Array(buf, at.colC, pen.colC.length).set(pen.colC);
+}
+
+/** A memory for `pencilTestsOf`, kept for the next call of the same size or smaller. */
+let testsScratch: { bytes: number; memory: WebAssembly.Memory; run: PencilTests } | null = null;
+
+/**
+ * The tests' maxima at w ≥ 0 of a pencil in pivot order (`pencilTests` in lu-kernels.wat) into
+ * cm and rm: what `KernelSpace.factorPencil` computes in place, for the callers without a space
+ * of their own (a refactor by scatter, at ω = ∞).
+ */
+export function pencilTestsOf(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
+  const n = cm.length;
+  let top = 0;
+  const take = (bytes: number) => {
+    const at = top;
+    top += bytes;
+    return at;
+  };
+  const at = {
+    cm: take(8 * n),
+    rm: take(8 * n),
+    rowG: take(8 * pen.rowG.length),
+    rowC: take(8 * pen.rowC.length),
+    colG: take(8 * pen.colG.length),
+    colC: take(8 * pen.colC.length),
+    rowPtr: take(4 * (n + 1)),
+    colPtr: take(4 * (n + 1)),
+  };
+  if (!testsScratch || testsScratch.bytes < top) {
+    const { memory, exports } = kernelsIn(top);
+    testsScratch = { bytes: memory.buffer.byteLength, memory, run: exports.pencilTests as PencilTests };
+  }
+  const buf = testsScratch.memory.buffer;
+  stageTerms(buf, at, pen);
+  testsScratch.run(
+    n,
+    pen.single ? 1 : 0,
+    at.rowPtr,
+    at.rowG,
+    at.rowC,
+    at.colPtr,
+    at.colG,
+    at.colC,
+    w,
+    at.cm,
+    at.rm,
+  );
+  cm.set(new Float64Array(buf, at.cm, n));
+  rm.set(new Float64Array(buf, at.rm, n));
 }

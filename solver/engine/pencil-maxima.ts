@@ -1,7 +1,5 @@
+import { pencilTestsOf } from "./lu-wasm";
 import type { SparseComplexMatrix } from "./sparse-matrix";
-
-/** +∞ as a module constant (read per entry in `pencilTests`, also before the JIT compiles it). */
-const INF = Number.POSITIVE_INFINITY;
 
 /**
  * Each row's and column's largest |re| + |im| of A = G + jωC as terms |g| + ω·|c| (ω ≥ 0), kept
@@ -154,39 +152,9 @@ export function pencilInOrder(
  * The maxima at ω = w ≥ 0 of a pencil in pivot order (`pencilInOrder`), as the LU's tests take
  * them: cm[k] = max over column k's kept terms of g + w·c, rm[k] the same over row k's — or 1
  * where that is 0 (no entry) or not finite (the factor of such a row or column stays 1).
+ * WebAssembly (`pencilTests` in lu-kernels.wat); a sweep's refactor runs it inside its order's
+ * memory (`KernelSpace.factorPencil`), this entry serves the other callers.
  */
 export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
-  const { rowPtr, rowG, rowC, colPtr, colG, colC } = pen;
-  const n = cm.length;
-  if (pen.single) {
-    // One term per row and column (most circuit matrices): the same maxima without the inner loops
-    // (a NaN or ∞ term gives 1 either way).
-    for (let k = 0; k < n; k++) {
-      const c = colG[k]! + w * colC[k]!;
-      cm[k] = c > 0 && c < INF ? c : 1;
-      const r = rowG[k]! + w * rowC[k]!;
-      rm[k] = r > 0 && r < INF ? r : 1;
-    }
-    return;
-  }
-  let c0 = 0;
-  let r0 = 0;
-  for (let k = 0; k < n; k++) {
-    const c1 = colPtr[k + 1]!;
-    let m = 0;
-    for (let p = c0; p < c1; p++) {
-      const v = colG[p]! + w * colC[p]!;
-      if (v > m) m = v;
-    }
-    cm[k] = m > 0 && m < INF ? m : 1;
-    c0 = c1;
-    const r1 = rowPtr[k + 1]!;
-    m = 0;
-    for (let p = r0; p < r1; p++) {
-      const v = rowG[p]! + w * rowC[p]!;
-      if (v > m) m = v;
-    }
-    rm[k] = m > 0 && m < INF ? m : 1;
-    r0 = r1;
-  }
+  pencilTestsOf(pen, w, cm, rm);
 }

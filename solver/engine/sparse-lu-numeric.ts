@@ -47,7 +47,9 @@ export function factorNumeric(
  * Needs the plan's update slots and ω finite and ≥ 0 (the caller checks).
  * With a right-hand side b it also runs the forward substitution L·y = P·b along the elimination
  * (row k of L is final at step k), the same arithmetic as `solveFactors`' forward pass, which a
- * `solve` of the same b arrays then skips (see `LUFactors.forwardRe`).
+ * `solve` of the same b arrays then skips (see `LUFactors.forwardRe`). The pivot tests are the
+ * maxima of one Ruiz step at ω from the plan's pencil (`pencilTests`), computed with the load in the
+ * order's memory; `tests` gives the zero-pivot bound (after `PivotTests.oneStep`).
  */
 export function factorPencil(
   f: LUFactors,
@@ -57,16 +59,14 @@ export function factorPencil(
   bRe: Float64Array | null,
   bIm: Float64Array | null,
 ): boolean {
-  const plan = f.plan!;
+  const space = f.space!;
   f.forwardRe = null;
   f.forwardIm = null;
-  const cSlots = plan.cSlots!;
-  const cValues = plan.cValues!;
-  const { fac } = f;
-  // G, and 0 (= ω·0 for ω ≥ 0) as every imaginary part; then ω·c where C has an entry.
-  fac.set(plan.slotG!);
-  for (let i = 0; i < cSlots.length; i++) fac[2 * cSlots[i]! + 1] = omega * cValues[i]!;
-  return eliminate(f, tests, tau, bRe, bIm);
+  space.stagePencil(f.plan!);
+  f.clearFailure();
+  const tol2 = tests.absTol * tests.absTol;
+  const k = space.factorPencil(omega, tol2, 0.5 * tau * tau, bRe, bIm);
+  return finish(f, k, tol2, space.tests, bRe, bIm);
 }
 
 /**
@@ -87,19 +87,32 @@ function eliminate(
   bRe: Float64Array | null,
   bIm: Float64Array | null,
 ): boolean {
-  const { cm, rm } = tests;
   const tol2 = tests.absTol * tests.absTol;
   f.clearFailure();
-  const fwd = bRe !== null && bIm !== null;
-  const k = f.space!.eliminate(cm, rm, tol2, 0.5 * tau * tau, bRe, bIm);
+  const k = f.space!.eliminate(tests.cm, tests.rm, tol2, 0.5 * tau * tau, bRe, bIm);
+  return finish(f, k, tol2, tests, bRe, bIm);
+}
+
+/**
+ * After an elimination that stopped at step k (−1: it did not): the verdict (`pivotFailed`, singular
+ * when the pivot was below the zero bound of the tests cm/rm used), or the forward pass of b noted.
+ */
+function finish(
+  f: LUFactors,
+  k: number,
+  tol2: number,
+  tests: { cm: Float64Array; rm: Float64Array },
+  bRe: Float64Array | null,
+  bIm: Float64Array | null,
+): boolean {
   if (k >= 0) {
     const dk = 2 * (f.sym!.lIdx.length + f.sym!.uIdx.length + k);
     const pr = f.fac[dk]!;
     const pi = f.fac[dk + 1]!;
     const d = pr * pr + pi * pi;
-    return f.pivotFailed(k, d <= tol2 * rm[k]! * cm[k]!);
+    return f.pivotFailed(k, d <= tol2 * tests.rm[k]! * tests.cm[k]!);
   }
-  if (fwd) {
+  if (bRe !== null && bIm !== null) {
     f.forwardRe = bRe;
     f.forwardIm = bIm;
   }

@@ -171,12 +171,17 @@ export class SparseComplexLU {
     // One Ruiz step, its maxima straight into the tests of the sweep's order.
     const plan = this.f.plan!;
     if (plan.pencilOf !== pen) planPencil(plan, pen, pencilInOrder(pen, this.base));
-    pencilTests(plan.pencil!, w, this.t.cm, this.t.rm);
     this.t.oneStep();
-    // The values copied from the plan's slots of G and C (same numbers as reading G and C).
+    // The values copied from the plan's slots of G and C (same numbers as reading G and C), the
+    // tests computed with them in the order's memory; otherwise the tests here, then a refactor.
     const slots = plan.slotG !== null && omega >= 0 && omega < Number.POSITIVE_INFINITY;
     const tau = this.opt.pivotThreshold;
-    if (slots ? factorPencil(this.f, this.t, omega, tau, bRe, bIm) : this.numeric(g, c, omega)) return true;
+    if (slots) {
+      if (factorPencil(this.f, this.t, omega, tau, bRe, bIm)) return true;
+    } else {
+      pencilTests(plan.pencil!, w, this.t.cm, this.t.rm);
+      if (this.numeric(g, c, omega)) return true;
+    }
     this.fill(omega, g, c);
     const { re, im } = this.a;
     rowColumnMaxima(this.a, re, im, this.t.rmax, this.t.cmax);

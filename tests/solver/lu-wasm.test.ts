@@ -8,6 +8,7 @@ import path from "node:path";
 import { describe, expect, it } from "vitest";
 import { Equilibration, MAX_SWEEPS } from "@/solver/engine/equilibrate";
 import type { Symbolic } from "@/solver/engine/markowitz";
+import type { PencilMaxima } from "@/solver/engine/pencil-maxima";
 import { SparseComplexLU } from "@/solver/engine/sparse-lu";
 import type { LUFactors } from "@/solver/engine/sparse-lu-factors";
 import type { PivotTests } from "@/solver/engine/sparse-lu-scaling";
@@ -113,6 +114,25 @@ function eliminateReference(
     w[2 * k + 1] = yi;
   }
   return -1;
+}
+
+/** The TypeScript maxima of the pivot tests (pencil-maxima.ts `pencilTests`), as replaced. */
+function pencilTestsReference(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
+  const { rowPtr, rowG, rowC, colPtr, colG, colC } = pen;
+  for (let k = 0; k < cm.length; k++) {
+    let m = 0;
+    for (let p = colPtr[k]!; p < colPtr[k + 1]!; p++) {
+      const v = colG[p]! + w * colC[p]!;
+      if (v > m) m = v;
+    }
+    cm[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+    m = 0;
+    for (let p = rowPtr[k]!; p < rowPtr[k + 1]!; p++) {
+      const v = rowG[p]! + w * rowC[p]!;
+      if (v > m) m = v;
+    }
+    rm[k] = m > 0 && m < Number.POSITIVE_INFINITY ? m : 1;
+  }
 }
 
 /** The TypeScript backward pass over every step (x = Q·z), as replaced. */
@@ -286,6 +306,12 @@ describe("the LU's WebAssembly kernels", () => {
           failures++;
           continue;
         }
+        // The tests: the maxima of one Ruiz step at ω from the plan's pencil, as the TypeScript had them.
+        const cm = new Float64Array(n);
+        const rm = new Float64Array(n);
+        pencilTestsReference(plan.pencil!, omega, cm, rm);
+        same(f.space!.tests.cm, cm);
+        same(f.space!.tests.rm, rm);
         // The reference from the same loaded slots, tests and b.
         const fac = new Float64Array(plan.slotG!);
         for (let i = 0; i < plan.cSlots!.length; i++)
@@ -300,8 +326,8 @@ describe("the LU's WebAssembly kernels", () => {
             fac,
             inv,
             w,
-            t.cm,
-            t.rm,
+            cm,
+            rm,
             t.absTol,
             opt.pivotThreshold,
             bRe,
