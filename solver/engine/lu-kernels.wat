@@ -10,6 +10,8 @@
 ;; sparse-lu-numeric.ts. Returns the step whose pivot failed a test, or −1.
 ;; backward: U·z = y (y in w) over the given steps, x = Q·z there; 1 when every z is finite.
 ;; forwardOfProduct: L·y = −P·M·v into w (M real, in CSR). Both as in sparse-lu-solve.ts.
+;; transposed: Uᵀ·y = w forward from step `first`, then Lᵀ·v = y backward, in w, steps whose
+;; entry is zero skipped (sparse-lu-solve.ts `solveFactorsTransposedInSteps`).
 ;; load: the factors' slots from G's slot image and ω·C (sparse-lu-numeric.ts `factorPencil`).
 ;; pencilTests: the pivot tests' maxima at ω from a pencil's kept terms (pencil-maxima.ts).
 ;; equilibrate: Ruiz's max-norm sweeps in powers of two (equilibrate.ts); returns the largest
@@ -337,4 +339,66 @@
               (call $maxTerm (local.get $rowG) (local.get $rowC) (i32.load (local.get $b)) (i32.load offset=4 (local.get $b)) (local.get $w))))))
         (local.set $k (i32.add (local.get $k) (i32.const 1)))
         (br $each))))
+
+  (func (export "transposed")
+    (param $n i32) (param $first i32) (param $uPtr i32) (param $uIdx i32) (param $facU i32)
+    (param $lPtr i32) (param $lIdx i32) (param $fac i32) (param $inv i32) (param $w i32)
+    (local $k i32) (local $t i32) (local $t1 i32) (local $a i32) (local $c i32)
+    (local $br f64) (local $bi f64) (local $ir f64) (local $ii f64) (local $yr f64) (local $yi f64)
+    (local $ur f64) (local $ui f64)
+    (local.set $k (local.get $first))
+    (block $fdone
+      (loop $forward
+        (br_if $fdone (i32.ge_s (local.get $k) (local.get $n)))
+        (local.set $a (i32.add (local.get $w) (i32.shl (local.get $k) (i32.const 4))))
+        (local.set $br (f64.load (local.get $a)))
+        (local.set $bi (f64.load offset=8 (local.get $a)))
+        (if (i32.eqz (i32.and (f64.eq (local.get $br) (f64.const 0)) (f64.eq (local.get $bi) (f64.const 0)))) (then
+          (local.set $c (i32.add (local.get $inv) (i32.shl (local.get $k) (i32.const 4))))
+          (local.set $ir (f64.load (local.get $c)))
+          (local.set $ii (f64.load offset=8 (local.get $c)))
+          (local.set $yr (f64.sub (f64.mul (local.get $br) (local.get $ir)) (f64.mul (local.get $bi) (local.get $ii))))
+          (local.set $yi (f64.add (f64.mul (local.get $br) (local.get $ii)) (f64.mul (local.get $bi) (local.get $ir))))
+          (f64.store (local.get $a) (local.get $yr))
+          (f64.store offset=8 (local.get $a) (local.get $yi))
+          (local.set $c (i32.add (local.get $uPtr) (i32.shl (local.get $k) (i32.const 2))))
+          (local.set $t (i32.load (local.get $c)))
+          (local.set $t1 (i32.load offset=4 (local.get $c)))
+          (block $udone
+            (loop $u
+              (br_if $udone (i32.ge_s (local.get $t) (local.get $t1)))
+              (local.set $c (i32.add (local.get $w) (i32.shl (i32.load (i32.add (local.get $uIdx) (i32.shl (local.get $t) (i32.const 2)))) (i32.const 4))))
+              (local.set $a (i32.add (local.get $facU) (i32.shl (local.get $t) (i32.const 4))))
+              (local.set $ur (f64.load (local.get $a)))
+              (local.set $ui (f64.load offset=8 (local.get $a)))
+              (f64.store (local.get $c) (f64.sub (f64.load (local.get $c)) (f64.sub (f64.mul (local.get $ur) (local.get $yr)) (f64.mul (local.get $ui) (local.get $yi)))))
+              (f64.store offset=8 (local.get $c) (f64.sub (f64.load offset=8 (local.get $c)) (f64.add (f64.mul (local.get $ur) (local.get $yi)) (f64.mul (local.get $ui) (local.get $yr)))))
+              (local.set $t (i32.add (local.get $t) (i32.const 1)))
+              (br $u)))))
+        (local.set $k (i32.add (local.get $k) (i32.const 1)))
+        (br $forward)))
+    (local.set $k (local.get $n))
+    (block $bdone
+      (loop $backward
+        (br_if $bdone (i32.le_s (local.get $k) (i32.const 0)))
+        (local.set $k (i32.sub (local.get $k) (i32.const 1)))
+        (local.set $a (i32.add (local.get $w) (i32.shl (local.get $k) (i32.const 4))))
+        (local.set $br (f64.load (local.get $a)))
+        (local.set $bi (f64.load offset=8 (local.get $a)))
+        (if (i32.eqz (i32.and (f64.eq (local.get $br) (f64.const 0)) (f64.eq (local.get $bi) (f64.const 0)))) (then
+          (local.set $c (i32.add (local.get $lPtr) (i32.shl (local.get $k) (i32.const 2))))
+          (local.set $t (i32.load (local.get $c)))
+          (local.set $t1 (i32.load offset=4 (local.get $c)))
+          (block $ldone
+            (loop $l
+              (br_if $ldone (i32.ge_s (local.get $t) (local.get $t1)))
+              (local.set $c (i32.add (local.get $w) (i32.shl (i32.load (i32.add (local.get $lIdx) (i32.shl (local.get $t) (i32.const 2)))) (i32.const 4))))
+              (local.set $a (i32.add (local.get $fac) (i32.shl (local.get $t) (i32.const 4))))
+              (local.set $ur (f64.load (local.get $a)))
+              (local.set $ui (f64.load offset=8 (local.get $a)))
+              (f64.store (local.get $c) (f64.sub (f64.load (local.get $c)) (f64.sub (f64.mul (local.get $ur) (local.get $br)) (f64.mul (local.get $ui) (local.get $bi)))))
+              (f64.store offset=8 (local.get $c) (f64.sub (f64.load offset=8 (local.get $c)) (f64.add (f64.mul (local.get $ur) (local.get $bi)) (f64.mul (local.get $ui) (local.get $br)))))
+              (local.set $t (i32.add (local.get $t) (i32.const 1)))
+              (br $l)))))
+        (br $backward))))
 )

@@ -92,6 +92,19 @@ type PencilTests = (
   rm: number,
 ) => void;
 
+type Transposed = (
+  n: number,
+  first: number,
+  uPtr: number,
+  uIdx: number,
+  facU: number,
+  lPtr: number,
+  lIdx: number,
+  fac: number,
+  inv: number,
+  w: number,
+) => void;
+
 /** A sparse real matrix in CSR (the C of the pencil, for dx/ds). */
 export interface RealCsr {
   ptr: Int32Array;
@@ -184,6 +197,7 @@ export class KernelSpace {
   private readonly runForward: ForwardOfProduct;
   private readonly runLoad: Load;
   private readonly runTests: PencilTests;
+  private readonly runTransposed: Transposed;
   /** The plan pencil staged (`Plan.pencilOf`), how many C slots it has, and whether it is `single`. */
   private pencilOf: PencilMaxima | null = null;
   private cCount = 0;
@@ -256,6 +270,7 @@ export class KernelSpace {
     this.runForward = exports.forwardOfProduct as ForwardOfProduct;
     this.runLoad = exports.load as Load;
     this.runTests = exports.pencilTests as PencilTests;
+    this.runTransposed = exports.transposed as Transposed;
     const buf = memory.buffer;
     this.fac = new Float64Array(buf, at.fac, 2 * slots);
     this.inv = new Float64Array(buf, at.inv, 2 * n);
@@ -447,6 +462,27 @@ export class KernelSpace {
       }
     }
     return finite === 1;
+  }
+
+  /**
+   * Aᵀ's two triangular passes in w, which holds Qᵀ·d (zero before step `first`): Uᵀ·y = w
+   * forward, then Lᵀ·v = y backward, each skipping the steps whose entry is zero (see
+   * `solveFactorsTransposedInSteps`).
+   */
+  transposed(first: number): void {
+    const at = this.at;
+    this.runTransposed(
+      this.n,
+      first,
+      at.uPtr,
+      at.uIdx,
+      at.fac + 16 * this.offU,
+      at.lPtr,
+      at.lIdx,
+      at.fac,
+      at.inv,
+      at.w,
+    );
   }
 
   /** L·y = −P·M·v into w, M real in CSR with A's pattern or less (see `forwardOfProduct`). */

@@ -185,9 +185,8 @@ export function sparseRhs(dRe: Float64Array, dIm: Float64Array): SparseRhs {
 export function solveFactorsTransposedInSteps(f: LUFactors, d: SparseRhs): void {
   if (f.singular || !f.sym) throw new Error("matrix is singular: cannot solve");
   const n = f.n;
-  const { colPos, lPtr, lIdx, uPtr, uIdx } = f.sym;
-  const { fac, inv, w } = f;
-  const offU = 2 * lIdx.length;
+  const { colPos } = f.sym;
+  const { w } = f;
   f.forwardRe = null;
   f.forwardIm = null;
   // w = Qᵀ·d: zero, then d's entries at their steps.
@@ -201,51 +200,10 @@ export function solveFactorsTransposedInSteps(f: LUFactors, d: SparseRhs): void 
     w[2 * k + 1] = d.im[t]!;
     if (k < first) first = k;
   }
-  // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k).
-  // A zero w_k is left as it is and scatters nothing (a noise adjoint's d has one or two entries,
-  // and often half the steps get none): the factors are finite, so that changes at most the sign
-  // of a zero in z (see the comment of `solveFactorsTransposed`).
-  let t0 = first < n ? uPtr[first]! : 0;
-  for (let k = first; k < n; k++) {
-    const br = w[2 * k]!;
-    const bi = w[2 * k + 1]!;
-    if (br === 0 && bi === 0) {
-      t0 = uPtr[k + 1]!;
-      continue;
-    }
-    const ir = inv[2 * k]!;
-    const ii = inv[2 * k + 1]!;
-    const yr = br * ir - bi * ii;
-    const yi = br * ii + bi * ir;
-    w[2 * k] = yr;
-    w[2 * k + 1] = yi;
-    const t1 = uPtr[k + 1]!;
-    for (let t = t0; t < t1; t++) {
-      const j = 2 * uIdx[t]!;
-      const ur = fac[offU + 2 * t]!;
-      const ui = fac[offU + 2 * t + 1]!;
-      w[j] = w[j]! - (ur * yr - ui * yi);
-      w[j + 1] = w[j + 1]! - (ur * yi + ui * yr);
-    }
-    t0 = t1;
-  }
-  // Lᵀ·v = y, backward: row k of L scatters −l_kj·v_k into w_j (j < k).
-  let q1 = lPtr[n]!;
-  for (let k = n - 1; k >= 0; k--) {
-    const vr = w[2 * k]!;
-    const vi = w[2 * k + 1]!;
-    const q0 = lPtr[k]!;
-    if (vr === 0 && vi === 0) {
-      q1 = q0;
-      continue;
-    }
-    for (let q = q0; q < q1; q++) {
-      const j = 2 * lIdx[q]!;
-      const lr = fac[2 * q]!;
-      const li = fac[2 * q + 1]!;
-      w[j] = w[j]! - (lr * vr - li * vi);
-      w[j + 1] = w[j + 1]! - (lr * vi + li * vr);
-    }
-    q1 = q0;
-  }
+  // Uᵀ·y = w, forward: y_k = w_k/u_kk, then row k of U scatters −u_kj·y_k into w_j (j > k); then
+  // Lᵀ·v = y, backward: row k of L scatters −l_kj·v_k into w_j (j < k). WebAssembly (`transposed`
+  // in lu-kernels.wat). A zero w_k is left as it is and scatters nothing (a noise adjoint's d has
+  // one or two entries, and often half the steps get none): the factors are finite, so that
+  // changes at most the sign of a zero in z (see the comment of `solveFactorsTransposed`).
+  f.space!.transposed(first);
 }

@@ -247,6 +247,42 @@ function equilibrateReference(a: SparseComplexMatrix, re: Float64Array, im: Floa
   return { row, col, biggest, sweeps };
 }
 
+/** The TypeScript passes of the transposed solve in steps (w holds Qᵀ·d), as replaced. */
+function transposedReference(
+  s: Symbolic,
+  fac: Float64Array,
+  inv: Float64Array,
+  w: Float64Array,
+  first: number,
+) {
+  const { lPtr, lIdx, uPtr, uIdx, n } = s;
+  const offU = 2 * lIdx.length;
+  for (let k = first; k < n; k++) {
+    const br = w[2 * k]!;
+    const bi = w[2 * k + 1]!;
+    if (br === 0 && bi === 0) continue;
+    const yr = br * inv[2 * k]! - bi * inv[2 * k + 1]!;
+    const yi = br * inv[2 * k + 1]! + bi * inv[2 * k]!;
+    w[2 * k] = yr;
+    w[2 * k + 1] = yi;
+    for (let t = uPtr[k]!; t < uPtr[k + 1]!; t++) {
+      const j = 2 * uIdx[t]!;
+      w[j] = w[j]! - (fac[offU + 2 * t]! * yr - fac[offU + 2 * t + 1]! * yi);
+      w[j + 1] = w[j + 1]! - (fac[offU + 2 * t]! * yi + fac[offU + 2 * t + 1]! * yr);
+    }
+  }
+  for (let k = n - 1; k >= 0; k--) {
+    const vr = w[2 * k]!;
+    const vi = w[2 * k + 1]!;
+    if (vr === 0 && vi === 0) continue;
+    for (let q = lPtr[k]!; q < lPtr[k + 1]!; q++) {
+      const j = 2 * lIdx[q]!;
+      w[j] = w[j]! - (fac[2 * q]! * vr - fac[2 * q + 1]! * vi);
+      w[j + 1] = w[j + 1]! - (fac[2 * q]! * vi + fac[2 * q + 1]! * vr);
+    }
+  }
+}
+
 const same = (a: ArrayLike<number>, b: ArrayLike<number>) => {
   expect(a.length).toBe(b.length);
   for (let i = 0; i < a.length; i++) if (!Object.is(a[i], b[i])) expect([i, a[i]]).toEqual([i, b[i]]);
@@ -287,7 +323,7 @@ describe("the LU's WebAssembly kernels", () => {
     }
   });
 
-  it("eliminate, substitute and solve with the TypeScript kernels' numbers, bit for bit (8 seeds × 5 ω)", () => {
+  it("eliminate, substitute, solve and solve transposed with the TypeScript kernels' numbers, bit for bit (8 seeds × 5 ω)", () => {
     let failures = 0;
     for (let seed = 1; seed <= 8; seed++) {
       const n = 40;
@@ -352,6 +388,22 @@ describe("the LU's WebAssembly kernels", () => {
         backwardReference(s, fac, inv, w, dxr);
         same(dx[0]!, dxr[0]!);
         same(dx[1]!, dxr[1]!);
+        // The adjoint (noise) solve: Aᵀ·z = d for a d of two entries, z left in pivot order in w.
+        const d = {
+          index: Int32Array.of(seed % n, (7 * seed) % n),
+          re: Float64Array.of(1, -0.5),
+          im: Float64Array.of(0, 2),
+        };
+        const wt = new Float64Array(2 * n + 2);
+        let first = n;
+        for (let e = 0; e < 2; e++) {
+          const k = s.colPos[d.index[e]!]!;
+          wt[2 * k] = d.re[e]!;
+          wt[2 * k + 1] = d.im[e]!;
+          first = Math.min(first, k);
+        }
+        transposedReference(s, fac, inv, wt, first);
+        same(lu.solveTransposedInSteps(d).w, wt);
       }
     }
     // Most of the 40 frequencies keep the first order (the comparison above ran on them).
