@@ -13,13 +13,14 @@ import { setFlagsFromString } from "node:v8";
 //   per sample, which the optimizing compiler takes up on their next call anyway; compiling a second,
 //   on-stack version of each first held up those compiles while the first points ran interpreted
 //   (the 1 000-section netlist ~13 ms sooner, a 1 000-sample Monte Carlo and the 10 000-section
-//   ladder no slower);
+//   ladder no slower; since the LU's kernels are WebAssembly it makes no difference to the ladder);
 // - a 4× interrupt budget (the bytecode a function runs before V8 weighs optimizing it): code that
 //   runs for one netlist — the language, building the system, the first point's analysis — no
 //   longer gets optimized just as it finishes (the front end's functions queued ~100 ms of
-//   optimizing work that held up the kernels'), while the per-point kernels still reach it within
+//   optimizing work that held up the kernels'), while the per-point code still reaches it within
 //   a few points (the 1 000-section netlist's solve ~15 ms shorter, the examples 5–50 ms sooner,
-//   the 10 000-section ladder unchanged).
+//   the 10 000-section ladder unchanged; with the kernels in WebAssembly, the default budget still
+//   makes the 1 000-section ladder ~10 ms slower).
 setFlagsFromString("--semi-space-growth-factor=1");
 setFlagsFromString("--no-use-osr");
 setFlagsFromString("--interrupt-budget=270336");
