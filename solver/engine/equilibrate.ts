@@ -1,4 +1,4 @@
-import { kernelsIn } from "./lu-wasm";
+import { kernelsIn, Layout } from "./lu-wasm";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 /**
@@ -111,12 +111,8 @@ export class Equilibration {
 
   private allocate(nnz: number): Space {
     const n = this.n;
-    let top = 0;
-    const take = (bytes: number) => {
-      const at = top;
-      top += bytes;
-      return at;
-    };
+    const l = new Layout();
+    const take = (bytes: number) => l.take(bytes);
     const at = {
       re: take(8 * nnz),
       im: take(8 * nnz),
@@ -128,7 +124,7 @@ export class Equilibration {
       colIdx: take(4 * nnz),
       out: take(4),
     };
-    const { memory, exports } = kernelsIn(top);
+    const { memory, exports } = kernelsIn(l.size);
     const buf = memory.buffer;
     this.row = new Float64Array(buf, at.row, n);
     this.col = new Float64Array(buf, at.col, n);

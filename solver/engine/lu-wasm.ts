@@ -1,17 +1,17 @@
 /**
- * The sparse LU's elimination as WebAssembly (lu-kernels.wat), and the memory it works in.
+ * The sparse LU's inner loops as WebAssembly (lu-kernels.wat), and the memories they work in.
  *
  * Why: the command solves a netlist in a fresh process, where JavaScript runs interpreted until
  * the optimizing compiler has taken up each kernel — a first sweep's first ~35 points ran 10–25×
- * slower than the rest. WebAssembly is compiled before its first call (a baseline compile in well
- * under a millisecond, the optimized one in the background), so the elimination runs at speed from
- * the first point. The arithmetic is the TypeScript's, in the same order: the same numbers bit for
- * bit (IEEE doubles; WebAssembly has no fused multiply-add).
+ * slower than the rest. WebAssembly is compiled before its first call (a baseline compile, the
+ * optimized one in the background), so the kernels run near speed from the first point. The
+ * arithmetic is the TypeScript's, in the same order: the same numbers bit for bit (IEEE doubles;
+ * WebAssembly has no fused multiply-add; tests/solver/lu-wasm.test.ts).
  *
- * Each pivot order with an update plan gets a `KernelSpace`: one WebAssembly memory holding the
- * order's pattern and plan (copied once) and the factors, reciprocals and scratch that `LUFactors`
- * then uses as its own arrays (views of that memory), so the TypeScript solves read the factors in
- * place. A memory is sized for its order once and never grows (growing would detach the views).
+ * Each pivot order gets a `KernelSpace`: one WebAssembly memory holding the order's pattern and
+ * plan (copied once), the staged pencil, and the factors, reciprocals and scratch that `LUFactors`
+ * then uses as its own arrays (views of that memory), so the TypeScript around the kernels reads
+ * the factors in place. A memory is sized once and never grows (growing would detach the views).
  */
 import { LU_KERNELS_WASM } from "./lu-kernels-wasm";
 import type { Symbolic } from "./markowitz";
@@ -132,6 +132,16 @@ export function kernelsIn(bytes: number): { memory: WebAssembly.Memory; exports:
   return { memory, exports: instance.exports };
 }
 
+/** Byte offsets in a memory, handed out in order: `take(bytes)`; `size` is the total so far. */
+export class Layout {
+  size = 0;
+  take(bytes: number): number {
+    const at = this.size;
+    this.size += bytes;
+    return at;
+  }
+}
+
 /** Byte offsets of an order's arrays in its memory. */
 interface Offsets {
   fac: number;
@@ -215,18 +225,12 @@ export class KernelSpace {
     this.offU = s.lIdx.length;
     this.offD = this.offU + s.uIdx.length;
     const slots = this.offD + n;
+    // A pencil is staged only for an order with a plan (a scatter order refactors in TypeScript).
+    const staged = upd ? slots : 0;
     // Float64 arrays first (8-byte aligned from 0), then the Int32 arrays.
-    let top = 0;
-    const f64 = (count: number) => {
-      const at = top;
-      top += 8 * count;
-      return at;
-    };
-    const i32 = (count: number) => {
-      const at = top;
-      top += 4 * count;
-      return at;
-    };
+    const l = new Layout();
+    const f64 = (count: number) => l.take(8 * count);
+    const i32 = (count: number) => l.take(4 * count);
     const at: Offsets = {
       fac: f64(2 * slots),
       inv: f64(2 * n),
@@ -240,8 +244,8 @@ export class KernelSpace {
       vRe: f64(n),
       vIm: f64(n),
       mVal: f64(nnz),
-      slotG: f64(2 * slots),
-      cValues: f64(slots),
+      slotG: f64(2 * staged),
+      cValues: f64(staged),
       rowG: f64(nnz),
       rowC: f64(nnz),
       colG: f64(nnz),
@@ -258,12 +262,12 @@ export class KernelSpace {
       steps: i32(n),
       mPtr: i32(n + 1),
       mIdx: i32(nnz),
-      cSlots: i32(slots),
+      cSlots: i32(staged),
       rowPtr: i32(n + 1),
       colPtr: i32(n + 1),
     };
     this.at = at;
-    const { memory, exports } = kernelsIn(top);
+    const { memory, exports } = kernelsIn(l.size);
     this.memory = memory;
     this.runEliminate = exports.eliminate as Eliminate;
     this.runBackward = exports.backward as Backward;
@@ -277,6 +281,7 @@ export class KernelSpace {
     this.w = new Float64Array(buf, at.w, 2 * n + 2);
     this.cm = new Float64Array(buf, at.cm, n);
     this.rm = new Float64Array(buf, at.rm, n);
+    this.tests = { cm: this.cm, rm: this.rm };
     this.bRe = new Float64Array(buf, at.bRe, n);
     this.bIm = new Float64Array(buf, at.bIm, n);
     this.xRe = new Float64Array(buf, at.xRe, n);
@@ -309,7 +314,6 @@ export class KernelSpace {
     bRe: Float64Array | null,
     bIm: Float64Array | null,
   ): number {
-    const at = this.at;
     this.cm.set(cm);
     this.rm.set(rm);
     const fwd = bRe !== null && bIm !== null;
@@ -317,6 +321,12 @@ export class KernelSpace {
       this.bRe.set(bRe);
       this.bIm.set(bIm);
     }
+    return this.elimination(tol2, half, fwd);
+  }
+
+  /** `eliminate` over the loaded slots with the tests and b in the memory (see `eliminate`). */
+  private elimination(tol2: number, half: number, fwd: boolean): number {
+    const at = this.at;
     return this.runEliminate(
       this.n,
       at.lPtr,
@@ -391,34 +401,11 @@ export class KernelSpace {
       this.bRe.set(bRe);
       this.bIm.set(bIm);
     }
-    return this.runEliminate(
-      this.n,
-      at.lPtr,
-      at.lIdx,
-      at.uPtr,
-      at.uIdx,
-      at.rowPerm,
-      at.updStart,
-      at.upd,
-      at.fac,
-      at.inv,
-      at.w,
-      at.cm,
-      at.rm,
-      at.bRe,
-      at.bIm,
-      this.offU,
-      this.offD,
-      tol2,
-      half,
-      fwd ? 1 : 0,
-    );
+    return this.elimination(tol2, half, fwd);
   }
 
-  /** The pivot tests `factorPencil` used last (cm, rm in pivot order). */
-  get tests(): { cm: Float64Array; rm: Float64Array } {
-    return { cm: this.cm, rm: this.rm };
-  }
+  /** The pivot tests `factorPencil` used last (cm, rm in pivot order; views of the memory). */
+  readonly tests: { cm: Float64Array; rm: Float64Array };
 
   /**
    * U·z = y (y in w) over `steps` (descending; null: every step), x = Q·z there; x's other
@@ -542,12 +529,8 @@ let testsScratch: { bytes: number; memory: WebAssembly.Memory; run: PencilTests 
  */
 export function pencilTestsOf(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
   const n = cm.length;
-  let top = 0;
-  const take = (bytes: number) => {
-    const at = top;
-    top += bytes;
-    return at;
-  };
+  const l = new Layout();
+  const take = (bytes: number) => l.take(bytes);
   const at = {
     cm: take(8 * n),
     rm: take(8 * n),
@@ -558,8 +541,8 @@ export function pencilTestsOf(pen: PencilMaxima, w: number, cm: Float64Array, rm
     rowPtr: take(4 * (n + 1)),
     colPtr: take(4 * (n + 1)),
   };
-  if (!testsScratch || testsScratch.bytes < top) {
-    const { memory, exports } = kernelsIn(top);
+  if (!testsScratch || testsScratch.bytes < l.size) {
+    const { memory, exports } = kernelsIn(l.size);
     testsScratch = { bytes: memory.buffer.byteLength, memory, run: exports.pencilTests as PencilTests };
   }
   const buf = testsScratch.memory.buffer;
