@@ -383,19 +383,7 @@ export class KernelSpace {
   ): number {
     const at = this.at;
     this.runLoad(at.fac, at.slotG, 16 * (this.offD + this.n), at.cSlots, at.cValues, this.cCount, omega);
-    this.runTests(
-      this.n,
-      this.single,
-      at.rowPtr,
-      at.rowG,
-      at.rowC,
-      at.colPtr,
-      at.colG,
-      at.colC,
-      omega,
-      at.cm,
-      at.rm,
-    );
+    testsAt(this.runTests, this.n, this.single, at, omega);
     const fwd = bRe !== null && bIm !== null;
     if (fwd) {
       this.bRe.set(bRe);
@@ -519,6 +507,17 @@ function stageTerms(buf: ArrayBufferLike, at: TermOffsets, pen: PencilMaxima): v
   new Float64Array(buf, at.colC, pen.colC.length).set(pen.colC);
 }
 
+/** `pencilTests` at w ≥ 0 over the terms at `at`, into the cm and rm there. */
+function testsAt(
+  run: PencilTests,
+  n: number,
+  single: number,
+  at: TermOffsets & { cm: number; rm: number },
+  w: number,
+): void {
+  run(n, single, at.rowPtr, at.rowG, at.rowC, at.colPtr, at.colG, at.colC, w, at.cm, at.rm);
+}
+
 /** A memory for `pencilTestsOf`, kept for the next call of the same size or smaller. */
 let testsScratch: { bytes: number; memory: WebAssembly.Memory; run: PencilTests } | null = null;
 
@@ -547,19 +546,7 @@ export function pencilTestsOf(pen: PencilMaxima, w: number, cm: Float64Array, rm
   }
   const buf = testsScratch.memory.buffer;
   stageTerms(buf, at, pen);
-  testsScratch.run(
-    n,
-    pen.single ? 1 : 0,
-    at.rowPtr,
-    at.rowG,
-    at.rowC,
-    at.colPtr,
-    at.colG,
-    at.colC,
-    w,
-    at.cm,
-    at.rm,
-  );
+  testsAt(testsScratch.run, n, pen.single ? 1 : 0, at, w);
   cm.set(new Float64Array(buf, at.cm, n));
   rm.set(new Float64Array(buf, at.rm, n));
 }
