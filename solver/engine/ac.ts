@@ -29,15 +29,20 @@ export function formatHz(f: number): string {
  */
 export class AcSolver {
   sys: MnaSystem;
-  readonly xRe: Float64Array;
-  readonly xIm: Float64Array;
-  readonly dxRe: Float64Array;
-  readonly dxIm: Float64Array;
+  /**
+   * The solution and its derivative. From the first solve on they are arrays in the LU's memory
+   * (`SparseComplexLU.solutionArrays`), which the solves write in place: read them through the
+   * solver each time, not kept from before the first solve.
+   */
+  xRe: Float64Array;
+  xIm: Float64Array;
+  dxRe: Float64Array;
+  dxIm: Float64Array;
   /** Solution for `sys.second` (zeros when the system has none), and its derivative. */
-  readonly x2Re: Float64Array;
-  readonly x2Im: Float64Array;
-  readonly dx2Re: Float64Array;
-  readonly dx2Im: Float64Array;
+  x2Re: Float64Array;
+  x2Im: Float64Array;
+  dx2Re: Float64Array;
+  dx2Im: Float64Array;
   private lu: SparseComplexLU | null = null;
   /** The system whose G and C the LU's pencil maxima were computed from (a rebind changes it). */
   private pencilOf: MnaSystem | null = null;
@@ -77,6 +82,23 @@ export class AcSolver {
     return true;
   }
 
+  /** Keep x, dx/ds (and those of the second right-hand side) in the LU's arrays, as they are. */
+  private adoptSolutionArrays(out: Float64Array[] | null): void {
+    if (!out) return;
+    const own = [this.xRe, this.xIm, this.dxRe, this.dxIm, this.x2Re, this.x2Im, this.dx2Re, this.dx2Im];
+    for (const [i, a] of own.entries()) out[i]!.set(a);
+    [this.xRe, this.xIm, this.dxRe, this.dxIm, this.x2Re, this.x2Im, this.dx2Re, this.dx2Im] = out as [
+      Float64Array,
+      Float64Array,
+      Float64Array,
+      Float64Array,
+      Float64Array,
+      Float64Array,
+      Float64Array,
+      Float64Array,
+    ];
+  }
+
   /** How many frequencies needed their own pivot order. */
   get repivots(): number {
     return this.lu?.repivots ?? 0;
@@ -91,6 +113,7 @@ export class AcSolver {
     if (!this.lu) {
       assemble(sys, f);
       this.lu = new SparseComplexLU(sys.matrix);
+      this.adoptSolutionArrays(this.lu.solutionArrays());
       this.lu.setPencil(sys.g, sys.c);
       this.pencilOf = sys;
       ok = !this.lu.isSingular();

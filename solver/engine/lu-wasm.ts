@@ -155,6 +155,7 @@ interface Offsets {
   xIm: number;
   vRe: number;
   vIm: number;
+  outputs: number;
   mVal: number;
   slotG: number;
   cValues: number;
@@ -180,6 +181,9 @@ interface Offsets {
 }
 
 const PAGE = 65536;
+
+/** How many n-vectors each memory keeps for a caller's solutions (`KernelSpace.outputArrays`). */
+const OUTPUTS = 8;
 
 /** One pivot order's memory and kernels (see the module comment). */
 export class KernelSpace {
@@ -243,6 +247,7 @@ export class KernelSpace {
       xIm: f64(n),
       vRe: f64(n),
       vIm: f64(n),
+      outputs: f64(OUTPUTS * n),
       mVal: f64(nnz),
       slotG: f64(2 * staged),
       cValues: f64(staged),
@@ -351,6 +356,30 @@ export class KernelSpace {
     );
   }
 
+  /** True when a lies in this memory (a vector of `outputArrays`). */
+  private holds(a: Float64Array): boolean {
+    return a.buffer === this.memory.buffer;
+  }
+
+  /**
+   * Eight n-vectors in this memory, for a caller's solutions and derivatives (`AcSolver`'s x, dx/ds
+   * and those of a second right-hand side): a solve into them writes in place, and dx/ds reads x
+   * there, with no copy in or out. The same arrays on every call.
+   */
+  outputArrays(): Float64Array[] {
+    if (!this.outputs) {
+      const buf = this.memory.buffer;
+      const { n } = this;
+      this.outputs = Array.from(
+        { length: OUTPUTS },
+        (_, i) => new Float64Array(buf, this.at.outputs + 8 * i * n, n),
+      );
+    }
+    return this.outputs;
+  }
+
+  private outputs: Float64Array[] | null = null;
+
   /**
    * Copy a plan's pencil into the memory (its slot image of G, where C is, and the kept terms of
    * `pencilTests`), unless it is the one there already. The plan must have `slotG` (`planPencil`).
@@ -412,6 +441,8 @@ export class KernelSpace {
       stepsAt = at.steps;
       count = steps.length;
     }
+    // x in this memory (`outputArrays`) is written in place; any other x through the scratch.
+    const direct = this.holds(xRe) && this.holds(xIm);
     const finite = this.runBackward(
       count,
       stepsAt,
@@ -421,9 +452,10 @@ export class KernelSpace {
       at.fac + 16 * this.offU,
       at.inv,
       at.w,
-      at.xRe,
-      at.xIm,
+      direct ? xRe.byteOffset : at.xRe,
+      direct ? xIm.byteOffset : at.xIm,
     );
+    if (direct) return finite === 1;
     if (steps === null) {
       xRe.set(this.xRe);
       xIm.set(this.xIm);
@@ -470,8 +502,12 @@ export class KernelSpace {
       new Float64Array(buf, at.mVal, m.val.length).set(m.val);
       this.mOf = m;
     }
-    this.vRe.set(vRe);
-    this.vIm.set(vIm);
+    // v in this memory (`outputArrays`) is read in place; any other v is copied in.
+    const direct = this.holds(vRe) && this.holds(vIm);
+    if (!direct) {
+      this.vRe.set(vRe);
+      this.vIm.set(vIm);
+    }
     this.runForward(
       this.n,
       at.rowPerm,
@@ -482,8 +518,8 @@ export class KernelSpace {
       at.mPtr,
       at.mIdx,
       at.mVal,
-      at.vRe,
-      at.vIm,
+      direct ? vRe.byteOffset : at.vRe,
+      direct ? vIm.byteOffset : at.vIm,
     );
   }
 }

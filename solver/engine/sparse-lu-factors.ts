@@ -101,6 +101,11 @@ export class LUFactors {
     this.w = space.w;
   }
 
+  /** The memory of order s, if it has been used. */
+  spaceOf(s: Symbolic): KernelSpace | null {
+    return this.spaces.get(s) ?? null;
+  }
+
   /** Drop the plan of an order no longer in use. */
   forget(s: Symbolic): void {
     this.plans.delete(s);

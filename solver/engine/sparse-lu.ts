@@ -106,6 +106,14 @@ export class SparseComplexLU {
     this.pencil = { ...pencilMaxima(this.a, g, c), g, c };
   }
 
+  /**
+   * Eight n-vectors in the memory of the sweep's order (null before it has one): solves and dx/ds
+   * into them are written in place, with no copy (`KernelSpace.outputArrays`). For `AcSolver`.
+   */
+  solutionArrays(): Float64Array[] | null {
+    return this.base ? (this.f.spaceOf(this.base)?.outputArrays() ?? null) : null;
+  }
+
   /** Original column indices left unpivoted when the factorization failed (diagnostics). */
   get singularColumns(): readonly number[] {
     return this.f.failedCols;
