@@ -296,11 +296,6 @@
         (local.set $i (i32.add (local.get $i) (i32.const 1)))
         (br $each))))
 
-  ;; m if 0 < m < ∞, else 1.
-  (func $testValue (param $m f64) (result f64)
-    (select (local.get $m) (f64.const 1)
-      (i32.and (f64.gt (local.get $m) (f64.const 0)) (f64.lt (local.get $m) (f64.const inf)))))
-
   ;; The largest g + w·c over terms [p, p1) (0 when none exceeds 0).
   (func $maxTerm (param $g i32) (param $c i32) (param $p i32) (param $p1 i32) (param $w f64) (result f64)
     (local $m f64) (local $v f64)
@@ -315,30 +310,43 @@
         (br $each)))
     (local.get $m))
 
+  ;; Each test value is m where 0 < m < ∞, else 1 (written out: a call per value costs more than it).
   (func (export "pencilTests")
     (param $n i32) (param $single i32) (param $rowPtr i32) (param $rowG i32) (param $rowC i32)
     (param $colPtr i32) (param $colG i32) (param $colC i32) (param $w f64) (param $cm i32) (param $rm i32)
-    (local $k i32) (local $a i32) (local $b i32)
-    (block $done
-      (loop $each
-        (br_if $done (i32.ge_s (local.get $k) (local.get $n)))
-        (local.set $a (i32.shl (local.get $k) (i32.const 3)))
-        (if (local.get $single)
-          (then
-            ;; One term per row and column: term k of each.
-            (f64.store (i32.add (local.get $cm) (local.get $a)) (call $testValue
-              (f64.add (f64.load (i32.add (local.get $colG) (local.get $a))) (f64.mul (local.get $w) (f64.load (i32.add (local.get $colC) (local.get $a)))))))
-            (f64.store (i32.add (local.get $rm) (local.get $a)) (call $testValue
-              (f64.add (f64.load (i32.add (local.get $rowG) (local.get $a))) (f64.mul (local.get $w) (f64.load (i32.add (local.get $rowC) (local.get $a))))))))
-          (else
+    (local $k i32) (local $a i32) (local $b i32) (local $m f64)
+    (if (local.get $single)
+      (then
+        ;; One term per row and column: term k of each.
+        (block $done
+          (loop $each
+            (br_if $done (i32.ge_s (local.get $k) (local.get $n)))
+            (local.set $a (i32.shl (local.get $k) (i32.const 3)))
+            (local.set $m (f64.add (f64.load (i32.add (local.get $colG) (local.get $a)))
+              (f64.mul (local.get $w) (f64.load (i32.add (local.get $colC) (local.get $a))))))
+            (f64.store (i32.add (local.get $cm) (local.get $a)) (select (local.get $m) (f64.const 1)
+              (i32.and (f64.gt (local.get $m) (f64.const 0)) (f64.lt (local.get $m) (f64.const inf)))))
+            (local.set $m (f64.add (f64.load (i32.add (local.get $rowG) (local.get $a)))
+              (f64.mul (local.get $w) (f64.load (i32.add (local.get $rowC) (local.get $a))))))
+            (f64.store (i32.add (local.get $rm) (local.get $a)) (select (local.get $m) (f64.const 1)
+              (i32.and (f64.gt (local.get $m) (f64.const 0)) (f64.lt (local.get $m) (f64.const inf)))))
+            (local.set $k (i32.add (local.get $k) (i32.const 1)))
+            (br $each))))
+      (else
+        (block $done
+          (loop $each
+            (br_if $done (i32.ge_s (local.get $k) (local.get $n)))
+            (local.set $a (i32.shl (local.get $k) (i32.const 3)))
             (local.set $b (i32.add (local.get $colPtr) (i32.shl (local.get $k) (i32.const 2))))
-            (f64.store (i32.add (local.get $cm) (local.get $a)) (call $testValue
-              (call $maxTerm (local.get $colG) (local.get $colC) (i32.load (local.get $b)) (i32.load offset=4 (local.get $b)) (local.get $w))))
+            (local.set $m (call $maxTerm (local.get $colG) (local.get $colC) (i32.load (local.get $b)) (i32.load offset=4 (local.get $b)) (local.get $w)))
+            (f64.store (i32.add (local.get $cm) (local.get $a)) (select (local.get $m) (f64.const 1)
+              (i32.and (f64.gt (local.get $m) (f64.const 0)) (f64.lt (local.get $m) (f64.const inf)))))
             (local.set $b (i32.add (local.get $rowPtr) (i32.shl (local.get $k) (i32.const 2))))
-            (f64.store (i32.add (local.get $rm) (local.get $a)) (call $testValue
-              (call $maxTerm (local.get $rowG) (local.get $rowC) (i32.load (local.get $b)) (i32.load offset=4 (local.get $b)) (local.get $w))))))
-        (local.set $k (i32.add (local.get $k) (i32.const 1)))
-        (br $each))))
+            (local.set $m (call $maxTerm (local.get $rowG) (local.get $rowC) (i32.load (local.get $b)) (i32.load offset=4 (local.get $b)) (local.get $w)))
+            (f64.store (i32.add (local.get $rm) (local.get $a)) (select (local.get $m) (f64.const 1)
+              (i32.and (f64.gt (local.get $m) (f64.const 0)) (f64.lt (local.get $m) (f64.const inf)))))
+            (local.set $k (i32.add (local.get $k) (i32.const 1)))
+            (br $each))))))
 
   (func (export "transposed")
     (param $n i32) (param $first i32) (param $uPtr i32) (param $uIdx i32) (param $facU i32)
