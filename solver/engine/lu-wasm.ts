@@ -182,6 +182,18 @@ interface Offsets {
 
 const PAGE = 65536;
 
+/**
+ * dst[0…src.length) = src: `set` (a memory copy) for long vectors, an index loop for short ones,
+ * where `set`'s fixed cost is most of a small circuit's per-point work (a Monte Carlo sample).
+ */
+function copy(dst: Float64Array, src: Float64Array): void {
+  if (src.length > 32) {
+    dst.set(src);
+    return;
+  }
+  for (let i = 0; i < src.length; i++) dst[i] = src[i]!;
+}
+
 /** How many n-vectors each memory keeps for a caller's solutions (`KernelSpace.outputArrays`). */
 const OUTPUTS = 8;
 
@@ -202,6 +214,8 @@ export class KernelSpace {
   /** Q: the unknown of each step. */
   private readonly colPerm: Int32Array;
   private readonly memory: WebAssembly.Memory;
+  /** The memory's buffer, read once (the memory never grows, and the getter is not free). */
+  private readonly buffer: ArrayBuffer;
   private readonly at: Offsets;
   private readonly n: number;
   private readonly offU: number;
@@ -274,6 +288,7 @@ export class KernelSpace {
     this.at = at;
     const { memory, exports } = kernelsIn(l.size);
     this.memory = memory;
+    this.buffer = memory.buffer;
     this.runEliminate = exports.eliminate as Eliminate;
     this.runBackward = exports.backward as Backward;
     this.runForward = exports.forwardOfProduct as ForwardOfProduct;
@@ -319,12 +334,12 @@ export class KernelSpace {
     bRe: Float64Array | null,
     bIm: Float64Array | null,
   ): number {
-    this.cm.set(cm);
-    this.rm.set(rm);
+    copy(this.cm, cm);
+    copy(this.rm, rm);
     const fwd = bRe !== null && bIm !== null;
     if (fwd) {
-      this.bRe.set(bRe);
-      this.bIm.set(bIm);
+      copy(this.bRe, bRe);
+      copy(this.bIm, bIm);
     }
     return this.elimination(tol2, half, fwd);
   }
@@ -358,7 +373,7 @@ export class KernelSpace {
 
   /** True when a lies in this memory (a vector of `outputArrays`). */
   private holds(a: Float64Array): boolean {
-    return a.buffer === this.memory.buffer;
+    return a.buffer === this.buffer;
   }
 
   /**
@@ -368,7 +383,7 @@ export class KernelSpace {
    */
   outputArrays(): Float64Array[] {
     if (!this.outputs) {
-      const buf = this.memory.buffer;
+      const buf = this.buffer;
       const { n } = this;
       this.outputs = Array.from(
         { length: OUTPUTS },
@@ -388,7 +403,7 @@ export class KernelSpace {
     const pen = plan.pencil!;
     if (this.pencilOf === plan.pencilOf) return;
     const at = this.at;
-    const buf = this.memory.buffer;
+    const buf = this.buffer;
     new Float64Array(buf, at.slotG, plan.slotG!.length).set(plan.slotG!);
     new Int32Array(buf, at.cSlots, plan.cSlots!.length).set(plan.cSlots!);
     new Float64Array(buf, at.cValues, plan.cValues!.length).set(plan.cValues!);
@@ -415,8 +430,8 @@ export class KernelSpace {
     testsAt(this.runTests, this.n, this.single, at, omega);
     const fwd = bRe !== null && bIm !== null;
     if (fwd) {
-      this.bRe.set(bRe);
-      this.bIm.set(bIm);
+      copy(this.bRe, bRe);
+      copy(this.bIm, bIm);
     }
     return this.elimination(tol2, half, fwd);
   }
@@ -435,7 +450,7 @@ export class KernelSpace {
     let count = this.n;
     if (steps !== null) {
       if (steps !== this.stepsOf) {
-        new Int32Array(this.memory.buffer, at.steps, steps.length).set(steps);
+        new Int32Array(this.buffer, at.steps, steps.length).set(steps);
         this.stepsOf = steps;
       }
       stepsAt = at.steps;
@@ -457,8 +472,8 @@ export class KernelSpace {
     );
     if (direct) return finite === 1;
     if (steps === null) {
-      xRe.set(this.xRe);
-      xIm.set(this.xIm);
+      copy(xRe, this.xRe);
+      copy(xIm, this.xIm);
     } else {
       // Only the steps' unknowns: the others keep what they held.
       const { colPerm } = this;
@@ -496,7 +511,7 @@ export class KernelSpace {
   forwardOfProduct(m: RealCsr, vRe: Float64Array, vIm: Float64Array): void {
     const at = this.at;
     if (m !== this.mOf) {
-      const buf = this.memory.buffer;
+      const buf = this.buffer;
       new Int32Array(buf, at.mPtr, m.ptr.length).set(m.ptr);
       new Int32Array(buf, at.mIdx, m.idx.length).set(m.idx);
       new Float64Array(buf, at.mVal, m.val.length).set(m.val);
@@ -505,8 +520,8 @@ export class KernelSpace {
     // v in this memory (`outputArrays`) is read in place; any other v is copied in.
     const direct = this.holds(vRe) && this.holds(vIm);
     if (!direct) {
-      this.vRe.set(vRe);
-      this.vIm.set(vIm);
+      copy(this.vRe, vRe);
+      copy(this.vIm, vIm);
     }
     this.runForward(
       this.n,
