@@ -213,7 +213,6 @@ export class KernelSpace {
   private readonly vIm: Float64Array;
   /** Q: the unknown of each step. */
   private readonly colPerm: Int32Array;
-  private readonly memory: WebAssembly.Memory;
   /** The memory's buffer, read once (the memory never grows, and the getter is not free). */
   private readonly buffer: ArrayBuffer;
   private readonly at: Offsets;
@@ -287,7 +286,6 @@ export class KernelSpace {
     };
     this.at = at;
     const { memory, exports } = kernelsIn(l.size);
-    this.memory = memory;
     this.buffer = memory.buffer;
     this.runEliminate = exports.eliminate as Eliminate;
     this.runBackward = exports.backward as Backward;
