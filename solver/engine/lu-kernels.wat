@@ -12,13 +12,18 @@
 ;; forwardOfProduct: L·y = −P·M·v into w (M real, in CSR). Both as in sparse-lu-solve.ts.
 ;; transposed: Uᵀ·y = w forward from step `first`, then Lᵀ·v = y backward, in w, steps whose
 ;; entry is zero skipped (sparse-lu-solve.ts `solveFactorsTransposedInSteps`).
+;; The entries a sweep calls per point take the offsets of their arrays from a header at the start
+;; of the memory (`KernelSpace` writes it once; byte offsets below): few arguments, since a call from
+;; JavaScript converts each one (a generic wrapper, ~10 ns an argument here), and one call per step:
+;; factorPencil (load, pencilTests, eliminate), solve (backward), derive (forwardOfProduct, backward),
+;; adjoint (transposed); eliminate alone for a refactor of given values.
 ;; load: the factors' slots from G's slot image and ω·C (sparse-lu-numeric.ts `factorPencil`).
 ;; pencilTests: the pivot tests' maxima at ω from a pencil's kept terms (pencil-maxima.ts).
 ;; equilibrate: Ruiz's max-norm sweeps in powers of two (equilibrate.ts); returns the largest
 ;; |re| + |im| of the scaled matrix and leaves the sweep count at `out`.
 (module
   (import "env" "memory" (memory 1))
-  (func (export "eliminate")
+  (func $eliminate
     (param $n i32) (param $lPtr i32) (param $lIdx i32) (param $uPtr i32) (param $uIdx i32)
     (param $rowPerm i32) (param $updStart i32) (param $upd i32)
     (param $fac i32) (param $inv i32) (param $w i32) (param $cm i32) (param $rm i32)
@@ -113,7 +118,7 @@
         (local.set $k (i32.add (local.get $k) (i32.const 1)))
         (br $rows)))
     (i32.const -1))
-  (func (export "backward")
+  (func $backward
     (param $nsteps i32) (param $steps i32) (param $colPerm i32) (param $uPtr i32) (param $uIdx i32)
     (param $facU i32) (param $inv i32) (param $w i32) (param $xRe i32) (param $xIm i32)
     (result i32)
@@ -158,7 +163,7 @@
         (br $steps)))
     (f64.eq (local.get $finite) (f64.const 0)))
 
-  (func (export "forwardOfProduct")
+  (func $forwardOfProduct
     (param $n i32) (param $rowPerm i32) (param $lPtr i32) (param $lIdx i32) (param $fac i32) (param $w i32)
     (param $ptr i32) (param $idx i32) (param $val i32) (param $vRe i32) (param $vIm i32)
     (local $k i32) (local $r i32) (local $p i32) (local $p1 i32) (local $q i32) (local $q0 i32) (local $q1 i32)
@@ -282,7 +287,7 @@
         (br $sweepLoop)))
     (local.get $biggest))
 
-  (func (export "load")
+  (func $load
     (param $fac i32) (param $slotG i32) (param $bytes i32) (param $cSlots i32) (param $cValues i32) (param $count i32)
     (param $omega f64)
     (local $i i32)
@@ -311,7 +316,7 @@
     (local.get $m))
 
   ;; Each test value is m where 0 < m < ∞, else 1 (written out: a call per value costs more than it).
-  (func (export "pencilTests")
+  (func $pencilTests (export "pencilTests")
     (param $n i32) (param $single i32) (param $rowPtr i32) (param $rowG i32) (param $rowC i32)
     (param $colPtr i32) (param $colG i32) (param $colC i32) (param $w f64) (param $cm i32) (param $rm i32)
     (local $k i32) (local $a i32) (local $b i32) (local $m f64)
@@ -348,7 +353,7 @@
             (local.set $k (i32.add (local.get $k) (i32.const 1)))
             (br $each))))))
 
-  (func (export "transposed")
+  (func $transposed
     (param $n i32) (param $first i32) (param $uPtr i32) (param $uIdx i32) (param $facU i32)
     (param $lPtr i32) (param $lIdx i32) (param $fac i32) (param $inv i32) (param $w i32)
     (local $k i32) (local $t i32) (local $t1 i32) (local $a i32) (local $c i32)
@@ -409,4 +414,55 @@
               (local.set $t (i32.add (local.get $t) (i32.const 1)))
               (br $l)))))
         (br $backward))))
+
+  ;; Header (i32 at byte offset): 0 n, 4 lPtr, 8 lIdx, 12 uPtr, 16 uIdx, 20 rowPerm, 24 updStart,
+  ;; 28 upd, 32 fac, 36 inv, 40 w, 44 cm, 48 rm, 52 bRe, 56 bIm, 60 offU, 64 offD, 68 colPerm,
+  ;; 72 facU, 76 mPtr, 80 mIdx, 84 mVal, 88 slotG, 92 cSlots, 96 cValues, 100 cCount, 104 single,
+  ;; 108 rowPtr, 112 rowG, 116 rowC, 120 colPtr, 124 colG, 128 colC, 132 slotBytes.
+
+  (func $eliminateAt (param $h i32) (param $tol2 f64) (param $half f64) (param $fwd i32) (result i32)
+    (call $eliminate
+      (i32.load (local.get $h)) (i32.load offset=4 (local.get $h)) (i32.load offset=8 (local.get $h))
+      (i32.load offset=12 (local.get $h)) (i32.load offset=16 (local.get $h)) (i32.load offset=20 (local.get $h))
+      (i32.load offset=24 (local.get $h)) (i32.load offset=28 (local.get $h)) (i32.load offset=32 (local.get $h))
+      (i32.load offset=36 (local.get $h)) (i32.load offset=40 (local.get $h)) (i32.load offset=44 (local.get $h))
+      (i32.load offset=48 (local.get $h)) (i32.load offset=52 (local.get $h)) (i32.load offset=56 (local.get $h))
+      (i32.load offset=60 (local.get $h)) (i32.load offset=64 (local.get $h))
+      (local.get $tol2) (local.get $half) (local.get $fwd)))
+
+  (func (export "eliminate") (param $h i32) (param $tol2 f64) (param $half f64) (param $fwd i32) (result i32)
+    (call $eliminateAt (local.get $h) (local.get $tol2) (local.get $half) (local.get $fwd)))
+
+  (func (export "factorPencil") (param $h i32) (param $omega f64) (param $tol2 f64) (param $half f64) (param $fwd i32) (result i32)
+    (call $load (i32.load offset=32 (local.get $h)) (i32.load offset=88 (local.get $h)) (i32.load offset=132 (local.get $h))
+      (i32.load offset=92 (local.get $h)) (i32.load offset=96 (local.get $h)) (i32.load offset=100 (local.get $h))
+      (local.get $omega))
+    (call $pencilTests (i32.load (local.get $h)) (i32.load offset=104 (local.get $h))
+      (i32.load offset=108 (local.get $h)) (i32.load offset=112 (local.get $h)) (i32.load offset=116 (local.get $h))
+      (i32.load offset=120 (local.get $h)) (i32.load offset=124 (local.get $h)) (i32.load offset=128 (local.get $h))
+      (local.get $omega) (i32.load offset=44 (local.get $h)) (i32.load offset=48 (local.get $h)))
+    (call $eliminateAt (local.get $h) (local.get $tol2) (local.get $half) (local.get $fwd)))
+
+  (func $backwardAt (param $h i32) (param $nsteps i32) (param $steps i32) (param $xRe i32) (param $xIm i32) (result i32)
+    (call $backward (local.get $nsteps) (local.get $steps) (i32.load offset=68 (local.get $h))
+      (i32.load offset=12 (local.get $h)) (i32.load offset=16 (local.get $h)) (i32.load offset=72 (local.get $h))
+      (i32.load offset=36 (local.get $h)) (i32.load offset=40 (local.get $h)) (local.get $xRe) (local.get $xIm)))
+
+  (func (export "solve") (param $h i32) (param $nsteps i32) (param $steps i32) (param $xRe i32) (param $xIm i32) (result i32)
+    (call $backwardAt (local.get $h) (local.get $nsteps) (local.get $steps) (local.get $xRe) (local.get $xIm)))
+
+  (func (export "derive")
+    (param $h i32) (param $vRe i32) (param $vIm i32) (param $nsteps i32) (param $steps i32) (param $xRe i32) (param $xIm i32)
+    (result i32)
+    (call $forwardOfProduct (i32.load (local.get $h)) (i32.load offset=20 (local.get $h)) (i32.load offset=4 (local.get $h))
+      (i32.load offset=8 (local.get $h)) (i32.load offset=32 (local.get $h)) (i32.load offset=40 (local.get $h))
+      (i32.load offset=76 (local.get $h)) (i32.load offset=80 (local.get $h)) (i32.load offset=84 (local.get $h))
+      (local.get $vRe) (local.get $vIm))
+    (call $backwardAt (local.get $h) (local.get $nsteps) (local.get $steps) (local.get $xRe) (local.get $xIm)))
+
+  (func (export "adjoint") (param $h i32) (param $first i32)
+    (call $transposed (i32.load (local.get $h)) (local.get $first) (i32.load offset=12 (local.get $h))
+      (i32.load offset=16 (local.get $h)) (i32.load offset=72 (local.get $h)) (i32.load offset=4 (local.get $h))
+      (i32.load offset=8 (local.get $h)) (i32.load offset=32 (local.get $h)) (i32.load offset=36 (local.get $h))
+      (i32.load offset=40 (local.get $h))))
 )

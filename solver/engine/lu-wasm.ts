@@ -18,65 +18,20 @@ import type { Symbolic } from "./markowitz";
 import type { PencilMaxima } from "./pencil-maxima";
 import type { Plan } from "./sparse-lu-plan";
 
-type Eliminate = (
-  n: number,
-  lPtr: number,
-  lIdx: number,
-  uPtr: number,
-  uIdx: number,
-  rowPerm: number,
-  updStart: number,
-  upd: number,
-  fac: number,
-  inv: number,
-  w: number,
-  cm: number,
-  rm: number,
-  bRe: number,
-  bIm: number,
-  offU: number,
-  offD: number,
-  tol2: number,
-  half: number,
-  fwd: number,
-) => number;
-
-type Backward = (
+/** The per-point entries take the header's offset (`HEADER`) and their own values only. */
+type Eliminate = (h: number, tol2: number, half: number, fwd: number) => number;
+type FactorPencil = (h: number, omega: number, tol2: number, half: number, fwd: number) => number;
+type Solve = (h: number, nsteps: number, steps: number, xRe: number, xIm: number) => number;
+type Derive = (
+  h: number,
+  vRe: number,
+  vIm: number,
   nsteps: number,
   steps: number,
-  colPerm: number,
-  uPtr: number,
-  uIdx: number,
-  facU: number,
-  inv: number,
-  w: number,
   xRe: number,
   xIm: number,
 ) => number;
-
-type ForwardOfProduct = (
-  n: number,
-  rowPerm: number,
-  lPtr: number,
-  lIdx: number,
-  fac: number,
-  w: number,
-  ptr: number,
-  idx: number,
-  val: number,
-  vRe: number,
-  vIm: number,
-) => void;
-
-type Load = (
-  fac: number,
-  slotG: number,
-  bytes: number,
-  cSlots: number,
-  cValues: number,
-  count: number,
-  omega: number,
-) => void;
+type Adjoint = (h: number, first: number) => void;
 
 type PencilTests = (
   n: number,
@@ -90,19 +45,6 @@ type PencilTests = (
   w: number,
   cm: number,
   rm: number,
-) => void;
-
-type Transposed = (
-  n: number,
-  first: number,
-  uPtr: number,
-  uIdx: number,
-  facU: number,
-  lPtr: number,
-  lIdx: number,
-  fac: number,
-  inv: number,
-  w: number,
 ) => void;
 
 /** A sparse real matrix in CSR (the C of the pencil, for dx/ds). */
@@ -141,6 +83,50 @@ export class Layout {
     return at;
   }
 }
+
+/**
+ * The header at the start of each order's memory: the byte offset of every array the per-point
+ * entries use, as i32 at these byte offsets (the same table is at the end of lu-kernels.wat).
+ */
+const HEADER = {
+  n: 0,
+  lPtr: 4,
+  lIdx: 8,
+  uPtr: 12,
+  uIdx: 16,
+  rowPerm: 20,
+  updStart: 24,
+  upd: 28,
+  fac: 32,
+  inv: 36,
+  w: 40,
+  cm: 44,
+  rm: 48,
+  bRe: 52,
+  bIm: 56,
+  offU: 60,
+  offD: 64,
+  colPerm: 68,
+  facU: 72,
+  mPtr: 76,
+  mIdx: 80,
+  mVal: 84,
+  slotG: 88,
+  cSlots: 92,
+  cValues: 96,
+  cCount: 100,
+  single: 104,
+  rowPtr: 108,
+  rowG: 112,
+  rowC: 116,
+  colPtr: 120,
+  colG: 124,
+  colC: 128,
+  slotBytes: 132,
+} as const;
+
+/** The header's size in bytes (a multiple of 8, so the Float64 arrays after it stay aligned). */
+const HEADER_BYTES = 136;
 
 /** Byte offsets of an order's arrays in its memory. */
 interface Offsets {
@@ -220,15 +206,14 @@ export class KernelSpace {
   private readonly offU: number;
   private readonly offD: number;
   private readonly runEliminate: Eliminate;
-  private readonly runBackward: Backward;
-  private readonly runForward: ForwardOfProduct;
-  private readonly runLoad: Load;
-  private readonly runTests: PencilTests;
-  private readonly runTransposed: Transposed;
+  private readonly runFactorPencil: FactorPencil;
+  private readonly runSolve: Solve;
+  private readonly runDerive: Derive;
+  private readonly runAdjoint: Adjoint;
+  /** The header as i32 (`HEADER`: a field's index is its byte offset / 4). */
+  private readonly header: Int32Array;
   /** The plan pencil staged (`Plan.pencilOf`), how many C slots it has, and whether it is `single`. */
   private pencilOf: PencilMaxima | null = null;
-  private cCount = 0;
-  private single = 0;
   /** The step list staged at `at.steps` (besides the whole pass at `at.descending`), and the M at `at.mPtr`. */
   private stepsOf: Int32Array | null = null;
   private mOf: RealCsr | null = null;
@@ -246,6 +231,7 @@ export class KernelSpace {
     const staged = upd ? slots : 0;
     // Float64 arrays first (8-byte aligned from 0), then the Int32 arrays.
     const l = new Layout();
+    l.take(HEADER_BYTES);
     const f64 = (count: number) => l.take(8 * count);
     const i32 = (count: number) => l.take(4 * count);
     const at: Offsets = {
@@ -288,11 +274,10 @@ export class KernelSpace {
     const { memory, exports } = kernelsIn(l.size);
     this.buffer = memory.buffer;
     this.runEliminate = exports.eliminate as Eliminate;
-    this.runBackward = exports.backward as Backward;
-    this.runForward = exports.forwardOfProduct as ForwardOfProduct;
-    this.runLoad = exports.load as Load;
-    this.runTests = exports.pencilTests as PencilTests;
-    this.runTransposed = exports.transposed as Transposed;
+    this.runFactorPencil = exports.factorPencil as FactorPencil;
+    this.runSolve = exports.solve as Solve;
+    this.runDerive = exports.derive as Derive;
+    this.runAdjoint = exports.adjoint as Adjoint;
     const buf = memory.buffer;
     this.fac = new Float64Array(buf, at.fac, 2 * slots);
     this.inv = new Float64Array(buf, at.inv, 2 * n);
@@ -317,6 +302,46 @@ export class KernelSpace {
     new Int32Array(buf, at.colPerm, n).set(s.colPerm);
     const descending = new Int32Array(buf, at.descending, n);
     for (let k = 0; k < n; k++) descending[k] = n - 1 - k;
+    this.header = new Int32Array(buf, 0, HEADER_BYTES / 4);
+    const h = this.header;
+    const put = (field: keyof typeof HEADER, value: number) => {
+      h[HEADER[field] / 4] = value;
+    };
+    for (const f of [
+      "lPtr",
+      "lIdx",
+      "uPtr",
+      "uIdx",
+      "rowPerm",
+      "updStart",
+      "upd",
+      "fac",
+      "inv",
+      "w",
+      "cm",
+      "rm",
+      "bRe",
+      "bIm",
+      "colPerm",
+      "mPtr",
+      "mIdx",
+      "mVal",
+      "slotG",
+      "cSlots",
+      "cValues",
+      "rowPtr",
+      "rowG",
+      "rowC",
+      "colPtr",
+      "colG",
+      "colC",
+    ] as const)
+      put(f, at[f]);
+    put("n", n);
+    put("offU", this.offU);
+    put("offD", this.offD);
+    put("facU", at.fac + 16 * this.offU);
+    put("slotBytes", 16 * slots);
   }
 
   /**
@@ -334,39 +359,15 @@ export class KernelSpace {
   ): number {
     copy(this.cm, cm);
     copy(this.rm, rm);
-    const fwd = bRe !== null && bIm !== null;
-    if (fwd) {
-      copy(this.bRe, bRe);
-      copy(this.bIm, bIm);
-    }
-    return this.elimination(tol2, half, fwd);
+    return this.runEliminate(0, tol2, half, this.stageB(bRe, bIm));
   }
 
-  /** `eliminate` over the loaded slots with the tests and b in the memory (see `eliminate`). */
-  private elimination(tol2: number, half: number, fwd: boolean): number {
-    const at = this.at;
-    return this.runEliminate(
-      this.n,
-      at.lPtr,
-      at.lIdx,
-      at.uPtr,
-      at.uIdx,
-      at.rowPerm,
-      at.updStart,
-      at.upd,
-      at.fac,
-      at.inv,
-      at.w,
-      at.cm,
-      at.rm,
-      at.bRe,
-      at.bIm,
-      this.offU,
-      this.offD,
-      tol2,
-      half,
-      fwd ? 1 : 0,
-    );
+  /** b into the memory for a forward pass; 1 when there is one. */
+  private stageB(bRe: Float64Array | null, bIm: Float64Array | null): number {
+    if (bRe === null || bIm === null) return 0;
+    copy(this.bRe, bRe);
+    copy(this.bIm, bIm);
+    return 1;
   }
 
   /** True when a lies in this memory (a vector of `outputArrays`). */
@@ -381,11 +382,10 @@ export class KernelSpace {
    */
   outputArrays(): Float64Array[] {
     if (!this.outputs) {
-      const buf = this.buffer;
-      const { n } = this;
+      const { n, buffer } = this;
       this.outputs = Array.from(
         { length: OUTPUTS },
-        (_, i) => new Float64Array(buf, this.at.outputs + 8 * i * n, n),
+        (_, i) => new Float64Array(buffer, this.at.outputs + 8 * i * n, n),
       );
     }
     return this.outputs;
@@ -405,16 +405,16 @@ export class KernelSpace {
     new Float64Array(buf, at.slotG, plan.slotG!.length).set(plan.slotG!);
     new Int32Array(buf, at.cSlots, plan.cSlots!.length).set(plan.cSlots!);
     new Float64Array(buf, at.cValues, plan.cValues!.length).set(plan.cValues!);
-    this.cCount = plan.cSlots!.length;
     stageTerms(buf, at, pen);
-    this.single = pen.single ? 1 : 0;
+    this.header[HEADER.cCount / 4] = plan.cSlots!.length;
+    this.header[HEADER.single / 4] = pen.single ? 1 : 0;
     this.pencilOf = plan.pencilOf;
   }
 
   /**
-   * A refactor at ω ≥ 0 of the staged pencil: the slots loaded with G and ω·C, the tests' maxima
-   * of one Ruiz step at ω, then `eliminate` (tol2 = absTol², half = τ²/2, and b as there).
-   * The step whose pivot failed, or −1; the tests used are `cm`/`rm` (views, for the verdict).
+   * A refactor at ω ≥ 0 of the staged pencil, in one call: the slots loaded with G and ω·C, the
+   * tests' maxima of one Ruiz step at ω, then `eliminate` (tol2 = absTol², half = τ²/2, and b as
+   * there). The step whose pivot failed, or −1; the tests used are `tests` (views, for the verdict).
    */
   factorPencil(
     omega: number,
@@ -423,15 +423,7 @@ export class KernelSpace {
     bRe: Float64Array | null,
     bIm: Float64Array | null,
   ): number {
-    const at = this.at;
-    this.runLoad(at.fac, at.slotG, 16 * (this.offD + this.n), at.cSlots, at.cValues, this.cCount, omega);
-    testsAt(this.runTests, this.n, this.single, at, omega);
-    const fwd = bRe !== null && bIm !== null;
-    if (fwd) {
-      copy(this.bRe, bRe);
-      copy(this.bIm, bIm);
-    }
-    return this.elimination(tol2, half, fwd);
+    return this.runFactorPencil(0, omega, tol2, half, this.stageB(bRe, bIm));
   }
 
   /** The pivot tests `factorPencil` used last (cm, rm in pivot order; views of the memory). */
@@ -439,74 +431,36 @@ export class KernelSpace {
 
   /**
    * U·z = y (y in w) over `steps` (descending; null: every step), x = Q·z there; x's other
-   * entries are left as they were (see `backward` in sparse-lu-solve.ts).
-   * False when some z is not finite.
+   * entries are left as they were (see `backward` in sparse-lu-solve.ts). False when some z is not
+   * finite. x in this memory (`outputArrays`) is written in place, any other x through the scratch.
    */
   backward(steps: Int32Array | null, xRe: Float64Array, xIm: Float64Array): boolean {
-    const at = this.at;
-    let stepsAt = at.descending;
-    let count = this.n;
-    if (steps !== null) {
-      if (steps !== this.stepsOf) {
-        new Int32Array(this.buffer, at.steps, steps.length).set(steps);
-        this.stepsOf = steps;
-      }
-      stepsAt = at.steps;
-      count = steps.length;
-    }
-    // x in this memory (`outputArrays`) is written in place; any other x through the scratch.
+    const [count, stepsAt] = this.stageSteps(steps);
     const direct = this.holds(xRe) && this.holds(xIm);
-    const finite = this.runBackward(
+    const at = this.at;
+    const finite = this.runSolve(
+      0,
       count,
       stepsAt,
-      at.colPerm,
-      at.uPtr,
-      at.uIdx,
-      at.fac + 16 * this.offU,
-      at.inv,
-      at.w,
       direct ? xRe.byteOffset : at.xRe,
       direct ? xIm.byteOffset : at.xIm,
     );
-    if (direct) return finite === 1;
-    if (steps === null) {
-      copy(xRe, this.xRe);
-      copy(xIm, this.xIm);
-    } else {
-      // Only the steps' unknowns: the others keep what they held.
-      const { colPerm } = this;
-      for (let i = 0; i < steps.length; i++) {
-        const c = colPerm[steps[i]!]!;
-        xRe[c] = this.xRe[c]!;
-        xIm[c] = this.xIm[c]!;
-      }
-    }
+    if (!direct) this.copyOut(steps, xRe, xIm);
     return finite === 1;
   }
 
   /**
-   * Aᵀ's two triangular passes in w, which holds Qᵀ·d (zero before step `first`): Uᵀ·y = w
-   * forward, then Lᵀ·v = y backward, each skipping the steps whose entry is zero (see
-   * `solveFactorsTransposedInSteps`).
+   * dx/ds's solve, A·x = −M·v (M real in CSR with A's pattern or less), in one call: L·y = −P·M·v
+   * into w (`forwardOfProduct`), then `backward` over `steps`. v and x as in `backward`.
    */
-  transposed(first: number): void {
-    const at = this.at;
-    this.runTransposed(
-      this.n,
-      first,
-      at.uPtr,
-      at.uIdx,
-      at.fac + 16 * this.offU,
-      at.lPtr,
-      at.lIdx,
-      at.fac,
-      at.inv,
-      at.w,
-    );
-  }
-
-  /** L·y = −P·M·v into w, M real in CSR with A's pattern or less (see `forwardOfProduct`). */
-  forwardOfProduct(m: RealCsr, vRe: Float64Array, vIm: Float64Array): void {
+  derive(
+    m: RealCsr,
+    vRe: Float64Array,
+    vIm: Float64Array,
+    steps: Int32Array | null,
+    xRe: Float64Array,
+    xIm: Float64Array,
+  ): boolean {
     const at = this.at;
     if (m !== this.mOf) {
       const buf = this.buffer;
@@ -515,25 +469,59 @@ export class KernelSpace {
       new Float64Array(buf, at.mVal, m.val.length).set(m.val);
       this.mOf = m;
     }
-    // v in this memory (`outputArrays`) is read in place; any other v is copied in.
-    const direct = this.holds(vRe) && this.holds(vIm);
-    if (!direct) {
+    const vIn = this.holds(vRe) && this.holds(vIm);
+    if (!vIn) {
       copy(this.vRe, vRe);
       copy(this.vIm, vIm);
     }
-    this.runForward(
-      this.n,
-      at.rowPerm,
-      at.lPtr,
-      at.lIdx,
-      at.fac,
-      at.w,
-      at.mPtr,
-      at.mIdx,
-      at.mVal,
-      direct ? vRe.byteOffset : at.vRe,
-      direct ? vIm.byteOffset : at.vIm,
+    const [count, stepsAt] = this.stageSteps(steps);
+    const direct = this.holds(xRe) && this.holds(xIm);
+    const finite = this.runDerive(
+      0,
+      vIn ? vRe.byteOffset : at.vRe,
+      vIn ? vIm.byteOffset : at.vIm,
+      count,
+      stepsAt,
+      direct ? xRe.byteOffset : at.xRe,
+      direct ? xIm.byteOffset : at.xIm,
     );
+    if (!direct) this.copyOut(steps, xRe, xIm);
+    return finite === 1;
+  }
+
+  /** How many steps and where: the whole pass (staged once), or `steps` staged when new. */
+  private stageSteps(steps: Int32Array | null): [number, number] {
+    if (steps === null) return [this.n, this.at.descending];
+    if (steps !== this.stepsOf) {
+      new Int32Array(this.buffer, this.at.steps, steps.length).set(steps);
+      this.stepsOf = steps;
+    }
+    return [steps.length, this.at.steps];
+  }
+
+  /** x from the scratch into a caller's arrays: all of it, or only the steps' unknowns. */
+  private copyOut(steps: Int32Array | null, xRe: Float64Array, xIm: Float64Array): void {
+    if (steps === null) {
+      copy(xRe, this.xRe);
+      copy(xIm, this.xIm);
+      return;
+    }
+    // Only the steps' unknowns: the others keep what they held.
+    const { colPerm } = this;
+    for (let i = 0; i < steps.length; i++) {
+      const c = colPerm[steps[i]!]!;
+      xRe[c] = this.xRe[c]!;
+      xIm[c] = this.xIm[c]!;
+    }
+  }
+
+  /**
+   * Aᵀ's two triangular passes in w, which holds Qᵀ·d (zero before step `first`): Uᵀ·y = w
+   * forward, then Lᵀ·v = y backward, each skipping the steps whose entry is zero (see
+   * `solveFactorsTransposedInSteps`).
+   */
+  transposed(first: number): void {
+    this.runAdjoint(0, first);
   }
 }
 

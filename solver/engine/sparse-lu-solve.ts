@@ -67,23 +67,11 @@ export function solveFactorsOfProduct(
   if (vRe.length !== n || vIm.length !== n || xRe.length !== n || xIm.length !== n) {
     throw new RangeError("dimension mismatch: right-hand side length ≠ n");
   }
-  forwardOfProduct(f, m, vRe, vIm);
-  return backward(f, xRe, xIm, steps);
-}
-
-/**
- * The forward half of `solveFactorsOfProduct`: L·y = −P·M·v into f.w, for each step k (row r = P's
- * k-th): y_k = −Σ M[r, j]·v_j − Σ L[k, j]·y_j. WebAssembly (`forwardOfProduct` in lu-kernels.wat).
- */
-function forwardOfProduct(
-  f: LUFactors,
-  m: { ptr: Int32Array; idx: Int32Array; val: Float64Array },
-  vRe: Float64Array,
-  vIm: Float64Array,
-): void {
+  // L·y = −P·M·v (for each step k, row r = P's k-th: y_k = −Σ M[r, j]·v_j − Σ L[k, j]·y_j), then
+  // the backward pass over `steps`, in one WebAssembly call (`derive` in lu-kernels.wat).
   f.forwardRe = null;
   f.forwardIm = null;
-  f.space!.forwardOfProduct(m, vRe, vIm);
+  return f.space!.derive(m, vRe, vIm, steps, xRe, xIm);
 }
 
 /**
