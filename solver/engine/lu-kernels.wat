@@ -420,7 +420,7 @@
   ;; 72 facU, 76 mPtr, 80 mIdx, 84 mVal, 88 slotG, 92 cSlots, 96 cValues, 100 cCount, 104 single,
   ;; 108 rowPtr, 112 rowG, 116 rowC, 120 colPtr, 124 colG, 128 colC, 132 slotBytes.
 
-  (func $eliminateAt (param $h i32) (param $tol2 f64) (param $half f64) (param $fwd i32) (result i32)
+  (func $eliminateAt (export "eliminate") (param $h i32) (param $tol2 f64) (param $half f64) (param $fwd i32) (result i32)
     (call $eliminate
       (i32.load (local.get $h)) (i32.load offset=4 (local.get $h)) (i32.load offset=8 (local.get $h))
       (i32.load offset=12 (local.get $h)) (i32.load offset=16 (local.get $h)) (i32.load offset=20 (local.get $h))
@@ -429,9 +429,6 @@
       (i32.load offset=48 (local.get $h)) (i32.load offset=52 (local.get $h)) (i32.load offset=56 (local.get $h))
       (i32.load offset=60 (local.get $h)) (i32.load offset=64 (local.get $h))
       (local.get $tol2) (local.get $half) (local.get $fwd)))
-
-  (func (export "eliminate") (param $h i32) (param $tol2 f64) (param $half f64) (param $fwd i32) (result i32)
-    (call $eliminateAt (local.get $h) (local.get $tol2) (local.get $half) (local.get $fwd)))
 
   (func (export "factorPencil") (param $h i32) (param $omega f64) (param $tol2 f64) (param $half f64) (param $fwd i32) (result i32)
     (call $load (i32.load offset=32 (local.get $h)) (i32.load offset=88 (local.get $h)) (i32.load offset=132 (local.get $h))
@@ -443,13 +440,10 @@
       (local.get $omega) (i32.load offset=44 (local.get $h)) (i32.load offset=48 (local.get $h)))
     (call $eliminateAt (local.get $h) (local.get $tol2) (local.get $half) (local.get $fwd)))
 
-  (func $backwardAt (param $h i32) (param $nsteps i32) (param $steps i32) (param $xRe i32) (param $xIm i32) (result i32)
+  (func $backwardAt (export "solve") (param $h i32) (param $nsteps i32) (param $steps i32) (param $xRe i32) (param $xIm i32) (result i32)
     (call $backward (local.get $nsteps) (local.get $steps) (i32.load offset=68 (local.get $h))
       (i32.load offset=12 (local.get $h)) (i32.load offset=16 (local.get $h)) (i32.load offset=72 (local.get $h))
       (i32.load offset=36 (local.get $h)) (i32.load offset=40 (local.get $h)) (local.get $xRe) (local.get $xIm)))
-
-  (func (export "solve") (param $h i32) (param $nsteps i32) (param $steps i32) (param $xRe i32) (param $xIm i32) (result i32)
-    (call $backwardAt (local.get $h) (local.get $nsteps) (local.get $steps) (local.get $xRe) (local.get $xIm)))
 
   (func (export "derive")
     (param $h i32) (param $vRe i32) (param $vIm i32) (param $nsteps i32) (param $steps i32) (param $xRe i32) (param $xIm i32)

@@ -303,45 +303,19 @@ export class KernelSpace {
     const descending = new Int32Array(buf, at.descending, n);
     for (let k = 0; k < n; k++) descending[k] = n - 1 - k;
     this.header = new Int32Array(buf, 0, HEADER_BYTES / 4);
-    const h = this.header;
-    const put = (field: keyof typeof HEADER, value: number) => {
-      h[HEADER[field] / 4] = value;
+    // Every header field from the offsets of the same name, or from the order's sizes (the staged
+    // pencil's count and kind come with it, `stagePencil`).
+    const values: Partial<Record<keyof typeof HEADER, number>> = {
+      ...at,
+      n,
+      offU: this.offU,
+      offD: this.offD,
+      facU: at.fac + 16 * this.offU,
+      slotBytes: 16 * slots,
     };
-    for (const f of [
-      "lPtr",
-      "lIdx",
-      "uPtr",
-      "uIdx",
-      "rowPerm",
-      "updStart",
-      "upd",
-      "fac",
-      "inv",
-      "w",
-      "cm",
-      "rm",
-      "bRe",
-      "bIm",
-      "colPerm",
-      "mPtr",
-      "mIdx",
-      "mVal",
-      "slotG",
-      "cSlots",
-      "cValues",
-      "rowPtr",
-      "rowG",
-      "rowC",
-      "colPtr",
-      "colG",
-      "colC",
-    ] as const)
-      put(f, at[f]);
-    put("n", n);
-    put("offU", this.offU);
-    put("offD", this.offD);
-    put("facU", at.fac + 16 * this.offU);
-    put("slotBytes", 16 * slots);
+    for (const [field, byte] of Object.entries(HEADER) as [keyof typeof HEADER, number][]) {
+      this.header[byte / 4] = values[field] ?? 0;
+    }
   }
 
   /**
@@ -555,15 +529,17 @@ function testsAt(
   run(n, single, at.rowPtr, at.rowG, at.rowC, at.colPtr, at.colG, at.colC, w, at.cm, at.rm);
 }
 
-/** A memory for `pencilTestsOf`, kept for the next call of the same size or smaller. */
+/** A memory for `pencilTests`, kept for the next call of the same size or smaller. */
 let testsScratch: { bytes: number; memory: WebAssembly.Memory; run: PencilTests } | null = null;
 
 /**
- * The tests' maxima at w ≥ 0 of a pencil in pivot order (`pencilTests` in lu-kernels.wat) into
- * cm and rm: what `KernelSpace.factorPencil` computes in place, for the callers without a space
- * of their own (a refactor by scatter, at ω = ∞).
+ * The maxima at ω = w ≥ 0 of a pencil in pivot order (`pencilInOrder`), as the LU's tests take
+ * them: cm[k] = max over column k's kept terms of g + w·c, rm[k] the same over row k's — or 1
+ * where that is 0 (no entry) or not finite (the factor of such a row or column stays 1).
+ * `pencilTests` in lu-kernels.wat; a sweep's refactor runs it in its order's memory
+ * (`KernelSpace.factorPencil`), this entry serves the other callers (a refactor by scatter, ω = ∞).
  */
-export function pencilTestsOf(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
+export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
   const n = cm.length;
   const l = new Layout();
   const take = (bytes: number) => l.take(bytes);

@@ -1,4 +1,3 @@
-import { pencilTestsOf } from "./lu-wasm";
 import type { SparseComplexMatrix } from "./sparse-matrix";
 
 /**
@@ -149,12 +148,7 @@ export function pencilInOrder(
 }
 
 /**
- * The maxima at ω = w ≥ 0 of a pencil in pivot order (`pencilInOrder`), as the LU's tests take
- * them: cm[k] = max over column k's kept terms of g + w·c, rm[k] the same over row k's — or 1
- * where that is 0 (no entry) or not finite (the factor of such a row or column stays 1).
- * WebAssembly (`pencilTests` in lu-kernels.wat); a sweep's refactor runs it inside its order's
- * memory (`KernelSpace.factorPencil`), this entry serves the other callers.
+ * The pivot tests' maxima at ω of a pencil in pivot order (`pencilInOrder`): `pencilTests`, in
+ * WebAssembly (lu-wasm.ts, `pencilTests` in lu-kernels.wat).
  */
-export function pencilTests(pen: PencilMaxima, w: number, cm: Float64Array, rm: Float64Array): void {
-  pencilTestsOf(pen, w, cm, rm);
-}
+export { pencilTests } from "./lu-wasm";
